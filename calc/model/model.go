@@ -1,0 +1,91 @@
+// Package model holds the plain data read from an input file: the project, the code
+// parameters in force, the materials, the design options and the columns with their actions.
+//
+// All quantities are in engine units: N, mm, MPa (N/mm²) and N·mm.
+package model
+
+import (
+	"colsheet/calc/code"
+	"colsheet/calc/material"
+)
+
+// Input is one whole input file, read and validated.
+type Input struct {
+	File      string      // path of the input file as given
+	SHA256    string      // hex SHA-256 of the file's bytes
+	Project   Project     // title block
+	Code      code.Params // partial factors and nationally determined parameters in force
+	Materials Materials   // concrete and steel
+	Options   Options     // method choices
+	Columns   []Column    // columns in input order
+}
+
+// Project is the title block of every sheet.
+type Project struct {
+	Title, Job, Revision, Designer, Checker, Date string
+}
+
+// Materials holds the concrete class and the reinforcing steel.
+type Materials struct {
+	Concrete  material.Concrete // Table 3.1 properties of the class
+	Fyk       float64           // characteristic yield strength of reinforcement, MPa
+	Aggregate float64           // maximum aggregate size dg, mm
+}
+
+// Stress blocks for concrete in the section design.
+const (
+	ParabolaRectangle = "parabola-rectangle" // EN 1992-1-1 3.1.7(1)
+	Rectangular       = "rectangular"        // EN 1992-1-1 3.1.7(3)
+)
+
+// Imperfection methods for isolated columns.
+const (
+	ImperfInclination = "inclination" // ei = θi·l0/2 with θi = θ0·αh·αm, 5.2(7)
+	ImperfL0Over400   = "l0/400"      // ei = l0/400, 5.2(9)
+)
+
+// Options holds the method choices of a calculation.
+type Options struct {
+	StressBlock   string    // ParabolaRectangle or Rectangular
+	Imperfection  string    // ImperfInclination or ImperfL0Over400
+	Members       float64   // m, number of vertical members contributing to the imperfection, 5.2(5)
+	BarDiameters  []float64 // longitudinal bar diameters to choose from, mm, ascending
+	LinkDiameters []float64 // link diameters to choose from, mm, ascending
+	LinkStep      float64   // link spacings are rounded down to a multiple of this, mm
+}
+
+// Column is one column with its section and its lifts.
+type Column struct {
+	ID      string
+	Line    int      // input line of the column entry
+	B, H    float64  // section width along y and depth along z, mm
+	Cover   float64  // nominal cover to the links, mm
+	Bars    *BarSpec // given bars to check; nil to design them
+	LinkDia float64  // given link diameter, mm; 0 to choose
+	Storeys []Storey
+}
+
+// BarSpec is a given set of longitudinal bars: a count of one diameter, laid out symmetrically.
+type BarSpec struct {
+	Count int
+	Dia   float64 // mm
+}
+
+// Storey is one lift of a column with its design actions.
+type Storey struct {
+	Name   string
+	Line   int     // input line of the storey entry
+	L0Y    float64 // effective length for buckling about y, mm
+	L0Z    float64 // effective length for buckling about z, mm
+	Length float64 // member length l for αh, mm; 0 when not given
+	NEd    float64 // design axial force, N, compression positive
+	MY     Ends    // first-order end moments about y, N·mm
+	MZ     Ends    // first-order end moments about z, N·mm
+	PhiEf  float64 // effective creep ratio
+	HasPhi bool    // whether PhiEf was given
+}
+
+// Ends holds the first-order moments at the two ends of a lift; equal signs mean single curvature.
+type Ends struct {
+	Top, Bottom float64
+}

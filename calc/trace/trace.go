@@ -1,0 +1,145 @@
+// Package trace holds the step list that records every number of a calculation.
+//
+// A calculation is a sequence of Steps. Each step names its clause, its kind and,
+// for formulas, a govaluate expression over named arguments whose values and
+// producing steps are recorded, so that any reader can re-evaluate the step.
+// Engine functions build steps with Formula, Table, Input, Solve and Check and
+// hand back the step; later steps take the step's result through Step.Q.
+package trace
+
+import "math"
+
+// Kind says what sort of step a Step is.
+type Kind string
+
+// The kinds of step.
+const (
+	KindInput   Kind = "input"   // a value taken from the input file or a default
+	KindFormula Kind = "formula" // a value computed by an expression over arguments
+	KindTable   Kind = "table"   // a value read from a standard's table
+	KindSolve   Kind = "solve"   // a value found by iteration, with a verification residual
+	KindCheck   Kind = "check"   // a comparison of an action with a resistance, with a verdict
+)
+
+// Verdicts of a check step.
+const (
+	Pass = "pass"
+	Fail = "fail"
+)
+
+// Q is a traced quantity: a value with its display symbol, unit and the step that produced it.
+type Q struct {
+	V      float64 // value in engine units (N, mm, MPa, N·mm)
+	Symbol string  // display symbol, e.g. "f_cd"
+	Unit   string  // engine unit, e.g. "MPa", "N", "mm", "Nmm", "mm2", "" for a pure number
+	From   string  // ID of the producing step; empty for a constant
+}
+
+// Const returns a quantity that no step produced, such as a number fixed by a clause.
+func Const(v float64, symbol, unit string) Q { return Q{V: v, Symbol: symbol, Unit: unit} }
+
+// Arg is one named argument of a step's expression.
+type Arg struct {
+	Name   string  `json:"name"`           // identifier used in the expression
+	Symbol string  `json:"symbol"`         // display symbol
+	Value  float64 `json:"value"`          // value in engine units
+	Unit   string  `json:"unit,omitempty"` // engine unit
+	From   string  `json:"from,omitempty"` // ID of the step that produced the value
+}
+
+// A returns the argument called name that carries quantity q.
+func A(name string, q Q) Arg {
+	return Arg{Name: name, Symbol: q.Symbol, Value: q.V, Unit: q.Unit, From: q.From}
+}
+
+// Step is one recorded step of a calculation.
+type Step struct {
+	ID       string   `json:"id"`                 // stable ID: column/storey/part/name
+	Group    string   `json:"group,omitempty"`    // heading of the sheet section the step belongs to
+	Title    string   `json:"title"`              // what the step computes, in words
+	Clause   string   `json:"clause"`             // clause reference, or "common practice"
+	Kind     Kind     `json:"kind"`               // input, formula, table, solve or check
+	Symbol   string   `json:"symbol,omitempty"`   // display symbol of the result
+	Expr     string   `json:"expr,omitempty"`     // govaluate expression over Args giving Value
+	Args     []Arg    `json:"args,omitempty"`     // arguments of Expr or Verify
+	Value    float64  `json:"value"`              // result in engine units (ratio for a check)
+	Unit     string   `json:"unit,omitempty"`     // engine unit of Value
+	Row      string   `json:"row,omitempty"`      // table row read, for a table step
+	Method   string   `json:"method,omitempty"`   // iteration method, for a solve step
+	Verify   string   `json:"verify,omitempty"`   // residual expression over Args, for a solve step
+	Residual float64  `json:"residual,omitempty"` // recorded value of Verify, for a solve step
+	Relation string   `json:"relation,omitempty"` // the inequality checked, e.g. "M_Ed ≤ M_Rd"
+	Verdict  string   `json:"verdict,omitempty"`  // pass or fail, for a check step
+	Notes    []string `json:"notes,omitempty"`    // remarks for the reader
+	Cautions []string `json:"cautions,omitempty"` // warnings the sheet must show
+}
+
+// Q returns the step's result as a quantity for use in later steps.
+func (s Step) Q() Q { return Q{V: s.Value, Symbol: s.Symbol, Unit: s.Unit, From: s.ID} }
+
+// Formula returns a formula step whose value v is given by expr over args.
+func Formula(id, title, clause, symbol, unit string, v float64, expr string, args ...Arg) Step {
+	return Step{ID: id, Title: title, Clause: clause, Kind: KindFormula, Symbol: symbol,
+		Unit: unit, Value: v, Expr: expr, Args: args}
+}
+
+// Input returns a step recording a value taken from the input or from a stated default.
+func Input(id, title, clause, symbol, unit string, v float64) Step {
+	return Step{ID: id, Title: title, Clause: clause, Kind: KindInput, Symbol: symbol, Unit: unit, Value: v}
+}
+
+// Table returns a step recording value v read from row of a standard's table.
+func Table(id, title, clause, row, symbol, unit string, v float64) Step {
+	return Step{ID: id, Title: title, Clause: clause, Kind: KindTable, Symbol: symbol, Unit: unit, Value: v, Row: row}
+}
+
+// Solve returns a step recording value v found by method, with the residual of verify over args.
+func Solve(id, title, clause, symbol, unit string, v float64, method, verify string, residual float64, args ...Arg) Step {
+	return Step{ID: id, Title: title, Clause: clause, Kind: KindSolve, Symbol: symbol, Unit: unit,
+		Value: v, Method: method, Verify: verify, Residual: residual, Args: args}
+}
+
+// Check returns a check step whose ratio of action to resistance is expr over args.
+// The verdict is pass when the ratio does not exceed 1 (within 1e-9).
+func Check(id, title, clause, relation string, ratio float64, expr string, args ...Arg) Step {
+	verdict := Pass
+	if !(ratio <= 1+1e-9) {
+		verdict = Fail
+	}
+	return Step{ID: id, Title: title, Clause: clause, Kind: KindCheck, Symbol: "η", Value: ratio,
+		Expr: expr, Args: args, Relation: relation, Verdict: verdict}
+}
+
+// Note returns a copy of the step with a note for the reader added.
+func (s Step) Note(text string) Step { s.Notes = append(s.Notes, text); return s }
+
+// Caution returns a copy of the step with a caution added.
+func (s Step) Caution(text string) Step { s.Cautions = append(s.Cautions, text); return s }
+
+// Finite reports whether v is neither NaN nor infinite.
+func Finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// Log collects the steps of one calculation in order.
+type Log struct {
+	Prefix string // prepended to every step ID, e.g. "K1/L1/"
+	Group  string // sheet section given to steps added from now on
+	Steps  []Step
+}
+
+// Add appends the step, giving it the log's prefix and current group, and returns its result.
+func (l *Log) Add(s Step) Q {
+	s.ID = l.Prefix + s.ID
+	if s.Group == "" {
+		s.Group = l.Group
+	}
+	l.Steps = append(l.Steps, s)
+	return s.Q()
+}
+
+// Last returns a pointer to the most recent step, or nil when the log is empty.
+func (l *Log) Last() *Step {
+	if len(l.Steps) == 0 {
+		return nil
+	}
+	return &l.Steps[len(l.Steps)-1]
+}

@@ -1,0 +1,5 @@
+module colsheet
+
+go 1.26.8
+
+require github.com/Knetic/govaluate v3.0.0+incompatible
