@@ -1,0 +1,93 @@
+// Package design runs the whole calculation of each column and lift: materials,
+// design actions, slenderness and second order, section resistance and detailing,
+// and gathers the values and the trace of each design.
+package design
+
+import (
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+)
+
+// Status words of a design.
+const (
+	StatusPass = "pass"
+	StatusFail = "fail"
+)
+
+// Result is the outcome of one run over one input file.
+type Result struct {
+	ToolName    string       // "colsheet"
+	ToolVersion string       // version of the engine
+	Input       *model.Input // the input as read
+	Designs     []Design     // one per column and lift, in input order
+}
+
+// Failed returns how many designs do not pass.
+func (r *Result) Failed() int {
+	n := 0
+	for _, d := range r.Designs {
+		if d.Status != StatusPass {
+			n++
+		}
+	}
+	return n
+}
+
+// Design is the design or check of one column over one lift. Quantities in engine units.
+type Design struct {
+	Column, Storey string
+	B, H, Cover    float64 // mm
+	Fck, Fyk       float64 // MPa
+	NEd            float64 // N
+	Y, Z           Axis    // bending about y and about z
+	Biaxial        Biaxial
+	AsReq          float64 // mm², steel area needed for the chosen bar pattern
+	AsMin, AsMax   float64 // mm², 9.5.2(2) and 9.5.2(3)
+	AsProv         float64 // mm²
+	NRdMax         float64 // N, resistance to pure compression with the provided bars
+	Bars           Bars
+	Links          Links
+	Utilization    float64 // largest ratio of action to resistance among all checks
+	Status         string  // StatusPass or StatusFail
+	Governing      string  // the check that sets Utilization, in words
+	Reasons        []string     // why the design fails, in words; empty when it passes
+	Cautions       []string     // cautions particular to this design
+	Steps          []trace.Step // the full trace of this design
+}
+
+// Axis holds the slenderness, actions and resistance for bending about one axis.
+type Axis struct {
+	L0        float64 // mm
+	Lambda    float64
+	LambdaLim float64
+	Slender   bool
+	M01, M02  float64 // N·mm, first-order end moments per 5.8.8.2, without imperfections
+	Ei        float64 // mm, eccentricity of the geometric imperfection
+	M0Ed      float64 // N·mm, first-order design moment including the imperfection
+	M2        float64 // N·mm, nominal second-order moment
+	PhiEf     float64 // effective creep ratio used
+	MEd       float64 // N·mm, design moment
+	MRd       float64 // N·mm, resistance at NEd with the provided bars
+}
+
+// Biaxial holds the check of EN 1992-1-1 5.8.9.
+type Biaxial struct {
+	Checked bool    // whether (5.38a/b) call for the check (5.39)
+	A       float64 // exponent a of (5.39)
+	Ratio   float64 // left-hand side of (5.39)
+}
+
+// Bars is the longitudinal reinforcement provided.
+type Bars struct {
+	Count     int
+	Dia       float64      // mm
+	Positions [][2]float64 // (y, z) of each bar centre from the centroid, mm
+	Given     bool         // true when the input fixed the bars
+}
+
+// Links is the transverse reinforcement provided.
+type Links struct {
+	Dia            float64 // mm
+	Spacing        float64 // mm, general spacing
+	SpacingReduced float64 // mm, within the zones of 9.5.3(4)
+}
