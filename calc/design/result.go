@@ -47,9 +47,9 @@ type Design struct {
 	NRdMax         float64 // N, resistance to pure compression with the provided bars
 	Bars           Bars
 	Links          Links
-	Utilization    float64 // largest ratio of action to resistance among all checks
-	Status         string  // StatusPass or StatusFail
-	Governing      string  // the check that sets Utilization, in words
+	Utilization    float64      // largest ratio of action to resistance among all checks
+	Status         string       // StatusPass or StatusFail
+	Governing      string       // the check that sets Utilization, in words
 	Reasons        []string     // why the design fails, in words; empty when it passes
 	Cautions       []string     // cautions particular to this design
 	Steps          []trace.Step // the full trace of this design
