@@ -10,10 +10,11 @@ import (
 
 // Functions are the functions that step expressions and input expressions may call.
 var Functions = map[string]govaluate.ExpressionFunction{
-	"min":  fold(math.Min),
-	"max":  fold(math.Max),
-	"sqrt": unary(math.Sqrt),
-	"abs":  unary(math.Abs),
+	"min":   fold(math.Min),
+	"max":   fold(math.Max),
+	"sqrt":  unary(math.Sqrt),
+	"abs":   unary(math.Abs),
+	"floor": unary(math.Floor),
 }
 
 func unary(f func(float64) float64) govaluate.ExpressionFunction {

@@ -1,0 +1,192 @@
+// Package detail holds the detailing rules for columns: reinforcement limits (9.5.2),
+// bar spacing (8.2), bar arrangements and links (9.5.3) of EN 1992-1-1.
+package detail
+
+import (
+	"math"
+	"sort"
+
+	"colsheet/calc/trace"
+)
+
+const ec2 = "EN 1992-1-1:2004 "
+
+// AsMin returns As,min = max(0.10·NEd/fyd, 0.002·Ac), EN 1992-1-1:2004 9.5.2(2), Eq. (9.12N).
+func AsMin(id string, nEd, fyd, ac, kN, kA trace.Q) trace.Step {
+	return trace.Formula(id, "Minimum longitudinal reinforcement", ec2+"9.5.2(2), Eq. (9.12N)", "A_s,min", "mm2",
+		math.Max(kN.V*nEd.V/fyd.V, kA.V*ac.V), "max(k_N * N_Ed / f_yd, k_A * A_c)",
+		trace.A("k_N", kN), trace.A("N_Ed", nEd), trace.A("f_yd", fyd), trace.A("k_A", kA), trace.A("A_c", ac))
+}
+
+// AsMax returns As,max = 0.04·Ac outside lap locations, EN 1992-1-1:2004 9.5.2(3).
+func AsMax(id string, ac, k trace.Q) trace.Step {
+	return trace.Formula(id, "Maximum longitudinal reinforcement outside laps", ec2+"9.5.2(3)", "A_s,max", "mm2",
+		k.V*ac.V, "k_max * A_c", trace.A("k_max", k), trace.A("A_c", ac))
+}
+
+// MinClearSpacing returns the least clear distance between bars max(k1·φ, dg + k2, 20 mm),
+// EN 1992-1-1:2004 8.2(2).
+func MinClearSpacing(id string, phi, dg, k1, k2, smin trace.Q) trace.Step {
+	return trace.Formula(id, "Minimum clear distance between bars", ec2+"8.2(2)", "s_min", "mm",
+		math.Max(math.Max(k1.V*phi.V, dg.V+k2.V), smin.V), "max(k_1 * phi, d_g + k_2, s_0)",
+		trace.A("k_1", k1), trace.A("phi", phi), trace.A("d_g", dg), trace.A("k_2", k2), trace.A("s_0", smin))
+}
+
+// MinLinkDia returns the least link diameter max(6 mm, φmax/4), EN 1992-1-1:2004 9.5.3(1).
+func MinLinkDia(id string, phiMax, dmin, ratio trace.Q) trace.Step {
+	return trace.Formula(id, "Minimum link diameter", ec2+"9.5.3(1)", "φ_t,min", "mm",
+		math.Max(dmin.V, ratio.V*phiMax.V), "max(phi_t0, k_t * phi_max)",
+		trace.A("phi_t0", dmin), trace.A("k_t", ratio), trace.A("phi_max", phiMax))
+}
+
+// MaxLinkSpacing returns scl,tmax = min(20·φmin, lesser column dimension, 400 mm), EN 1992-1-1:2004 9.5.3(3).
+func MaxLinkSpacing(id string, phiMin, bMin, k, sMax trace.Q) trace.Step {
+	return trace.Formula(id, "Maximum link spacing", ec2+"9.5.3(3)", "s_cl,tmax", "mm",
+		math.Min(math.Min(k.V*phiMin.V, bMin.V), sMax.V), "min(k_s * phi_min, b_min, s_max)",
+		trace.A("k_s", k), trace.A("phi_min", phiMin), trace.A("b_min", bMin), trace.A("s_max", sMax))
+}
+
+// ReducedLinkSpacing returns 0.6·scl,tmax for the zones next to beams and slabs and at laps,
+// EN 1992-1-1:2004 9.5.3(4).
+func ReducedLinkSpacing(id string, s, k trace.Q) trace.Step {
+	return trace.Formula(id, "Maximum link spacing near beams, slabs and laps", ec2+"9.5.3(4)", "s_cl,t,red", "mm",
+		k.V*s.V, "k_r * s", trace.A("k_r", k), trace.A("s", s))
+}
+
+// RoundDown returns the spacing s rounded down to a multiple of step, common practice.
+func RoundDown(id, title, symbol string, s, step trace.Q) trace.Step {
+	return trace.Formula(id, title, "common practice", symbol, "mm", math.Floor(s.V/step.V+1e-9)*step.V,
+		"floor(s / step + 0.000000001) * step", trace.A("s", s), trace.A("step", step))
+}
+
+// Pattern is a symmetric arrangement of equal bars on the four faces of a rectangle:
+// NB bars along each face of width b (at z = ±) and NH bars along each face of depth h
+// (at y = ±), both counts including the corner bars.
+type Pattern struct {
+	Dia    float64 // bar diameter, mm
+	NB, NH int     // bars along a b-face and along an h-face, corners included; each ≥ 2
+}
+
+// Count returns the number of bars of the pattern.
+func (p Pattern) Count() int { return 2*p.NB + 2*p.NH - 4 }
+
+// BarArea returns the area of one bar, π·φ²/4.
+func (p Pattern) BarArea() float64 { return math.Pi * p.Dia * p.Dia / 4 }
+
+// Area returns the total steel area of the pattern.
+func (p Pattern) Area() float64 { return float64(p.Count()) * p.BarArea() }
+
+// Geometry is the room a section gives its bars.
+type Geometry struct {
+	B, H  float64 // section width (along y) and depth (along z), mm
+	Cover float64 // nominal cover to the links, mm
+	Link  float64 // link diameter, mm
+}
+
+// Edge returns the distance from a face to the centre of the bars of diameter dia.
+func (g Geometry) Edge(dia float64) float64 { return g.Cover + g.Link + dia/2 }
+
+// Positions returns the bar centres (y, z) from the centroid, corners first, then the
+// intermediate bars of the b-faces and of the h-faces.
+func (g Geometry) Positions(p Pattern) [][2]float64 {
+	e := g.Edge(p.Dia)
+	yc, zc := g.B/2-e, g.H/2-e
+	pos := make([][2]float64, 0, p.Count())
+	pos = append(pos, [2]float64{-yc, -zc}, [2]float64{yc, -zc}, [2]float64{yc, zc}, [2]float64{-yc, zc})
+	for i := 1; i < p.NB-1; i++ {
+		y := -yc + 2*yc*float64(i)/float64(p.NB-1)
+		pos = append(pos, [2]float64{y, -zc}, [2]float64{y, zc})
+	}
+	for i := 1; i < p.NH-1; i++ {
+		z := -zc + 2*zc*float64(i)/float64(p.NH-1)
+		pos = append(pos, [2]float64{-yc, z}, [2]float64{yc, z})
+	}
+	return pos
+}
+
+// ClearGaps returns the clear distance between neighbouring bars along a b-face and along an h-face.
+func (g Geometry) ClearGaps(p Pattern) (alongB, alongH float64) {
+	e := g.Edge(p.Dia)
+	alongB = (g.B-2*e)/float64(p.NB-1) - p.Dia
+	alongH = (g.H-2*e)/float64(p.NH-1) - p.Dia
+	return
+}
+
+// Fits reports whether the pattern's bars sit inside the links with at least sMin clear between them.
+func (g Geometry) Fits(p Pattern, sMin float64) bool {
+	if p.NB < 2 || p.NH < 2 || g.B-2*g.Edge(p.Dia) <= 0 || g.H-2*g.Edge(p.Dia) <= 0 {
+		return false
+	}
+	gb, gh := g.ClearGaps(p)
+	return gb >= sMin-1e-9 && gh >= sMin-1e-9
+}
+
+// spread returns the larger centre-to-centre distance of the pattern, used to prefer even layouts.
+func (g Geometry) spread(p Pattern) float64 {
+	gb, gh := g.ClearGaps(p)
+	return math.Max(gb, gh)
+}
+
+// ForCount returns the most even pattern of count bars of diameter dia that fits with sMin clear,
+// or false when count is odd, below 4, or no pattern fits.
+func (g Geometry) ForCount(count int, dia, sMin float64) (Pattern, bool) {
+	if count < 4 || count%2 != 0 {
+		return Pattern{}, false
+	}
+	best, found := Pattern{}, false
+	half := count/2 + 2 // NB + NH
+	for nb := 2; nb <= half-2; nb++ {
+		p := Pattern{Dia: dia, NB: nb, NH: half - nb}
+		if !g.Fits(p, sMin) {
+			continue
+		}
+		if !found || g.spread(p) < g.spread(best) {
+			best, found = p, true
+		}
+	}
+	return best, found
+}
+
+// Candidates returns every pattern of the given diameters that fits, with sMinFor giving the least
+// clear spacing for a diameter and linkFor the link diameter that goes with it, ordered by steel
+// area, then by number of bars, then by evenness. Patterns outside [asLo, asHi] are left out.
+func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
+	type cand struct {
+		p      Pattern
+		spread float64
+	}
+	var out []cand
+	for _, d := range dias {
+		g := Geometry{B: b, H: h, Cover: cover, Link: linkFor(d)}
+		sMin := sMinFor(d)
+		for nb := 2; ; nb++ {
+			if !g.Fits(Pattern{Dia: d, NB: nb, NH: 2}, sMin) {
+				break
+			}
+			for nh := 2; ; nh++ {
+				p := Pattern{Dia: d, NB: nb, NH: nh}
+				if !g.Fits(p, sMin) {
+					break
+				}
+				if a := p.Area(); a >= asLo-1e-9 && a <= asHi+1e-9 {
+					out = append(out, cand{p, g.spread(p)})
+				}
+			}
+		}
+	}
+	sort.SliceStable(out, func(i, j int) bool {
+		ai, aj := out[i].p.Area(), out[j].p.Area()
+		if math.Abs(ai-aj) > 1e-6 {
+			return ai < aj
+		}
+		if out[i].p.Count() != out[j].p.Count() {
+			return out[i].p.Count() < out[j].p.Count()
+		}
+		return out[i].spread < out[j].spread
+	})
+	ps := make([]Pattern, len(out))
+	for i, c := range out {
+		ps[i] = c.p
+	}
+	return ps
+}
