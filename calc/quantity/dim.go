@@ -5,6 +5,9 @@
 // expression in a subset of govaluate syntax: numbers (each optionally followed by a unit),
 // names defined in an Env, + - * / **, parentheses and the functions min, max and sqrt.
 // A unit belongs to the number directly before it: "6 m / 2 m" is the pure number 3.
+// Dimensions have whole exponents, so sqrt takes only even ones (the root of an area is a
+// length), and a chain a**b**c or a signed base -a**b must be written with parentheses.
+// Division by zero and any other non-finite result are errors.
 package quantity
 
 import (

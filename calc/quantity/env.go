@@ -19,9 +19,10 @@ type Def struct {
 
 // DefError is the error of one definition given to NewEnv.
 type DefError struct {
-	Index int    // position of the definition in the list given to NewEnv
-	Name  string // the name defined
-	Err   error
+	Index  int    // position of the definition in the list given to NewEnv
+	Name   string // the name defined
+	InName bool   // the fault lies in the name (bad or repeated), not in the text
+	Err    error
 }
 
 // Error returns the definition's name and the fault.
@@ -64,14 +65,17 @@ func NewEnv(defs []Def) (*Env, []error) {
 	report := func(i int, err error) {
 		errs = append(errs, &DefError{Index: i, Name: defs[i].Name, Err: err})
 	}
+	reportName := func(i int, err error) {
+		errs = append(errs, &DefError{Index: i, Name: defs[i].Name, InName: true, Err: err})
+	}
 	table := map[string]*def{}
 	for i, d := range defs {
 		if err := checkName(d.Name); err != nil {
-			report(i, err)
+			reportName(i, err)
 			continue
 		}
 		if _, dup := table[d.Name]; dup {
-			report(i, errors.New("defined twice"))
+			reportName(i, errors.New("defined twice"))
 			continue
 		}
 		x := &def{index: i, text: d.Text}

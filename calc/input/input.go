@@ -1,0 +1,643 @@
+// Package input reads an input file (YAML, the actions form) into a validated model.Input.
+//
+// Every numeric field takes a plain number in its documented unit or a text with a unit or
+// an expression over the names under vars (see package quantity). Plain numbers are in these
+// units: all lengths, covers, effective lengths and diameters mm; forces kN; moments kNm;
+// stresses MPa; code overrides in the unit their catalogue entry states (a pure number if none).
+// Unknown keys are faults, and all faults of a file are reported together as Errors.
+//
+// The keys, with their defaults where optional:
+//
+//	project:   {title, job, revision, designer, checker, date}      texts, all optional
+//	code:      {annex: recommended, overrides: {NAME: value}}       names from code.Catalogue
+//	materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}  concrete required (Table 3.1)
+//	design:    {stress_block: parabola-rectangle, imperfection: inclination, members: 1,
+//	            bar_diameters: [12, 16, 20, 25, 32, 40], link_diameters: [6, 8, 10, 12],
+//	            link_spacing_step: 1 mm}
+//	vars:      {NAME: quantity or expression}
+//	columns:   list of {id, b, h, cover, bars: {count, dia}, link_dia, storeys}
+//	storeys:   list of {name, l0: {y, z} or one value, length, NEd,
+//	            M: {y: {top, bottom}, z: {top, bottom}}, phi_ef}
+//
+// The building form (key building) is refused for now.
+package input
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"errors"
+	"io"
+	"math"
+	"regexp"
+	"sort"
+	"strconv"
+	"strings"
+
+	"colsheet/calc/code"
+	"colsheet/calc/material"
+	"colsheet/calc/model"
+	"colsheet/calc/quantity"
+
+	"gopkg.in/yaml.v3"
+)
+
+// Defaults of the design block.
+var (
+	DefaultBarDiameters  = []float64{12, 16, 20, 25, 32, 40} // mm
+	DefaultLinkDiameters = []float64{6, 8, 10, 12}           // mm
+)
+
+// Limits of the characteristic yield strength of reinforcement, EN 1992-1-1:2004 3.2.2(3)P, MPa.
+const (
+	FykMin = 400
+	FykMax = 600
+)
+
+var yamlLine = regexp.MustCompile(`^yaml: line (\d+): (.*)$`)
+
+// Parse reads the input file called file with contents data. On any fault it returns nil and
+// Errors listing every fault found, in line order.
+func Parse(file string, data []byte) (*model.Input, error) {
+	sum := sha256.Sum256(data)
+	r := &reader{file: file}
+	in := r.parse(data)
+	if len(r.errs) > 0 {
+		r.errs.sort()
+		return nil, r.errs
+	}
+	in.File = file
+	in.SHA256 = hex.EncodeToString(sum[:])
+	return in, nil
+}
+
+func (r *reader) yamlError(err error) {
+	line, msg := 1, strings.TrimPrefix(err.Error(), "yaml: ")
+	if m := yamlLine.FindStringSubmatch(err.Error()); m != nil {
+		line, _ = strconv.Atoi(m[1])
+		msg = m[2]
+	}
+	r.errs = append(r.errs, Error{File: r.file, Line: line, Msg: "YAML: " + msg})
+}
+
+var topKeys = []string{"project", "code", "materials", "design", "vars", "columns", "building"}
+
+func (r *reader) parse(data []byte) *model.Input {
+	dec := yaml.NewDecoder(bytes.NewReader(data))
+	var doc yaml.Node
+	if err := dec.Decode(&doc); err != nil {
+		if errors.Is(err, io.EOF) {
+			r.fail(nil, "", "the file is empty; expected a mapping with at least columns")
+		} else {
+			r.yamlError(err)
+		}
+		return nil
+	}
+	var second yaml.Node
+	if err := dec.Decode(&second); err == nil {
+		r.fail(&second, "", "the file holds more than one YAML document; give one per file")
+	} else if !errors.Is(err, io.EOF) {
+		r.yamlError(err)
+	}
+	if len(doc.Content) == 0 || isNull(doc.Content[0]) {
+		r.fail(nil, "", "the file is empty; expected a mapping with at least columns")
+		return nil
+	}
+	root := resolve(doc.Content[0])
+	if root.Kind != yaml.MappingNode {
+		r.fail(root, "", "the top level must be a mapping with the keys %s, found %s", strings.Join(topKeys[:6], ", "), kindName(root))
+		return nil
+	}
+	top := r.fields(root, "", topKeys...)
+	in := &model.Input{Code: code.Recommended()}
+
+	defs, defNodes := r.vars(top)
+	env, errs := quantity.NewEnv(defs)
+	r.env = env
+	for _, e := range errs {
+		var de *quantity.DefError
+		if errors.As(e, &de) {
+			p := defNodes[de.Index]
+			at := p.val
+			if de.InName {
+				at = p.key
+			}
+			r.fail(at, "vars."+de.Name, "%s", de.Err)
+		}
+	}
+
+	if p, ok := top["project"]; ok {
+		in.Project = r.project(p.val)
+	}
+	if p, ok := top["code"]; ok {
+		in.Code = r.code(p.val)
+	}
+	if p, ok := top["materials"]; ok {
+		in.Materials = r.materials(p.val)
+	} else {
+		r.fail(root, "materials", "is required but missing (e.g. materials: {concrete: C30/37})")
+	}
+	in.Options = r.design(top)
+	if p, ok := top["building"]; ok {
+		r.fail(p.key, "building", "the building form is not supported yet; give the columns with their actions under columns")
+		return in
+	}
+	if p, ok := top["columns"]; ok {
+		in.Columns = r.columns(p.val, in.Options)
+	} else {
+		r.fail(root, "columns", "is required but missing")
+	}
+	return in
+}
+
+// vars returns the definitions under vars with the entries they came from.
+func (r *reader) vars(top map[string]pair) ([]quantity.Def, []pair) {
+	p, ok := top["vars"]
+	if !ok {
+		return nil, nil
+	}
+	n := resolve(p.val)
+	if n.Kind != yaml.MappingNode {
+		r.fail(n, "vars", "expected a mapping of names to quantities, found %s", kindName(n))
+		return nil, nil
+	}
+	var defs []quantity.Def
+	var from []pair
+	for _, e := range r.pairs(n, "vars") {
+		path := "vars." + e.name
+		v := resolve(e.val)
+		if v.Kind != yaml.ScalarNode {
+			r.fail(v, path, "expected a number or a quantity, found %s", kindName(v))
+			continue
+		}
+		text := v.Value
+		switch v.ShortTag() {
+		case "!!int", "!!float":
+			var x float64
+			if err := v.Decode(&x); err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+				r.fail(v, path, "%q is not a finite number", v.Value)
+				continue
+			}
+			text = strconv.FormatFloat(x, 'g', -1, 64)
+		case "!!str":
+		default:
+			r.fail(v, path, "expected a number or a quantity, found %q", v.Value)
+			continue
+		}
+		defs = append(defs, quantity.Def{Name: e.name, Text: text})
+		from = append(from, e)
+	}
+	return defs, from
+}
+
+func (r *reader) project(n *yaml.Node) model.Project {
+	var p model.Project
+	f := r.fields(n, "project", "title", "job", "revision", "designer", "checker", "date")
+	set := func(key string, dst *string) {
+		if e, ok := f[key]; ok {
+			if s, ok := r.str(e.val, "project."+key); ok {
+				*dst = s
+			}
+		}
+	}
+	set("title", &p.Title)
+	set("job", &p.Job)
+	set("revision", &p.Revision)
+	set("designer", &p.Designer)
+	set("checker", &p.Checker)
+	set("date", &p.Date)
+	return p
+}
+
+// overrideUnit returns the documented unit of a code parameter, taken from its description.
+func overrideUnit(c code.Param) string {
+	for _, u := range []string{"MPa", "mm"} {
+		if strings.HasSuffix(c.What, ", "+u) {
+			return u
+		}
+	}
+	return ""
+}
+
+func (r *reader) code(n *yaml.Node) code.Params {
+	params := code.Recommended()
+	f := r.fields(n, "code", "annex", "overrides")
+	if e, ok := f["annex"]; ok {
+		if s, ok := r.str(e.val, "code.annex"); ok && s != params.Annex {
+			r.fail(e.val, "code.annex", "annex %q is not supported (supported: %s)", s, params.Annex)
+		}
+	}
+	e, ok := f["overrides"]
+	if !ok {
+		return params
+	}
+	m := resolve(e.val)
+	if m.Kind != yaml.MappingNode {
+		r.fail(m, "code.overrides", "expected a mapping of parameter names to values, found %s", kindName(m))
+		return params
+	}
+	for _, o := range r.pairs(m, "code.overrides") {
+		path := "code.overrides." + o.name
+		c, known := code.Lookup(o.name)
+		if !known {
+			_, err := params.Override(o.name, 0)
+			r.fail(o.key, path, "%s", err)
+			continue
+		}
+		v, ok := r.number(o.val, path, overrideUnit(c))
+		if !ok {
+			continue
+		}
+		q, err := params.Override(o.name, v)
+		if err != nil {
+			r.fail(o.val, path, "%s", err)
+			continue
+		}
+		params = q
+	}
+	return params
+}
+
+func (r *reader) materials(n *yaml.Node) model.Materials {
+	m := model.Materials{Fyk: 500, Aggregate: 20}
+	f := r.fields(n, "materials", "concrete", "fyk", "aggregate")
+	if f == nil {
+		return m
+	}
+	if e, ok := f["concrete"]; ok {
+		if s, ok := r.str(e.val, "materials.concrete"); ok {
+			c, found := material.Lookup(s)
+			if found {
+				m.Concrete = c
+			} else {
+				r.fail(e.val, "materials.concrete", "%q is not a strength class of EN 1992-1-1 Table 3.1 (classes: %s)", s, material.ClassNames())
+			}
+		}
+	} else {
+		r.fail(n, "materials.concrete", "is required but missing (e.g. concrete: C30/37)")
+	}
+	if e, ok := f["fyk"]; ok {
+		if v, ok := r.number(e.val, "materials.fyk", "MPa"); ok {
+			if v < FykMin || v > FykMax {
+				r.fail(e.val, "materials.fyk", "%s is outside %d to %d MPa (EN 1992-1-1 3.2.2(3)P)", show(v, "MPa"), FykMin, FykMax)
+			} else {
+				m.Fyk = v
+			}
+		}
+	}
+	if e, ok := f["aggregate"]; ok {
+		if v, ok := r.positive(e.val, "materials.aggregate", "mm"); ok {
+			m.Aggregate = v
+		}
+	}
+	return m
+}
+
+// positive reads a number that must be greater than zero.
+func (r *reader) positive(n *yaml.Node, path, unit string) (float64, bool) {
+	v, ok := r.number(n, path, unit)
+	if !ok {
+		return 0, false
+	}
+	if !(v > 0) {
+		r.fail(n, path, "must be greater than 0, found %s", show(v, unit))
+		return 0, false
+	}
+	return v, true
+}
+
+// oneOf reads a text that must be one of choices.
+func (r *reader) oneOf(n *yaml.Node, path string, choices ...string) (string, bool) {
+	s, ok := r.str(n, path)
+	if !ok {
+		return "", false
+	}
+	for _, c := range choices {
+		if s == c {
+			return s, true
+		}
+	}
+	r.fail(n, path, "%q is not one of %s", s, strings.Join(choices, ", "))
+	return "", false
+}
+
+func (r *reader) design(top map[string]pair) model.Options {
+	o := model.Options{
+		StressBlock:   model.ParabolaRectangle,
+		Imperfection:  model.ImperfInclination,
+		Members:       1,
+		BarDiameters:  append([]float64(nil), DefaultBarDiameters...),
+		LinkDiameters: append([]float64(nil), DefaultLinkDiameters...),
+		LinkStep:      1,
+	}
+	p, ok := top["design"]
+	if !ok {
+		return o
+	}
+	f := r.fields(p.val, "design", "stress_block", "imperfection", "members", "bar_diameters", "link_diameters", "link_spacing_step")
+	if e, ok := f["stress_block"]; ok {
+		if s, ok := r.oneOf(e.val, "design.stress_block", model.ParabolaRectangle, model.Rectangular); ok {
+			o.StressBlock = s
+		}
+	}
+	if e, ok := f["imperfection"]; ok {
+		if s, ok := r.oneOf(e.val, "design.imperfection", model.ImperfInclination, model.ImperfL0Over400); ok {
+			o.Imperfection = s
+		}
+	}
+	if e, ok := f["members"]; ok {
+		if v, ok := r.number(e.val, "design.members", ""); ok {
+			if !whole(v) || v < 1 {
+				r.fail(e.val, "design.members", "the number of members m must be a whole number of at least 1, found %s", show(v, ""))
+			} else {
+				o.Members = v
+			}
+		}
+	}
+	if e, ok := f["bar_diameters"]; ok {
+		if d, ok := r.diameters(e.val, "design.bar_diameters"); ok {
+			o.BarDiameters = d
+		}
+	}
+	if e, ok := f["link_diameters"]; ok {
+		if d, ok := r.diameters(e.val, "design.link_diameters"); ok {
+			o.LinkDiameters = d
+		}
+	}
+	if e, ok := f["link_spacing_step"]; ok {
+		if v, ok := r.positive(e.val, "design.link_spacing_step", "mm"); ok {
+			o.LinkStep = v
+		}
+	}
+	return o
+}
+
+// diameters reads a non-empty list of diameters and returns them ascending without repeats.
+func (r *reader) diameters(n *yaml.Node, path string) ([]float64, bool) {
+	items, ok := r.list(n, path, "diameters in mm")
+	if !ok {
+		return nil, false
+	}
+	var out []float64
+	good := true
+	for i, it := range items {
+		v, ok := r.positive(it, index(path, i), "mm")
+		if !ok {
+			good = false
+			continue
+		}
+		out = append(out, v)
+	}
+	if !good {
+		return nil, false
+	}
+	sort.Float64s(out)
+	k := 0
+	for i, v := range out {
+		if i == 0 || v != out[k-1] {
+			out[k] = v
+			k++
+		}
+	}
+	return out[:k], true
+}
+
+func (r *reader) columns(n *yaml.Node, opt model.Options) []model.Column {
+	items, ok := r.list(n, "columns", "columns")
+	if !ok {
+		return nil
+	}
+	var out []model.Column
+	ids := map[string]int{}
+	for i, it := range items {
+		path := index("columns", i)
+		c, ok := r.column(it, path, opt)
+		if c.ID != "" {
+			if first, dup := ids[c.ID]; dup {
+				r.fail(it, path+".id", "column id %q is used twice (first at columns[%d])", c.ID, first)
+				ok = false
+			} else {
+				ids[c.ID] = i
+			}
+		}
+		if ok {
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.Column, bool) {
+	n := resolve(item)
+	c := model.Column{Line: item.Line}
+	before := len(r.errs)
+	f := r.fields(n, path, "id", "b", "h", "cover", "bars", "link_dia", "storeys")
+	if f == nil {
+		return c, false
+	}
+	required := func(key, what string) (pair, bool) {
+		e, ok := f[key]
+		if !ok {
+			r.fail(n, join(path, key), "is required but missing (%s)", what)
+		}
+		return e, ok
+	}
+	if e, ok := required("id", "the column's name, e.g. id: K1"); ok {
+		if s, ok := r.name(e.val, join(path, "id")); ok {
+			c.ID = s
+		}
+	}
+	var bOK, hOK, coverOK bool
+	if e, ok := required("b", "the width along y, e.g. b: 350 mm"); ok {
+		c.B, bOK = r.positive(e.val, join(path, "b"), "mm")
+	}
+	if e, ok := required("h", "the depth along z, e.g. h: 500 mm"); ok {
+		c.H, hOK = r.positive(e.val, join(path, "h"), "mm")
+	}
+	coverEntry, hasCover := required("cover", "the nominal cover to the links, e.g. cover: 40 mm")
+	if hasCover {
+		c.Cover, coverOK = r.positive(coverEntry.val, join(path, "cover"), "mm")
+	}
+	barsOK := true
+	if e, ok := f["bars"]; ok {
+		c.Bars, barsOK = r.bars(e.val, join(path, "bars"))
+	}
+	linkOK := true
+	if e, ok := f["link_dia"]; ok {
+		c.LinkDia, linkOK = r.positive(e.val, join(path, "link_dia"), "mm")
+	}
+	if bOK && hOK && coverOK && barsOK && linkOK {
+		link := c.LinkDia
+		if link == 0 && len(opt.LinkDiameters) > 0 {
+			link = opt.LinkDiameters[0]
+		}
+		bar := 0.0
+		if c.Bars != nil {
+			bar = c.Bars.Dia
+		} else if len(opt.BarDiameters) > 0 {
+			bar = opt.BarDiameters[0]
+		}
+		need := 2 * (c.Cover + link + bar)
+		if !(need < min(c.B, c.H)) {
+			r.fail(coverEntry.val, join(path, "cover"), "no room for links and bars: 2·(cover + link + bar) = 2·(%s + %s + %s) = %s is not less than min(b, h) = %s",
+				show(c.Cover, ""), show(link, ""), show(bar, ""), show(need, "mm"), show(min(c.B, c.H), "mm"))
+		}
+	}
+	if e, ok := required("storeys", "the lifts with their actions"); ok {
+		c.Storeys = r.storeys(e.val, join(path, "storeys"))
+	}
+	return c, len(r.errs) == before
+}
+
+func (r *reader) bars(n *yaml.Node, path string) (*model.BarSpec, bool) {
+	f := r.fields(n, path, "count", "dia")
+	if f == nil {
+		return nil, false
+	}
+	b := &model.BarSpec{}
+	ok := true
+	if e, has := f["count"]; has {
+		if v, good := r.number(e.val, join(path, "count"), ""); good {
+			if !whole(v) || v < 4 || int(v)%2 != 0 {
+				r.fail(e.val, join(path, "count"), "the bar count must be an even whole number of at least 4, found %s", show(v, ""))
+				ok = false
+			} else {
+				b.Count = int(v)
+			}
+		} else {
+			ok = false
+		}
+	} else {
+		r.fail(n, join(path, "count"), "is required but missing (e.g. bars: {count: 8, dia: 20 mm})")
+		ok = false
+	}
+	if e, has := f["dia"]; has {
+		var good bool
+		b.Dia, good = r.positive(e.val, join(path, "dia"), "mm")
+		ok = ok && good
+	} else {
+		r.fail(n, join(path, "dia"), "is required but missing (e.g. bars: {count: 8, dia: 20 mm})")
+		ok = false
+	}
+	return b, ok
+}
+
+func (r *reader) storeys(n *yaml.Node, path string) []model.Storey {
+	items, ok := r.list(n, path, "storeys")
+	if !ok {
+		return nil
+	}
+	var out []model.Storey
+	names := map[string]int{}
+	for i, it := range items {
+		p := index(path, i)
+		s := r.storey(it, p)
+		if s.Name != "" {
+			if first, dup := names[s.Name]; dup {
+				r.fail(it, p+".name", "storey name %q is used twice in this column (first at %s)", s.Name, index(path, first))
+			} else {
+				names[s.Name] = i
+			}
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+func (r *reader) storey(item *yaml.Node, path string) model.Storey {
+	n := resolve(item)
+	s := model.Storey{Line: item.Line}
+	f := r.fields(n, path, "name", "l0", "length", "NEd", "M", "phi_ef")
+	if f == nil {
+		return s
+	}
+	if e, ok := f["name"]; ok {
+		if v, ok := r.name(e.val, join(path, "name")); ok {
+			s.Name = v
+		}
+	} else {
+		r.fail(n, join(path, "name"), "is required but missing (e.g. name: L1)")
+	}
+	if e, ok := f["l0"]; ok {
+		s.L0Y, s.L0Z = r.l0(e.val, join(path, "l0"))
+	} else {
+		r.fail(n, join(path, "l0"), "is required but missing (e.g. l0: {y: 2.9 m, z: 3.1 m} or l0: 3 m)")
+	}
+	if e, ok := f["length"]; ok {
+		s.Length, _ = r.positive(e.val, join(path, "length"), "mm")
+	}
+	if e, ok := f["NEd"]; ok {
+		if v, ok := r.number(e.val, join(path, "NEd"), "kN"); ok {
+			if v < 0 {
+				r.fail(e.val, join(path, "NEd"), "tension columns are out of scope (NEd = %s; compression is positive)", show(v, "kN"))
+			} else {
+				s.NEd = v
+			}
+		}
+	} else {
+		r.fail(n, join(path, "NEd"), "is required but missing (the design axial force, e.g. NEd: 2150 kN)")
+	}
+	if e, ok := f["M"]; ok {
+		s.MY, s.MZ = r.moments(e.val, join(path, "M"))
+	}
+	if e, ok := f["phi_ef"]; ok {
+		if v, ok := r.number(e.val, join(path, "phi_ef"), ""); ok {
+			if v < 0 || v > 10 {
+				r.fail(e.val, join(path, "phi_ef"), "the effective creep ratio must lie between 0 and 10, found %s", show(v, ""))
+			} else {
+				s.PhiEf, s.HasPhi = v, true
+			}
+		}
+	}
+	return s
+}
+
+// l0 reads the effective lengths: a mapping {y, z} or one value for both axes.
+func (r *reader) l0(n *yaml.Node, path string) (y, z float64) {
+	n = resolve(n)
+	if n.Kind == yaml.ScalarNode {
+		v, _ := r.positive(n, path, "mm")
+		return v, v
+	}
+	f := r.fields(n, path, "y", "z")
+	if f == nil {
+		return 0, 0
+	}
+	for _, axis := range []string{"y", "z"} {
+		e, ok := f[axis]
+		if !ok {
+			r.fail(n, join(path, axis), "is required but missing (the effective length for buckling about %s)", axis)
+			continue
+		}
+		v, _ := r.positive(e.val, join(path, axis), "mm")
+		if axis == "y" {
+			y = v
+		} else {
+			z = v
+		}
+	}
+	return y, z
+}
+
+// moments reads the first-order end moments {y: {top, bottom}, z: {top, bottom}}; missing ones are 0.
+func (r *reader) moments(n *yaml.Node, path string) (my, mz model.Ends) {
+	f := r.fields(n, path, "y", "z")
+	ends := func(e pair, path string) model.Ends {
+		var out model.Ends
+		g := r.fields(e.val, path, "top", "bottom")
+		if e, ok := g["top"]; ok {
+			out.Top, _ = r.number(e.val, join(path, "top"), "kNm")
+		}
+		if e, ok := g["bottom"]; ok {
+			out.Bottom, _ = r.number(e.val, join(path, "bottom"), "kNm")
+		}
+		return out
+	}
+	if e, ok := f["y"]; ok {
+		my = ends(e, join(path, "y"))
+	}
+	if e, ok := f["z"]; ok {
+		mz = ends(e, join(path, "z"))
+	}
+	return my, mz
+}
