@@ -4,6 +4,7 @@
 package design
 
 import (
+	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
 )
@@ -53,6 +54,8 @@ type Design struct {
 	Reasons        []string     // why the design fails, in words; empty when it passes
 	Cautions       []string     // cautions particular to this design
 	Steps          []trace.Step // the full trace of this design
+
+	pattern detail.Pattern // bar pattern evaluated
 }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.

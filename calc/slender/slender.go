@@ -318,3 +318,41 @@ func BiaxialRatio(id string, mEdY, mRdY, mEdZ, mRdZ, a trace.Q) trace.Step {
 		"(M_Edz / M_Rdz) ** a + (M_Edy / M_Rdy) ** a",
 		trace.A("M_Edz", mEdZ), trace.A("M_Rdz", mRdZ), trace.A("M_Edy", mEdY), trace.A("M_Rdy", mRdY), trace.A("a", a))
 }
+
+// Layer is a row of equal bars at one coordinate along the bending direction.
+type Layer struct {
+	Coord float64 // mm from the centroid
+	Count int     // bars in the row
+}
+
+// ReinforcementGyration returns is = √(Σ n·c²/Σ n), the radius of gyration of the total
+// reinforcement of equal bars about the centroid, EN 1992-1-1:2004 5.8.8.3(2).
+func ReinforcementGyration(id string, layers []Layer) trace.Step {
+	num, den := 0.0, 0.0
+	expr := "sqrt(("
+	sum := ""
+	args := make([]trace.Arg, 0, 2*len(layers))
+	for i, l := range layers {
+		num += float64(l.Count) * l.Coord * l.Coord
+		den += float64(l.Count)
+		c, n := "c"+itoa(i+1), "n"+itoa(i+1)
+		if i > 0 {
+			expr += " + "
+			sum += " + "
+		}
+		expr += n + " * " + c + " ** 2"
+		sum += n
+		args = append(args, trace.A(n, trace.Const(float64(l.Count), "n_"+itoa(i+1), "")),
+			trace.A(c, trace.Const(l.Coord, "c_"+itoa(i+1), "mm")))
+	}
+	expr += ") / (" + sum + "))"
+	return trace.Formula(id, "Radius of gyration of the reinforcement", ec2+"5.8.8.3(2)", "i_s", "mm",
+		math.Sqrt(num/den), expr, args...)
+}
+
+func itoa(i int) string {
+	if i < 10 {
+		return string(rune('0' + i))
+	}
+	return itoa(i/10) + string(rune('0'+i%10))
+}

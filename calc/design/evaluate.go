@@ -1,0 +1,236 @@
+package design
+
+import (
+	"fmt"
+	"math"
+
+	"colsheet/calc/detail"
+	"colsheet/calc/slender"
+	"colsheet/calc/trace"
+)
+
+// evaluate runs every bar-dependent step for one bar pattern and returns the design it gives.
+func (c *common) evaluate(p detail.Pattern, given bool) Design {
+	col, st, prm := c.col, c.st, c.p
+	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/"}
+	l.Steps = append(make([]trace.Step, 0, len(c.steps)+140), c.steps...)
+	link := c.linkFor(p.Dia)
+	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: link}
+	pos := g.Positions(p)
+
+	d := Design{Column: col.ID, Storey: st.Name, B: col.B, H: col.H, Cover: col.Cover,
+		Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: st.NEd, pattern: p}
+	d.Cautions = append(d.Cautions, c.cautions...)
+	d.Bars = Bars{Count: p.Count(), Dia: p.Dia, Positions: pos, Given: given}
+	var checks []checked // check steps, for the utilisation and the status
+
+	check := func(s trace.Step) { checks = append(checks, checked{l.Add(s).From, false}) }
+	resistance := func(s trace.Step) { checks = append(checks, checked{l.Add(s).From, true}) }
+
+	// Reinforcement provided and its limits.
+	l.Group = "Reinforcement provided"
+	src := "chosen: the least steel that passes every check"
+	if given {
+		src = "input"
+	}
+	phi := l.Add(trace.Input("bars/phi", "Bar diameter", src, "φ", "mm", p.Dia))
+	nb := l.Add(trace.Input("bars/count", "Number of bars", src, "n_bars", "", float64(p.Count())))
+	nB := l.Add(trace.Input("bars/nb", "Bars along each b-face, corners included", src, "n_b", "", float64(p.NB)))
+	nH := l.Add(trace.Input("bars/nh", "Bars along each h-face, corners included", src, "n_h", "", float64(p.NH)))
+	as := l.Add(trace.Formula("bars/As", "Area of longitudinal reinforcement provided", "common practice", "A_s,prov", "mm2",
+		p.Area(), "n * 3.141592653589793 * phi ** 2 / 4", trace.A("n", nb), trace.A("phi", phi)))
+	d.AsProv, d.AsMin, d.AsMax = as.V, c.asMin.V, c.asMax.V
+	check(trace.Check("bars/check_As_min", "Minimum reinforcement", "EN 1992-1-1:2004 9.5.2(2)", "A_s,min ≤ A_s,prov",
+		c.asMin.V/as.V, "A_s_min / A_s", trace.A("A_s_min", c.asMin), trace.A("A_s", as)))
+	check(trace.Check("bars/check_As_max", "Maximum reinforcement outside laps", "EN 1992-1-1:2004 9.5.2(3)", "A_s,prov ≤ A_s,max",
+		as.V/c.asMax.V, "A_s / A_s_max", trace.A("A_s", as), trace.A("A_s_max", c.asMax)))
+	phiMin := param(prm, "phi_min", "mm")
+	check(trace.Check("bars/check_phi_min", "Minimum bar diameter", "EN 1992-1-1:2004 9.5.2(1)", "φ_min ≤ φ",
+		phiMin.V/p.Dia, "phi_min / phi", trace.A("phi_min", phiMin), trace.A("phi", phi)))
+
+	// Links, EN 1992-1-1:2004 9.5.3.
+	l.Group = "Links"
+	linkSrc := "chosen: smallest listed size not below the minimum"
+	if col.LinkDia > 0 {
+		linkSrc = "input"
+	}
+	phiT := l.Add(trace.Input("links/phi_t", "Link diameter", linkSrc, "φ_t", "mm", link))
+	phiTMin := l.Add(detail.MinLinkDia("links/phi_t_min", phi, param(prm, "link_dia_min", "mm"), param(prm, "link_dia_ratio", "")))
+	check(trace.Check("links/check_dia", "Link diameter", "EN 1992-1-1:2004 9.5.3(1)", "φ_t,min ≤ φ_t",
+		phiTMin.V/link, "phi_t_min / phi_t", trace.A("phi_t_min", phiTMin), trace.A("phi_t", phiT)))
+	bMin := l.Add(trace.Formula("links/b_min", "Lesser dimension of the column", "EN 1992-1-1:2004 9.5.3(3)", "b_min", "mm",
+		math.Min(col.B, col.H), "min(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
+	sMax := l.Add(detail.MaxLinkSpacing("links/s_max", phi, bMin, param(prm, "link_spacing_bars", ""), param(prm, "link_spacing_max", "mm")))
+	sRed := l.Add(detail.ReducedLinkSpacing("links/s_red", sMax, param(prm, "link_spacing_zone", "")))
+	step := trace.Const(c.in.Options.LinkStep, "Δs", "mm")
+	s1 := l.Add(detail.RoundDown("links/s", "Link spacing provided", "s_t", sMax, step))
+	s2 := l.Add(detail.RoundDown("links/s_zone", "Link spacing provided near beams, slabs and laps", "s_t,red", sRed, step))
+	d.Links = Links{Dia: link, Spacing: s1.V, SpacingReduced: s2.V}
+
+	// Clear spacing of bars, EN 1992-1-1:2004 8.2(2).
+	l.Group = "Bar spacing"
+	dg := l.Add(trace.Input("space/dg", "Maximum aggregate size", "input", "d_g", "mm", c.in.Materials.Aggregate))
+	sMin := l.Add(detail.MinClearSpacing("space/s_min", phi, dg, param(prm, "spacing_k1", ""), param(prm, "spacing_k2", "mm"), param(prm, "spacing_min", "mm")))
+	cnom := l.Add(trace.Input("space/c_nom", "Nominal cover to the links", "input", "c_nom", "mm", col.Cover))
+	gapB, gapH := g.ClearGaps(p)
+	gapExpr := "(w - 2 * c_nom - 2 * phi_t - phi) / (n - 1) - phi"
+	gb := l.Add(trace.Formula("space/gap_b", "Clear distance between bars along a b-face", "common practice", "s_b", "mm", gapB, gapExpr,
+		trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nB)))
+	gh := l.Add(trace.Formula("space/gap_h", "Clear distance between bars along an h-face", "common practice", "s_h", "mm", gapH, gapExpr,
+		trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nH)))
+	gapMin := math.Min(gapB, gapH)
+	check(trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
+		sMin.V/math.Max(gapMin, 1e-3), "s_min / max(min(s_b, s_h), 0.001)", trace.A("s_min", sMin), trace.A("s_b", gb), trace.A("s_h", gh)))
+
+	// Slenderness limit and second order, per axis.
+	l.Group = "Slenderness limit"
+	omega := l.Add(slender.MechanicalRatio("slend/omega", as, c.fyd, c.ac, c.fcd))
+	factB := l.Add(slender.FactorB("slend/B", omega))
+	kLim := param(prm, "lambda_lim_k", "")
+	sec := c.section(pos, p.BarArea())
+	var mEds [2]trace.Q
+	for k := 0; k < 2; k++ {
+		a := &c.ax[k]
+		n := a.name
+		ax := &d.Y
+		if k == 1 {
+			ax = &d.Z
+		}
+		l.Group = "Slenderness limit about " + n
+		lim := l.Add(slender.LambdaLim(n+"/lambda_lim", kLim, a.factorA, factB, a.factorC, c.nRel))
+		sl := l.Add(slender.IsSlender(n+"/slender", a.lambda, lim))
+		ax.L0, ax.Lambda, ax.LambdaLim, ax.Slender = a.l0.V, a.lambda.V, lim.V, sl.V == 1
+		ax.M01, ax.M02, ax.Ei, ax.M0Ed, ax.PhiEf = a.m01.V, a.m02.V, a.ei.V, a.m02i.V, a.phiEf.V
+		var mEd trace.Q
+		if ax.Slender {
+			l.Group = "Second-order moment about " + n + " (nominal curvature)"
+			epsYd := l.Add(slender.YieldStrain(n+"/eps_yd", c.fyd, c.es))
+			is := l.Add(slender.ReinforcementGyration(n+"/i_s", layersOf(pos, k)))
+			dd := l.Add(slender.EffectiveDepth(n+"/d", a.depth, is))
+			r0 := l.Add(slender.BaseCurvature(n+"/inv_r0", epsYd, dd))
+			kr := l.Add(slender.Kr(n+"/Kr", c.nRel, omega))
+			beta := l.Add(slender.Beta(n+"/beta", c.fck, a.lambda))
+			kphi := l.Add(slender.Kphi(n+"/Kphi", beta, a.phiEf))
+			curv := l.Add(slender.Curvature(n+"/inv_r", kr, kphi, r0))
+			e2 := l.Add(slender.SecondOrderEccentricity(n+"/e2", curv, a.l0, param(prm, "c_curv", "")))
+			m2 := l.Add(slender.SecondOrderMoment(n+"/M2", c.nEd, e2))
+			m0e := l.Add(slender.EquivalentMoment(n+"/M0e", a.m01i, a.m02i))
+			mEd = l.Add(slender.DesignMomentSlender(n+"/MEd", a.m01i, a.m02i, m0e, m2, c.nEd, a.e0))
+			ax.M2 = m2.V
+		} else {
+			l.Group = "Design moment about " + n
+			mEd = l.Add(slender.DesignMomentStocky(n+"/MEd", a.m02i, c.nEd, a.e0))
+		}
+		ax.MEd = mEd.V
+		l.Steps[len(l.Steps)-1].Symbol = "M_Ed," + n
+		mEds[k] = l.Steps[len(l.Steps)-1].Q()
+	}
+
+	// Section resistance.
+	l.Group = "Resistance to axial force"
+	nRdMax := l.Add(sec.nRdMaxStep("sec/NRd_max"))
+	d.NRdMax = nRdMax.V
+	resistance(trace.Check("sec/check_N", "Axial force", "EN 1992-1-1:2004 6.1", "N_Ed ≤ N_Rd,max",
+		c.nEd.V/nRdMax.V, "N_Ed / N_Rd_max", trace.A("N_Ed", c.nEd), trace.A("N_Rd_max", nRdMax)))
+	var mRd [2]trace.Q
+	for k := 0; k < 2; k++ {
+		n := c.ax[k].name
+		l.Group = "Moment resistance about " + n + " at N_Ed"
+		q, ok := sec.mRdSteps(l, n, k, c.nEd)
+		if !ok {
+			mRd[k] = l.Add(trace.Input(n+"/MRd", "Moment resistance about "+n+": none, NEd exceeds the axial resistance", "EN 1992-1-1:2004 6.1", "M_Rd,"+n, "Nmm", 0).
+				Caution("NEd exceeds NRd,max: the section cannot carry the axial force, so it has no moment resistance."))
+		} else {
+			mRd[k] = q
+		}
+		mEd := mEds[k]
+		resistance(trace.Check(n+"/check_M", "Bending about "+n, "EN 1992-1-1:2004 6.1", "M_Ed,"+n+" ≤ M_Rd,"+n,
+			mEd.V/math.Max(mRd[k].V, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", mEd), trace.A("M_Rd", mRd[k])))
+	}
+	d.Y.MRd, d.Z.MRd = mRd[0].V, mRd[1].V
+
+	// Biaxial bending, EN 1992-1-1:2004 5.8.9.
+	l.Group = "Biaxial bending"
+	ca := l.Add(slender.SlendernessRatiosClose("bi/c_a", c.ax[0].lambda, c.ax[1].lambda))
+	cb := l.Add(slender.EccentricitiesApart("bi/c_b", mEds[0], mEds[1], c.b, c.h))
+	nRd := l.Add(slender.NRdBiaxial("bi/NRd", c.ac, c.fcd, as, c.fyd))
+	aExp := l.Add(slender.ExponentA("bi/a", c.nEd, nRd))
+	d.Biaxial.A = aExp.V
+	d.Biaxial.Checked = !(ca.V == 1 && cb.V == 1)
+	if mRd[0].V > 0 && mRd[1].V > 0 {
+		s := slender.BiaxialRatio("bi/ratio", mEds[0], mRd[0], mEds[1], mRd[1], aExp)
+		d.Biaxial.Ratio = s.Value
+		if d.Biaxial.Checked {
+			resistance(s)
+		} else {
+			s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
+			s.Title = "Biaxial ratio (for information)"
+			l.Add(s.Note("(5.38a) and (5.38b) both hold: the separate checks about y and z suffice, 5.8.9(3)."))
+		}
+	} else {
+		d.Biaxial.Ratio = 0
+		l.Add(trace.Input("bi/ratio", "Biaxial ratio: not computed, the section has no moment resistance", "EN 1992-1-1:2004 5.8.9(4)", "ratio", "", 0))
+	}
+
+	c.settle(&d, l, checks)
+	return d
+}
+
+// checked names a check step and says whether it compares an action with a resistance.
+type checked struct {
+	id         string
+	resistance bool
+}
+
+// settle sets the utilisation, status, governing check and reasons of d from its check steps.
+// The utilisation is the largest ratio of action to resistance; a failed detailing rule
+// counts as well, so that a design never passes with a utilisation below 1 and a failure.
+func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
+	d.Status = StatusPass
+	d.Utilization = 0
+	for _, ch := range checks {
+		var s *trace.Step
+		for i := len(l.Steps) - 1; i >= 0; i-- {
+			if l.Steps[i].ID == ch.id {
+				s = &l.Steps[i]
+				break
+			}
+		}
+		if s == nil || !(ch.resistance || s.Verdict == trace.Fail) {
+			continue
+		}
+		if s.Value > d.Utilization || d.Governing == "" {
+			d.Utilization = s.Value
+			d.Governing = s.Title + " (" + s.Clause + ")"
+		}
+		if s.Verdict == trace.Fail {
+			d.Status = StatusFail
+			d.Reasons = append(d.Reasons, fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", s.Title, s.Relation, s.Value, s.Clause))
+		}
+	}
+	d.Steps = l.Steps
+}
+
+// layersOf groups bar positions into rows along the lever arm of axis k (0: coordinate z, 1: coordinate y).
+func layersOf(pos [][2]float64, k int) []slender.Layer {
+	idx := 1
+	if k == 1 {
+		idx = 0
+	}
+	var out []slender.Layer
+	for _, p := range pos {
+		v := p[idx]
+		found := false
+		for i := range out {
+			if math.Abs(out[i].Coord-v) < 1e-6 {
+				out[i].Count++
+				found = true
+				break
+			}
+		}
+		if !found {
+			out = append(out, slender.Layer{Coord: v, Count: 1})
+		}
+	}
+	return out
+}

@@ -1,0 +1,76 @@
+package design
+
+import (
+	"fmt"
+	"math"
+
+	"colsheet/calc/section"
+	"colsheet/calc/slender"
+	"colsheet/calc/trace"
+)
+
+// areaBound is the largest steel area, as a fraction of Ac, searched for the required area.
+const areaBound = 0.2
+
+// finish adds the steel area that the chosen bar pattern needs to resist the design actions.
+func (c *common) finish(d Design) Design {
+	if d.pattern.Count() == 0 {
+		return d
+	}
+	l := &trace.Log{Prefix: c.col.ID + "/" + c.st.Name + "/", Steps: d.Steps, Group: "Steel area required"}
+	sec := c.section(d.Bars.Positions, d.pattern.BarArea()).sec
+	bound := areaBound * c.ac.V
+	ratio := func(s *section.Section) (float64, error) { return c.resistanceRatio(s, &d) }
+	as, err := sec.AreaWhere(bound, ratio)
+	if err != nil {
+		l.Add(trace.Input("req/As", "Steel area needed for resistance: more than the search bound", "common practice", "A_s,res", "mm2", bound).
+			Caution(fmt.Sprintf("No area of this bar pattern up to %.0f %% of Ac resists the actions: enlarge the section.", 100*areaBound)))
+		d.AsReq = bound
+		d.Reasons = append(d.Reasons, fmt.Sprintf("The bar pattern would need more than %.0f mm² of steel; enlarge the section.", bound))
+		d.Status = StatusFail
+		d.Steps = l.Steps
+		return d
+	}
+	eta := 0.0
+	if as > 0 {
+		t := sec.Scaled(as)
+		eta, _ = c.resistanceRatio(&t, &d)
+	}
+	etaQ := trace.Const(eta, "η_res", "")
+	res := l.Add(trace.Solve("req/As_res", "Steel area of the bar pattern needed for resistance", "EN 1992-1-1:2004 6.1; 5.8.9",
+		"A_s,res", "mm2", as, "regula falsi (Illinois) on the area of the bar pattern, the actions held",
+		"eta - 1", eta-1, trace.A("eta", etaQ)).
+		Note("η_res is the largest of NEd/NRd,max, MEd/MRd about y and z and, where required, the biaxial ratio, at the area found; the actions are those of the bars provided."))
+	req := l.Add(trace.Formula("req/As_req", "Steel area required", "EN 1992-1-1:2004 9.5.2(2)", "A_s,req", "mm2",
+		math.Max(res.V, c.asMin.V), "max(A_s_res, A_s_min)", trace.A("A_s_res", res), trace.A("A_s_min", c.asMin)))
+	d.AsReq = req.V
+	d.Steps = l.Steps
+	return d
+}
+
+// biaxial returns the ratio of (5.39) for steel area as with the given actions and resistances.
+func (c *common) biaxial(as, mEdY, mRdY, mEdZ, mRdZ float64) float64 {
+	q := func(v float64) trace.Q { return trace.Const(v, "", "") }
+	nRd := slender.NRdBiaxial("", c.ac, c.fcd, q(as), c.fyd).Value
+	a := slender.ExponentA("", c.nEd, q(nRd)).Value
+	return slender.BiaxialRatio("", q(mEdY), q(mRdY), q(mEdZ), q(mRdZ), q(a)).Value
+}
+
+// noArrangement returns a failed design when no bar pattern fits the section at all.
+func (c *common) noArrangement() Design {
+	d := Design{Column: c.col.ID, Storey: c.st.Name, B: c.col.B, H: c.col.H, Cover: c.col.Cover,
+		Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: c.st.NEd, AsMin: c.asMin.V, AsMax: c.asMax.V,
+		Status: StatusFail, Governing: "no bar arrangement fits"}
+	axes := [2]*Axis{&d.Y, &d.Z}
+	for k, a := range c.ax {
+		axes[k].L0, axes[k].Lambda, axes[k].M01, axes[k].M02 = a.l0.V, a.lambda.V, a.m01.V, a.m02.V
+		axes[k].Ei, axes[k].M0Ed, axes[k].PhiEf = a.ei.V, a.m02i.V, a.phiEf.V
+	}
+	d.Utilization = math.Max(c.asMin.V/c.asMax.V, 1)
+	if c.asMin.V > c.asMax.V {
+		d.Reasons = append(d.Reasons, fmt.Sprintf("As,min = %.0f mm² exceeds As,max = %.0f mm²: the section is too small for the axial force.", c.asMin.V, c.asMax.V))
+	}
+	d.Reasons = append(d.Reasons, "No symmetric pattern of the listed bar diameters between As,min and As,max fits the section with the clear spacing of 8.2(2); enlarge the section or widen the list of diameters.")
+	d.Steps = c.steps
+	return d
+}

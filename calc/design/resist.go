@@ -1,0 +1,110 @@
+package design
+
+import (
+	"math"
+
+	"colsheet/calc/model"
+	"colsheet/calc/section"
+	"colsheet/calc/trace"
+)
+
+// resist is the section of one bar pattern with the traced inputs it was built from.
+type resist struct {
+	c   *common
+	sec section.Section
+}
+
+// section builds the section with equal bars of area barArea at the positions pos.
+func (c *common) section(pos [][2]float64, barArea float64) *resist {
+	bars := make([]section.Bar, len(pos))
+	for i, p := range pos {
+		bars[i] = section.Bar{Y: p[0], Z: p[1], Area: barArea}
+	}
+	block := section.ParabolaRectangle
+	if c.in.Options.StressBlock == model.Rectangular {
+		block = section.Rectangular
+	}
+	return &resist{c: c, sec: section.Section{B: c.col.B, H: c.col.H, Bars: bars, Concrete: c.in.Materials.Concrete,
+		Fcd: c.fcd.V, Fyd: c.fyd.V, Es: c.es.V, Block: block}}
+}
+
+func axisOf(k int) section.Axis {
+	if k == 1 {
+		return section.AxisZ
+	}
+	return section.AxisY
+}
+
+// nRdMax returns the resistance to pure compression.
+func (r *resist) nRdMax() float64 { return r.sec.NRdMax() }
+
+// nRdMaxStep returns the traced resistance to pure compression at uniform strain,
+// EN 1992-1-1:2004 6.1(5), Fig. 6.1 (pivot C with zero curvature).
+func (r *resist) nRdMaxStep(id string) trace.Step {
+	c := r.c
+	as := trace.Q{V: r.sec.Area(), Symbol: "A_s,prov", Unit: "mm2", From: c.col.ID + "/" + c.st.Name + "/bars/As"}
+	args := []trace.Arg{trace.A("f_cd", c.fcd), trace.A("b", c.b), trace.A("h", c.h), trace.A("A_s", as),
+		trace.A("E_s", c.es), trace.A("eps", c.epsC2), trace.A("f_yd", c.fyd)}
+	expr := "f_cd * (b * h - A_s) + A_s * min(E_s * eps, f_yd)"
+	if r.sec.Block == section.Rectangular {
+		expr = "eta * " + expr // η multiplies the concrete term only
+		args = append(args, trace.A("eta", c.eta))
+	}
+	return trace.Formula(id, "Resistance to pure compression (uniform strain)", "EN 1992-1-1:2004 6.1(5), Fig. 6.1",
+		"N_Rd,max", "N", r.sec.NRdMax(), expr, args...)
+}
+
+// mRd returns the smaller moment resistance of the two faces about axis k at nEd, fast.
+func (r *resist) mRd(k int, nEd float64) (float64, bool) {
+	a := axisOf(k)
+	mp, err1 := r.sec.Resistance(a, section.Positive, nEd)
+	mn, err2 := r.sec.Resistance(a, section.Negative, nEd)
+	if err1 != nil || err2 != nil {
+		return 0, false
+	}
+	return math.Min(math.Abs(mp), math.Abs(mn)), true
+}
+
+// mRdSteps records the equilibrium at nEd about axis k (the governing face) and returns MRd.
+func (r *resist) mRdSteps(l *trace.Log, n string, k int, nEd trace.Q) (trace.Q, bool) {
+	a := axisOf(k)
+	st, err := r.sec.MRdAt(a, section.Positive, nEd.V)
+	if err != nil {
+		return trace.Q{}, false
+	}
+	// The patterns are symmetric; the other face governs only for an asymmetric layout.
+	if neg, err := r.sec.MRdAt(a, section.Negative, nEd.V); err == nil && math.Abs(neg.M) < math.Abs(st.M)*(1-1e-9) {
+		st = neg
+	}
+	c := r.c
+	refs := section.Refs{Fcd: c.fcd.From, Fyd: c.fyd.From, Es: c.es.From, B: c.b.From, H: c.h.From,
+		Concrete: c.epsC2.From, Bars: c.col.ID + "/" + c.st.Name + "/bars/As"}
+	q := r.sec.Trace(l, n+"/sec/", nEd, st, refs)
+	if q.V < 0 {
+		q = l.Add(trace.Formula(n+"/MRd", "Moment resistance about "+n+" (magnitude)", "common practice", "M_Rd,"+n, "Nmm",
+			-q.V, "abs(M)", trace.A("M", q)))
+	}
+	return q, true
+}
+
+// resistanceRatio returns the largest resistance ratio of the design's actions for the bar
+// positions pos with each bar of area barArea: NEd/NRd,max, MEd/MRd about y and z, and the
+// biaxial ratio where (5.38) calls for it.
+func (c *common) resistanceRatio(sec *section.Section, d *Design) (float64, error) {
+	r := &resist{c: c, sec: *sec}
+	nMax := r.nRdMax()
+	ratio := c.nEd.V / nMax
+	if ratio > 1 {
+		return ratio, nil
+	}
+	my, okY := r.mRd(0, c.nEd.V)
+	mz, okZ := r.mRd(1, c.nEd.V)
+	if !okY || !okZ || my <= 0 || mz <= 0 {
+		return math.Inf(1), nil
+	}
+	ratio = math.Max(ratio, math.Max(d.Y.MEd/my, d.Z.MEd/mz))
+	if d.Biaxial.Checked {
+		ratio = math.Max(ratio, c.biaxial(sec.Area(), d.Y.MEd, my, d.Z.MEd, mz))
+	}
+	return ratio, nil
+}

@@ -1,0 +1,238 @@
+package design
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"colsheet/calc/code"
+	"colsheet/calc/detail"
+	"colsheet/calc/material"
+	"colsheet/calc/model"
+	"colsheet/calc/slender"
+	"colsheet/calc/trace"
+)
+
+// Version is the engine's version, written into every result.
+const Version = "0.1.0"
+
+// Run designs or checks every column and lift of the input.
+func Run(in *model.Input) *Result {
+	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in}
+	for ci := range in.Columns {
+		col := &in.Columns[ci]
+		for si := range col.Storeys {
+			r.Designs = append(r.Designs, One(in, col, &col.Storeys[si]))
+		}
+	}
+	return r
+}
+
+// common holds the traced quantities of a lift that do not depend on the bars.
+type common struct {
+	in           *model.Input
+	col          *model.Column
+	st           *model.Storey
+	p            code.Params
+	steps        []trace.Step
+	cautions     []string
+	fck, fcd     trace.Q
+	fyd, es      trace.Q
+	epsC2, epsCu trace.Q
+	nExp         trace.Q
+	lam, eta     trace.Q // rectangular block factors (zero value for parabola-rectangle)
+	b, h, ac     trace.Q
+	nEd          trace.Q
+	nRel         trace.Q
+	asMin, asMax trace.Q
+	sMinFor      func(dia float64) float64
+	ax           [2]axisCommon
+}
+
+// axisCommon holds the bar-independent quantities for bending about one axis.
+type axisCommon struct {
+	name      string  // "y" or "z"
+	depth     trace.Q // section dimension along the lever arm
+	l0        trace.Q
+	m01, m02  trace.Q
+	ei        trace.Q
+	m01i      trace.Q
+	m02i      trace.Q
+	e0        trace.Q
+	lambda    trace.Q
+	factorA   trace.Q
+	factorC   trace.Q
+	phiEf     trace.Q
+	phiGiven  bool
+	lenForAlp float64
+}
+
+func (c *common) add(l *trace.Log, s trace.Step) trace.Q { return l.Add(s) }
+
+func param(p code.Params, name, unit string) trace.Q {
+	cat, _ := code.Lookup(name)
+	return trace.Const(p.Get(name), cat.Symbol, unit)
+}
+
+// paramStep records a code parameter as an input step so that the sheet shows where it comes from.
+func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
+	cat, _ := code.Lookup(name)
+	title := strings.ToUpper(cat.What[:1]) + cat.What[1:]
+	s := trace.Input("code/"+name, title, cat.Clause, cat.Symbol, unit, p.Get(name))
+	for _, o := range p.Overrides() {
+		if o.Name == name {
+			s = s.Note(fmt.Sprintf("Overridden in the input; the EN recommended value is %g.", cat.Default))
+		}
+	}
+	return l.Add(s)
+}
+
+func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
+	c := &common{in: in, col: col, st: st, p: in.Code}
+	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/"}
+	p := in.Code
+	conc := in.Materials.Concrete
+
+	l.Group = "Materials"
+	c.fck = l.Add(material.FckStep("mat/fck", conc))
+	alphaCC := paramStep(l, p, "alpha_cc", "")
+	gammaC := paramStep(l, p, "gamma_c", "")
+	c.fcd = l.Add(material.Fcd("mat/fcd", alphaCC, c.fck, gammaC))
+	if in.Options.StressBlock == model.Rectangular {
+		c.lam = l.Add(material.LambdaStep("mat/lambda", conc, c.fck))
+		c.eta = l.Add(material.EtaStep("mat/eta", conc, c.fck))
+		c.epsC2 = l.Add(material.EpsC3Step("mat/eps_c3", conc, c.fck))
+		c.epsCu = l.Add(material.EpsCu2Step("mat/eps_cu3", conc, c.fck))
+	} else {
+		c.epsC2 = l.Add(material.EpsC2Step("mat/eps_c2", conc, c.fck))
+		c.epsCu = l.Add(material.EpsCu2Step("mat/eps_cu2", conc, c.fck))
+		c.nExp = l.Add(material.NStep("mat/n", conc, c.fck))
+	}
+	fyk := l.Add(trace.Input("mat/fyk", "Characteristic yield strength of reinforcement", "EN 1992-1-1:2004 3.2.2(3)P", "f_yk", "MPa", in.Materials.Fyk))
+	gammaS := paramStep(l, p, "gamma_s", "")
+	c.fyd = l.Add(material.Fyd("mat/fyd", fyk, gammaS))
+	c.es = paramStep(l, p, "Es", "MPa")
+
+	l.Group = "Section and actions"
+	c.b = l.Add(trace.Input("geo/b", "Section width (along y)", "input", "b", "mm", col.B))
+	c.h = l.Add(trace.Input("geo/h", "Section depth (along z)", "input", "h", "mm", col.H))
+	c.ac = l.Add(trace.Formula("geo/Ac", "Gross concrete area", "common practice", "A_c", "mm2", col.B*col.H,
+		"b * h", trace.A("b", c.b), trace.A("h", c.h)))
+	c.nEd = l.Add(trace.Input("act/NEd", "Design axial force (compression positive)", "input", "N_Ed", "N", st.NEd))
+	c.nRel = l.Add(slender.RelativeForce("act/n", c.nEd, c.ac, c.fcd))
+
+	ends := [2]model.Ends{st.MY, st.MZ}
+	l0s := [2]float64{st.L0Y, st.L0Z}
+	depths := [2]trace.Q{c.h, c.b}
+	for k := 0; k < 2; k++ {
+		a := &c.ax[k]
+		a.name = []string{"y", "z"}[k]
+		n := a.name
+		a.depth = depths[k]
+		l.Group = "First-order moments and imperfection about " + n
+		top := l.Add(trace.Input(n+"/M_top", "First-order moment at the top about "+n, "input", "M_top,"+n, "Nmm", ends[k].Top))
+		bot := l.Add(trace.Input(n+"/M_bot", "First-order moment at the bottom about "+n, "input", "M_bot,"+n, "Nmm", ends[k].Bottom))
+		a.m02 = l.Add(slender.M02(n+"/M02", top, bot))
+		a.m01 = l.Add(slender.M01(n+"/M01", top, bot, a.m02))
+		a.l0 = l.Add(trace.Input(n+"/l0", "Effective length for buckling about "+n, "input", "l_0,"+n, "mm", l0s[k]))
+		if in.Options.Imperfection == model.ImperfL0Over400 {
+			a.ei = l.Add(slender.EccentricityL0Over400(n+"/ei", a.l0))
+		} else {
+			var lq trace.Q
+			if st.Length > 0 {
+				lq = l.Add(trace.Input(n+"/l", "Member length", "input", "l", "mm", st.Length))
+			} else {
+				lq = l.Add(trace.Input(n+"/l", "Member length (taken as l0: not given)", "EN 1992-1-1:2004 5.2(5)", "l", "mm", l0s[k]).
+					Note("The member length is not given; l = l0 is used for αh, which is conservative for braced members (l0 ≤ l)."))
+			}
+			theta0 := paramStep(l, p, "theta_0", "")
+			ah := l.Add(slender.AlphaH(n+"/alpha_h", lq))
+			m := l.Add(trace.Input(n+"/m", "Number of vertical members contributing", "EN 1992-1-1:2004 5.2(5)", "m", "", in.Options.Members))
+			am := l.Add(slender.AlphaM(n+"/alpha_m", m))
+			th := l.Add(slender.ThetaI(n+"/theta_i", theta0, ah, am))
+			a.ei = l.Add(slender.EccentricityFromInclination(n+"/ei", th, a.l0))
+		}
+		a.m02i = l.Add(slender.WithImperfection(n+"/M02i", "Larger end moment with imperfection (M0Ed)", "M_02,"+n, a.m02, c.nEd, a.ei))
+		a.m01i = l.Add(slender.WithImperfection(n+"/M01i", "Smaller end moment with imperfection", "M_01,"+n, a.m01, c.nEd, a.ei))
+		a.e0 = l.Add(slender.MinEccentricity(n+"/e0", a.depth))
+
+		l.Group = "Slenderness about " + n
+		i := l.Add(slender.RadiusOfGyration(n+"/i", a.depth))
+		a.lambda = l.Add(slender.Slenderness(n+"/lambda", a.l0, i))
+		if st.HasPhi {
+			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio", "EN 1992-1-1:2004 5.8.4(2)", "φ_ef", "", st.PhiEf))
+			a.factorA = l.Add(slender.FactorA(n+"/A", a.phiEf))
+			a.phiGiven = true
+		} else {
+			a.factorA = l.Add(slender.FactorADefault(n + "/A"))
+			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio for Kφ (not given)", "common practice", "φ_ef", "", p.Get("phi_ef_default")).
+				Caution("φef is not given: the default value is used for Kφ. Give phi_ef from 5.8.4 for the actual loading history."))
+		}
+		rm := l.Add(slender.MomentRatio(n+"/rm", a.m01, a.m02))
+		a.factorC = l.Add(slender.FactorC(n+"/C", rm))
+	}
+
+	l.Group = "Reinforcement limits"
+	c.asMin = l.Add(detail.AsMin("det/As_min", c.nEd, c.fyd, c.ac, param(p, "As_min_N", ""), param(p, "As_min_Ac", "")))
+	c.asMax = l.Add(detail.AsMax("det/As_max", c.ac, param(p, "As_max_Ac", "")))
+
+	k1, k2, s0 := p.Get("spacing_k1"), p.Get("spacing_k2"), p.Get("spacing_min")
+	dg := in.Materials.Aggregate
+	c.sMinFor = func(dia float64) float64 { return math.Max(math.Max(k1*dia, dg+k2), s0) }
+	c.steps = l.Steps
+	return c
+}
+
+// linkFor returns the link diameter for bars of diameter dia: the given one, or the smallest
+// listed size not below max(6 mm, φ/4) of EN 1992-1-1:2004 9.5.3(1).
+func (c *common) linkFor(dia float64) float64 {
+	if c.col.LinkDia > 0 {
+		return c.col.LinkDia
+	}
+	need := math.Max(c.p.Get("link_dia_min"), c.p.Get("link_dia_ratio")*dia)
+	sizes := c.in.Options.LinkDiameters
+	for _, d := range sizes {
+		if d >= need-1e-9 {
+			return d
+		}
+	}
+	return sizes[len(sizes)-1]
+}
+
+// One designs or checks one column over one lift.
+func One(in *model.Input, col *model.Column, st *model.Storey) Design {
+	c := newCommon(in, col, st)
+	var patterns []detail.Pattern
+	if col.Bars != nil {
+		g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: c.linkFor(col.Bars.Dia)}
+		p, ok := g.ForCount(col.Bars.Count, col.Bars.Dia, 0)
+		if !ok {
+			// Bars that do not fit at all: lay them out two per b-face and the rest on the h-faces,
+			// and let the spacing check fail loudly.
+			p = detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count/2}
+		}
+		patterns = []detail.Pattern{p}
+	} else {
+		patterns = detail.Candidates(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor,
+			c.asMin.V, c.asMax.V)
+	}
+	var best Design
+	found := false
+	for _, p := range patterns {
+		d := c.evaluate(p, col.Bars != nil)
+		if d.Status == StatusPass {
+			return c.finish(d)
+		}
+		if !found || d.Utilization < best.Utilization {
+			best, found = d, true
+		}
+	}
+	if !found {
+		d := c.noArrangement()
+		return d
+	}
+	if col.Bars == nil {
+		best.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, best.Reasons...)
+	}
+	return c.finish(best)
+}

@@ -1,0 +1,49 @@
+// Command colsheet designs and checks reinforced-concrete columns to EN 1992-1-1 and
+// writes traced calculation sheets (Markdown, LaTeX, HTML), results.json and a CSV summary.
+//
+// Usage:
+//
+//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD]
+//	colsheet version
+//
+// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage.
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+)
+
+func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
+
+const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992-1-1
+
+usage:
+  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD]
+  colsheet version
+  colsheet help
+
+design writes DIR/results.json, DIR/summary.csv and the calc sheets under
+DIR/md, DIR/tex and DIR/html. Exit status: 0 every design passes, 1 some
+design fails (everything is still written), 2 bad input or usage.
+`
+
+func run(args []string, stdout, stderr io.Writer) int {
+	if len(args) == 0 {
+		fmt.Fprint(stderr, usage)
+		return 2
+	}
+	switch args[0] {
+	case "design":
+		return runDesign(args[1:], stdout, stderr)
+	case "version", "--version":
+		fmt.Fprintln(stdout, "colsheet", version())
+		return 0
+	case "help", "-h", "--help":
+		fmt.Fprint(stdout, usage)
+		return 0
+	}
+	fmt.Fprintf(stderr, "colsheet: unknown command %q\n\n%s", args[0], usage)
+	return 2
+}
