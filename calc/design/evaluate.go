@@ -97,24 +97,24 @@ func (c *common) evaluate(p detail.Pattern, given bool) Design {
 			ax = &d.Z
 		}
 		l.Group = "Slenderness limit about " + n
-		lim := l.Add(slender.LambdaLim(n+"/lambda_lim", kLim, a.factorA, factB, a.factorC, c.nRel))
-		sl := l.Add(slender.IsSlender(n+"/slender", a.lambda, lim))
+		lim := l.Add(onAxis(n, slender.LambdaLim(n+"/lambda_lim", kLim, a.factorA, factB, a.factorC, c.nRel)))
+		sl := l.Add(onAxis(n, slender.IsSlender(n+"/slender", a.lambda, lim)))
 		ax.L0, ax.Lambda, ax.LambdaLim, ax.Slender = a.l0.V, a.lambda.V, lim.V, sl.V == 1
 		ax.M01, ax.M02, ax.Ei, ax.M0Ed, ax.PhiEf = a.m01.V, a.m02.V, a.ei.V, a.m02i.V, a.phiEf.V
 		var mEd trace.Q
 		if ax.Slender {
 			l.Group = "Second-order moment about " + n + " (nominal curvature)"
 			epsYd := l.Add(slender.YieldStrain(n+"/eps_yd", c.fyd, c.es))
-			is := l.Add(slender.ReinforcementGyration(n+"/i_s", layersOf(pos, k)))
-			dd := l.Add(slender.EffectiveDepth(n+"/d", a.depth, is))
-			r0 := l.Add(slender.BaseCurvature(n+"/inv_r0", epsYd, dd))
+			is := l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", layersOf(pos, k))))
+			dd := l.Add(onAxis(n, slender.EffectiveDepth(n+"/d", a.depth, is)))
+			r0 := l.Add(onAxis(n, slender.BaseCurvature(n+"/inv_r0", epsYd, dd)))
 			kr := l.Add(slender.Kr(n+"/Kr", c.nRel, omega))
-			beta := l.Add(slender.Beta(n+"/beta", c.fck, a.lambda))
-			kphi := l.Add(slender.Kphi(n+"/Kphi", beta, a.phiEf))
-			curv := l.Add(slender.Curvature(n+"/inv_r", kr, kphi, r0))
-			e2 := l.Add(slender.SecondOrderEccentricity(n+"/e2", curv, a.l0, param(prm, "c_curv", "")))
-			m2 := l.Add(slender.SecondOrderMoment(n+"/M2", c.nEd, e2))
-			m0e := l.Add(slender.EquivalentMoment(n+"/M0e", a.m01i, a.m02i))
+			beta := l.Add(onAxis(n, slender.Beta(n+"/beta", c.fck, a.lambda)))
+			kphi := l.Add(onAxis(n, slender.Kphi(n+"/Kphi", beta, a.phiEf)))
+			curv := l.Add(onAxis(n, slender.Curvature(n+"/inv_r", kr, kphi, r0)))
+			e2 := l.Add(onAxis(n, slender.SecondOrderEccentricity(n+"/e2", curv, a.l0, param(prm, "c_curv", ""))))
+			m2 := l.Add(onAxis(n, slender.SecondOrderMoment(n+"/M2", c.nEd, e2)))
+			m0e := l.Add(onAxis(n, slender.EquivalentMoment(n+"/M0e", a.m01i, a.m02i)))
 			mEd = l.Add(slender.DesignMomentSlender(n+"/MEd", a.m01i, a.m02i, m0e, m2, c.nEd, a.e0))
 			ax.M2 = m2.V
 		} else {

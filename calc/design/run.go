@@ -132,11 +132,11 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 		l.Group = "First-order moments and imperfection about " + n
 		top := l.Add(trace.Input(n+"/M_top", "First-order moment at the top about "+n, "input", "M_top,"+n, "Nmm", ends[k].Top))
 		bot := l.Add(trace.Input(n+"/M_bot", "First-order moment at the bottom about "+n, "input", "M_bot,"+n, "Nmm", ends[k].Bottom))
-		a.m02 = l.Add(slender.M02(n+"/M02", top, bot))
-		a.m01 = l.Add(slender.M01(n+"/M01", top, bot, a.m02))
+		a.m02 = l.Add(onAxis(n, slender.M02(n+"/M02", top, bot)))
+		a.m01 = l.Add(onAxis(n, slender.M01(n+"/M01", top, bot, a.m02)))
 		a.l0 = l.Add(trace.Input(n+"/l0", "Effective length for buckling about "+n, "input", "l_0,"+n, "mm", l0s[k]))
 		if in.Options.Imperfection == model.ImperfL0Over400 {
-			a.ei = l.Add(slender.EccentricityL0Over400(n+"/ei", a.l0))
+			a.ei = l.Add(onAxis(n, slender.EccentricityL0Over400(n+"/ei", a.l0)))
 		} else {
 			var lq trace.Q
 			if st.Length > 0 {
@@ -150,26 +150,26 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 			m := l.Add(trace.Input(n+"/m", "Number of vertical members contributing", "EN 1992-1-1:2004 5.2(5)", "m", "", in.Options.Members))
 			am := l.Add(slender.AlphaM(n+"/alpha_m", m))
 			th := l.Add(slender.ThetaI(n+"/theta_i", theta0, ah, am))
-			a.ei = l.Add(slender.EccentricityFromInclination(n+"/ei", th, a.l0))
+			a.ei = l.Add(onAxis(n, slender.EccentricityFromInclination(n+"/ei", th, a.l0)))
 		}
 		a.m02i = l.Add(slender.WithImperfection(n+"/M02i", "Larger end moment with imperfection (M0Ed)", "M_02,"+n, a.m02, c.nEd, a.ei))
 		a.m01i = l.Add(slender.WithImperfection(n+"/M01i", "Smaller end moment with imperfection", "M_01,"+n, a.m01, c.nEd, a.ei))
-		a.e0 = l.Add(slender.MinEccentricity(n+"/e0", a.depth))
+		a.e0 = l.Add(onAxis(n, slender.MinEccentricity(n+"/e0", a.depth)))
 
 		l.Group = "Slenderness about " + n
-		i := l.Add(slender.RadiusOfGyration(n+"/i", a.depth))
-		a.lambda = l.Add(slender.Slenderness(n+"/lambda", a.l0, i))
+		i := l.Add(onAxis(n, slender.RadiusOfGyration(n+"/i", a.depth)))
+		a.lambda = l.Add(onAxis(n, slender.Slenderness(n+"/lambda", a.l0, i)))
 		if st.HasPhi {
 			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio", "EN 1992-1-1:2004 5.8.4(2)", "φ_ef", "", st.PhiEf))
-			a.factorA = l.Add(slender.FactorA(n+"/A", a.phiEf))
+			a.factorA = l.Add(onAxis(n, slender.FactorA(n+"/A", a.phiEf)))
 			a.phiGiven = true
 		} else {
-			a.factorA = l.Add(slender.FactorADefault(n + "/A"))
+			a.factorA = l.Add(onAxis(n, slender.FactorADefault(n+"/A")))
 			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio for Kφ (not given)", "common practice", "φ_ef", "", p.Get("phi_ef_default")).
 				Caution("φef is not given: the default value is used for Kφ. Give phi_ef from 5.8.4 for the actual loading history."))
 		}
-		rm := l.Add(slender.MomentRatio(n+"/rm", a.m01, a.m02))
-		a.factorC = l.Add(slender.FactorC(n+"/C", rm))
+		rm := l.Add(onAxis(n, slender.MomentRatio(n+"/rm", a.m01, a.m02)))
+		a.factorC = l.Add(onAxis(n, slender.FactorC(n+"/C", rm)))
 	}
 
 	l.Group = "Reinforcement limits"
@@ -209,7 +209,7 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 		if !ok {
 			// Bars that do not fit at all: lay them out two per b-face and the rest on the h-faces,
 			// and let the spacing check fail loudly.
-			p = detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count/2}
+			p = detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count / 2}
 		}
 		patterns = []detail.Pattern{p}
 	} else {
@@ -235,4 +235,14 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 		best.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, best.Reasons...)
 	}
 	return c.finish(best)
+}
+
+// onAxis returns the step with its symbol marked for bending about axis n ("y" or "z").
+func onAxis(n string, s trace.Step) trace.Step {
+	if strings.Contains(s.Symbol, "_") {
+		s.Symbol += "," + n
+	} else {
+		s.Symbol += "_" + n
+	}
+	return s
 }

@@ -31,21 +31,40 @@ var Classes = [][2]float64{
 	{50, 60}, {55, 67}, {60, 75}, {70, 85}, {80, 95}, {90, 105},
 }
 
+// ExtraClasses lists strength classes outside Table 3.1 that national standards use; their
+// properties follow from the Table 3.1 expressions.
+var ExtraClasses = [][2]float64{{28, 35}, {32, 40}}
+
 // ClassNames returns the class names of Table 3.1 joined for an error message.
 func ClassNames() string {
 	s := make([]string, len(Classes))
 	for i, c := range Classes {
 		s[i] = fmt.Sprintf("C%g/%g", c[0], c[1])
 	}
+	for _, c := range ExtraClasses {
+		s = append(s, fmt.Sprintf("C%g/%g", c[0], c[1]))
+	}
 	return strings.Join(s, ", ")
+}
+
+// InTable31 reports whether the class is one of EN 1992-1-1:2004 Table 3.1.
+func (c Concrete) InTable31() bool {
+	for _, t := range Classes {
+		if t[0] == c.Fck && t[1] == c.FckCub {
+			return true
+		}
+	}
+	return false
 }
 
 // Lookup returns the properties of the named class ("C32/40"), or false when Table 3.1 has no such class.
 func Lookup(class string) (Concrete, bool) {
 	name := strings.ToUpper(strings.TrimSpace(class))
-	for _, c := range Classes {
-		if name == fmt.Sprintf("C%g/%g", c[0], c[1]) {
-			return FromFck(c[0], c[1]), true
+	for _, list := range [][][2]float64{Classes, ExtraClasses} {
+		for _, c := range list {
+			if name == fmt.Sprintf("C%g/%g", c[0], c[1]) {
+				return FromFck(c[0], c[1]), true
+			}
 		}
 	}
 	return Concrete{}, false

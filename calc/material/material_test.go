@@ -48,6 +48,10 @@ func TestTable31(t *testing.T) {
 		check("εc3", c.EpsC3*1000, r.epsC3, 0.05+1e-9)
 		check("εcu3", c.EpsCu3*1000, r.epsCu3, 0.05+1e-9)
 	}
+	// C32/40 is outside Table 3.1 but used by national standards (BS 8500-1, from memory).
+	if c, ok := Lookup("C32/40"); !ok || c.InTable31() || c.Fcm != 40 {
+		t.Error("C32/40 should be accepted as an extra class outside Table 3.1")
+	}
 	if _, ok := Lookup("C33/41"); ok {
 		t.Error("C33/41 is not a Table 3.1 class")
 	}

@@ -10,7 +10,11 @@ const ec2 = "EN 1992-1-1:2004 "
 
 // FckStep returns the characteristic cylinder strength read from Table 3.1, EN 1992-1-1:2004 Table 3.1.
 func FckStep(id string, c Concrete) trace.Step {
-	return trace.Table(id, "Characteristic cylinder strength", ec2+"3.1.2, Table 3.1", c.Class+", fck", "f_ck", "MPa", c.Fck)
+	s := trace.Table(id, "Characteristic cylinder strength", ec2+"3.1.2, Table 3.1", c.Class+", fck", "f_ck", "MPa", c.Fck)
+	if !c.InTable31() {
+		s = s.Caution(c.Class + " is not a class of EN 1992-1-1 Table 3.1; it is used by national standards, and its properties here follow from the expressions of Table 3.1. Confirm that the national annex allows it.")
+	}
+	return s
 }
 
 // EpsC2Step returns εc2, read from Table 3.1 up to C50/60 and from the table's expression above.
