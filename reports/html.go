@@ -1,0 +1,158 @@
+package reports
+
+import (
+	"bytes"
+	"fmt"
+	"html/template"
+	"strings"
+
+	"github.com/yuin/goldmark"
+	"github.com/yuin/goldmark/ast"
+	"github.com/yuin/goldmark/extension"
+	"github.com/yuin/goldmark/parser"
+	ghtml "github.com/yuin/goldmark/renderer/html"
+	"github.com/yuin/goldmark/text"
+	"github.com/yuin/goldmark/util"
+
+	"colsheet/calc/design"
+	"colsheet/templates"
+)
+
+// verdictClasses marks the strong PASS and FAIL words, and the block quotes they open, with
+// the classes "pass" and "fail" so that the page's style sheet can make a failure loud.
+type verdictClasses struct{}
+
+func strongWord(n ast.Node, src []byte) string {
+	e, ok := n.(*ast.Emphasis)
+	if !ok || e.Level != 2 || e.ChildCount() != 1 {
+		return ""
+	}
+	t, ok := e.FirstChild().(*ast.Text)
+	if !ok {
+		return ""
+	}
+	switch w := string(t.Segment.Value(src)); w {
+	case "PASS", "FAIL":
+		return w
+	}
+	return ""
+}
+
+func (verdictClasses) Transform(doc *ast.Document, reader text.Reader, _ parser.Context) {
+	src := reader.Source()
+	_ = ast.Walk(doc, func(n ast.Node, entering bool) (ast.WalkStatus, error) {
+		if !entering {
+			return ast.WalkContinue, nil
+		}
+		switch n.Kind() {
+		case ast.KindEmphasis:
+			if w := strongWord(n, src); w != "" {
+				n.SetAttributeString("class", []byte(strings.ToLower(w)))
+			}
+		case ast.KindBlockquote:
+			if p := n.FirstChild(); p != nil && p.Kind() == ast.KindParagraph && strongWord(p.FirstChild(), src) == "FAIL" {
+				n.SetAttributeString("class", []byte("fail"))
+			}
+		}
+		return ast.WalkContinue, nil
+	})
+}
+
+// converter renders the Markdown that this package writes. Raw HTML is let through because
+// the only raw HTML in it is the <sub> and <sup> tags that the package itself writes: every
+// user-supplied character that could start markup is escaped in the Markdown.
+var converter = goldmark.New(
+	goldmark.WithExtensions(extension.Table),
+	goldmark.WithParserOptions(parser.WithASTTransformers(util.Prioritized(verdictClasses{}, 500))),
+	goldmark.WithRendererOptions(ghtml.WithUnsafe(), ghtml.WithXHTML()),
+)
+
+type htmlSheet struct {
+	ID     string
+	Failed bool
+	Body   template.HTML
+}
+
+type htmlPage struct {
+	Title, Tool string
+	Sheets      []htmlSheet
+}
+
+// HTML returns the calc sheets as self-contained HTML pages rendered from the Markdown:
+// index.html first, then one page per design, then all.html holding every sheet with a page
+// break between sheets when printed.
+func HTML(r *design.Result) ([]Sheet, error) {
+	if r == nil {
+		return nil, fmt.Errorf("reports: no result")
+	}
+	single, err := markdown(r, func(name string) string { return name + ".html" })
+	if err != nil {
+		return nil, err
+	}
+	whole, err := markdown(r, func(name string) string { return "#" + name })
+	if err != nil {
+		return nil, err
+	}
+	t, err := template.ParseFS(templates.FS, "html/page.html.tmpl")
+	if err != nil {
+		return nil, err
+	}
+	in := input(r)
+	tool := strings.TrimSpace(r.ToolName + " " + r.ToolVersion)
+	if r.ToolName == "" {
+		tool = strings.TrimSpace("colsheet " + r.ToolVersion)
+	}
+	project := oneLine(in.Project.Title)
+	title := func(i int) string {
+		s := "Index of calculation sheets"
+		if i > 0 {
+			s = subject(r.Designs[i-1])
+		}
+		if strings.TrimSpace(project) != "" {
+			s = project + ": " + s
+		}
+		return oneLine(s)
+	}
+	failed := func(i int) bool { return i > 0 && r.Designs[i-1].Status != design.StatusPass }
+	id := func(name string) string { return strings.TrimSuffix(name, ".md") }
+	out := make([]Sheet, 0, len(single)+1)
+	all := htmlPage{Title: oneLine(strings.TrimSpace(project + " calculation sheets")), Tool: tool}
+	for i := range single {
+		body, err := toHTML(single[i].Data)
+		if err != nil {
+			return nil, err
+		}
+		page, err := execPage(t, htmlPage{Title: title(i), Tool: tool,
+			Sheets: []htmlSheet{{ID: id(single[i].Name), Failed: failed(i), Body: body}}})
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, Sheet{Name: id(single[i].Name) + ".html", Data: page})
+		wbody, err := toHTML(whole[i].Data)
+		if err != nil {
+			return nil, err
+		}
+		all.Sheets = append(all.Sheets, htmlSheet{ID: id(whole[i].Name), Failed: failed(i), Body: wbody})
+	}
+	page, err := execPage(t, all)
+	if err != nil {
+		return nil, err
+	}
+	return append(out, Sheet{Name: "all.html", Data: page}), nil
+}
+
+func toHTML(mdText []byte) (template.HTML, error) {
+	var b bytes.Buffer
+	if err := converter.Convert(mdText, &b); err != nil {
+		return "", err
+	}
+	return template.HTML(b.String()), nil // #nosec: escaped at the Markdown stage
+}
+
+func execPage(t *template.Template, p htmlPage) ([]byte, error) {
+	var b bytes.Buffer
+	if err := t.Execute(&b, p); err != nil {
+		return nil, err
+	}
+	return b.Bytes(), nil
+}

@@ -1,0 +1,229 @@
+package reports
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"strconv"
+
+	"colsheet/calc/code"
+	"colsheet/calc/design"
+	"colsheet/calc/trace"
+)
+
+type jsonTool struct {
+	Name    string `json:"name"`
+	Version string `json:"version"`
+}
+
+// jsonOverrides marshals as an object from parameter name to value, in name order.
+type jsonOverrides []code.Override
+
+func (o jsonOverrides) MarshalJSON() ([]byte, error) {
+	var b bytes.Buffer
+	b.WriteByte('{')
+	for i, x := range o {
+		if i > 0 {
+			b.WriteByte(',')
+		}
+		k, err := json.Marshal(x.Name)
+		if err != nil {
+			return nil, err
+		}
+		b.Write(k)
+		b.WriteByte(':')
+		v, err := json.Marshal(x.Value)
+		if err != nil {
+			return nil, err
+		}
+		b.Write(v)
+	}
+	b.WriteByte('}')
+	return b.Bytes(), nil
+}
+
+type jsonCode struct {
+	Standard  string        `json:"standard"`
+	Annex     string        `json:"annex"`
+	Overrides jsonOverrides `json:"overrides"`
+}
+
+type jsonAxis struct {
+	L0M       float64 `json:"l0_m"`
+	Lambda    float64 `json:"lambda"`
+	LambdaLim float64 `json:"lambda_lim"`
+	Slender   bool    `json:"slender"`
+	M01       float64 `json:"M01_kNm"`
+	M02       float64 `json:"M02_kNm"`
+	Ei        float64 `json:"ei_mm"`
+	M0Ed      float64 `json:"M0Ed_kNm"`
+	M2        float64 `json:"M2_kNm"`
+	PhiEf     float64 `json:"phi_ef"`
+	MEd       float64 `json:"MEd_kNm"`
+	MRd       float64 `json:"MRd_kNm"`
+}
+
+type jsonAxes struct {
+	Y jsonAxis `json:"y"`
+	Z jsonAxis `json:"z"`
+}
+
+type jsonBiaxial struct {
+	Checked bool    `json:"checked"`
+	A       float64 `json:"a"`
+	Ratio   float64 `json:"ratio"`
+}
+
+type jsonBars struct {
+	Count     int          `json:"count"`
+	Dia       float64      `json:"dia_mm"`
+	Positions [][2]float64 `json:"positions_mm"`
+}
+
+type jsonLinks struct {
+	Dia            float64 `json:"dia_mm"`
+	Spacing        float64 `json:"spacing_mm"`
+	SpacingReduced float64 `json:"spacing_reduced_mm"`
+}
+
+type jsonDesign struct {
+	Column      string       `json:"column"`
+	Storey      string       `json:"storey"`
+	B           float64      `json:"b_mm"`
+	H           float64      `json:"h_mm"`
+	Cover       float64      `json:"cover_mm"`
+	Fck         float64      `json:"fck_MPa"`
+	Fyk         float64      `json:"fyk_MPa"`
+	NEd         float64      `json:"NEd_kN"`
+	Axes        jsonAxes     `json:"axes"`
+	Biaxial     jsonBiaxial  `json:"biaxial"`
+	AsReq       float64      `json:"As_req_mm2"`
+	AsMin       float64      `json:"As_min_mm2"`
+	AsMax       float64      `json:"As_max_mm2"`
+	AsProv      float64      `json:"As_prov_mm2"`
+	Bars        jsonBars     `json:"bars"`
+	Links       jsonLinks    `json:"links"`
+	Utilization float64      `json:"utilization"`
+	Status      string       `json:"status"`
+	Governing   string       `json:"governing"`
+	Steps       int          `json:"steps"`
+	NRdMax      float64      `json:"NRd_max_kN"`
+	Reasons     []string     `json:"reasons"`
+	Cautions    []string     `json:"cautions"`
+	Trace       []trace.Step `json:"trace"`
+}
+
+type jsonResult struct {
+	Tool        jsonTool     `json:"tool"`
+	InputSHA256 string       `json:"input_sha256"`
+	Code        jsonCode     `json:"code"`
+	Designs     []jsonDesign `json:"designs"`
+}
+
+func axisJSON(a design.Axis) jsonAxis {
+	return jsonAxis{L0M: a.L0 / 1e3, Lambda: a.Lambda, LambdaLim: a.LambdaLim, Slender: a.Slender,
+		M01: a.M01 / 1e6, M02: a.M02 / 1e6, Ei: a.Ei, M0Ed: a.M0Ed / 1e6, M2: a.M2 / 1e6,
+		PhiEf: a.PhiEf, MEd: a.MEd / 1e6, MRd: a.MRd / 1e6}
+}
+
+func nonNil(s []string) []string {
+	if s == nil {
+		return []string{}
+	}
+	return s
+}
+
+// JSON returns results.json: the contract of DESIGN.md plus, per design, NRd_max_kN,
+// reasons, cautions and the full trace. It fails when any recorded number is not finite.
+func JSON(r *design.Result) ([]byte, error) {
+	if r == nil {
+		return nil, fmt.Errorf("reports: no result")
+	}
+	if err := finiteResult(r); err != nil {
+		return nil, err
+	}
+	in := input(r)
+	name := r.ToolName
+	if name == "" {
+		name = "colsheet"
+	}
+	out := jsonResult{
+		Tool:        jsonTool{Name: name, Version: r.ToolVersion},
+		InputSHA256: in.SHA256,
+		Code:        jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()},
+		Designs:     []jsonDesign{},
+	}
+	for _, d := range r.Designs {
+		pos := d.Bars.Positions
+		if pos == nil {
+			pos = [][2]float64{}
+		}
+		steps := d.Steps
+		if steps == nil {
+			steps = []trace.Step{}
+		}
+		out.Designs = append(out.Designs, jsonDesign{
+			Column: d.Column, Storey: d.Storey, B: d.B, H: d.H, Cover: d.Cover, Fck: d.Fck, Fyk: d.Fyk,
+			NEd:     d.NEd / 1e3,
+			Axes:    jsonAxes{Y: axisJSON(d.Y), Z: axisJSON(d.Z)},
+			Biaxial: jsonBiaxial{Checked: d.Biaxial.Checked, A: d.Biaxial.A, Ratio: d.Biaxial.Ratio},
+			AsReq:   d.AsReq, AsMin: d.AsMin, AsMax: d.AsMax, AsProv: d.AsProv,
+			Bars:        jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
+			Links:       jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced},
+			Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
+			NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
+		})
+	}
+	b, err := json.MarshalIndent(out, "", "  ")
+	if err != nil {
+		return nil, err
+	}
+	return append(b, '\n'), nil
+}
+
+// finiteResult reports the first number of r that is NaN or infinite, naming where it is.
+func finiteResult(r *design.Result) error {
+	check := func(where string, vs ...float64) error {
+		for i, v := range vs {
+			if !trace.Finite(v) {
+				return fmt.Errorf("reports: %s (value %d) is not finite", where, i+1)
+			}
+		}
+		return nil
+	}
+	for _, o := range input(r).Code.Overrides() {
+		if err := check("code override "+o.Name, o.Value); err != nil {
+			return err
+		}
+	}
+	for _, d := range r.Designs {
+		id := d.Column + "/" + d.Storey
+		if err := check("design "+id, d.B, d.H, d.Cover, d.Fck, d.Fyk, d.NEd, d.AsReq, d.AsMin, d.AsMax,
+			d.AsProv, d.NRdMax, d.Utilization, d.Biaxial.A, d.Biaxial.Ratio, d.Bars.Dia, d.Links.Dia,
+			d.Links.Spacing, d.Links.SpacingReduced); err != nil {
+			return err
+		}
+		for k, a := range []design.Axis{d.Y, d.Z} {
+			if err := check("design "+id+" axis "+[]string{"y", "z"}[k], a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei,
+				a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd); err != nil {
+				return err
+			}
+		}
+		for i, p := range d.Bars.Positions {
+			if err := check("design "+id+" bar "+strconv.Itoa(i+1), p[0], p[1]); err != nil {
+				return err
+			}
+		}
+		for _, s := range d.Steps {
+			if err := check("step "+s.ID, s.Value, s.Residual); err != nil {
+				return err
+			}
+			for _, a := range s.Args {
+				if err := check("step "+s.ID+" argument "+a.Name, a.Value); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	return nil
+}

@@ -1,0 +1,95 @@
+package reports
+
+import (
+	"math"
+	"strconv"
+	"strings"
+)
+
+// sigFigs is the number of significant figures shown on the sheets.
+const sigFigs = 4
+
+// num is a number formatted for display: a mantissa and, for very large or very small
+// magnitudes only, a power of ten.
+type num struct {
+	m string // mantissa with an ASCII '-' for negatives, e.g. "-21.33"
+	e int    // power of ten; 0 when none is shown
+}
+
+// plain returns the number in ASCII, e.g. "21.33" or "3.2e-7".
+func (n num) plain() string {
+	if n.e == 0 {
+		return n.m
+	}
+	return n.m + "e" + strconv.Itoa(n.e)
+}
+
+// fmtNum formats v with 4 significant figures, trailing zeros trimmed, without an exponent
+// for magnitudes from 1e-4 up to 1e12 (values of 1000 and above are shown as whole numbers).
+// Non-finite values, which the engine never records, are shown as "?".
+func fmtNum(v float64) num {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return num{m: "?"}
+	}
+	a := math.Abs(v)
+	if a == 0 {
+		return num{m: "0"}
+	}
+	if a >= 1e-4 && a < 1e12 {
+		var s string
+		if a >= 1000 {
+			s = strconv.FormatFloat(v, 'f', 0, 64)
+		} else {
+			dec := sigFigs - 1 - int(math.Floor(math.Log10(a)))
+			if dec < 0 {
+				dec = 0
+			}
+			s = trimZeros(strconv.FormatFloat(v, 'f', dec, 64))
+		}
+		if s == "-0" {
+			s = "0"
+		}
+		return num{m: s}
+	}
+	s := strconv.FormatFloat(v, 'e', sigFigs-1, 64)
+	i := strings.IndexByte(s, 'e')
+	e, _ := strconv.Atoi(s[i+1:])
+	return num{m: trimZeros(s[:i]), e: e}
+}
+
+func trimZeros(s string) string {
+	if !strings.Contains(s, ".") {
+		return s
+	}
+	s = strings.TrimRight(s, "0")
+	return strings.TrimSuffix(s, ".")
+}
+
+// DisplayUnit maps an engine unit to the unit shown on the sheets and the factor that
+// converts a value in the engine unit to it: "N" to kN (×1e-3), "Nmm" to kNm (×1e-6),
+// "mm2" to mm², "N/mm" to kN/m (same number), "N/mm2" to kN/m² (×1e3); others are shown as is.
+func DisplayUnit(engine string) (scale float64, unit string) {
+	switch engine {
+	case "N":
+		return 1e-3, "kN"
+	case "Nmm", "N·mm", "N*mm":
+		return 1e-6, "kNm"
+	case "mm2":
+		return 1, "mm²"
+	case "mm3":
+		return 1, "mm³"
+	case "mm4":
+		return 1, "mm⁴"
+	case "N/mm":
+		return 1, "kN/m"
+	case "N/mm2":
+		return 1e3, "kN/m²"
+	}
+	return 1, engine
+}
+
+// quantity returns v in engine unit u converted for display, with the display unit.
+func quantity(v float64, u string) (num, string) {
+	s, du := DisplayUnit(u)
+	return fmtNum(v * s), du
+}

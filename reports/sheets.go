@@ -1,0 +1,513 @@
+package reports
+
+import (
+	"bytes"
+	"fmt"
+	"io/fs"
+	"sort"
+	"strings"
+	"text/template"
+	"unicode"
+
+	"colsheet/calc/code"
+	"colsheet/calc/design"
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+	"colsheet/templates"
+)
+
+// Sheet is one output file: its safe base name, with extension, and its contents.
+type Sheet struct {
+	Name string // file base name with extension, e.g. "index.md" or "K1-L1.md"; never a path
+	Data []byte
+}
+
+// Cautions are printed on every sheet.
+var Cautions = []string{
+	"These results must be checked by a competent engineer before use.",
+	"The national annex and local regulations of the place of construction govern; parameters shown are EN recommended values unless listed as overridden.",
+	"Every number on this sheet is taken from a recorded calculation step; the step list is also in results.json.",
+}
+
+// ---- view model: every string is already escaped for the format ----
+
+type projectView struct {
+	Title, Job, Revision, Designer, Checker, Date string
+	Short                                         string // the title cut to fit a running head
+}
+
+type overrideView struct {
+	Name, Symbol, Value, Default, Clause, What string
+}
+
+type basisView struct {
+	Standard, Annex string
+	Overrides       []overrideView
+	Choices         []kv   // method choices
+	Input, SHA      string // input file and its hash
+	Tool            string // tool name and version
+}
+
+type kv struct{ Label, Value string }
+
+type axisRow struct{ Label, Y, Z string }
+
+type stepView struct {
+	Number   int
+	ID       string
+	Title    string
+	Clause   string
+	Kind     string // the kind, escaped for display
+	Type     string // the kind as recorded: input, formula, table, solve or check
+	Formula  string // the expression in symbols, with the result symbol: "f_cd = α_cc · f_ck / γ_c"
+	Values   string // the expression with the values: "1 · 32 MPa / 1.5"
+	Result   string // "f_cd = 21.33 MPa"
+	Row      string
+	Method   string
+	Verify   string // verification expression in symbols
+	Residual string
+	Relation string
+	Verdict  string // PASS or FAIL for a check step
+	Failed   bool
+	Uses     string // numbers of the steps whose results this step uses, e.g. "3, 5"
+	Notes    []string
+	Cautions []string
+}
+
+type groupView struct {
+	Title string
+	Steps []stepView
+}
+
+type designRow struct {
+	Sheet       string // "2"
+	Link        string // relative link target, safe
+	Column      string
+	Storey      string
+	Section     string
+	Bars        string
+	Links       string
+	Utilization string
+	Status      string // PASS or FAIL
+	Failed      bool
+}
+
+type sheetView struct {
+	Project  projectView
+	Sheet    string // "sheet 3 of 12"
+	SheetNo  string // "3 of 12"
+	Number   int
+	Total    int
+	Subject  string // "column K1, lift L1"
+	Cautions []string
+	Basis    basisView
+
+	// design sheets only
+	Status         string // PASS or FAIL
+	Failed         bool
+	Reasons        []string
+	DesignCautions []string
+	Utilization    string
+	Governing      string
+	Summary        []kv
+	Axes           []axisRow
+	Groups         []groupView
+
+	// index only
+	Designs  []designRow
+	Failures string // sentence on the count of failing designs
+	AnyFail  bool
+}
+
+// names returns the safe, unique base names (without extension) of the designs' sheets.
+func names(r *design.Result) []string {
+	out := make([]string, len(r.Designs))
+	used := map[string]bool{"index": true, "all": true}
+	for i, d := range r.Designs {
+		base := safeName(d.Column) + "-" + safeName(d.Storey)
+		name := base
+		for k := 2; used[strings.ToLower(name)]; k++ {
+			name = fmt.Sprintf("%s-%d", base, k)
+		}
+		used[strings.ToLower(name)] = true
+		out[i] = name
+	}
+	return out
+}
+
+// safeName keeps ASCII letters, digits, '_' and '-' of s, replacing every other character by '_'.
+func safeName(s string) string {
+	var b strings.Builder
+	n := 0
+	for _, r := range s {
+		if n == 60 {
+			break
+		}
+		if r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9' || r == '_' || r == '-' {
+			b.WriteRune(r)
+		} else {
+			b.WriteByte('_')
+		}
+		n++
+	}
+	if b.Len() == 0 {
+		return "_"
+	}
+	return b.String()
+}
+
+func input(r *design.Result) *model.Input {
+	if r.Input != nil {
+		return r.Input
+	}
+	return &model.Input{Code: code.Recommended()}
+}
+
+func dash(m markup, s string) string {
+	if strings.TrimSpace(s) == "" {
+		return "—"
+	}
+	return m.text(s)
+}
+
+func project(m markup, in *model.Input) projectView {
+	p := in.Project
+	return projectView{Title: dash(m, p.Title), Short: dash(m, shorten(p.Title, 56)), Job: dash(m, p.Job), Revision: dash(m, p.Revision),
+		Designer: dash(m, p.Designer), Checker: dash(m, p.Checker), Date: dash(m, p.Date)}
+}
+
+func basis(m markup, r *design.Result) basisView {
+	in := input(r)
+	b := basisView{Standard: m.text(code.Standard), Annex: dash(m, in.Code.Annex),
+		Input: dash(m, in.File), SHA: dash(m, in.SHA256)}
+	tool := r.ToolName
+	if tool == "" {
+		tool = "colsheet"
+	}
+	b.Tool = m.text(strings.TrimSpace(tool + " " + r.ToolVersion))
+	for _, o := range in.Code.Overrides() {
+		b.Overrides = append(b.Overrides, overrideView{Name: m.text(o.Name), Symbol: m.sym(o.Symbol),
+			Value: m.num(fmtNum(o.Value)), Default: m.num(fmtNum(o.Default)), Clause: m.text(o.Clause), What: m.rich(o.What)})
+	}
+	if c := in.Materials.Concrete.Class; c != "" {
+		b.Choices = append(b.Choices, kv{m.text("Concrete"), m.text(c)})
+	}
+	if s := in.Options.StressBlock; s != "" {
+		b.Choices = append(b.Choices, kv{m.text("Concrete stress block"), m.text(s)})
+	}
+	if s := in.Options.Imperfection; s != "" {
+		b.Choices = append(b.Choices, kv{m.text("Geometric imperfection"), m.text(s)})
+	}
+	return b
+}
+
+func status(s string) (string, bool) {
+	if s == design.StatusPass {
+		return "PASS", false
+	}
+	return "FAIL", true
+}
+
+func texts(m markup, ss []string) []string {
+	var out []string
+	for _, s := range ss {
+		out = append(out, m.rich(s))
+	}
+	return out
+}
+
+func subject(d design.Design) string {
+	return "Column " + d.Column + ", lift " + d.Storey
+}
+
+// shorten cuts s to at most n characters, ending it with "…" when cut.
+func shorten(s string, n int) string {
+	r := []rune(strings.TrimSpace(oneLine(s)))
+	if len(r) <= n {
+		return string(r)
+	}
+	return strings.TrimSpace(string(r[:n-1])) + "…"
+}
+
+// upperFirst capitalises the first letter of s.
+func upperFirst(s string) string {
+	for i, r := range s {
+		return string(unicode.ToUpper(r)) + s[i+len(string(r)):]
+	}
+	return s
+}
+
+func barsText(d design.Design) string {
+	s := fmt.Sprintf("%d Ø%s", d.Bars.Count, fmtNum(d.Bars.Dia).plain())
+	return s
+}
+
+func linksText(d design.Design) string {
+	return fmt.Sprintf("Ø%s @ %s", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain())
+}
+
+// index builds the view of the index sheet; link gives the target of a design's sheet.
+func index(m markup, r *design.Result, link func(name string) string) sheetView {
+	in := input(r)
+	total := len(r.Designs) + 1
+	v := sheetView{Project: project(m, in), Number: 1, Total: total, Sheet: m.text(fmt.Sprintf("sheet 1 of %d", total)),
+		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
+		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r)}
+	nm := names(r)
+	for i, d := range r.Designs {
+		st, failed := status(d.Status)
+		v.Designs = append(v.Designs, designRow{
+			Sheet: fmt.Sprint(i + 2), Link: link(nm[i]), Column: m.text(d.Column), Storey: m.text(d.Storey),
+			Section: m.text(fmt.Sprintf("%s × %s", fmtNum(d.B).plain(), fmtNum(d.H).plain())),
+			Bars:    m.text(barsText(d)), Links: m.text(linksText(d)),
+			Utilization: m.num(fmtNum(d.Utilization)), Status: st, Failed: failed})
+	}
+	n := r.Failed()
+	v.AnyFail = n > 0
+	switch {
+	case len(r.Designs) == 0:
+		v.Failures = m.text("The input holds no designs.")
+	case n == 0:
+		v.Failures = m.text(fmt.Sprintf("All %d designs pass.", len(r.Designs)))
+	default:
+		v.Failures = m.text(fmt.Sprintf("%d of %d designs FAIL.", n, len(r.Designs)))
+	}
+	return v
+}
+
+// sheet builds the view of the sheet of design i.
+func sheet(m markup, r *design.Result, i int) sheetView {
+	in := input(r)
+	d := r.Designs[i]
+	total := len(r.Designs) + 1
+	st, failed := status(d.Status)
+	v := sheetView{Project: project(m, in), Number: i + 2, Total: total,
+		Sheet:   m.text(fmt.Sprintf("sheet %d of %d", i+2, total)),
+		SheetNo: m.text(fmt.Sprintf("%d of %d", i+2, total)),
+		Subject: m.text(subject(d)), Cautions: texts(m, Cautions), Basis: basis(m, r),
+		Status: st, Failed: failed, Reasons: texts(m, d.Reasons), DesignCautions: texts(m, d.Cautions),
+		Utilization: m.num(fmtNum(d.Utilization)), Governing: dash(m, d.Governing)}
+	given := "chosen by the design"
+	if d.Bars.Given {
+		given = "given in the input"
+	}
+	v.Summary = []kv{
+		{m.text("Section b × h"), m.qty(d.B, "mm") + " × " + m.qty(d.H, "mm")},
+		{m.text("Nominal cover to links"), m.qty(d.Cover, "mm")},
+		{m.rich("Concrete f_ck"), m.qty(d.Fck, "MPa")},
+		{m.rich("Reinforcement f_yk"), m.qty(d.Fyk, "MPa")},
+		{m.rich("Design axial force N_Ed"), m.qty(d.NEd, "N")},
+		{m.rich("Axial resistance N_Rd,max"), m.qty(d.NRdMax, "N")},
+		{m.text("Longitudinal bars"), m.text(barsText(d) + ", " + given)},
+		{m.rich("A_s,prov"), m.qty(d.AsProv, "mm2")},
+		{m.rich("A_s,req"), m.qty(d.AsReq, "mm2")},
+		{m.rich("A_s,min / A_s,max"), m.qty(d.AsMin, "mm2") + " / " + m.qty(d.AsMax, "mm2")},
+		{m.text("Links"), m.text("Ø"+fmtNum(d.Links.Dia).plain()+" mm at ") + m.qty(d.Links.Spacing, "mm") +
+			m.text(", ") + m.qty(d.Links.SpacingReduced, "mm") + m.text(" in the zones of 9.5.3(4)")},
+	}
+	if d.Biaxial.Checked {
+		v.Summary = append(v.Summary, kv{m.text("Biaxial bending (5.39)"),
+			m.text("checked, a = ") + m.num(fmtNum(d.Biaxial.A)) + m.text(", ratio ") + m.num(fmtNum(d.Biaxial.Ratio))})
+	} else {
+		v.Summary = append(v.Summary, kv{m.text("Biaxial bending (5.39)"), m.text("not required by (5.38a/b)")})
+	}
+	yes := func(b bool) string {
+		if b {
+			return m.text("yes")
+		}
+		return m.text("no")
+	}
+	ax := func(label string, f func(a design.Axis) string) axisRow {
+		return axisRow{m.rich(label), f(d.Y), f(d.Z)}
+	}
+	v.Axes = []axisRow{
+		ax("Effective length l_0", func(a design.Axis) string { return m.qty(a.L0, "mm") }),
+		ax("Slenderness λ", func(a design.Axis) string { return m.num(fmtNum(a.Lambda)) }),
+		ax("Limit λ_lim", func(a design.Axis) string { return m.num(fmtNum(a.LambdaLim)) }),
+		ax("Slender", func(a design.Axis) string { return yes(a.Slender) }),
+		ax("End moment M_01", func(a design.Axis) string { return m.qty(a.M01, "Nmm") }),
+		ax("End moment M_02", func(a design.Axis) string { return m.qty(a.M02, "Nmm") }),
+		ax("Imperfection e_i", func(a design.Axis) string { return m.qty(a.Ei, "mm") }),
+		ax("First order M_0Ed", func(a design.Axis) string { return m.qty(a.M0Ed, "Nmm") }),
+		ax("Second order M_2", func(a design.Axis) string { return m.qty(a.M2, "Nmm") }),
+		ax("Creep ratio φ_ef", func(a design.Axis) string { return m.num(fmtNum(a.PhiEf)) }),
+		ax("Design moment M_Ed", func(a design.Axis) string { return m.qty(a.MEd, "Nmm") }),
+		ax("Resistance M_Rd", func(a design.Axis) string { return m.qty(a.MRd, "Nmm") }),
+	}
+	v.Groups = groups(m, d.Steps)
+	return v
+}
+
+// groups gathers the steps under their Step.Group, groups in order of first appearance;
+// each step keeps its number in the trace.
+func groups(m markup, steps []trace.Step) []groupView {
+	numbers := make(map[string]int, len(steps))
+	for i, s := range steps {
+		if _, ok := numbers[s.ID]; !ok {
+			numbers[s.ID] = i + 1
+		}
+	}
+	var out []groupView
+	at := map[string]int{}
+	for i, s := range steps {
+		g := s.Group
+		if strings.TrimSpace(g) == "" {
+			g = "Further steps"
+		}
+		k, ok := at[g]
+		if !ok {
+			k = len(out)
+			at[g] = k
+			out = append(out, groupView{Title: m.rich(g)})
+		}
+		out[k].Steps = append(out[k].Steps, step(m, s, i+1, numbers))
+	}
+	return out
+}
+
+func step(m markup, s trace.Step, n int, numbers map[string]int) stepView {
+	v := stepView{Number: n, ID: m.text(s.ID), Title: m.rich(upperFirst(s.Title)), Clause: dash(m, s.Clause),
+		Kind: m.text(string(s.Kind)), Type: string(s.Kind), Notes: texts(m, s.Notes), Cautions: texts(m, s.Cautions)}
+	symbol := s.Symbol
+	if s.Kind == trace.KindCheck && symbol == "" {
+		symbol = "η"
+	}
+	res := []piece{}
+	if symbol != "" {
+		res = append(res, piece{kind: pSym, text: symbol}, piece{kind: pOp, text: "="})
+	}
+	val, unit := quantity(s.Value, s.Unit)
+	res = append(res, piece{kind: pNum, n: val, unit: unit})
+	v.Result = m.formula(res)
+	expr := func(e string, values bool) string {
+		ps, err := layout(e, s.Args, values)
+		if err != nil {
+			if values {
+				return ""
+			}
+			return m.text(e)
+		}
+		return m.formula(ps)
+	}
+	if s.Expr != "" && s.Kind != trace.KindInput && s.Kind != trace.KindTable {
+		if ps, err := layout(s.Expr, s.Args, false); err == nil {
+			if symbol != "" {
+				ps = append([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}}, ps...)
+			}
+			v.Formula = m.formula(ps)
+			v.Values = expr(s.Expr, true)
+		} else {
+			v.Formula = m.text(s.Expr) // shown as written
+			if symbol != "" {
+				v.Formula = m.formula([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}, {kind: pText, text: s.Expr}})
+			}
+		}
+	}
+	switch s.Kind {
+	case trace.KindTable:
+		v.Row = m.rich(s.Row)
+		if strings.TrimSpace(s.Row) == "" {
+			v.Row = "—"
+		}
+	case trace.KindSolve:
+		v.Method = m.rich(s.Method)
+		if strings.TrimSpace(s.Method) == "" {
+			v.Method = "—"
+		}
+		if s.Verify != "" {
+			v.Verify = expr(s.Verify, false)
+		}
+		v.Residual = m.num(fmtNum(s.Residual))
+	case trace.KindCheck:
+		v.Relation = m.rich(s.Relation)
+		v.Verdict, v.Failed = "PASS", false
+		if s.Verdict != trace.Pass {
+			v.Verdict, v.Failed = "FAIL", true
+		}
+	}
+	var used []int
+	seen := map[int]bool{}
+	for _, a := range s.Args {
+		if k, ok := numbers[a.From]; ok && a.From != "" && !seen[k] && k != n {
+			seen[k] = true
+			used = append(used, k)
+		}
+	}
+	sort.Ints(used)
+	var uses []string
+	for _, k := range used {
+		uses = append(uses, fmt.Sprint(k))
+	}
+	if len(uses) == 1 {
+		v.Uses = "step " + uses[0]
+	} else if len(uses) > 1 {
+		v.Uses = "steps " + strings.Join(uses, ", ")
+	}
+	return v
+}
+
+// ---- templates ----
+
+func parse(delims [2]string, files ...string) (*template.Template, error) {
+	t := template.New(files[0]).Delims(delims[0], delims[1]).Option("missingkey=error")
+	for _, f := range files {
+		b, err := fs.ReadFile(templates.FS, f)
+		if err != nil {
+			return nil, err
+		}
+		if _, err := t.New(f).Parse(string(b)); err != nil {
+			return nil, err
+		}
+	}
+	return t, nil
+}
+
+func execute(t *template.Template, name string, v any) ([]byte, error) {
+	var b bytes.Buffer
+	if err := t.ExecuteTemplate(&b, name, v); err != nil {
+		return nil, err
+	}
+	return b.Bytes(), nil
+}
+
+// render runs the index and sheet templates over r for markup m.
+func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT, ext string, link func(string) string) ([]Sheet, error) {
+	if r == nil {
+		return nil, fmt.Errorf("reports: no result")
+	}
+	if err := finiteResult(r); err != nil {
+		return nil, err
+	}
+	t, err := parse(delims, common, indexT, sheetT)
+	if err != nil {
+		return nil, err
+	}
+	b, err := execute(t, indexT, index(m, r, link))
+	if err != nil {
+		return nil, err
+	}
+	out := []Sheet{{Name: "index" + ext, Data: b}}
+	for i, name := range names(r) {
+		b, err := execute(t, sheetT, sheet(m, r, i))
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, Sheet{Name: name + ext, Data: b})
+	}
+	return out, nil
+}
+
+// Markdown returns the calc sheets in CommonMark with GFM tables: index.md first, then one sheet per design.
+func Markdown(r *design.Result) ([]Sheet, error) {
+	return markdown(r, func(name string) string { return name + ".md" })
+}
+
+func markdown(r *design.Result, link func(string) string) ([]Sheet, error) {
+	return render(md{}, r, [2]string{"{{", "}}"}, "md/common.md.tmpl", "md/index.md.tmpl", "md/sheet.md.tmpl", ".md", link)
+}
+
+// LaTeX returns the calc sheets as standalone pdflatex documents: index.tex first, then one per design.
+func LaTeX(r *design.Result) ([]Sheet, error) {
+	return render(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/index.tex.tmpl", "tex/sheet.tex.tmpl", ".tex",
+		func(name string) string { return name + ".pdf" })
+}
