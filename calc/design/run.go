@@ -121,6 +121,11 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 	c.nEd = l.Add(trace.Input("act/NEd", "Design axial force (compression positive)", "input", "N_Ed", "N", st.NEd))
 	c.nRel = l.Add(slender.RelativeForce("act/n", c.nEd, c.ac, c.fcd))
 
+	var theta0 trace.Q
+	if in.Options.Imperfection != model.ImperfL0Over400 {
+		l.Group = "Imperfection"
+		theta0 = paramStep(l, p, "theta_0", "")
+	}
 	ends := [2]model.Ends{st.MY, st.MZ}
 	l0s := [2]float64{st.L0Y, st.L0Z}
 	depths := [2]trace.Q{c.h, c.b}
@@ -145,7 +150,6 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 				lq = l.Add(trace.Input(n+"/l", "Member length (taken as l0: not given)", "EN 1992-1-1:2004 5.2(5)", "l", "mm", l0s[k]).
 					Note("The member length is not given; l = l0 is used for αh, which is conservative for braced members (l0 ≤ l)."))
 			}
-			theta0 := paramStep(l, p, "theta_0", "")
 			ah := l.Add(slender.AlphaH(n+"/alpha_h", lq))
 			m := l.Add(trace.Input(n+"/m", "Number of vertical members contributing", "EN 1992-1-1:2004 5.2(5)", "m", "", in.Options.Members))
 			am := l.Add(slender.AlphaM(n+"/alpha_m", m))
@@ -202,6 +206,30 @@ func (c *common) linkFor(dia float64) float64 {
 // One designs or checks one column over one lift.
 func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 	c := newCommon(in, col, st)
+	patterns := candidatesFor(c)
+	var best Design
+	found := false
+	for _, p := range patterns {
+		d := c.evaluate(p, col.Bars != nil)
+		if d.Status == StatusPass {
+			return c.finish(d)
+		}
+		if !found || d.Utilization < best.Utilization {
+			best, found = d, true
+		}
+	}
+	if !found {
+		return c.noArrangement()
+	}
+	if col.Bars == nil {
+		best.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, best.Reasons...)
+	}
+	return c.finish(best)
+}
+
+// candidatesFor returns the given bars laid out, or every pattern to try in order of steel area.
+func candidatesFor(c *common) []detail.Pattern {
+	col, in := c.col, c.in
 	var patterns []detail.Pattern
 	if col.Bars != nil {
 		g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: c.linkFor(col.Bars.Dia)}
@@ -216,25 +244,7 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 		patterns = detail.Candidates(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor,
 			c.asMin.V, c.asMax.V)
 	}
-	var best Design
-	found := false
-	for _, p := range patterns {
-		d := c.evaluate(p, col.Bars != nil)
-		if d.Status == StatusPass {
-			return c.finish(d)
-		}
-		if !found || d.Utilization < best.Utilization {
-			best, found = d, true
-		}
-	}
-	if !found {
-		d := c.noArrangement()
-		return d
-	}
-	if col.Bars == nil {
-		best.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, best.Reasons...)
-	}
-	return c.finish(best)
+	return patterns
 }
 
 // onAxis returns the step with its symbol marked for bending about axis n ("y" or "z").

@@ -1,0 +1,234 @@
+package design
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"colsheet/calc/code"
+	"colsheet/calc/material"
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+)
+
+// newInput returns an input with one column and lift; the numbers are test data only.
+func newInput(class string, block, imperf string, col model.Column) *model.Input {
+	c, ok := material.Lookup(class)
+	if !ok {
+		panic(class)
+	}
+	return &model.Input{
+		File: "test.yaml", Code: code.Recommended(),
+		Materials: model.Materials{Concrete: c, Fyk: 500, Aggregate: 20},
+		Options: model.Options{StressBlock: block, Imperfection: imperf, Members: 1,
+			BarDiameters: []float64{12, 16, 20, 25, 32, 40}, LinkDiameters: []float64{6, 8, 10, 12}, LinkStep: 1},
+		Columns: []model.Column{col},
+	}
+}
+
+func lift(l0y, l0z, nEd, myTop, myBot, mzTop, mzBot float64) model.Storey {
+	return model.Storey{Name: "L1", L0Y: l0y, L0Z: l0z, NEd: nEd * 1e3,
+		MY: model.Ends{Top: myTop * 1e6, Bottom: myBot * 1e6}, MZ: model.Ends{Top: mzTop * 1e6, Bottom: mzBot * 1e6}}
+}
+
+func near(t *testing.T, name string, got, want, rel float64) {
+	t.Helper()
+	if math.Abs(got-want) > rel*math.Max(math.Abs(want), 1e-9) {
+		t.Errorf("%s = %.6g, want %.6g (rel tol %g)", name, got, want, rel)
+	}
+}
+
+// checkTrace asserts the trace invariants: every step reproduces itself, IDs are unique and
+// every argument that names a producing step names a step of the trace (the neutral-axis
+// solve names the forces recorded right after it; every other reference is to an earlier step).
+func checkTrace(t *testing.T, d Design) {
+	t.Helper()
+	seen := map[string]bool{}
+	for _, s := range d.Steps {
+		if err := trace.Recheck(s, 1e-9); err != nil {
+			t.Errorf("%s/%s: %v", d.Column, d.Storey, err)
+		}
+		if seen[s.ID] {
+			t.Errorf("duplicate step id %s", s.ID)
+		}
+		seen[s.ID] = true
+	}
+	for _, s := range d.Steps {
+		for _, a := range s.Args {
+			if a.From != "" && !seen[a.From] {
+				t.Errorf("step %s: argument %s refers to %s, which is not in the trace", s.ID, a.Name, a.From)
+			}
+		}
+	}
+	for _, v := range []float64{d.Y.MEd, d.Y.MRd, d.Z.MEd, d.Z.MRd, d.Utilization, d.AsReq, d.Biaxial.Ratio, d.Biaxial.A, d.Y.LambdaLim, d.Z.LambdaLim} {
+		if !trace.Finite(v) {
+			t.Errorf("%s/%s: non-finite result", d.Column, d.Storey)
+		}
+	}
+	if d.Status == StatusFail && len(d.Reasons) == 0 {
+		t.Errorf("%s/%s fails without a reason", d.Column, d.Storey)
+	}
+}
+
+func TestTraceInvariantsAcrossCases(t *testing.T) {
+	blocks := []string{model.ParabolaRectangle, model.Rectangular}
+	imps := []string{model.ImperfInclination, model.ImperfL0Over400}
+	lifts := []model.Storey{
+		lift(3000, 3000, 2000, 60, -30, 10, 5),  // stocky, double curvature
+		lift(6500, 6000, 900, 40, 35, 25, 20),   // slender both ways, single curvature
+		lift(3500, 7000, 1500, 0, 0, 0, 0),      // moments from imperfections only
+		lift(3000, 3000, 0, 80, -80, 0, 0),      // no axial force
+		lift(3000, 3000, 9000, 50, -20, 20, 10), // beyond any arrangement: must fail loudly
+	}
+	for _, class := range []string{"C30/37", "C70/85", "C32/40"} {
+		for _, bl := range blocks {
+			for _, im := range imps {
+				for i, st := range lifts {
+					for _, given := range []*model.BarSpec{nil, {Count: 8, Dia: 20}} {
+						col := model.Column{ID: "T" + string(rune('A'+i)), B: 350, H: 450, Cover: 35, Bars: given, Storeys: []model.Storey{st}}
+						in := newInput(class, bl, im, col)
+						r := Run(in)
+						if len(r.Designs) != 1 {
+							t.Fatal("one design expected")
+						}
+						d := r.Designs[0]
+						checkTrace(t, d)
+						if i == 4 && d.Status != StatusFail {
+							t.Errorf("%s %s: NEd = 9000 kN on 350 × 450 should fail", class, bl)
+						}
+					}
+				}
+			}
+		}
+	}
+}
+
+// A stocky column evaluated by hand from the clauses.
+func TestStockyByHand(t *testing.T) {
+	col := model.Column{ID: "H1", B: 400, H: 400, Cover: 35, Storeys: []model.Storey{lift(3000, 3000, 2000, 60, -30, 0, 0)}}
+	d := Run(newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	// EN 1992-1-1:2004 5.2(5), (7): l = l0 = 3 m < 4 m so αh = 1, m = 1 so αm = 1; ei = l0/400.
+	near(t, "ei", d.Y.Ei, 7.5, 1e-12)
+	// 5.8.8.2(2): M02 = 60 kNm, M01 = −30 kNm (double curvature).
+	near(t, "M02", d.Y.M02, 60e6, 1e-12)
+	near(t, "M01", d.Y.M01, -30e6, 1e-12)
+	// M0Ed = M02 + NEd·ei = 60 + 2000 × 0.0075 = 75 kNm.
+	near(t, "M0Ed", d.Y.M0Ed, 75e6, 1e-12)
+	// 5.8.3.2(1): λ = l0·√12/h = 25.98.
+	near(t, "lambda", d.Y.Lambda, 3000*math.Sqrt(12)/400, 1e-12)
+	// About y, rm = −0.5 so C = 2.2 and λlim = 20·0.7·B·2.2/√0.625 > 43: not slender.
+	if d.Y.Slender {
+		t.Error("λ = 26 should be below λlim about y")
+	}
+	near(t, "MEd,y", d.Y.MEd, 75e6, 1e-12)
+	// About z there are no end moments: rm = 1, C = 0.7 and λlim ≈ 20·0.7·1.1·0.7/√0.625 ≈ 14 < 26,
+	// so the lift is slender about z and MEd,z exceeds NEd·e0 = 2000 × 20 mm = 40 kNm (6.1(4)).
+	if !d.Z.Slender || d.Z.MEd <= 40e6 {
+		t.Errorf("about z: slender %v, MEd %g", d.Z.Slender, d.Z.MEd)
+	}
+	// 9.5.2(2): As,min = max(0.10 × 2e6 / 434.78, 0.002 × 160000) = 460 mm².
+	near(t, "As,min", d.AsMin, 0.10*2e6/(500/1.15), 1e-12)
+	near(t, "As,max", d.AsMax, 0.04*160000, 1e-12)
+	// 9.5.3(3): scl,tmax = min(20 φmin, 400, 400).
+	near(t, "link spacing", d.Links.Spacing, math.Min(20*d.Bars.Dia, 400), 1e-12)
+	near(t, "reduced spacing", d.Links.SpacingReduced, math.Floor(0.6*math.Min(20*d.Bars.Dia, 400)), 1e-12)
+	if d.Status != StatusPass {
+		t.Errorf("should pass: %v", d.Reasons)
+	}
+	checkTrace(t, d)
+}
+
+// A slender column: M2 by nominal curvature re-evaluated here from EN 1992-1-1:2004 5.8.8.3
+// and 5.8.3.1 with the design's own bars.
+func TestSlenderByHand(t *testing.T) {
+	st := lift(6000, 6000, 1200, 50, 20, 0, 0)
+	st.PhiEf, st.HasPhi = 1.5, true
+	col := model.Column{ID: "S1", B: 300, H: 300, Cover: 30, Bars: &model.BarSpec{Count: 4, Dia: 25}, Storeys: []model.Storey{st}}
+	d := Run(newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	fcd, fyd := 30/1.5, 500/1.15
+	ac := 300.0 * 300
+	as := 4 * math.Pi * 25 * 25 / 4
+	n := 1.2e6 / (ac * fcd)
+	omega := as * fyd / (ac * fcd)
+	lambda := 6000 * math.Sqrt(12) / 300
+	// 5.8.3.1(1): A = 1/(1+0.2φef), B = √(1+2ω), C = 1.7 − rm, rm = 20/50.
+	lim := 20 * (1 / (1 + 0.2*1.5)) * math.Sqrt(1+2*omega) * (1.7 - 0.4) / math.Sqrt(n)
+	near(t, "lambda_lim", d.Y.LambdaLim, lim, 1e-12)
+	if !d.Y.Slender {
+		t.Fatal("λ = 69 should be slender")
+	}
+	// 5.8.8.3: d = h/2 + is with all bars at ±(150 − 30 − 6 − 12.5) = ±101.5 mm (links 6 mm for φ25 → 8 mm).
+	link := 8.0 // smallest listed size ≥ max(6, 25/4)
+	zs := 150 - 30 - link - 12.5
+	dd := 150 + zs
+	kr := math.Min((1+omega-n)/(1+omega-0.4), 1)
+	beta := 0.35 + 30.0/200 - lambda/150
+	kphi := math.Max(1+beta*1.5, 1)
+	curv := kr * kphi * (fyd / 200000) / (0.45 * dd)
+	e2 := curv * 6000 * 6000 / 10
+	near(t, "M2", d.Y.M2, 1.2e6*e2, 1e-9)
+	// 5.2(7): l = l0 = 6 m, αh = 2/√6; ei = θ0·αh·l0/2.
+	ei := (1.0 / 200) * (2 / math.Sqrt(6)) * 6000 / 2
+	near(t, "ei", d.Y.Ei, ei, 1e-12)
+	m02, m01 := 50e6+1.2e6*ei, 20e6+1.2e6*ei
+	m0e := math.Max(0.6*m02+0.4*m01, 0.4*m02)
+	near(t, "MEd", d.Y.MEd, math.Max(m02, m0e+1.2e6*e2), 1e-9)
+	checkTrace(t, d)
+}
+
+// The chosen bars are the least steel that passes: every candidate with less steel fails.
+func TestLeastSteel(t *testing.T) {
+	col := model.Column{ID: "L", B: 300, H: 500, Cover: 35, Storeys: []model.Storey{lift(3200, 3200, 1800, 180, -90, 15, -10)}}
+	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
+	d := Run(in).Designs[0]
+	if d.Status != StatusPass {
+		t.Fatalf("should pass: %v", d.Reasons)
+	}
+	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0])
+	for _, p := range candidatesFor(c) {
+		if p.Area() >= d.AsProv-1e-6 {
+			break
+		}
+		if e := c.evaluate(p, false); e.Status == StatusPass {
+			t.Errorf("%d × %g (%.0f mm²) passes but %.0f mm² was chosen", p.Count(), p.Dia, p.Area(), d.AsProv)
+		}
+	}
+	if d.AsReq > d.AsProv+1e-6 || d.AsReq < d.AsMin-1e-6 {
+		t.Errorf("As,req = %g outside [As,min, As,prov] = [%g, %g]", d.AsReq, d.AsMin, d.AsProv)
+	}
+}
+
+func TestFailureIsLoud(t *testing.T) {
+	col := model.Column{ID: "F", B: 250, H: 250, Cover: 30, Storeys: []model.Storey{lift(3000, 3000, 4000, 10, 0, 0, 0)}}
+	d := Run(newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	if d.Status != StatusFail || d.Utilization <= 1 {
+		t.Fatalf("status %s, utilisation %g", d.Status, d.Utilization)
+	}
+	if !strings.Contains(strings.Join(d.Reasons, " "), "No bar arrangement") {
+		t.Errorf("reasons do not say that no arrangement works: %v", d.Reasons)
+	}
+	checkTrace(t, d)
+}
+
+// BenchmarkDesignOne measures one full column-storey design with its trace (target ≤ 100 µs).
+func BenchmarkDesignOne(b *testing.B) {
+	st := lift(3400, 3600, 2150, 85, -40, 10, 10)
+	st.PhiEf, st.HasPhi = 0.8, true
+	col := model.Column{ID: "B", B: 350, H: 500, Cover: 40, Storeys: []model.Storey{st}}
+	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		One(in, &in.Columns[0], &in.Columns[0].Storeys[0])
+	}
+}
+
+// BenchmarkCheckGiven measures the check of one column-storey with given bars and its trace.
+func BenchmarkCheckGiven(b *testing.B) {
+	st := lift(3400, 3600, 2150, 85, -40, 10, 10)
+	col := model.Column{ID: "B", B: 350, H: 500, Cover: 40, Bars: &model.BarSpec{Count: 8, Dia: 20}, Storeys: []model.Storey{st}}
+	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		One(in, &in.Columns[0], &in.Columns[0].Storeys[0])
+	}
+}
