@@ -25,37 +25,51 @@ type Param struct {
 
 // Catalogue lists every overridable parameter with its EN recommended value.
 var Catalogue = []Param{
-	{"gamma_c", "γ_c", "EN 1992-1-1:2004 2.4.2.4(1), Table 2.1N", "partial factor for concrete, persistent and transient", 1.5, 1, 2},
-	{"gamma_s", "γ_s", "EN 1992-1-1:2004 2.4.2.4(1), Table 2.1N", "partial factor for reinforcing steel, persistent and transient", 1.15, 1, 1.5},
-	{"alpha_cc", "α_cc", "EN 1992-1-1:2004 3.1.6(1)", "coefficient for long-term effects on compressive strength", 1.0, 0.8, 1},
-	{"Es", "E_s", "EN 1992-1-1:2004 3.2.7(4)", "design modulus of elasticity of reinforcing steel, MPa", 200000, 150000, 250000},
-	{"theta_0", "θ_0", "EN 1992-1-1:2004 5.2(5)", "basic value of the inclination imperfection", 1.0 / 200, 0, 0.05},
-	{"lambda_lim_k", "k_λ", "EN 1992-1-1:2004 5.8.3.1(1)", "constant of the slenderness limit λlim = k·A·B·C/√n", 20, 5, 50},
-	{"c_curv", "c", "EN 1992-1-1:2004 5.8.8.2(4)", "factor of the curvature distribution in e2 = (1/r)·l0²/c", 10, 8, 12},
-	{"phi_ef_default", "φ_ef", "common practice", "effective creep ratio used in Kφ where the input gives none", 2.0, 0, 5},
+	{"gamma_c", "γ_c", "EN 1992-1-1:2004 2.4.2.4(1), Table 2.1N", "Partial factor for concrete, persistent and transient", 1.5, 1, 2},
+	{"gamma_s", "γ_s", "EN 1992-1-1:2004 2.4.2.4(1), Table 2.1N", "Partial factor for reinforcing steel, persistent and transient", 1.15, 1, 1.5},
+	{"alpha_cc", "α_cc", "EN 1992-1-1:2004 3.1.6(1)", "Coefficient for long-term effects on compressive strength", 1.0, 0.8, 1},
+	{"Es", "E_s", "EN 1992-1-1:2004 3.2.7(4)", "Design modulus of elasticity of reinforcing steel, MPa", 200000, 150000, 250000},
+	{"theta_0", "θ_0", "EN 1992-1-1:2004 5.2(5)", "Basic value of the inclination imperfection", 1.0 / 200, 0, 0.05},
+	{"lambda_lim_k", "k_λ", "EN 1992-1-1:2004 5.8.3.1(1)", "Constant of the slenderness limit λlim = k·A·B·C/√n", 20, 5, 50},
+	{"c_curv", "c", "EN 1992-1-1:2004 5.8.8.2(4)", "Factor of the curvature distribution in e2 = (1/r)·l0²/c", 10, 8, 12},
+	{"phi_ef_default", "φ_ef", "common practice", "Effective creep ratio used in Kφ where the input gives none", 2.0, 0, 5},
 	{"As_min_N", "k_N", "EN 1992-1-1:2004 9.5.2(2)", "As,min as a fraction of NEd/fyd", 0.10, 0, 1},
 	{"As_min_Ac", "k_A", "EN 1992-1-1:2004 9.5.2(2)", "As,min as a fraction of Ac", 0.002, 0, 0.04},
 	{"As_max_Ac", "k_max", "EN 1992-1-1:2004 9.5.2(3)", "As,max outside lap locations as a fraction of Ac", 0.04, 0.01, 0.08},
 	{"As_max_lap_Ac", "k_max,lap", "EN 1992-1-1:2004 9.5.2(3)", "As,max at laps as a fraction of Ac", 0.08, 0.01, 0.16},
-	{"phi_min", "φ_min", "EN 1992-1-1:2004 9.5.2(1)", "minimum diameter of longitudinal bars, mm", 8, 6, 40},
-	{"link_dia_min", "φ_t,min", "EN 1992-1-1:2004 9.5.3(1)", "minimum link diameter, mm", 6, 4, 16},
-	{"link_dia_ratio", "k_t", "EN 1992-1-1:2004 9.5.3(1)", "minimum link diameter as a fraction of the largest bar diameter", 0.25, 0, 1},
-	{"link_spacing_bars", "k_s", "EN 1992-1-1:2004 9.5.3(3)", "link spacing limit as a multiple of the smallest bar diameter", 20, 5, 40},
-	{"link_spacing_max", "s_max", "EN 1992-1-1:2004 9.5.3(3)", "absolute link spacing limit, mm", 400, 100, 600},
-	{"link_spacing_zone", "k_r", "EN 1992-1-1:2004 9.5.3(4)", "factor on the link spacing near beams, slabs and laps", 0.6, 0.3, 1},
-	{"spacing_k1", "k_1", "EN 1992-1-1:2004 8.2(2)", "clear bar spacing as a multiple of bar diameter", 1, 0.5, 3},
-	{"spacing_k2", "k_2", "EN 1992-1-1:2004 8.2(2)", "clear bar spacing above the aggregate size, mm", 5, 0, 20},
-	{"spacing_min", "s_min", "EN 1992-1-1:2004 8.2(2)", "absolute minimum clear bar spacing, mm", 20, 10, 50},
+	{"phi_min", "φ_min", "EN 1992-1-1:2004 9.5.2(1)", "Minimum diameter of longitudinal bars, mm", 8, 6, 40},
+	{"link_dia_min", "φ_t,min", "EN 1992-1-1:2004 9.5.3(1)", "Minimum link diameter, mm", 6, 4, 16},
+	{"link_dia_ratio", "k_t", "EN 1992-1-1:2004 9.5.3(1)", "Minimum link diameter as a fraction of the largest bar diameter", 0.25, 0, 1},
+	{"link_spacing_bars", "k_s", "EN 1992-1-1:2004 9.5.3(3)", "Link spacing limit as a multiple of the smallest bar diameter", 20, 5, 40},
+	{"link_spacing_max", "s_max", "EN 1992-1-1:2004 9.5.3(3)", "Absolute link spacing limit, mm", 400, 100, 600},
+	{"link_spacing_zone", "k_r", "EN 1992-1-1:2004 9.5.3(4)", "Factor on the link spacing near beams, slabs and laps", 0.6, 0.3, 1},
+	{"spacing_k1", "k_1", "EN 1992-1-1:2004 8.2(2)", "Clear bar spacing as a multiple of bar diameter", 1, 0.5, 3},
+	{"spacing_k2", "k_2", "EN 1992-1-1:2004 8.2(2)", "Clear bar spacing above the aggregate size, mm", 5, 0, 20},
+	{"spacing_min", "s_min", "EN 1992-1-1:2004 8.2(2)", "Absolute minimum clear bar spacing, mm", 20, 10, 50},
 }
+
+// index maps each parameter name to its place in Catalogue.
+var index = func() map[string]int {
+	m := make(map[string]int, len(Catalogue))
+	for i, p := range Catalogue {
+		m[p.Name] = i
+	}
+	return m
+}()
 
 // Lookup returns the catalogue entry called name.
 func Lookup(name string) (Param, bool) {
-	for _, p := range Catalogue {
-		if p.Name == name {
-			return p, true
-		}
+	i, ok := index[name]
+	if !ok {
+		return Param{}, false
 	}
-	return Param{}, false
+	return Catalogue[i], true
+}
+
+// IsOverridden reports whether the input changed the named parameter.
+func (p Params) IsOverridden(name string) bool {
+	_, ok := p.overrides[name]
+	return ok
 }
 
 // Params holds the values in force for one calculation.

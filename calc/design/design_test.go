@@ -189,7 +189,7 @@ func TestLeastSteel(t *testing.T) {
 		if p.Area() >= d.AsProv-1e-6 {
 			break
 		}
-		if e := c.evaluate(p, false); e.Status == StatusPass {
+		if e := c.evaluate(p, false, false); e.Status == StatusPass {
 			t.Errorf("%d × %g (%.0f mm²) passes but %.0f mm² was chosen", p.Count(), p.Dia, p.Area(), d.AsProv)
 		}
 	}

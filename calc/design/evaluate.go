@@ -10,10 +10,14 @@ import (
 )
 
 // evaluate runs every bar-dependent step for one bar pattern and returns the design it gives.
-func (c *common) evaluate(p detail.Pattern, given bool) Design {
+// With full false the equilibrium of the section is recorded as one step per axis instead of
+// its whole derivation: that serves to try candidate patterns, whose traces are dropped.
+func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	col, st, prm := c.col, c.st, c.p
-	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/"}
-	l.Steps = append(make([]trace.Step, 0, len(c.steps)+140), c.steps...)
+	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/", Trial: !full}
+	if full {
+		l.Steps = append(make([]trace.Step, 0, len(c.steps)+128), c.steps...)
+	}
 	link := c.linkFor(p.Dia)
 	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: link}
 	pos := g.Positions(p)
@@ -122,8 +126,11 @@ func (c *common) evaluate(p detail.Pattern, given bool) Design {
 			mEd = l.Add(slender.DesignMomentStocky(n+"/MEd", a.m02i, c.nEd, a.e0))
 		}
 		ax.MEd = mEd.V
-		l.Steps[len(l.Steps)-1].Symbol = "M_Ed," + n
-		mEds[k] = l.Steps[len(l.Steps)-1].Q()
+		mEd.Symbol = "M_Ed," + n
+		if last := l.Last(); full && last != nil {
+			last.Symbol = mEd.Symbol
+		}
+		mEds[k] = mEd
 	}
 
 	// Section resistance.
@@ -136,7 +143,7 @@ func (c *common) evaluate(p detail.Pattern, given bool) Design {
 	for k := 0; k < 2; k++ {
 		n := c.ax[k].name
 		l.Group = "Moment resistance about " + n + " at N_Ed"
-		q, ok := sec.mRdSteps(l, n, k, c.nEd)
+		q, ok := sec.mRdSteps(l, n, k, c.nEd, full)
 		if !ok {
 			mRd[k] = l.Add(trace.Input(n+"/MRd", "Moment resistance about "+n+": none, NEd exceeds the axial resistance", "EN 1992-1-1:2004 6.1", "M_Rd,"+n, "Nmm", 0).
 				Caution("NEd exceeds NRd,max: the section cannot carry the axial force, so it has no moment resistance."))

@@ -3,6 +3,7 @@ package design
 import (
 	"math"
 
+	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/section"
 	"colsheet/calc/trace"
@@ -54,27 +55,29 @@ func (r *resist) nRdMaxStep(id string) trace.Step {
 		"N_Rd,max", "N", r.sec.NRdMax(), expr, args...)
 }
 
-// mRd returns the smaller moment resistance of the two faces about axis k at nEd, fast.
+// mRd returns the moment resistance about axis k at nEd, fast. The bar patterns are
+// symmetric about both axes (detail.Geometry.Positions), so either face gives it.
 func (r *resist) mRd(k int, nEd float64) (float64, bool) {
-	a := axisOf(k)
-	mp, err1 := r.sec.Resistance(a, section.Positive, nEd)
-	mn, err2 := r.sec.Resistance(a, section.Negative, nEd)
-	if err1 != nil || err2 != nil {
+	m, err := r.sec.Resistance(axisOf(k), section.Positive, nEd)
+	if err != nil {
 		return 0, false
 	}
-	return math.Min(math.Abs(mp), math.Abs(mn)), true
+	return math.Abs(m), true
 }
 
 // mRdSteps records the equilibrium at nEd about axis k (the governing face) and returns MRd.
-func (r *resist) mRdSteps(l *trace.Log, n string, k int, nEd trace.Q) (trace.Q, bool) {
-	a := axisOf(k)
-	st, err := r.sec.MRdAt(a, section.Positive, nEd.V)
+func (r *resist) mRdSteps(l *trace.Log, n string, k int, nEd trace.Q, full bool) (trace.Q, bool) {
+	if !full {
+		m, ok := r.mRd(k, nEd.V)
+		if !ok {
+			return trace.Q{}, false
+		}
+		return l.Add(trace.Input(n+"/sec/M_Rd", "Design moment of resistance about "+n+" at N_Ed (candidate)", "EN 1992-1-1:2004 6.1", "M_Rd,"+n, "Nmm", m)), true
+	}
+	// The patterns are symmetric about both axes, so the positive face gives the resistance.
+	st, err := r.sec.MRdAt(axisOf(k), section.Positive, nEd.V)
 	if err != nil {
 		return trace.Q{}, false
-	}
-	// The patterns are symmetric; the other face governs only for an asymmetric layout.
-	if neg, err := r.sec.MRdAt(a, section.Negative, nEd.V); err == nil && math.Abs(neg.M) < math.Abs(st.M)*(1-1e-9) {
-		st = neg
 	}
 	c := r.c
 	refs := section.Refs{Fcd: c.fcd.From, Fyd: c.fyd.From, Es: c.es.From, B: c.b.From, H: c.h.From,
@@ -107,4 +110,24 @@ func (c *common) resistanceRatio(sec *section.Section, d *Design) (float64, erro
 		ratio = math.Max(ratio, c.biaxial(sec.Area(), d.Y.MEd, my, d.Z.MEd, mz))
 	}
 	return ratio, nil
+}
+
+// cannotPass reports whether the pattern fails for certain: NEd above NRd,max, or a moment
+// resistance below the least design moment max(M02 + NEd·ei, NEd·e0), which second-order
+// effects can only raise (EN 1992-1-1:2004 5.8.8.2, 6.1(4)).
+func (c *common) cannotPass(p detail.Pattern) bool {
+	g := detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: c.linkFor(p.Dia)}
+	r := c.section(g.Positions(p), p.BarArea())
+	if c.nEd.V > r.nRdMax() {
+		return true
+	}
+	for k := 0; k < 2; k++ {
+		a := &c.ax[k]
+		least := math.Max(a.m02i.V, c.nEd.V*a.e0.V)
+		m, ok := r.mRd(k, c.nEd.V)
+		if !ok || m < least {
+			return true
+		}
+	}
+	return false
 }

@@ -1,8 +1,8 @@
 package design
 
 import (
-	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"colsheet/calc/code"
@@ -77,19 +77,16 @@ func param(p code.Params, name, unit string) trace.Q {
 // paramStep records a code parameter as an input step so that the sheet shows where it comes from.
 func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
 	cat, _ := code.Lookup(name)
-	title := strings.ToUpper(cat.What[:1]) + cat.What[1:]
-	s := trace.Input("code/"+name, title, cat.Clause, cat.Symbol, unit, p.Get(name))
-	for _, o := range p.Overrides() {
-		if o.Name == name {
-			s = s.Note(fmt.Sprintf("Overridden in the input; the EN recommended value is %g.", cat.Default))
-		}
+	s := trace.Input("code/"+name, cat.What, cat.Clause, cat.Symbol, unit, p.Get(name))
+	if p.IsOverridden(name) {
+		s = s.Caution("Overridden in the input: the EN recommended value is " + strconv.FormatFloat(cat.Default, 'g', -1, 64) + ".")
 	}
 	return l.Add(s)
 }
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code}
-	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/"}
+	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/", Steps: make([]trace.Step, 0, 96)}
 	p := in.Code
 	conc := in.Materials.Concrete
 
@@ -206,12 +203,26 @@ func (c *common) linkFor(dia float64) float64 {
 // One designs or checks one column over one lift.
 func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 	c := newCommon(in, col, st)
+	given := col.Bars != nil
 	patterns := candidatesFor(c)
+	if given {
+		return c.finish(c.evaluate(patterns[0], true, true))
+	}
 	var best Design
 	found := false
-	for _, p := range patterns {
-		d := c.evaluate(p, col.Bars != nil)
+	for i, p := range patterns {
+		// A pattern whose resistance falls short of the first-order design moments cannot pass
+		// whatever its second-order moments: skip it unless it is the last one left to show.
+		if i < len(patterns)-1 && c.cannotPass(p) {
+			continue
+		}
+		// The first pattern that survives usually passes, so it is traced in full at once;
+		// later ones are tried without their trace and traced only when they pass.
+		d := c.evaluate(p, false, !found)
 		if d.Status == StatusPass {
+			if found {
+				d = c.evaluate(p, false, true)
+			}
 			return c.finish(d)
 		}
 		if !found || d.Utilization < best.Utilization {
@@ -221,10 +232,9 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 	if !found {
 		return c.noArrangement()
 	}
-	if col.Bars == nil {
-		best.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, best.Reasons...)
-	}
-	return c.finish(best)
+	d := c.evaluate(best.pattern, false, true)
+	d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, d.Reasons...)
+	return c.finish(d)
 }
 
 // candidatesFor returns the given bars laid out, or every pattern to try in order of steel area.

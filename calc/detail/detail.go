@@ -4,7 +4,6 @@ package detail
 
 import (
 	"math"
-	"sort"
 
 	"colsheet/calc/trace"
 )
@@ -150,43 +149,71 @@ func (g Geometry) ForCount(count int, dia, sMin float64) (Pattern, bool) {
 // Candidates returns every pattern of the given diameters that fits, with sMinFor giving the least
 // clear spacing for a diameter and linkFor the link diameter that goes with it, ordered by steel
 // area, then by number of bars, then by evenness. Patterns outside [asLo, asHi] are left out.
+//
+// For one diameter the patterns come out in order of count, and for one count in order of
+// evenness; the lists of the diameters are then merged by area, so no sort is needed. A count
+// that does not fit means that no larger count fits either (taking a bar off a face widens the gaps).
 func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
 	type cand struct {
 		p      Pattern
+		area   float64
 		spread float64
 	}
-	var out []cand
+	lists := make([][]cand, 0, len(dias))
+	total := 0
 	for _, d := range dias {
 		g := Geometry{B: b, H: h, Cover: cover, Link: linkFor(d)}
 		sMin := sMinFor(d)
-		for nb := 2; ; nb++ {
-			if !g.Fits(Pattern{Dia: d, NB: nb, NH: 2}, sMin) {
+		var list []cand
+		for count := 4; ; count += 2 {
+			first := len(list)
+			half := count/2 + 2 // NB + NH
+			fits := false
+			for nb := 2; nb <= half-2; nb++ {
+				p := Pattern{Dia: d, NB: nb, NH: half - nb}
+				if !g.Fits(p, sMin) {
+					continue
+				}
+				fits = true
+				if a := p.Area(); a >= asLo-1e-9 && a <= asHi+1e-9 {
+					list = append(list, cand{p, a, g.spread(p)})
+				}
+			}
+			if !fits || (Pattern{Dia: d, NB: 2, NH: half - 2}).Area() > asHi+1e-9 {
 				break
 			}
-			for nh := 2; ; nh++ {
-				p := Pattern{Dia: d, NB: nb, NH: nh}
-				if !g.Fits(p, sMin) {
-					break
-				}
-				if a := p.Area(); a >= asLo-1e-9 && a <= asHi+1e-9 {
-					out = append(out, cand{p, g.spread(p)})
+			// Order this count's distributions by evenness (a handful, insertion sort).
+			for i := first + 1; i < len(list); i++ {
+				for j := i; j > first && list[j].spread < list[j-1].spread; j-- {
+					list[j], list[j-1] = list[j-1], list[j]
 				}
 			}
 		}
+		lists = append(lists, list)
+		total += len(list)
 	}
-	sort.SliceStable(out, func(i, j int) bool {
-		ai, aj := out[i].p.Area(), out[j].p.Area()
-		if math.Abs(ai-aj) > 1e-6 {
-			return ai < aj
+	less := func(x, y cand) bool {
+		switch {
+		case math.Abs(x.area-y.area) > 1e-6:
+			return x.area < y.area
+		case x.p.Count() != y.p.Count():
+			return x.p.Count() < y.p.Count()
+		case x.spread != y.spread:
+			return x.spread < y.spread
 		}
-		if out[i].p.Count() != out[j].p.Count() {
-			return out[i].p.Count() < out[j].p.Count()
+		return x.p.Dia < y.p.Dia
+	}
+	ps := make([]Pattern, 0, total)
+	heads := make([]int, len(lists))
+	for len(ps) < total {
+		k := -1
+		for i, l := range lists {
+			if heads[i] < len(l) && (k < 0 || less(l[heads[i]], lists[k][heads[k]])) {
+				k = i
+			}
 		}
-		return out[i].spread < out[j].spread
-	})
-	ps := make([]Pattern, len(out))
-	for i, c := range out {
-		ps[i] = c.p
+		ps = append(ps, lists[k][heads[k]].p)
+		heads[k]++
 	}
 	return ps
 }

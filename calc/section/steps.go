@@ -1,8 +1,8 @@
 package section
 
 import (
-	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"colsheet/calc/trace"
@@ -69,7 +69,7 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 
 	// IDs of later steps, as the log will name them (the solve step refers forward to them).
 	full := func(name string) string { return log.Prefix + id + name }
-	li := func(name string, i int) string { return fmt.Sprintf("%s%d", name, i+1) }
+	li := func(name string, i int) string { return name + strconv.Itoa(i+1) }
 
 	// Layer forces, computed first so that the solve step can state the residual.
 	// Every value below mirrors its expression operation for operation (float64()
@@ -174,16 +174,16 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	if st.P >= 2 {
 		method = methodUniform
 	}
-	choices := fmt.Sprintf("Concrete: %s block, no tension; steel: horizontal top branch, no strain limit; concrete displaced by bars in compression deducted.", s.Block)
+	choices := "Concrete: " + s.Block.String() + " block, no tension; steel: horizontal top branch, no strain limit; concrete displaced by bars in compression deducted."
 	if !pr.pivotC {
-		step := trace.Solve(id+"x", fmt.Sprintf("Neutral-axis depth for equilibrium with N_Ed (pivot B: ε at the compressed face = %s)", eult.Symbol),
+		step := trace.Solve(id+"x", "Neutral-axis depth for equilibrium with N_Ed (pivot B: ε at the compressed face = "+eult.Symbol+")",
 			clausePivots, "x", "mm", x, method, verifyExpr, res, vargs...)
 		log.Add(step.Note(choices))
 	} else {
 		step := trace.Solve(id+"eps_bot", "Strain at the less compressed face for equilibrium with N_Ed (pivot C: whole section compressed)",
 			clausePivots, "ε_bot", "", ebot, method, verifyExpr, res, vargs...).Note(choices)
 		if trace.Finite(pr.x) {
-			step = step.Note(fmt.Sprintf("Neutral axis at x = %.1f mm from the compressed face, beyond the section depth %s = %g mm.", pr.x, dn, D))
+			step = step.Note("The neutral axis lies beyond the section depth " + dn + ", outside the section.")
 		} else {
 			step = step.Note("Uniform strain: the neutral axis is at infinity.")
 		}
@@ -272,7 +272,7 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 		zq := trace.Q{V: l.Coord, Symbol: li(cn+"_s", i), Unit: "mm", From: refs.Bars}
 		aq := trace.Q{V: l.Area, Symbol: li("A_s", i), Unit: "mm2", From: refs.Bars}
 		var eStep trace.Step
-		title := fmt.Sprintf("Strain of bar layer %d (%d bar(s) at %s = %g mm)", i+1, l.Bars, cn, l.Coord)
+		title := "Strain of bar layer " + strconv.Itoa(i+1) + " (" + strconv.Itoa(l.Bars) + " bar(s) at " + zq.Symbol + ")"
 		if !pr.pivotC {
 			eStep = trace.Formula(id+li("eps_s", i), title, clausePlane, li("ε_s", i), "", v.eps,
 				ultn+" * (x - "+depthExpr+") / x", trace.A(ultn, eult), trace.A("x", xq), trace.A(dn, dq), trace.A("z", zq))
@@ -281,10 +281,10 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 				"eps_top - (eps_top - eps_bot) * "+depthExpr+" / "+dn, trace.A("eps_top", etq), trace.A("eps_bot", ebq), trace.A(dn, dq), trace.A("z", zq))
 		}
 		eQ := log.Add(eStep)
-		sQ := log.Add(trace.Formula(id+li("sigma_s", i), fmt.Sprintf("Steel stress in layer %d, Es·ε limited to ±f_yd", i+1), clauseSteel, li("σ_s", i), "MPa", v.ss,
+		sQ := log.Add(trace.Formula(id+li("sigma_s", i), "Steel stress in layer "+strconv.Itoa(i+1)+", Es·ε limited to ±f_yd", clauseSteel, li("σ_s", i), "MPa", v.ss,
 			"max(-fyd, min(fyd, Es * eps))", trace.A("fyd", fyd), trace.A("Es", es), trace.A("eps", eQ)))
 		var cStep trace.Step
-		ctitle := fmt.Sprintf("Stress of the concrete displaced by layer %d", i+1)
+		ctitle := "Stress of the concrete displaced by layer " + strconv.Itoa(i+1)
 		if f.rect {
 			t := D/2 - l.Coord
 			if face == Negative {
@@ -292,10 +292,10 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 			}
 			if t < dc {
 				cStep = trace.Formula(id+li("sigma_c", i), ctitle, clauseRect, li("σ_c", i), "MPa", v.sc,
-					"eta * fcd", trace.A("eta", eta), trace.A("fcd", fcd)).Note(fmt.Sprintf("The layer lies within the stress block (depth %.1f mm < d_c).", t))
+					"eta * fcd", trace.A("eta", eta), trace.A("fcd", fcd)).Note("The layer lies within the stress block (its depth is less than d_c).")
 			} else {
 				cStep = trace.Formula(id+li("sigma_c", i), ctitle, clauseRect, li("σ_c", i), "MPa", v.sc, "0").
-					Note(fmt.Sprintf("The layer lies outside the stress block (depth %.1f mm ≥ d_c = %.1f mm).", t, dc))
+					Note("The layer lies outside the stress block (its depth is at least d_c).")
 			}
 		} else {
 			cStep = trace.Formula(id+li("sigma_c", i), ctitle, clausePR, li("σ_c", i), "MPa", v.sc,
@@ -303,7 +303,7 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 				trace.A("fcd", fcd), trace.A("eps", eQ), trace.A(pkn, epk), trace.A("n", nq))
 		}
 		cQ := log.Add(cStep)
-		fQ := log.Add(trace.Formula(id+li("F_s", i), fmt.Sprintf("Force in layer %d, displaced concrete deducted", i+1), clauseCommon, li("F_s", i), "N", v.force,
+		fQ := log.Add(trace.Formula(id+li("F_s", i), "Force in layer "+strconv.Itoa(i+1)+", displaced concrete deducted", clauseCommon, li("F_s", i), "N", v.force,
 			"A * (sigma_s - sigma_c)", trace.A("A", aq), trace.A("sigma_s", sQ), trace.A("sigma_c", cQ)))
 		fn, zn := li("F_s", i), li(cn+"_s", i)
 		mexpr = append(mexpr, fn+" * "+zn)
@@ -312,8 +312,8 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	}
 
 	// 4. Moment of resistance.
-	mstep := trace.Formula(id+"M_Rd", fmt.Sprintf("Design moment of resistance about %s at N_Ed", axis), clausePlane, "M_Rd,"+axis.String(), "Nmm", mval,
+	mstep := trace.Formula(id+"M_Rd", "Design moment of resistance about "+axis.String()+" at N_Ed", clausePlane, "M_Rd,"+axis.String(), "Nmm", mval,
 		strings.Join(mexpr, " + "), margs...).
-		Note(fmt.Sprintf("Moments about the centroid, Σ F·%s; positive when the compressed face is on the positive side.", cn))
+		Note("Moments about the centroid, Σ F·" + cn + "; positive when the compressed face is on the positive side.")
 	return log.Add(mstep)
 }

@@ -124,10 +124,16 @@ type Log struct {
 	Prefix string // prepended to every step ID, e.g. "K1/L1/"
 	Group  string // sheet section given to steps added from now on
 	Steps  []Step
+	// Trial, when set, keeps only check steps, for a trial whose trace is not wanted;
+	// the results of the other steps are returned all the same.
+	Trial bool
 }
 
 // Add appends the step, giving it the log's prefix and current group, and returns its result.
 func (l *Log) Add(s Step) Q {
+	if l.Trial && s.Kind != KindCheck {
+		return Q{V: s.Value, Symbol: s.Symbol, Unit: s.Unit, From: s.ID}
+	}
 	s.ID = l.Prefix + s.ID
 	if s.Group == "" {
 		s.Group = l.Group
