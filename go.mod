@@ -1,9 +1,9 @@
 module colsheet
 
-go 1.26.8
+go 1.22
 
-require github.com/Knetic/govaluate v3.0.0+incompatible
-
-require gopkg.in/yaml.v3 v3.0.1
-
-require github.com/yuin/goldmark v1.8.7
+require (
+	github.com/Knetic/govaluate v3.0.0+incompatible
+	github.com/yuin/goldmark v1.8.7
+	gopkg.in/yaml.v3 v3.0.1
+)
