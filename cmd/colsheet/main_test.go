@@ -1,0 +1,193 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"sort"
+	"strings"
+	"testing"
+
+	"colsheet/calc/trace"
+)
+
+func runCLI(args ...string) (int, string, string) {
+	var out, errb bytes.Buffer
+	code := run(args, &out, &errb)
+	return code, out.String(), errb.String()
+}
+
+func keys(m map[string]any) []string {
+	var k []string
+	for key := range m {
+		k = append(k, key)
+	}
+	sort.Strings(k)
+	return k
+}
+
+func hasAll(t *testing.T, what string, m map[string]any, want ...string) {
+	t.Helper()
+	for _, w := range want {
+		if _, ok := m[w]; !ok {
+			t.Errorf("%s: key %q missing (have %v)", what, w, keys(m))
+		}
+	}
+}
+
+// The demo runs, passes, writes every format, and results.json holds the contract keys
+// of ../shared/DESIGN.md with a trace that reproduces itself.
+func TestDemo(t *testing.T) {
+	dir := filepath.Join(t.TempDir(), "out")
+	code, stdout, stderr := runCLI("design", "../../testdata/demo.yaml", "-o", dir, "--date", "2026-12-01")
+	if code != 0 {
+		t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
+	}
+	for _, f := range []string{"results.json", "summary.csv", "md/index.md", "md/C4-GF.md", "html/index.html", "html/E2-L3.html", "tex/index.tex", "tex/D1-GF.tex"} {
+		if st, err := os.Stat(filepath.Join(dir, f)); err != nil || st.Size() == 0 {
+			t.Errorf("%s not written: %v", f, err)
+		}
+	}
+	data, err := os.ReadFile(filepath.Join(dir, "results.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var res map[string]any
+	if err := json.Unmarshal(data, &res); err != nil {
+		t.Fatal(err)
+	}
+	hasAll(t, "top", res, "tool", "input_sha256", "code", "designs")
+	hasAll(t, "code", res["code"].(map[string]any), "standard", "annex", "overrides")
+	designs := res["designs"].([]any)
+	if len(designs) != 4 {
+		t.Fatalf("%d designs, want 4", len(designs))
+	}
+	for _, x := range designs {
+		d := x.(map[string]any)
+		hasAll(t, "design", d, "column", "storey", "b_mm", "h_mm", "cover_mm", "fck_MPa", "fyk_MPa", "NEd_kN",
+			"axes", "biaxial", "As_req_mm2", "As_min_mm2", "As_max_mm2", "As_prov_mm2", "bars", "links",
+			"utilization", "status", "governing", "steps")
+		axes := d["axes"].(map[string]any)
+		for _, a := range []string{"y", "z"} {
+			hasAll(t, "axis "+a, axes[a].(map[string]any), "l0_m", "lambda", "lambda_lim", "slender", "M01_kNm",
+				"M02_kNm", "ei_mm", "M0Ed_kNm", "M2_kNm", "phi_ef", "MEd_kNm", "MRd_kNm")
+		}
+		hasAll(t, "biaxial", d["biaxial"].(map[string]any), "checked", "a", "ratio")
+		hasAll(t, "bars", d["bars"].(map[string]any), "count", "dia_mm", "positions_mm")
+		hasAll(t, "links", d["links"].(map[string]any), "dia_mm", "spacing_mm", "spacing_reduced_mm")
+		// The trace read back from results.json reproduces every step (the archive's recheck).
+		raw, _ := json.Marshal(d["trace"])
+		var steps []trace.Step
+		if err := json.Unmarshal(raw, &steps); err != nil {
+			t.Fatal(err)
+		}
+		if n := int(d["steps"].(float64)); n != len(steps) || n == 0 {
+			t.Errorf("steps = %d, trace has %d", n, len(steps))
+		}
+		for _, s := range steps {
+			if err := trace.Recheck(s, 1e-9); err != nil {
+				t.Error(err)
+			}
+		}
+	}
+	// Cautions on every sheet.
+	for _, f := range []string{"md/C4-GF.md", "html/C4-GF.html", "tex/C4-GF.tex"} {
+		b, _ := os.ReadFile(filepath.Join(dir, f))
+		if !strings.Contains(string(b), "competent engineer") || !strings.Contains(string(b), "national annex") {
+			t.Errorf("%s lacks the cautions", f)
+		}
+	}
+}
+
+func writeFile(t *testing.T, name, text string) string {
+	t.Helper()
+	p := filepath.Join(t.TempDir(), name)
+	if err := os.WriteFile(p, []byte(text), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return p
+}
+
+const failing = `materials: {concrete: C30/37}
+columns:
+  - id: F1
+    b: 250
+    h: 250
+    cover: 30
+    bars: {count: 4, dia: 12}
+    storeys:
+      - {name: L1, l0: 3 m, NEd: 2500 kN}
+`
+
+// A failing design exits 1 and still writes everything, with the reason on stderr.
+func TestFailingDesignExitsOne(t *testing.T) {
+	dir := filepath.Join(t.TempDir(), "out")
+	code, _, stderr := runCLI("design", writeFile(t, "f.yaml", failing), "-o", dir)
+	if code != 1 {
+		t.Fatalf("exit %d, want 1", code)
+	}
+	if !strings.Contains(stderr, "FAIL F1/L1") {
+		t.Errorf("stderr does not name the failure: %s", stderr)
+	}
+	b, err := os.ReadFile(filepath.Join(dir, "results.json"))
+	if err != nil || !bytes.Contains(b, []byte(`"status": "fail"`)) {
+		t.Errorf("results.json missing or without the failure: %v", err)
+	}
+	md, _ := os.ReadFile(filepath.Join(dir, "md", "F1-L1.md"))
+	if !bytes.Contains(md, []byte("FAIL")) {
+		t.Error("the sheet does not say FAIL")
+	}
+}
+
+// Bad input exits 2 with FILE:LINE: field: message for every fault, and writes nothing;
+// what an earlier run wrote stays as it was.
+func TestBadInputWritesNothing(t *testing.T) {
+	bad := `materials: {concrete: C30/37}
+columns:
+  - id: B1
+    b: 3.6 kN
+    h: 300
+    cover: 30
+    storeys:
+      - {name: L1, l0: 3 m, NEd: -5 kN}
+`
+	path := writeFile(t, "bad.yaml", bad)
+	dir := filepath.Join(t.TempDir(), "out")
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	keep := filepath.Join(dir, "results.json")
+	os.WriteFile(keep, []byte("earlier"), 0o644)
+	code, _, stderr := runCLI("design", path, "-o", dir)
+	if code != 2 {
+		t.Fatalf("exit %d, want 2", code)
+	}
+	for _, want := range []string{path + ":4: columns[0].b:", path + ":8: columns[0].storeys[0].NEd:"} {
+		if !strings.Contains(stderr, want) {
+			t.Errorf("stderr lacks %q:\n%s", want, stderr)
+		}
+	}
+	if b, _ := os.ReadFile(keep); string(b) != "earlier" {
+		t.Error("an earlier result was overwritten by a bad run")
+	}
+	entries, _ := os.ReadDir(dir)
+	if len(entries) != 1 {
+		t.Errorf("bad input wrote files: %v", entries)
+	}
+}
+
+func TestUsage(t *testing.T) {
+	for _, args := range [][]string{{}, {"frobnicate"}, {"design"}, {"design", "x.yaml"}, {"design", "x.yaml", "-o"},
+		{"design", "x.yaml", "-o", "d", "--formats", "pdfx"}, {"design", "x.yaml", "-o", "d", "--date", "yesterday"}} {
+		if code, _, _ := runCLI(args...); code != 2 {
+			t.Errorf("%v: exit %d, want 2", args, code)
+		}
+	}
+	if code, out, _ := runCLI("version"); code != 0 || !strings.Contains(out, "colsheet") {
+		t.Errorf("version: %d %q", code, out)
+	}
+	if code, _, _ := runCLI("design", "no-such-file.yaml", "-o", t.TempDir()); code != 2 {
+		t.Error("a missing input file should exit 2")
+	}
+}
