@@ -1,6 +1,6 @@
 module colsheet
 
-go 1.22
+go 1.24
 
 require (
 	github.com/Knetic/govaluate v3.0.0+incompatible
