@@ -93,6 +93,8 @@ func sample(t *testing.T, title string) *design.Result {
 		M0Ed: 100.6e6, M2: 0, PhiEf: 2, MEd: 100.6e6, MRd: 142e6}
 	return &design.Result{
 		ToolName: "colsheet", ToolVersion: "0.1.0-test", Input: in,
+		Methods: []design.Method{{Topic: "Concrete stress block", Choice: "parabola-rectangle", Clause: "EN 1992-1-1:2004 3.1.7(1)"},
+			{Topic: "Links", Choice: "diameter & spacing <check>", Clause: "EN 1992-1-1:2004 9.5.3"}},
 		Designs: []design.Design{
 			{Column: "K1", Storey: "L1", B: 350, H: 500, Cover: 40, Fck: 32, Fyk: 500, NEd: 2150000,
 				Y: axis, Z: design.Axis{L0: 3100, Lambda: 30.68, LambdaLim: 31.4, M01: 10e6, M02: 10e6, Ei: 7.75,

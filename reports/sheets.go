@@ -192,11 +192,8 @@ func basis(m markup, r *design.Result) basisView {
 	if c := in.Materials.Concrete.Class; c != "" {
 		b.Choices = append(b.Choices, kv{m.text("Concrete"), m.text(c)})
 	}
-	if s := in.Options.StressBlock; s != "" {
-		b.Choices = append(b.Choices, kv{m.text("Concrete stress block"), m.text(s)})
-	}
-	if s := in.Options.Imperfection; s != "" {
-		b.Choices = append(b.Choices, kv{m.text("Geometric imperfection"), m.text(s)})
+	for _, me := range r.Methods {
+		b.Choices = append(b.Choices, kv{m.text(me.Topic), m.text(me.Choice + " (" + me.Clause + ")")})
 	}
 	return b
 }

@@ -21,6 +21,14 @@ type Result struct {
 	ToolVersion string       // version of the engine
 	Input       *model.Input // the input as read
 	Designs     []Design     // one per column and lift, in input order
+	Methods     []Method     // the methods and assumptions of the calculation, for the design basis
+}
+
+// Method is one method or assumption of the calculation with the clause behind it.
+type Method struct {
+	Topic  string // what it concerns, e.g. "Concrete stress block"
+	Choice string // what is used
+	Clause string // where the standard sets it, or "common practice"
 }
 
 // Failed returns how many designs do not pass.

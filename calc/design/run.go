@@ -18,7 +18,7 @@ const Version = "0.1.0"
 
 // Run designs or checks every column and lift of the input.
 func Run(in *model.Input) *Result {
-	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in}
+	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in)}
 	for ci := range in.Columns {
 		col := &in.Columns[ci]
 		for si := range col.Storeys {
@@ -26,6 +26,32 @@ func Run(in *model.Input) *Result {
 		}
 	}
 	return r
+}
+
+// methods returns the methods and assumptions in force for the input.
+func methods(in *model.Input) []Method {
+	block := Method{"Concrete stress block", "parabola-rectangle, integrated in closed form over the compressed depth", "EN 1992-1-1:2004 3.1.7(1)"}
+	if in.Options.StressBlock == model.Rectangular {
+		block = Method{"Concrete stress block", "rectangular, η·fcd over λ·x", "EN 1992-1-1:2004 3.1.7(3)"}
+	}
+	imp := Method{"Geometric imperfection", "inclination θi = θ0·αh·αm, ei = θi·l0/2 about each axis", "EN 1992-1-1:2004 5.2(5), (7)"}
+	if in.Options.Imperfection == model.ImperfL0Over400 {
+		imp = Method{"Geometric imperfection", "ei = l0/400 about each axis", "EN 1992-1-1:2004 5.2(9)"}
+	}
+	return []Method{
+		block,
+		{"Reinforcing steel", "bilinear with a horizontal top branch at fyd, no strain limit", "EN 1992-1-1:2004 3.2.7(2)b"},
+		{"Strain limits", "pivots: εcu at the compressed face, or εc2 at (1 − εc2/εcu2)·h when the whole section is compressed", "EN 1992-1-1:2004 6.1(5), Fig. 6.1"},
+		{"Concrete displaced by bars", "deducted for bars in compression", "common practice"},
+		imp,
+		{"Minimum eccentricity", "e0 = max(h/30, 20 mm) about each axis", "EN 1992-1-1:2004 6.1(4)"},
+		{"Second-order effects", "nominal curvature for lifts with λ > λlim", "EN 1992-1-1:2004 5.8.3.1, 5.8.8"},
+		{"Design moment", "MEd = max{M02, M0e + M2, M01 + 0.5·M2, NEd·e0}, imperfections about both axes", "EN 1992-1-1:2004 5.8.8.2; common practice"},
+		{"Biaxial bending", "criteria (5.38a/b), then (5.39) with a from NEd/NRd", "EN 1992-1-1:2004 5.8.9"},
+		{"Bars", "symmetric patterns with a bar in each corner; the least steel that passes every check", "EN 1992-1-1:2004 9.5.2, 8.2"},
+		{"Links", "diameter, spacing and reduced spacing", "EN 1992-1-1:2004 9.5.3"},
+		{"Scope", "isolated columns of braced frames under the given actions; tension columns excluded", "common practice"},
+	}
 }
 
 // common holds the traced quantities of a lift that do not depend on the bars.
