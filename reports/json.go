@@ -158,7 +158,7 @@ func JSON(r *design.Result) ([]byte, error) {
 		if pos == nil {
 			pos = [][2]float64{}
 		}
-		steps := d.Steps
+		steps := d.Trace()
 		if steps == nil {
 			steps = []trace.Step{}
 		}

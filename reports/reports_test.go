@@ -41,44 +41,44 @@ func sample(t *testing.T, title string) *design.Result {
 		Materials: model.Materials{Concrete: conc, Fyk: 500, Aggregate: 20},
 		Options:   model.Options{StressBlock: model.ParabolaRectangle, Imperfection: model.ImperfInclination},
 	}
-	fck := trace.Input("K1/L1/fck", "characteristic cylinder strength", "EN 1992-1-1:2004 Table 3.1", "f_ck", "MPa", 32)
+	fck := trace.Input("fck", "characteristic cylinder strength", "EN 1992-1-1:2004 Table 3.1", "f_ck", "MPa", 32)
 	fck.Group = "Materials"
-	gc := trace.Table("K1/L1/gamma_c", "partial factor for concrete", "EN 1992-1-1:2004 2.4.2.4(1), Table 2.1N",
+	gc := trace.Table("gamma_c", "partial factor for concrete", "EN 1992-1-1:2004 2.4.2.4(1), Table 2.1N",
 		"persistent and transient", "γ_c", "", 1.5)
 	gc.Group = "Materials"
-	fcd := trace.Formula("K1/L1/fcd", "design compressive strength", "EN 1992-1-1:2004 3.1.6(1), Eq. (3.15)",
+	fcd := trace.Formula("fcd", "design compressive strength", "EN 1992-1-1:2004 3.1.6(1), Eq. (3.15)",
 		"f_cd", "MPa", 18.133333333333333, "alpha_cc * fck / gamma_c",
 		trace.A("alpha_cc", trace.Const(0.85, "α_cc", "")), trace.A("fck", fck.Q()), trace.A("gamma_c", gc.Q()))
 	fcd.Group = "Materials"
-	ned := trace.Input("K1/L1/NEd", "design axial force", "input", "N_Ed", "N", 2150000)
+	ned := trace.Input("NEd", "design axial force", "input", "N_Ed", "N", 2150000)
 	ned.Group = "Actions"
-	ei := trace.Formula("K1/L1/ei_y", "eccentricity of the imperfection about y", "EN 1992-1-1:2004 5.2(7), Eq. (5.2)",
+	ei := trace.Formula("ei_y", "eccentricity of the imperfection about y", "EN 1992-1-1:2004 5.2(7), Eq. (5.2)",
 		"e_i,y", "mm", 7.25, "theta_i * l0 / 2",
 		trace.A("theta_i", trace.Const(0.005, "θ_i", "")), trace.A("l0", trace.Const(2900, "l_0", "mm")))
 	ei.Group = "Slenderness and second order"
-	lam := trace.Formula("K1/L1/lambda_y", "slenderness about y", "EN 1992-1-1:2004 5.8.3.2(1)",
+	lam := trace.Formula("lambda_y", "slenderness about y", "EN 1992-1-1:2004 5.8.3.2(1)",
 		"λ_y", "", 20.09, "l0 * sqrt(12) / h",
 		trace.A("l0", trace.Const(2900, "l_0", "mm")), trace.A("h", trace.Const(500, "h", "mm")))
 	lam.Group = "Slenderness and second order"
-	m0 := trace.Formula("K1/L1/M0e", "equivalent first-order moment", "EN 1992-1-1:2004 5.8.8.2(2), Eq. (5.32)",
+	m0 := trace.Formula("M0e", "equivalent first-order moment", "EN 1992-1-1:2004 5.8.8.2(2), Eq. (5.32)",
 		"M_0e,y", "Nmm", 51000000, "max(0.6 * M02 + 0.4 * M01, 0.4 * M02)",
 		trace.A("M02", trace.Const(85e6, "M_02,y", "Nmm")), trace.A("M01", trace.Const(-40e6, "M_01,y", "Nmm")))
 	m0.Group = "Slenderness and second order"
 	m0 = m0.Note("double curvature: M_01 is negative")
-	pow := trace.Formula("K1/L1/kphi", "creep factor", "EN 1992-1-1:2004 5.8.8.3(4), Eq. (5.37)",
+	pow := trace.Formula("kphi", "creep factor", "EN 1992-1-1:2004 5.8.8.3(4), Eq. (5.37)",
 		"K_φ", "", 1.0, "max(1 + beta * phi_ef, 1) ** (1/1)",
 		trace.A("beta", trace.Const(0, "β", "")), trace.A("phi_ef", trace.Const(2, "φ_ef", "")))
 	pow.Group = "Slenderness and second order"
-	x := trace.Solve("K1/L1/x", "neutral axis depth", "EN 1992-1-1:2004 6.1(2)", "x", "mm", 212.4,
+	x := trace.Solve("x", "neutral axis depth", "EN 1992-1-1:2004 6.1(2)", "x", "mm", 212.4,
 		"bisection on axial equilibrium", "Nc + Ns - NEd", 3.2e-7,
 		trace.A("Nc", trace.Const(1500000.0000001, "N_c", "N")), trace.A("Ns", trace.Const(650000.0000002, "N_s", "N")),
 		trace.A("NEd", ned.Q()))
 	x.Group = "Section resistance"
-	chk := trace.Check("K1/L1/check_y", "bending about y", "EN 1992-1-1:2004 6.1", "M_Ed,y ≤ M_Rd,y", 0.708,
+	chk := trace.Check("check_y", "bending about y", "EN 1992-1-1:2004 6.1", "M_Ed,y ≤ M_Rd,y", 0.708,
 		"MEd / MRd", trace.A("MEd", trace.Const(85e6, "M_Ed,y", "Nmm")), trace.A("MRd", trace.Const(120e6, "M_Rd,y", "Nmm")))
 	chk.Group = "Section resistance"
 	chk = chk.Caution("bars assumed continuous through the joint")
-	eps := trace.Table("K1/L1/eps", "ultimate strain", "EN 1992-1-1:2004 Table 3.1", "f_ck ≤ 50 MPa", "ε_cu2", "", 0.0035)
+	eps := trace.Table("eps", "ultimate strain", "EN 1992-1-1:2004 Table 3.1", "f_ck ≤ 50 MPa", "ε_cu2", "", 0.0035)
 	eps.Group = "Materials" // appears after another group: shown under Materials
 	steps := []trace.Step{fck, gc, fcd, ned, ei, lam, m0, pow, x, chk, eps}
 

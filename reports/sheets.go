@@ -331,7 +331,7 @@ func sheet(m markup, r *design.Result, i int) sheetView {
 		ax("Design moment M_Ed", func(a design.Axis) string { return m.qty(a.MEd, "Nmm") }),
 		ax("Resistance M_Rd", func(a design.Axis) string { return m.qty(a.MRd, "Nmm") }),
 	}
-	v.Groups = groups(m, d.Steps)
+	v.Groups = groups(m, d.Trace())
 	return v
 }
 

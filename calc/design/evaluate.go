@@ -14,7 +14,7 @@ import (
 // its whole derivation: that serves to try candidate patterns, whose traces are dropped.
 func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	col, st, prm := c.col, c.st, c.p
-	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/", Trial: !full}
+	l := &trace.Log{Trial: !full}
 	if full {
 		l.Steps = append(make([]trace.Step, 0, len(c.steps)+128), c.steps...)
 	}

@@ -17,7 +17,7 @@ func (c *common) finish(d Design) Design {
 	if d.pattern.Count() == 0 {
 		return d
 	}
-	l := &trace.Log{Prefix: c.col.ID + "/" + c.st.Name + "/", Steps: d.Steps, Group: "Steel area required"}
+	l := &trace.Log{Steps: d.Steps, Group: "Steel area required"}
 	sec := c.section(d.Bars.Positions, d.pattern.BarArea()).sec
 	bound := areaBound * c.ac.V
 	ratio := func(s *section.Section) (float64, error) { return c.resistanceRatio(s, &d) }

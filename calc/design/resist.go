@@ -43,7 +43,7 @@ func (r *resist) nRdMax() float64 { return r.sec.NRdMax() }
 // EN 1992-1-1:2004 6.1(5), Fig. 6.1 (pivot C with zero curvature).
 func (r *resist) nRdMaxStep(id string) trace.Step {
 	c := r.c
-	as := trace.Q{V: r.sec.Area(), Symbol: "A_s,prov", Unit: "mm2", From: c.col.ID + "/" + c.st.Name + "/bars/As"}
+	as := trace.Q{V: r.sec.Area(), Symbol: "A_s,prov", Unit: "mm2", From: "bars/As"}
 	args := []trace.Arg{trace.A("f_cd", c.fcd), trace.A("b", c.b), trace.A("h", c.h), trace.A("A_s", as),
 		trace.A("E_s", c.es), trace.A("eps", c.epsC2), trace.A("f_yd", c.fyd)}
 	expr := "f_cd * (b * h - A_s) + A_s * min(E_s * eps, f_yd)"
@@ -81,7 +81,7 @@ func (r *resist) mRdSteps(l *trace.Log, n string, k int, nEd trace.Q, full bool)
 	}
 	c := r.c
 	refs := section.Refs{Fcd: c.fcd.From, Fyd: c.fyd.From, Es: c.es.From, B: c.b.From, H: c.h.From,
-		Concrete: c.epsC2.From, Bars: c.col.ID + "/" + c.st.Name + "/bars/As"}
+		Concrete: c.epsC2.From, Bars: "bars/As"}
 	q := r.sec.Trace(l, n+"/sec/", nEd, st, refs)
 	if q.V < 0 {
 		q = l.Add(trace.Formula(n+"/MRd", "Moment resistance about "+n+" (magnitude)", "common practice", "M_Rd,"+n, "Nmm",

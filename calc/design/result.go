@@ -61,7 +61,7 @@ type Design struct {
 	Governing      string       // the check that sets Utilization, in words
 	Reasons        []string     // why the design fails, in words; empty when it passes
 	Cautions       []string     // cautions particular to this design
-	Steps          []trace.Step // the full trace of this design
+	Steps          []trace.Step // the full trace of this design; IDs relative to the design (see Trace)
 
 	pattern detail.Pattern // bar pattern evaluated
 }
@@ -101,4 +101,26 @@ type Links struct {
 	Dia            float64 // mm
 	Spacing        float64 // mm, general spacing
 	SpacingReduced float64 // mm, within the zones of 9.5.3(4)
+}
+
+// Trace returns the design's steps with their IDs and references made whole,
+// column/lift/part/name, as results.json and the sheets print them.
+func (d *Design) Trace() []trace.Step {
+	prefix := d.Column + "/" + d.Storey + "/"
+	out := make([]trace.Step, len(d.Steps))
+	for i, s := range d.Steps {
+		s.ID = prefix + s.ID
+		if len(s.Args) > 0 {
+			args := make([]trace.Arg, len(s.Args))
+			for j, a := range s.Args {
+				if a.From != "" {
+					a.From = prefix + a.From
+				}
+				args[j] = a
+			}
+			s.Args = args
+		}
+		out[i] = s
+	}
+	return out
 }

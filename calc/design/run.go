@@ -112,7 +112,7 @@ func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code}
-	l := &trace.Log{Prefix: col.ID + "/" + st.Name + "/", Steps: make([]trace.Step, 0, 96)}
+	l := &trace.Log{Steps: make([]trace.Step, 0, 96)}
 	p := in.Code
 	conc := in.Materials.Concrete
 
