@@ -82,7 +82,7 @@ func sample(t *testing.T, title string) *design.Result {
 	eps.Group = "Materials" // appears after another group: shown under Materials
 	steps := []trace.Step{fck, gc, fcd, ned, ei, lam, m0, pow, x, chk, eps}
 
-	fail := trace.Check("K2/L1/check_z", "bending about z", "EN 1992-1-1:2004 6.1", "M_Ed,z ≤ M_Rd,z", 1.12,
+	fail := trace.Check("check_z", "bending about z", "EN 1992-1-1:2004 6.1", "M_Ed,z ≤ M_Rd,z", 1.12,
 		"MEd / MRd", trace.A("MEd", trace.Const(56e6, "M_Ed,z", "Nmm")), trace.A("MRd", trace.Const(50e6, "M_Rd,z", "Nmm")))
 	fail.Group = "Section resistance"
 	raw := trace.Step{ID: "K2/L1/odd", Title: "expression shown as written", Clause: "common practice",
