@@ -83,8 +83,11 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	gh := l.Add(trace.Formula("space/gap_h", "Clear distance between bars along an h-face", "common practice", "s_h", "mm", gapH, gapExpr,
 		trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nH)))
 	gapMin := math.Min(gapB, gapH)
+	// Compared as centre distances, (s_min + φ)/(s + φ), so that the ratio stays finite and
+	// meaningful when given bars overlap; it passes exactly when s ≥ s_min.
 	check(trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
-		sMin.V/math.Max(gapMin, 1e-3), "s_min / max(min(s_b, s_h), 0.001)", trace.A("s_min", sMin), trace.A("s_b", gb), trace.A("s_h", gh)))
+		(sMin.V+p.Dia)/math.Max(gapMin+p.Dia, 1e-3), "(s_min + phi) / max(min(s_b, s_h) + phi, 0.001)",
+		trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_b", gb), trace.A("s_h", gh)))
 
 	// Slenderness limit and second order, per axis.
 	l.Group = "Slenderness limit"
