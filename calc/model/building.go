@@ -1,0 +1,111 @@
+package model
+
+// Building is the building form of the input: storeys, grid, member sizes, floors and
+// loads, from which the engine derives the actions on every column and lift.
+// Lengths in mm, area loads in N/mm² (1 kN/m² = 0.001 N/mm²), line loads in N/mm (= kN/m).
+type Building struct {
+	Line     int          // input line of the building block
+	Storeys  []Level      // lowest first; lift i runs from level i-1 (the base for i = 0) up to level i
+	GridX    []float64    // bay widths along x, mm; x lines lettered A, B, ...
+	GridY    []float64    // bay widths along y, mm; y lines numbered 1, 2, ...
+	Column   Size         // default column section: H along building x, B along building y
+	Cover    float64      // nominal cover to the links of the columns, mm
+	Beam     Size         // default beam section (B wide, H deep), both directions
+	Columns  []ColumnSize // column size overrides
+	Beams    []BeamSize   // beam size overrides
+	Floors   []Floor      // area loads per level
+	Lines    []LineLoad   // line loads on beams (façades)
+	Omit     []string     // grid points without a column, e.g. "B2"
+	Base     string       // BaseFixed or BasePinned
+	Analysis string       // AnalysisSubframe or AnalysisFrame
+	Options  BuildingOptions
+}
+
+// Base fixities.
+const (
+	BaseFixed  = "fixed"
+	BasePinned = "pinned"
+)
+
+// Analysis methods for the column moments.
+const (
+	AnalysisSubframe = "subframe" // column above and below with far ends fixed, beams either side
+	AnalysisFrame    = "frame"    // direct-stiffness analysis of each braced frame line
+)
+
+// Span directions of a floor.
+const (
+	SpanX      = "x"       // one way, spanning along x onto beams that run along y
+	SpanY      = "y"       // one way, spanning along y onto beams that run along x
+	SpanTwoWay = "two-way" // two way, 45° triangles and trapezia onto all four beams
+)
+
+// Combination rules of EN 1990 6.4.3.2.
+const (
+	Comb610   = "6.10"   // Eq. (6.10)
+	Comb610ab = "6.10ab" // the less favourable of Eq. (6.10a) and (6.10b)
+)
+
+// Imposed-load reductions of EN 1991-1-1 6.3.1.2.
+const (
+	ReduceNone    = "none"
+	ReduceArea    = "area"    // αA, 6.3.1.2(10)
+	ReduceStoreys = "storeys" // αn, 6.3.1.2(11)
+)
+
+// BuildingOptions holds the method choices of the building form.
+type BuildingOptions struct {
+	BeamStiffness string  // "half" (common practice) or "full": beam stiffness in the subframe
+	Combination   string  // Comb610 or Comb610ab
+	Reduction     string  // ReduceNone, ReduceArea or ReduceStoreys
+	Density       float64 // weight density of reinforced concrete, N/mm³ (25 kN/m³ = 2.5e-5)
+	L0Factor      float64 // effective length as a fraction of the storey height (braced: ≤ 1)
+}
+
+// Level is one storey: the level at its top and the height of the lift below it.
+type Level struct {
+	Name   string
+	Height float64 // mm, from the level below (or the base) to this level
+	Line   int
+}
+
+// Size is a rectangular member section.
+type Size struct {
+	B, H float64 // mm
+}
+
+// ColumnSize overrides the section of some columns over some lifts.
+type ColumnSize struct {
+	IDs    []string // column ids such as "B2"; empty for all
+	Levels []string // lifts (named by their top level); empty for all
+	Size
+	Line int
+}
+
+// BeamSize overrides the section of some beams.
+type BeamSize struct {
+	Levels []string // levels; empty for all
+	Dir    string   // "x" (beams running along x), "y", or "" for both
+	Lines  []string // grid lines the beams run on, e.g. "A" or "2"; empty for all
+	Size
+	Line int
+}
+
+// Floor gives the area loads of some levels.
+type Floor struct {
+	Levels   []string
+	Gk, Qk   float64 // N/mm²; Gk excludes the self-weight of beams and columns
+	Category string  // imposed-load category of EN 1991-1-1 Table 6.1 / EN 1990 Table A1.1: A, B, C, D, E, F, G, H
+	Spans    string  // SpanX, SpanY or SpanTwoWay
+	Line     int
+}
+
+// LineLoad is a load per unit length on the beams of one grid line, such as a façade.
+type LineLoad struct {
+	Levels   []string
+	GridLine string  // "A" (a line along y at x of A) or "1" (a line along x at y of 1)
+	From, To string  // optional: the range of cross lines it runs between, e.g. "1" to "3"; empty for the whole line
+	Gk, Qk   float64 // N/mm (= kN/m)
+	Category string  // category of Qk when Qk > 0
+	Line     int
+}
