@@ -46,6 +46,12 @@ var Catalogue = []Param{
 	{"spacing_k1", "k_1", "EN 1992-1-1:2004 8.2(2)", "Clear bar spacing as a multiple of bar diameter", 1, 0.5, 3},
 	{"spacing_k2", "k_2", "EN 1992-1-1:2004 8.2(2)", "Clear bar spacing above the aggregate size, mm", 5, 0, 20},
 	{"spacing_min", "s_min", "EN 1992-1-1:2004 8.2(2)", "Absolute minimum clear bar spacing, mm", 20, 10, 50},
+	{"gamma_G", "γ_G", "EN 1990:2002 A1.3.1(4), Table A1.2(B)", "Partial factor for permanent actions, unfavourable", 1.35, 1, 2},
+	{"gamma_G_inf", "γ_G,inf", "EN 1990:2002 A1.3.1(4), Table A1.2(B)", "Partial factor for permanent actions, favourable", 1.0, 0.8, 1.35},
+	{"gamma_Q", "γ_Q", "EN 1990:2002 A1.3.1(4), Table A1.2(B)", "Partial factor for variable actions, unfavourable", 1.5, 1, 2},
+	{"xi", "ξ", "EN 1990:2002 A1.3.1(4), Table A1.2(B)", "Reduction factor for unfavourable permanent actions in Eq. (6.10b)", 0.85, 0.5, 1},
+	{"gamma_G_light", "γ_G,light", "EN 1992-1-1:2004 5.1.3(1)P", "Partial factor for permanent load on the lightly loaded spans of the load arrangements", 1.35, 1, 2},
+	{"density_rc", "γ_rc", "EN 1991-1-1:2002 Annex A, Table A.1", "Weight density of reinforced concrete, N/mm³", 2.5e-5, 1e-5, 3.5e-5},
 }
 
 // index maps each parameter name to its place in Catalogue.
