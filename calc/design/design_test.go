@@ -87,7 +87,10 @@ func TestTraceInvariantsAcrossCases(t *testing.T) {
 					for _, given := range []*model.BarSpec{nil, {Count: 8, Dia: 20}} {
 						col := model.Column{ID: "T" + string(rune('A'+i)), B: 350, H: 450, Cover: 35, Bars: given, Storeys: []model.Storey{st}}
 						in := newInput(class, bl, im, col)
-						r := Run(in)
+						r, err := Run(in)
+						if err != nil {
+							t.Fatal(err)
+						}
 						if len(r.Designs) != 1 {
 							t.Fatal("one design expected")
 						}
@@ -106,7 +109,7 @@ func TestTraceInvariantsAcrossCases(t *testing.T) {
 // A stocky column evaluated by hand from the clauses.
 func TestStockyByHand(t *testing.T) {
 	col := model.Column{ID: "H1", B: 400, H: 400, Cover: 35, Storeys: []model.Storey{lift(3000, 3000, 2000, 60, -30, 0, 0)}}
-	d := Run(newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 	// EN 1992-1-1:2004 5.2(5), (7): l = l0 = 3 m < 4 m so αh = 1, m = 1 so αm = 1; ei = l0/400.
 	near(t, "ei", d.Y.Ei, 7.5, 1e-12)
 	// 5.8.8.2(2): M02 = 60 kNm, M01 = −30 kNm (double curvature).
@@ -144,7 +147,7 @@ func TestSlenderByHand(t *testing.T) {
 	st := lift(6000, 6000, 1200, 50, 20, 0, 0)
 	st.PhiEf, st.HasPhi = 1.5, true
 	col := model.Column{ID: "S1", B: 300, H: 300, Cover: 30, Bars: &model.BarSpec{Count: 4, Dia: 25}, Storeys: []model.Storey{st}}
-	d := Run(newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 	fcd, fyd := 30/1.5, 500/1.15
 	ac := 300.0 * 300
 	as := 4 * math.Pi * 25 * 25 / 4
@@ -180,11 +183,11 @@ func TestSlenderByHand(t *testing.T) {
 func TestLeastSteel(t *testing.T) {
 	col := model.Column{ID: "L", B: 300, H: 500, Cover: 35, Storeys: []model.Storey{lift(3200, 3200, 1800, 180, -90, 15, -10)}}
 	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
-	d := Run(in).Designs[0]
+	d := mustRun(t, in).Designs[0]
 	if d.Status != StatusPass {
 		t.Fatalf("should pass: %v", d.Reasons)
 	}
-	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0])
+	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
 	for _, p := range candidatesFor(c) {
 		if p.Area() >= d.AsProv-1e-6 {
 			break
@@ -200,7 +203,7 @@ func TestLeastSteel(t *testing.T) {
 
 func TestFailureIsLoud(t *testing.T) {
 	col := model.Column{ID: "F", B: 250, H: 250, Cover: 30, Storeys: []model.Storey{lift(3000, 3000, 4000, 10, 0, 0, 0)}}
-	d := Run(newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 	if d.Status != StatusFail || d.Utilization <= 1 {
 		t.Fatalf("status %s, utilisation %g", d.Status, d.Utilization)
 	}
@@ -231,4 +234,13 @@ func BenchmarkCheckGiven(b *testing.B) {
 	for i := 0; i < b.N; i++ {
 		One(in, &in.Columns[0], &in.Columns[0].Storeys[0])
 	}
+}
+
+func mustRun(t testing.TB, in *model.Input) *Result {
+	t.Helper()
+	r, err := Run(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
 }

@@ -4,6 +4,9 @@
 package design
 
 import (
+	"colsheet/calc/building"
+	"strings"
+
 	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
@@ -17,11 +20,12 @@ const (
 
 // Result is the outcome of one run over one input file.
 type Result struct {
-	ToolName    string       // "colsheet"
-	ToolVersion string       // version of the engine
-	Input       *model.Input // the input as read
-	Designs     []Design     // one per column and lift, in input order
-	Methods     []Method     // the methods and assumptions of the calculation, for the design basis
+	ToolName    string            // "colsheet"
+	ToolVersion string            // version of the engine
+	Input       *model.Input      // the input as read
+	Designs     []Design          // one per column and lift, in input order
+	Methods     []Method          // the methods and assumptions of the calculation, for the design basis
+	Building    *building.Derived // what was derived from the building form; nil for the actions form
 }
 
 // Method is one method or assumption of the calculation with the clause behind it.
@@ -104,7 +108,9 @@ type Links struct {
 }
 
 // Trace returns the design's steps with their IDs and references made whole,
-// column/lift/part/name, as results.json and the sheets print them.
+// column/lift/part/name, as results.json and the sheets print them. A reference that
+// starts with "/" already names a step of another design from the root (the take-down
+// refers to the lift above) and only loses its slash.
 func (d *Design) Trace() []trace.Step {
 	prefix := d.Column + "/" + d.Storey + "/"
 	out := make([]trace.Step, len(d.Steps))
@@ -113,7 +119,10 @@ func (d *Design) Trace() []trace.Step {
 		if len(s.Args) > 0 {
 			args := make([]trace.Arg, len(s.Args))
 			for j, a := range s.Args {
-				if a.From != "" {
+				switch {
+				case strings.HasPrefix(a.From, "/"):
+					a.From = a.From[1:]
+				case a.From != "":
 					a.From = prefix + a.From
 				}
 				args[j] = a

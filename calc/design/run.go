@@ -1,6 +1,9 @@
 package design
 
 import (
+	"colsheet/calc/actions"
+	"colsheet/calc/building"
+	"colsheet/calc/frame"
 	"math"
 	"strconv"
 	"strings"
@@ -17,15 +20,45 @@ import (
 const Version = "0.1.0"
 
 // Run designs or checks every column and lift of the input.
-func Run(in *model.Input) *Result {
+// For the building form it first derives the actions of every column and lift; an error
+// then names a fault of the building that the input reader could not see.
+func Run(in *model.Input) (*Result, error) {
 	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in)}
+	if in.Building != nil {
+		d, err := building.Derive(in, func(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
+			return actions.PanelLoads(lx, ly, 1, spans)
+		})
+		if err != nil {
+			return nil, err
+		}
+		r.Building = d
+		b := in.Building
+		for k := range d.Lifts {
+			lf := &d.Lifts[k]
+			l0 := b.Options.L0Factor * lf.Height
+			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
+				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0, L0Z: l0, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ}}}
+			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd,
+				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
+			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
+		}
+		return r, nil
+	}
 	for ci := range in.Columns {
 		col := &in.Columns[ci]
 		for si := range col.Storeys {
 			r.Designs = append(r.Designs, One(in, col, &col.Storeys[si]))
 		}
 	}
-	return r
+	return r, nil
+}
+
+// Derivation is the traced origin of a lift's actions when they come from the building form:
+// the steps of the take-down and the moments, and the quantities the design takes from them.
+type Derivation struct {
+	Steps       []trace.Step
+	NEd         trace.Q
+	Top, Bottom [2]trace.Q // end moments about y and z
 }
 
 // methods returns the methods and assumptions in force for the input.
@@ -110,9 +143,12 @@ func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
 	return l.Add(s)
 }
 
-func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
+func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code}
 	l := &trace.Log{Steps: make([]trace.Step, 0, 96)}
+	if dv != nil {
+		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+96), dv.Steps...)
+	}
 	p := in.Code
 	conc := in.Materials.Concrete
 
@@ -141,7 +177,11 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 	c.h = l.Add(trace.Input("geo/h", "Section depth (along z)", "input", "h", "mm", col.H))
 	c.ac = l.Add(trace.Formula("geo/Ac", "Gross concrete area", "common practice", "A_c", "mm2", col.B*col.H,
 		"b * h", trace.A("b", c.b), trace.A("h", c.h)))
-	c.nEd = l.Add(trace.Input("act/NEd", "Design axial force (compression positive)", "input", "N_Ed", "N", st.NEd))
+	if dv != nil {
+		c.nEd = dv.NEd
+	} else {
+		c.nEd = l.Add(trace.Input("act/NEd", "Design axial force (compression positive)", "input", "N_Ed", "N", st.NEd))
+	}
 	c.nRel = l.Add(slender.RelativeForce("act/n", c.nEd, c.ac, c.fcd))
 
 	var theta0 trace.Q
@@ -158,8 +198,13 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey) *common {
 		n := a.name
 		a.depth = depths[k]
 		l.Group = "First-order moments and imperfection about " + n
-		top := l.Add(trace.Input(n+"/M_top", "First-order moment at the top about "+n, "input", "M_top,"+n, "Nmm", ends[k].Top))
-		bot := l.Add(trace.Input(n+"/M_bot", "First-order moment at the bottom about "+n, "input", "M_bot,"+n, "Nmm", ends[k].Bottom))
+		var top, bot trace.Q
+		if dv != nil {
+			top, bot = dv.Top[k], dv.Bottom[k]
+		} else {
+			top = l.Add(trace.Input(n+"/M_top", "First-order moment at the top about "+n, "input", "M_top,"+n, "Nmm", ends[k].Top))
+			bot = l.Add(trace.Input(n+"/M_bot", "First-order moment at the bottom about "+n, "input", "M_bot,"+n, "Nmm", ends[k].Bottom))
+		}
 		a.m02 = l.Add(onAxis(n, slender.M02(n+"/M02", top, bot)))
 		a.m01 = l.Add(onAxis(n, slender.M01(n+"/M01", top, bot, a.m02)))
 		a.l0 = l.Add(trace.Input(n+"/l0", "Effective length for buckling about "+n, "input", "l_0,"+n, "mm", l0s[k]))
@@ -228,7 +273,12 @@ func (c *common) linkFor(dia float64) float64 {
 
 // One designs or checks one column over one lift.
 func One(in *model.Input, col *model.Column, st *model.Storey) Design {
-	c := newCommon(in, col, st)
+	return design(in, col, st, nil)
+}
+
+// design designs or checks one column over one lift whose actions may come from a derivation.
+func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) Design {
+	c := newCommon(in, col, st, dv)
 	given := col.Bars != nil
 	patterns := candidatesFor(c)
 	if given {

@@ -114,7 +114,11 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 	case in.Project.Date == "":
 		in.Project.Date = time.Now().Format("2006-01-02")
 	}
-	res := design.Run(in)
+	res, err := design.Run(in)
+	if err != nil {
+		fmt.Fprintln(stderr, err)
+		return 2
+	}
 
 	files, err := render(res, o.formats)
 	if err != nil {

@@ -1,0 +1,204 @@
+package building
+
+import (
+	"fmt"
+
+	"colsheet/calc/actions"
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+)
+
+// Lift is the derived design data of one column over one lift, with the trace of its derivation.
+type Lift struct {
+	Column string     // column id, e.g. "B2"
+	I, J   int        // grid line indices
+	Level  int        // index of the storey
+	Name   string     // name of the level at its top
+	Size   model.Size // B along building y, H along building x
+	Height float64    // storey height, mm
+	NEd    float64    // design axial force at the bottom of the lift, N
+	MY, MZ model.Ends // first-order end moments about section axes y and z, N·mm (same sign: single curvature)
+	Src    Sources    // the steps that give NEd and the end moments
+	Steps  []trace.Step
+}
+
+// Sources names the traced quantities that the column design takes from the derivation.
+type Sources struct {
+	NEd                        trace.Q
+	MYTop, MYBot, MZTop, MZBot trace.Q
+}
+
+// Derived is everything derived from the building form.
+type Derived struct {
+	Grid   *Grid
+	Levels []Level
+	Lifts  []Lift // by column (A1, A2, …, B1, …), each lowest lift first
+}
+
+// columnSize returns the section of a column over a lift, the last matching override winning.
+func columnSize(b *model.Building, id, level string) model.Size {
+	s := b.Column
+	for _, o := range b.Columns {
+		if contains(o.IDs, id) && contains(o.Levels, level) {
+			s = o.Size
+		}
+	}
+	return s
+}
+
+// Derive derives the design actions of every column and lift of the building form.
+func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
+	b := in.Building
+	g, err := NewGrid(b)
+	if err != nil {
+		return nil, fmt.Errorf("%s:%d: %v", in.File, b.Line, err)
+	}
+	levels := Levels(b, g, panel)
+	d := &Derived{Grid: g, Levels: levels}
+	for i := 0; i < g.NX; i++ {
+		for j := 0; j < g.NY; j++ {
+			if !g.Has[i][j] {
+				continue
+			}
+			lifts := columnLifts(in, g, levels, i, j)
+			liftMoments(in, levels, lifts)
+			d.Lifts = append(d.Lifts, lifts...)
+		}
+	}
+	return d, nil
+}
+
+// columnLifts derives the lifts of the column at (i, j), from the top down so that each lift
+// takes the cumulative loads of the lift above.
+func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
+	b := in.Building
+	p := in.Code
+	id := ColumnID(i, j)
+	n := len(b.Storeys)
+	lifts := make([]Lift, n)
+	var gAbove trace.Q
+	qAbove := map[string]trace.Q{}
+	for k := n - 1; k >= 0; k-- {
+		st := b.Storeys[k]
+		lv := &levels[k]
+		size := columnSize(b, id, st.Name)
+		l := &trace.Log{Group: "Load take-down at level " + st.Name}
+		gk, qk, area := levelTakeDown(l, lv, i, j)
+		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
+			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).
+				Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
+			for _, c := range sortedKeysQ(mapList(qk)) {
+				psi0 := l.Add(actions.PsiStep("td/"+st.Name+"/psi0_"+c, 0, c))
+				aa := l.Add(actions.AlphaA("td/"+st.Name+"/alpha_A_"+c, c, psi0, aq))
+				if aa.V < 1 {
+					qk[c] = l.Add(actions.Reduced("td/"+st.Name+"/Q_red_"+c, aa, qk[c]))
+				}
+			}
+		}
+		rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
+		bq := l.Add(trace.Input("td/b", "Column width (along building y)", "input", "b", "mm", size.B))
+		hq := l.Add(trace.Input("td/h", "Column depth (along building x)", "input", "h", "mm", size.H))
+		hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", st.Height))
+		sw := l.Add(ColumnSelfWeight("td/G_col", rho, bq, hq, hgt))
+		l.Group = "Cumulative characteristic loads at the bottom of lift " + st.Name
+		parts := []trace.Q{gk, sw}
+		if k < n-1 {
+			parts = append(parts, gAbove)
+		}
+		gCum := l.Add(Sum("td/G_cum", "Permanent load at the bottom of the lift", "common practice", "G_k", "N", parts))
+		qCum := map[string]trace.Q{}
+		cats := map[string]bool{}
+		for c := range qk {
+			cats[c] = true
+		}
+		for c := range qAbove {
+			cats[c] = true
+		}
+		for _, c := range sortedBool(cats) {
+			var ps []trace.Q
+			if q, ok := qk[c]; ok {
+				ps = append(ps, q)
+			}
+			if q, ok := qAbove[c]; ok {
+				ps = append(ps, q)
+			}
+			qCum[c] = l.Add(Sum("td/Q_cum_"+c, "Imposed load (category "+c+") at the bottom of the lift", "common practice", "Q_k,"+c, "N", ps))
+		}
+		lifts[k] = Lift{Column: id, I: i, J: j, Level: k, Name: st.Name, Size: size, Height: st.Height}
+		lifts[k].combine(in, l, levels, k, qCum, gCum)
+		lifts[k].Steps = l.Steps
+		// Cumulative values for the lift below, referred to across sheets.
+		gAbove = absolute(gCum, id, st.Name)
+		gAbove.Symbol = "G_k,above"
+		next := map[string]trace.Q{}
+		for c, q := range qCum {
+			a := absolute(q, id, st.Name)
+			a.Symbol = "Q_k," + c + ",above"
+			next[c] = a
+		}
+		qAbove = next
+	}
+	return lifts
+}
+
+// absolute returns q with its producing step named from the building's root, so that a step of
+// another lift's sheet can refer to it.
+func absolute(q trace.Q, column, lift string) trace.Q {
+	q.From = "/" + column + "/" + lift + "/" + q.From
+	return q
+}
+
+func sortedBool(m map[string]bool) []string {
+	var out []string
+	for k := range m {
+		out = append(out, k)
+	}
+	sortStrings(out)
+	return out
+}
+
+// combine records the design axial force of the lift from its cumulative characteristic
+// loads, EN 1990:2002 6.4.3.2, with the imposed-load reduction by the number of storeys
+// where the input asks for it.
+func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q map[string]trace.Q, g trace.Q) {
+	b := in.Building
+	l.Group = "Design axial force at the bottom of lift " + lf.Name
+	var vs []actions.Variable
+	for _, c := range sortedKeysQ(mapList(q)) {
+		v := actions.Variable{Category: c, Q: q[c]}
+		if b.Options.Reduction == model.ReduceStoreys {
+			n := 0
+			for m := k; m < len(levels); m++ {
+				if levels[m].Floor.Category == c && levels[m].Floor.Qk > 0 {
+					n++
+				}
+			}
+			psi0 := l.Add(actions.PsiStep("td/psi0_"+c, 0, c))
+			nq := l.Add(trace.Input("td/n_"+c, "Storeys of category "+c+" above the lift's bottom", "EN 1991-1-1:2002 6.3.1.2(11)", "n", "", float64(n)))
+			an := l.Add(actions.AlphaN("td/alpha_n_"+c, c, psi0, nq))
+			if an.V < 1 {
+				un := q[c]
+				v.Q = l.Add(actions.Reduced("td/Q_red_"+c, an, q[c]))
+				v.Unreduced = &un
+			}
+		}
+		vs = append(vs, v)
+	}
+	steps, nEd := actions.Combine("td/NEd", b.Options.Combination, in.Code, g, vs)
+	for _, s := range steps {
+		nEd = l.Add(s)
+	}
+	lf.NEd = nEd.V
+	lf.Src.NEd = nEd
+	if last := l.Last(); last != nil {
+		last.Symbol = "N_Ed"
+	}
+}
+
+func mapList(m map[string]trace.Q) map[string][]trace.Q {
+	out := map[string][]trace.Q{}
+	for k, v := range m {
+		out[k] = []trace.Q{v}
+	}
+	return out
+}

@@ -1,0 +1,165 @@
+// Package building derives, from the building form, the design actions on every column
+// and lift: the grid, beams and panels, the load take-down with its combinations, the load
+// arrangements and the column end moments, each step traced for the sheets.
+package building
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"colsheet/calc/model"
+)
+
+// Grid holds the coordinates of the grid lines and the columns that stand on them.
+type Grid struct {
+	X, Y  []float64 // line coordinates from the first line, mm
+	Has   [][]bool  // Has[i][j]: a column stands at x line i, y line j
+	NX    int       // number of x lines (lettered)
+	NY    int       // number of y lines (numbered)
+	Names []string  // x line names A, B, ...
+}
+
+// LetterName returns the name of x line i: A … Z, then AA, AB, ….
+func LetterName(i int) string {
+	s := ""
+	for i >= 0 {
+		s = string(rune('A'+i%26)) + s
+		i = i/26 - 1
+	}
+	return s
+}
+
+// ColumnID returns the id of the column at x line i and y line j, e.g. "B2".
+func ColumnID(i, j int) string { return LetterName(i) + strconv.Itoa(j+1) }
+
+// NewGrid builds the grid of the building, without the omitted points.
+func NewGrid(b *model.Building) (*Grid, error) {
+	g := &Grid{NX: len(b.GridX) + 1, NY: len(b.GridY) + 1}
+	g.X = make([]float64, g.NX)
+	g.Y = make([]float64, g.NY)
+	for i, w := range b.GridX {
+		g.X[i+1] = g.X[i] + w
+	}
+	for j, w := range b.GridY {
+		g.Y[j+1] = g.Y[j] + w
+	}
+	g.Has = make([][]bool, g.NX)
+	for i := range g.Has {
+		g.Has[i] = make([]bool, g.NY)
+		for j := range g.Has[i] {
+			g.Has[i][j] = true
+		}
+		g.Names = append(g.Names, LetterName(i))
+	}
+	for _, id := range b.Omit {
+		i, j, ok := g.Point(id)
+		if !ok {
+			return nil, fmt.Errorf("building.omit: %s is not a grid point", id)
+		}
+		if i == 0 || j == 0 || i == g.NX-1 || j == g.NY-1 {
+			return nil, fmt.Errorf("building.omit: %s lies on the edge of the grid; only inner grid points may be left without a column (the edge beams need their supports)", id)
+		}
+		g.Has[i][j] = false
+	}
+	return g, nil
+}
+
+// Point returns the line indices of a column id such as "B2".
+func (g *Grid) Point(id string) (i, j int, ok bool) {
+	id = strings.ToUpper(strings.TrimSpace(id))
+	k := 0
+	for k < len(id) && id[k] >= 'A' && id[k] <= 'Z' {
+		k++
+	}
+	if k == 0 || k == len(id) {
+		return 0, 0, false
+	}
+	n, err := strconv.Atoi(id[k:])
+	if err != nil || n < 1 || n > g.NY {
+		return 0, 0, false
+	}
+	for i, name := range g.Names {
+		if name == id[:k] {
+			return i, n - 1, true
+		}
+	}
+	return 0, 0, false
+}
+
+// Dir is a direction in plan.
+type Dir int
+
+// The two plan directions.
+const (
+	DirX Dir = iota // along x: beams on the numbered lines; their frames bend the columns about section axis y
+	DirY            // along y: beams on the lettered lines; their frames bend the columns about section axis z
+)
+
+// String returns "x" or "y".
+func (d Dir) String() string {
+	if d == DirY {
+		return "y"
+	}
+	return "x"
+}
+
+// Beam is a beam between two neighbouring columns on one grid line at one level.
+type Beam struct {
+	Dir      Dir
+	Line     int     // index of the grid line it runs on (a y line for DirX, an x line for DirY)
+	From, To int     // indices of the cross lines at its ends (columns stand there)
+	Start    float64 // coordinate of its start along its direction, mm
+	L        float64 // span, mm
+	Size     model.Size
+}
+
+// Name returns a readable name such as "B1–C1".
+func (b Beam) Name() string {
+	if b.Dir == DirX {
+		return ColumnID(b.From, b.Line) + "–" + ColumnID(b.To, b.Line)
+	}
+	return ColumnID(b.Line, b.From) + "–" + ColumnID(b.Line, b.To)
+}
+
+// Beams returns the beams of one level: on each grid line, one beam between each pair of
+// neighbouring columns (a beam spans across an omitted grid point).
+func (g *Grid) Beams(sizeOf func(d Dir, line int) model.Size) []Beam {
+	var out []Beam
+	for j := 0; j < g.NY; j++ { // beams along x on y line j
+		prev := -1
+		for i := 0; i < g.NX; i++ {
+			if !g.Has[i][j] {
+				continue
+			}
+			if prev >= 0 {
+				out = append(out, Beam{Dir: DirX, Line: j, From: prev, To: i, Start: g.X[prev], L: g.X[i] - g.X[prev], Size: sizeOf(DirX, j)})
+			}
+			prev = i
+		}
+	}
+	for i := 0; i < g.NX; i++ { // beams along y on x line i
+		prev := -1
+		for j := 0; j < g.NY; j++ {
+			if !g.Has[i][j] {
+				continue
+			}
+			if prev >= 0 {
+				out = append(out, Beam{Dir: DirY, Line: i, From: prev, To: j, Start: g.Y[prev], L: g.Y[j] - g.Y[prev], Size: sizeOf(DirY, i)})
+			}
+			prev = j
+		}
+	}
+	return out
+}
+
+// beamAt returns the index of the beam of direction d on line `line` that covers the
+// coordinate range [a, b], or -1.
+func beamAt(beams []Beam, d Dir, line int, a, b float64) int {
+	for k, bm := range beams {
+		if bm.Dir == d && bm.Line == line && bm.Start <= a+1e-6 && bm.Start+bm.L >= b-1e-6 {
+			return k
+		}
+	}
+	return -1
+}

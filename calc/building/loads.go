@@ -1,0 +1,258 @@
+package building
+
+import (
+	"sort"
+
+	"colsheet/calc/frame"
+	"colsheet/calc/model"
+)
+
+// BeamLoad holds the characteristic loads on one beam at one level.
+type BeamLoad struct {
+	G    []frame.Piece            // permanent: slab, self-weight, line loads
+	Q    map[string][]frame.Piece // imposed, by category
+	Slab []frame.Piece            // the slab area draining to the beam per unit length (a unit area load), mm
+}
+
+// Level holds the beams of one level and their loads.
+type Level struct {
+	Index int
+	Name  string
+	Floor model.Floor
+	Beams []Beam
+	Loads []BeamLoad
+}
+
+// floorOf returns the floor entry that gives the level's loads.
+func floorOf(b *model.Building, level string) (model.Floor, bool) {
+	for _, f := range b.Floors {
+		for _, l := range f.Levels {
+			if l == level {
+				return f, true
+			}
+		}
+	}
+	return model.Floor{}, false
+}
+
+func contains(list []string, s string) bool {
+	if len(list) == 0 {
+		return true
+	}
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
+
+// beamSize returns the section of a beam on a grid line at a level, the last matching override winning.
+func beamSize(b *model.Building, level string, d Dir, lineName string) model.Size {
+	s := b.Beam
+	for _, o := range b.Beams {
+		if !contains(o.Levels, level) || (o.Dir != "" && o.Dir != d.String()) || !contains(o.Lines, lineName) {
+			continue
+		}
+		s = o.Size
+	}
+	return s
+}
+
+// lineName returns the grid-line name of the line a beam of direction d runs on.
+func (g *Grid) lineName(d Dir, line int) string {
+	if d == DirX {
+		return itoa(line + 1)
+	}
+	return g.Names[line]
+}
+
+func itoa(i int) string {
+	if i < 10 {
+		return string(rune('0' + i))
+	}
+	return itoa(i/10) + string(rune('0'+i%10))
+}
+
+// slabPieces returns the load pieces, per unit area load, that a panel gives its four edge
+// beams: south and north (along x), west and east (along y), common practice.
+type panelLoader func(lx, ly float64, spans string) (south, north, west, east []frame.Piece)
+
+// Levels builds every level's beams and their characteristic loads.
+func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
+	out := make([]Level, len(b.Storeys))
+	for li, st := range b.Storeys {
+		lv := Level{Index: li, Name: st.Name}
+		lv.Floor, _ = floorOf(b, st.Name)
+		lv.Beams = g.Beams(func(d Dir, line int) model.Size { return beamSize(b, st.Name, d, g.lineName(d, line)) })
+		lv.Loads = make([]BeamLoad, len(lv.Beams))
+		for k := range lv.Loads {
+			lv.Loads[k].Q = map[string][]frame.Piece{}
+		}
+		addQ := func(k int, cat string, ps []frame.Piece) {
+			lv.Loads[k].Q[cat] = append(lv.Loads[k].Q[cat], ps...)
+		}
+		// Slab panels.
+		f := lv.Floor
+		for i := 0; i+1 < g.NX; i++ {
+			for j := 0; j+1 < g.NY; j++ {
+				lx, ly := g.X[i+1]-g.X[i], g.Y[j+1]-g.Y[j]
+				s, n, w, e := panel(lx, ly, f.Spans)
+				edges := []struct {
+					d      Dir
+					line   int
+					a, b   float64
+					pieces []frame.Piece
+				}{
+					{DirX, j, g.X[i], g.X[i+1], s}, {DirX, j + 1, g.X[i], g.X[i+1], n},
+					{DirY, i, g.Y[j], g.Y[j+1], w}, {DirY, i + 1, g.Y[j], g.Y[j+1], e},
+				}
+				for _, ed := range edges {
+					if len(ed.pieces) == 0 {
+						continue
+					}
+					k := beamAt(lv.Beams, ed.d, ed.line, ed.a, ed.b)
+					if k < 0 {
+						continue
+					}
+					shift := ed.a - lv.Beams[k].Start
+					for _, p := range ed.pieces {
+						p = p.Shift(shift)
+						lv.Loads[k].Slab = append(lv.Loads[k].Slab, p)
+						lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(f.Gk))
+						if f.Qk > 0 {
+							addQ(k, f.Category, []frame.Piece{p.Scale(f.Qk)})
+						}
+					}
+				}
+			}
+		}
+		// Self-weight of the beams, density × b × h.
+		for k, bm := range lv.Beams {
+			lv.Loads[k].G = append(lv.Loads[k].G, frame.Uniform(b.Options.Density*bm.Size.B*bm.Size.H, bm.L))
+		}
+		// Line loads on grid lines.
+		for _, ll := range b.Lines {
+			if !contains(ll.Levels, st.Name) {
+				continue
+			}
+			d, line, lo, hi, ok := g.lineRange(ll)
+			if !ok {
+				continue
+			}
+			for k, bm := range lv.Beams {
+				if bm.Dir != d || bm.Line != line {
+					continue
+				}
+				a, c := maxf(lo, bm.Start), minf(hi, bm.Start+bm.L)
+				if c-a <= 1e-6 {
+					continue
+				}
+				p := frame.Piece{X0: a - bm.Start, X1: c - bm.Start, W0: 1, W1: 1}
+				if ll.Gk > 0 {
+					lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(ll.Gk))
+				}
+				if ll.Qk > 0 {
+					addQ(k, ll.Category, []frame.Piece{p.Scale(ll.Qk)})
+				}
+			}
+		}
+		out[li] = lv
+	}
+	return out
+}
+
+// lineRange returns the direction, line index and coordinate range of a line load.
+func (g *Grid) lineRange(ll model.LineLoad) (d Dir, line int, lo, hi float64, ok bool) {
+	name := ll.GridLine
+	if n, err := atoi(name); err == nil {
+		// A numbered line runs along x.
+		if n < 1 || n > g.NY {
+			return 0, 0, 0, 0, false
+		}
+		d, line, lo, hi = DirX, n-1, g.X[0], g.X[g.NX-1]
+		if ll.From != "" {
+			if i, ok := g.letterIndex(ll.From); ok {
+				lo = g.X[i]
+			}
+		}
+		if ll.To != "" {
+			if i, ok := g.letterIndex(ll.To); ok {
+				hi = g.X[i]
+			}
+		}
+	} else {
+		i, ok := g.letterIndex(name)
+		if !ok {
+			return 0, 0, 0, 0, false
+		}
+		d, line, lo, hi = DirY, i, g.Y[0], g.Y[g.NY-1]
+		if n, err := atoi(ll.From); err == nil && n >= 1 && n <= g.NY {
+			lo = g.Y[n-1]
+		}
+		if n, err := atoi(ll.To); err == nil && n >= 1 && n <= g.NY {
+			hi = g.Y[n-1]
+		}
+	}
+	if hi < lo {
+		lo, hi = hi, lo
+	}
+	return d, line, lo, hi, true
+}
+
+func (g *Grid) letterIndex(s string) (int, bool) {
+	for i, n := range g.Names {
+		if n == s {
+			return i, true
+		}
+	}
+	return 0, false
+}
+
+type errNotNumber struct{}
+
+func (errNotNumber) Error() string { return "not a number" }
+
+func atoi(s string) (int, error) {
+	if s == "" {
+		return 0, errNotNumber{}
+	}
+	n := 0
+	for _, c := range s {
+		if c < '0' || c > '9' {
+			return 0, errNotNumber{}
+		}
+		n = 10*n + int(c-'0')
+	}
+	return n, nil
+}
+
+func maxf(a, b float64) float64 {
+	if a > b {
+		return a
+	}
+	return b
+}
+
+func minf(a, b float64) float64 {
+	if a < b {
+		return a
+	}
+	return b
+}
+
+// categories returns the imposed-load categories present in the loads, sorted.
+func categories(loads []BeamLoad) []string {
+	seen := map[string]bool{}
+	for _, l := range loads {
+		for c := range l.Q {
+			seen[c] = true
+		}
+	}
+	var out []string
+	for c := range seen {
+		out = append(out, c)
+	}
+	sort.Strings(out)
+	return out
+}
