@@ -1,0 +1,209 @@
+package frame
+
+import (
+	"fmt"
+	"strings"
+
+	"colsheet/calc/trace"
+)
+
+// Citations of the traced steps.
+const (
+	femClause      = "common practice (fixed-end moment, handbook formula)"
+	subframeClause = "common practice"
+)
+
+// Side names an end of a member.
+type Side int
+
+// The ends of a member.
+const (
+	AtStart Side = iota // the end at node I, x = 0
+	AtEnd               // the end at node J, x = L
+)
+
+// FEMUniformStep records the magnitude of the fixed-end moment w·L²/12 of a member of
+// length l under a uniform load w over its whole length.
+func FEMUniformStep(id, title string, w, l trace.Q) trace.Step {
+	return trace.Formula(id, title, femClause, "M_F", "Nmm", w.V*l.V*l.V/12,
+		"w * L ** 2 / 12", trace.A("w", w), trace.A("L", l))
+}
+
+// FEMTrapezoidStep records the magnitude of the fixed-end moment
+// w·L²/12·(1 − 2(a/L)² + (a/L)³) of a member of length l under a symmetric trapezoid of peak
+// w rising from zero over the length a at each end (a = L/2 gives the triangle's 5wL²/96).
+func FEMTrapezoidStep(id, title string, w, l, a trace.Q) trace.Step {
+	r := a.V / l.V
+	return trace.Formula(id, title, femClause, "M_F", "Nmm", w.V*l.V*l.V/12*(1-2*r*r+r*r*r),
+		"w * L ** 2 / 12 * (1 - 2 * (a / L) ** 2 + (a / L) ** 3)", trace.A("w", w), trace.A("L", l), trace.A("a", a))
+}
+
+// FEMStep records the fixed-end moment at one end of a member of length l under the line
+// loads, clockwise positive, as the sum over the pieces of the exact integral of the linear
+// load against the fixed-end influence x·(L−x)²/L² (start) or x²·(L−x)/L² (end): Simpson's
+// rule over the piece plus the closed-form correction ∓(x1 − x0)⁴·(w1 − w0)/120 of its error
+// on the quartic term, which makes it exact. Parts of pieces outside [0, l] are left out, as
+// in FixedEnd.
+func FEMStep(id, title string, side Side, l trace.Q, loads []Piece) trace.Step {
+	args := []trace.Arg{trace.A("L", l)}
+	var terms []string
+	v := 0.0
+	for _, p := range loads {
+		p, ok := clip(p, l.V)
+		if !ok {
+			continue
+		}
+		n := len(terms) + 1
+		name := func(s string) string { return fmt.Sprintf("%s_%d", s, n) }
+		x0, x1, w0, w1 := name("x0"), name("x1"), name("w0"), name("w1")
+		args = append(args,
+			trace.A(x0, trace.Const(p.X0, fmt.Sprintf("x_0,%d", n), "mm")),
+			trace.A(x1, trace.Const(p.X1, fmt.Sprintf("x_1,%d", n), "mm")),
+			trace.A(w0, trace.Const(p.W0, fmt.Sprintf("w_0,%d", n), "N/mm")),
+			trace.A(w1, trace.Const(p.W1, fmt.Sprintf("w_1,%d", n), "N/mm")))
+		xm := fmt.Sprintf("(%s + %s) / 2", x0, x1)
+		g := func(x string) string { return fmt.Sprintf("%s * (L - %s) ** 2", x, x) }
+		gv, cubic, corr := func(x float64) float64 { return x * (l.V - x) * (l.V - x) }, 1.0, "-"
+		if side == AtEnd {
+			g = func(x string) string { return fmt.Sprintf("%s ** 2 * (L - %s)", x, x) }
+			gv, cubic, corr = func(x float64) float64 { return x * x * (l.V - x) }, -1, "+"
+		}
+		terms = append(terms, fmt.Sprintf("(%s - %s) / 6 * (%s * %s + 2 * (%s + %s) * %s + %s * %s) %s (%s - %s) ** 4 * (%s - %s) / 120",
+			x1, x0, w0, g(x0), w0, w1, g("("+xm+")"), w1, g(x1), corr, x1, x0, w1, w0))
+		v += exact(p, gv, cubic)
+	}
+	expr := "0 * L"
+	if len(terms) > 0 {
+		v /= l.V * l.V
+		expr = "(" + strings.Join(terms, " + ") + ") / L ** 2"
+	}
+	if side == AtStart {
+		v, expr = -v, "-"+expr
+	}
+	return trace.Formula(id, title, femClause, "M_F", "Nmm", v, expr, args...)
+}
+
+// StiffnessStep records the stiffness k·4·E·I/L of a member end (slope-deflection equations,
+// far end fixed), with k the stiffness factor (1 full, 0.5 half stiffness).
+func StiffnessStep(id, title string, k, e, i, l trace.Q) trace.Step {
+	return trace.Formula(id, title, subframeClause, "k", "Nmm", k.V*4*e.V*i.V/l.V,
+		"k * 4 * E * I / L", trace.A("k", k), trace.A("E", e), trace.A("I", i), trace.A("L", l))
+}
+
+// UnbalancedStep records the unbalanced moment at a joint, the sum of the fixed-end moments
+// of the member ends there (clockwise positive).
+func UnbalancedStep(id, title string, fems ...trace.Q) trace.Step {
+	expr, args, v := sum("M", fems)
+	return trace.Formula(id, title, subframeClause, "M_unb", "Nmm", v, expr, args...)
+}
+
+// DistributionFactorStep records the distribution factor k/Σk of a member end among the
+// stiffnesses of all the member ends at the joint (zero, with a caution, when Σk is zero).
+func DistributionFactorStep(id, title string, k trace.Q, all ...trace.Q) trace.Step {
+	total, args, v := sum("k", all)
+	args = append([]trace.Arg{trace.A("k", k)}, args...)
+	if !(v > 0) {
+		return trace.Formula(id, title, subframeClause, "D", "", 0, "0 * k", args...).
+			Caution("The joint has no stiffness: nothing is distributed.")
+	}
+	return trace.Formula(id, title, subframeClause, "D", "", k.V/v, "k / ("+total+")", args...)
+}
+
+// ColumnMomentStep records a member's share of the balancing moment at a joint,
+// −M_unb·k/Σk, clockwise positive on the member end (the column's moment at the joint;
+// zero, with a caution, when Σk is zero).
+func ColumnMomentStep(id, title string, unbalanced, k trace.Q, all ...trace.Q) trace.Step {
+	total, args, v := sum("k", all)
+	args = append([]trace.Arg{trace.A("M_unb", unbalanced), trace.A("k", k)}, args...)
+	if !(v > 0) {
+		return trace.Formula(id, title, subframeClause, "M_col", "Nmm", 0, "0 * M_unb", args...).
+			Caution("The joint has no stiffness: nothing is distributed.")
+	}
+	return trace.Formula(id, title, subframeClause, "M_col", "Nmm", -unbalanced.V*k.V/v,
+		"-M_unb * k / ("+total+")", args...)
+}
+
+// CarryOverStep records the moment m/2 carried over to the fixed far end of a prismatic member.
+func CarryOverStep(id, title string, m trace.Q) trace.Step {
+	return trace.Formula(id, title, subframeClause, "M_far", "Nmm", m.V/2, "m / 2", trace.A("m", m))
+}
+
+// sum returns the expression name1 + name2 + … over the quantities, its arguments and value.
+func sum(name string, qs []trace.Q) (string, []trace.Arg, float64) {
+	if len(qs) == 0 {
+		return "0", nil, 0
+	}
+	names := make([]string, len(qs))
+	args := make([]trace.Arg, len(qs))
+	v := 0.0
+	for i, q := range qs {
+		names[i] = fmt.Sprintf("%s%d", name, i+1)
+		args[i] = trace.A(names[i], q)
+		v += q.V
+	}
+	return strings.Join(names, " + "), args, v
+}
+
+// JointBeam is a traced beam at a subframe joint: its stiffness (with the beam factor
+// applied) and its fixed-end moment at the joint, clockwise positive.
+type JointBeam struct{ K, FEM trace.Q }
+
+// Joint is the traced form of a Subframe: the stiffnesses and fixed-end moments of the
+// members meeting at one joint, each nil when the member is absent.
+type Joint struct {
+	Above, Below *trace.Q // column stiffnesses 4EI/L
+	Left, Right  *JointBeam
+}
+
+// JointColumn is a column's traced result at a subframe joint.
+type JointColumn struct {
+	Present bool
+	AtJoint trace.Q // moment at the joint end, clockwise positive
+	FarEnd  trace.Q // moment carried over to the far (fixed) end
+}
+
+// JointSteps is the traced distribution at a subframe joint: the steps in order and the
+// column moments they give.
+type JointSteps struct {
+	Steps        []trace.Step
+	Above, Below JointColumn
+}
+
+// Steps records the simplified-subframe distribution at the joint (common practice): the
+// unbalanced moment, and for each column its distribution factor, its moment at the joint
+// and the carry-over to its far end; step IDs start with prefix.
+func (j Joint) Steps(prefix string) JointSteps {
+	var out JointSteps
+	add := func(s trace.Step) trace.Q { out.Steps = append(out.Steps, s); return s.Q() }
+	var fems, ks []trace.Q
+	for _, b := range []*JointBeam{j.Left, j.Right} {
+		if b != nil {
+			fems = append(fems, b.FEM)
+		}
+	}
+	for _, c := range []*trace.Q{j.Above, j.Below} {
+		if c != nil {
+			ks = append(ks, *c)
+		}
+	}
+	for _, b := range []*JointBeam{j.Left, j.Right} {
+		if b != nil {
+			ks = append(ks, b.K)
+		}
+	}
+	unb := add(UnbalancedStep(prefix+"unbalanced", "Unbalanced moment at the joint", fems...))
+	for _, c := range []struct {
+		k    *trace.Q
+		name string
+		out  *JointColumn
+	}{{j.Above, "above", &out.Above}, {j.Below, "below", &out.Below}} {
+		if c.k == nil {
+			continue
+		}
+		add(DistributionFactorStep(prefix+"df_"+c.name, "Distribution factor of the column "+c.name, *c.k, ks...))
+		at := add(ColumnMomentStep(prefix+"m_"+c.name, "Moment of the column "+c.name+" at the joint", unb, *c.k, ks...))
+		far := add(CarryOverStep(prefix+"m_"+c.name+"_far", "Moment carried over to the far end of the column "+c.name, at))
+		*c.out = JointColumn{Present: true, AtJoint: at, FarEnd: far}
+	}
+	return out
+}
