@@ -40,7 +40,7 @@ func hasAll(t *testing.T, what string, m map[string]any, want ...string) {
 // of ../shared/DESIGN.md with a trace that reproduces itself.
 func TestDemo(t *testing.T) {
 	dir := filepath.Join(t.TempDir(), "out")
-	code, stdout, stderr := runCLI("design", "../../testdata/demo.yaml", "-o", dir, "--date", "2026-12-01")
+	code, stdout, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", dir, "--date", "2026-12-01")
 	if code != 0 {
 		t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
 	}
@@ -189,5 +189,53 @@ func TestUsage(t *testing.T) {
 	}
 	if code, _, _ := runCLI("design", "no-such-file.yaml", "-o", t.TempDir()); code != 2 {
 		t.Error("a missing input file should exit 2")
+	}
+}
+
+// The demo building runs, passes, has one design per column and lift, and every reference
+// of its trace, within a sheet or to the lift above, names a step of results.json.
+func TestBuildingDemo(t *testing.T) {
+	dir := filepath.Join(t.TempDir(), "out")
+	code, stdout, stderr := runCLI("design", "../../testdata/demo.yaml", "-o", dir, "--formats", "md")
+	if code != 0 {
+		t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
+	}
+	data, err := os.ReadFile(filepath.Join(dir, "results.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var res struct {
+		Designs []struct {
+			Column, Storey string
+			Trace          []trace.Step
+		}
+	}
+	if err := json.Unmarshal(data, &res); err != nil {
+		t.Fatal(err)
+	}
+	// 4 × 4 grid points less the void at C3, six lifts each.
+	if len(res.Designs) != 15*6 {
+		t.Fatalf("%d designs, want 90", len(res.Designs))
+	}
+	ids := map[string]bool{}
+	for _, d := range res.Designs {
+		for _, s := range d.Trace {
+			ids[s.ID] = true
+		}
+	}
+	for _, d := range res.Designs {
+		if d.Column == "C3" {
+			t.Fatal("the void C3 has a design")
+		}
+		for _, s := range d.Trace {
+			if err := trace.Recheck(s, 1e-9); err != nil {
+				t.Error(err)
+			}
+			for _, a := range s.Args {
+				if a.From != "" && !ids[a.From] {
+					t.Errorf("%s: argument %s refers to %s, which results.json does not hold", s.ID, a.Name, a.From)
+				}
+			}
+		}
 	}
 }
