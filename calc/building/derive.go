@@ -55,15 +55,31 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 	}
 	levels := Levels(b, g, panel)
 	d := &Derived{Grid: g, Levels: levels}
+	cols := map[[2]int][]Lift{}
+	var order [][2]int
 	for i := 0; i < g.NX; i++ {
 		for j := 0; j < g.NY; j++ {
-			if !g.Has[i][j] {
-				continue
+			if g.Has[i][j] {
+				cols[[2]int{i, j}] = columnLifts(in, g, levels, i, j)
+				order = append(order, [2]int{i, j})
 			}
-			lifts := columnLifts(in, g, levels, i, j)
-			liftMoments(in, levels, lifts)
-			d.Lifts = append(d.Lifts, lifts...)
 		}
+	}
+	var ends map[[2]int][][2]endQ
+	if b.Analysis == model.AnalysisFrame {
+		var err error
+		if ends, err = frameEnds(in, g, levels, cols); err != nil {
+			return nil, fmt.Errorf("%s:%d: building: %v", in.File, b.Line, err)
+		}
+	} else {
+		ends = map[[2]int][][2]endQ{}
+		for _, k := range order {
+			ends[k] = subframeEnds(in, levels, cols[k])
+		}
+	}
+	for _, k := range order {
+		assembleMoments(cols[k], ends[k])
+		d.Lifts = append(d.Lifts, cols[k]...)
 	}
 	return d, nil
 }

@@ -210,50 +210,68 @@ func arrangementNote(choice int, hasLeft, hasRight bool) string {
 	return "No beam frames into the column in this direction."
 }
 
-// liftMoments records the first-order end moments of every lift of one column from the
-// subframes at each level, in the input's convention: top and bottom of the same sign bend
-// the lift in single curvature.
-func liftMoments(in *model.Input, levels []Level, lifts []Lift) {
+// endQ holds the clockwise end moments of the column of one lift in one direction.
+type endQ struct{ top, bot trace.Q }
+
+// subframeEnds records the simplified subframe at each level of one column and returns the
+// clockwise end moments of each lift's column in each direction. The moment at the bottom of a
+// lift comes from the joint below, recorded on the lower lift's sheet, or from the base.
+func subframeEnds(in *model.Input, levels []Level, lifts []Lift) [][2]endQ {
 	b := in.Building
 	id := lifts[0].Column
 	i, j := lifts[0].I, lifts[0].J
-	ecm := in.Materials.Concrete.Ecm
 	results := make([][2]jointResult, len(lifts))
-	logs := make([]*trace.Log, len(lifts))
 	for m := range lifts {
 		l := &trace.Log{Steps: lifts[m].Steps}
-		l.Group = "Column moments: stiffness"
-		e := l.Add(trace.Input("sub/E", "Modulus of elasticity for the member stiffnesses (Ecm)", "EN 1992-1-1:2004 Table 3.1", "E", "MPa", ecm).
-			Note("The same modulus for beams and columns: the distribution depends only on I/L."))
+		e := modulusStep(l, in)
 		for d := DirX; d <= DirY; d++ {
 			results[m][d] = joint(l, in, levels, lifts, m, d, i, j, e)
 		}
-		logs[m] = l
+		lifts[m].Steps = l.Steps
 	}
+	out := make([][2]endQ, len(lifts))
 	for m := range lifts {
-		l := logs[m]
+		for d := DirX; d <= DirY; d++ {
+			e := endQ{top: results[m][d].below.AtJoint}
+			switch {
+			case m > 0:
+				e.bot = absolute(results[m-1][d].above.AtJoint, id, lifts[m-1].Name)
+			case b.Base == model.BasePinned:
+				e.bot = trace.Const(0, "M_base", "Nmm")
+			default:
+				e.bot = results[m][d].below.FarEnd
+			}
+			out[m][d] = e
+		}
+	}
+	return out
+}
+
+// modulusStep records the modulus of elasticity used for the member stiffnesses.
+func modulusStep(l *trace.Log, in *model.Input) trace.Q {
+	l.Group = "Column moments: stiffness"
+	return l.Add(trace.Input("sub/E", "Modulus of elasticity for the member stiffnesses (Ecm)", "EN 1992-1-1:2004 Table 3.1", "E", "MPa", in.Materials.Concrete.Ecm).
+		Note("The same modulus for beams and columns: the distribution depends only on I/L."))
+}
+
+// assembleMoments records the first-order end moments of every lift of one column in the
+// input's convention: top and bottom of the same sign bend the lift in single curvature.
+func assembleMoments(lifts []Lift, ends [][2]endQ) {
+	for m := range lifts {
+		l := &trace.Log{Steps: lifts[m].Steps}
 		for d := DirX; d <= DirY; d++ {
 			axis := "y"
 			if d == DirY {
 				axis = "z"
 			}
 			l.Group = "First-order end moments about " + axis + " of lift " + lifts[m].Name
-			top := results[m][d].below.AtJoint
+			top, bot := ends[m][d].top, ends[m][d].bot
 			topS := trace.Formula("mom/"+axis+"/top", "Moment at the top of the lift about "+axis+" (same sign at both ends: single curvature)",
 				"common practice", "M_top,"+axis, "Nmm", top.V, "M_j", trace.A("M_j", top)).
-				Note("The column's clockwise end moment at its top, as distributed at the joint above.")
-			var bot trace.Q
-			switch {
-			case m > 0:
-				bot = absolute(results[m-1][d].above.AtJoint, id, lifts[m-1].Name)
-			case b.Base == model.BasePinned:
-				bot = trace.Const(0, "M_base", "Nmm")
-			default:
-				bot = results[m][d].below.FarEnd
-			}
+				Note("The column's clockwise end moment at its top.")
 			botS := trace.Formula("mom/"+axis+"/bot", "Moment at the bottom of the lift about "+axis, "common practice", "M_bot,"+axis, "Nmm",
 				-bot.V, "-M_i", trace.A("M_i", bot)).
-				Note("Minus the column's clockwise end moment at its bottom: from the joint below, or carried over to a fixed base.")
+				Note("Minus the column's clockwise end moment at its bottom.")
 			tq, bq := l.Add(topS), l.Add(botS)
 			ends := model.Ends{Top: tq.V, Bottom: bq.V}
 			if d == DirX {
