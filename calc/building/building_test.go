@@ -1,0 +1,192 @@
+package building
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"colsheet/calc/actions"
+	"colsheet/calc/code"
+	"colsheet/calc/frame"
+	"colsheet/calc/material"
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+)
+
+func panel(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
+	return actions.PanelLoads(lx, ly, 1, spans)
+}
+
+// contractBuilding is the building form of ../shared/DESIGN.md (its invented numbers are test input).
+func contractBuilding() *model.Input {
+	c, _ := material.Lookup("C32/40")
+	b := &model.Building{
+		Storeys: []model.Level{{Name: "L1", Height: 3800}, {Name: "L2", Height: 3300}, {Name: "R", Height: 3300}},
+		GridX:   []float64{6600, 6600, 4800}, GridY: []float64{7800, 5700},
+		Column: model.Size{B: 350, H: 450}, Cover: 40, Beam: model.Size{B: 275, H: 500},
+		Floors: []model.Floor{{Levels: []string{"L1", "L2"}, Gk: 5.8e-3, Qk: 2.5e-3, Category: "B", Spans: model.SpanY},
+			{Levels: []string{"R"}, Gk: 3.9e-3, Qk: 0.6e-3, Category: "H", Spans: model.SpanY}},
+		Base: model.BaseFixed, Analysis: model.AnalysisSubframe,
+		Options: model.BuildingOptions{BeamStiffness: "half", Combination: model.Comb610, Reduction: model.ReduceNone, Density: 2.5e-5, L0Factor: 1},
+	}
+	return &model.Input{File: "contract.yaml", Code: code.Recommended(), Materials: model.Materials{Concrete: c, Fyk: 500, Aggregate: 20}, Building: b}
+}
+
+func lift(t *testing.T, d *Derived, col, level string) Lift {
+	t.Helper()
+	for _, l := range d.Lifts {
+		if l.Column == col && l.Name == level {
+			return l
+		}
+	}
+	t.Fatalf("no lift %s/%s", col, level)
+	return Lift{}
+}
+
+func stepValue(t *testing.T, l Lift, id string) float64 {
+	t.Helper()
+	for _, s := range l.Steps {
+		if s.ID == id {
+			return s.Value
+		}
+	}
+	t.Fatalf("%s/%s: no step %s", l.Column, l.Name, id)
+	return 0
+}
+
+func near(t *testing.T, name string, got, want, rel float64) {
+	t.Helper()
+	if math.Abs(got-want) > rel*math.Abs(want) {
+		t.Errorf("%s = %.6g, want %.6g (rel %g)", name, got, want, rel)
+	}
+}
+
+// The take-down of the contract building by tributary areas, worked by hand (common practice):
+// one-way slabs spanning y deliver to each column the slab of half the bays either side, the beams
+// framing in give half their self-weight, the columns their own; EN 1990:2002 Eq. (6.10) with
+// γG = 1.35, γQ = 1.5 (Table A1.2(B)) and ψ0 = 0 for roofs (Table A1.1), offices leading.
+func TestTakeDownByHand(t *testing.T) {
+	d, err := Derive(contractBuilding(), panel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const rho = 25e-6       // N/mm³
+	beam := rho * 275 * 500 // N/mm
+	colW := rho * 350 * 450 // N/mm
+	cases := []struct {
+		col     string
+		ax, ay  float64 // tributary widths, mm
+		beamLen float64 // half lengths of the beams framing in, summed, mm
+	}{
+		{"B2", (6600 + 6600) / 2, (7800 + 5700) / 2, 6600 + (7800+5700)/2},
+		{"A1", 6600 / 2, 7800 / 2, 6600/2 + 7800/2},
+		{"D2", 4800 / 2, (7800 + 5700) / 2, 4800/2 + (7800+5700)/2},
+	}
+	for _, c := range cases {
+		a := c.ax * c.ay
+		gLevel := func(gk float64) float64 { return gk*a + beam*c.beamLen }
+		// Bottom of L1: levels L1, L2 (offices) and R (roof), three column lifts.
+		g := gLevel(5.8e-3)*2 + gLevel(3.9e-3) + colW*(3800+3300+3300)
+		qB := 2 * 2.5e-3 * a
+		want := 1.35*g + 1.5*qB
+		near(t, c.col+" NEd at L1", lift(t, d, c.col, "L1").NEd, want, 1e-9)
+		// Bottom of R: the roof only; roof imposed load leads.
+		gR := gLevel(3.9e-3) + colW*3300
+		near(t, c.col+" NEd at R", lift(t, d, c.col, "R").NEd, 1.35*gR+1.5*0.6e-3*a, 1e-9)
+	}
+}
+
+// Global equilibrium: the characteristic loads at the bottom of the lowest lifts add up to every
+// load applied to the building (slabs, beams, columns, line loads), common practice, no source.
+func TestGlobalEquilibrium(t *testing.T) {
+	for _, spans := range []string{model.SpanX, model.SpanY, model.SpanTwoWay} {
+		in := contractBuilding()
+		b := in.Building
+		for k := range b.Floors {
+			b.Floors[k].Spans = spans
+		}
+		b.GridX = append(b.GridX, 5000) // a fourth bay so that an inner point can be left out
+		b.Omit = []string{"C2"}
+		b.Lines = []model.LineLoad{{Levels: []string{"L1", "L2"}, GridLine: "A", Gk: 8.5, Qk: 0}, {Levels: []string{"R"}, GridLine: "3", From: "B", To: "D", Gk: 2, Qk: 1, Category: "H"}}
+		d, err := Derive(in, panel)
+		if err != nil {
+			t.Fatal(err)
+		}
+		g := d.Grid
+		lx, ly := g.X[len(g.X)-1], g.Y[len(g.Y)-1]
+		want := 0.0
+		for _, lv := range d.Levels {
+			want += lv.Floor.Gk * lx * ly
+			for _, bm := range lv.Beams {
+				want += b.Options.Density * bm.Size.B * bm.Size.H * bm.L
+			}
+		}
+		want += 8.5*ly*2 + 2*(g.X[3]-g.X[1])
+		ncol := 0
+		sum := 0.0
+		for _, l := range d.Lifts {
+			want += b.Options.Density * l.Size.B * l.Size.H * l.Height
+			if l.Level == 0 {
+				sum += stepValue(t, l, "td/G_cum")
+				ncol++
+			}
+		}
+		if ncol != 5*3-1 {
+			t.Errorf("%d columns, want 14", ncol)
+		}
+		near(t, "ΣG at the base ("+spans+")", sum, want, 1e-12)
+	}
+}
+
+// The subframe at the roof of the inner column B2 about y, worked by hand: beams either side
+// at half stiffness, the column below with its far end fixed (common practice); FEM = wL²/12
+// (handbook formula); EN 1992-1-1:2004 5.1.3 arrangement with one span γG·Gk + γQ·Qk, the other γG·Gk.
+func TestSubframeByHand(t *testing.T) {
+	d, err := Derive(contractBuilding(), panel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lf := lift(t, d, "B2", "R")
+	w := (7800 + 5700) / 2.0
+	gk := 3.9e-3*w + 25e-6*275*500
+	qk := 0.6e-3 * w
+	L := 6600.0
+	unb := (1.35*gk + 1.5*qk - 1.35*gk) * L * L / 12
+	kb := 0.5 * 4 * (275 * math.Pow(500, 3) / 12) / L
+	kc := 4 * (350 * math.Pow(450, 3) / 12) / 3300
+	m := unb * kc / (kc + 2*kb)
+	near(t, "|M top R about y|", math.Abs(lf.MY.Top), m, 1e-9)
+	// Every step of every lift reproduces itself.
+	for _, l := range d.Lifts {
+		for _, s := range l.Steps {
+			if err := trace.Recheck(s, 1e-9); err != nil {
+				t.Error(err)
+			}
+		}
+	}
+}
+
+// Edge columns of a regular building bend in double curvature in the frames perpendicular to
+// their edge (the one beam pulls every joint the same way), common practice, no source.
+func TestEdgeColumnCurvature(t *testing.T) {
+	for _, analysis := range []string{model.AnalysisSubframe, model.AnalysisFrame} {
+		in := contractBuilding()
+		in.Building.Analysis = analysis
+		d, err := Derive(in, panel)
+		if err != nil {
+			t.Fatal(err)
+		}
+		lf := lift(t, d, "A2", "L2")
+		if lf.MY.Top*lf.MY.Bottom >= 0 {
+			t.Errorf("%s: A2/L2 about y: top %g, bottom %g, want double curvature", analysis, lf.MY.Top, lf.MY.Bottom)
+		}
+	}
+}
+
+func TestOmitOnEdgeIsRefused(t *testing.T) {
+	in := contractBuilding()
+	in.Building.Omit = []string{"A1"}
+	if _, err := Derive(in, panel); err == nil || !strings.Contains(err.Error(), "contract.yaml") {
+		t.Errorf("omitting an edge point: %v", err)
+	}
+}

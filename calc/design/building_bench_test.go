@@ -1,0 +1,58 @@
+package design
+
+import (
+	"strconv"
+	"testing"
+
+	"colsheet/calc/code"
+	"colsheet/calc/material"
+	"colsheet/calc/model"
+)
+
+// generatedBuilding returns an invented building of the given storeys on a square grid of
+// bays × bays bays (test data only).
+func generatedBuilding(storeys, bays int, analysis string) *model.Input {
+	c, _ := material.Lookup("C40/50")
+	b := &model.Building{Column: model.Size{B: 500, H: 500}, Cover: 40, Beam: model.Size{B: 300, H: 600},
+		Base: model.BaseFixed, Analysis: analysis,
+		Options: model.BuildingOptions{BeamStiffness: "half", Combination: model.Comb610, Reduction: model.ReduceNone, Density: 2.5e-5, L0Factor: 1}}
+	var all []string
+	for s := 0; s < storeys; s++ {
+		name := "L" + strconv.Itoa(s+1)
+		b.Storeys = append(b.Storeys, model.Level{Name: name, Height: 3300})
+		all = append(all, name)
+	}
+	for i := 0; i < bays; i++ {
+		b.GridX = append(b.GridX, 6000)
+		b.GridY = append(b.GridY, 6000)
+	}
+	b.Floors = []model.Floor{{Levels: all, Gk: 0.006, Qk: 0.0025, Category: "B", Spans: model.SpanTwoWay}}
+	return &model.Input{File: "generated.yaml", Code: code.Recommended(), Building: b,
+		Materials: model.Materials{Concrete: c, Fyk: 500, Aggregate: 20},
+		Options: model.Options{StressBlock: model.ParabolaRectangle, Imperfection: model.ImperfInclination, Members: 1,
+			BarDiameters: []float64{12, 16, 20, 25, 32, 40}, LinkDiameters: []float64{8, 10, 12}, LinkStep: 1}}
+}
+
+// BenchmarkBuilding40x100 measures take-down, moments and column design of a 40-storey building
+// of 100 columns (9 × 9 bays), reports excluded (target ≤ 1 s on one core).
+func BenchmarkBuilding40x100(b *testing.B) {
+	in := generatedBuilding(benchStoreys, 9, model.AnalysisSubframe)
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		if _, err := Run(in); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkBuilding40x100Frame is the same with the full-frame analysis.
+func BenchmarkBuilding40x100Frame(b *testing.B) {
+	in := generatedBuilding(40, 9, model.AnalysisFrame)
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		if _, err := Run(in); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+var benchStoreys = 10
