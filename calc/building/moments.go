@@ -58,7 +58,7 @@ func factored(ld BeamLoad, gammaG, gammaQ float64, loaded bool) []frame.Piece {
 			}
 		}
 	}
-	return out
+	return frame.Merge(out)
 }
 
 // joint records the simplified subframe (common practice) at the joint of the column at

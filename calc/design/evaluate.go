@@ -149,10 +149,10 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		q, ok := sec.mRdSteps(l, n, k, c.nEd, full)
 		if !ok {
 			mRd[k] = l.Add(trace.Input(n+"/MRd", "Moment resistance about "+n+": none, NEd exceeds the axial resistance", "EN 1992-1-1:2004 6.1", "M_Rd,"+n, "Nmm", 0).
-				Caution("NEd exceeds NRd,max: the section cannot carry the axial force, so it has no moment resistance."))
-		} else {
-			mRd[k] = q
+				Caution("NEd exceeds NRd,max: the section cannot carry the axial force, so it has no moment resistance; the axial check fails."))
+			continue
 		}
+		mRd[k] = q
 		mEd := mEds[k]
 		resistance(trace.Check(n+"/check_M", "Bending about "+n, "EN 1992-1-1:2004 6.1", "M_Ed,"+n+" ≤ M_Rd,"+n,
 			mEd.V/math.Max(mRd[k].V, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", mEd), trace.A("M_Rd", mRd[k])))

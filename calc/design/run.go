@@ -284,6 +284,12 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 	if given {
 		return c.finish(c.evaluate(patterns[0], true, true))
 	}
+	if len(patterns) > 0 && c.nEd.V > c.section([][2]float64{{0, 0}}, c.asMax.V).nRdMax() {
+		// Not even As,max carries NEd: show the pattern with the most steel, which fails loudly.
+		d := c.evaluate(patterns[len(patterns)-1], false, true)
+		d.Reasons = append([]string{"NEd exceeds the resistance to pure compression even with As,max: enlarge the section or raise the concrete class."}, d.Reasons...)
+		return c.finish(d)
+	}
 	var best Design
 	found := false
 	for i, p := range patterns {

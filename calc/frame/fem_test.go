@@ -99,3 +99,27 @@ func TestNoLength(t *testing.T) {
 		t.Errorf("SimpleReactions(0) = %g, %g", a, b)
 	}
 }
+
+// Merging pieces keeps the load: the same total and the same fixed-end moments
+// (common practice, no source).
+func TestMerge(t *testing.T) {
+	l := 7000.0
+	ps := append(Trapezoid(12, l, 2500), Uniform(3.4, l), Piece{X0: 1000, X1: 4000, W0: 2, W1: 2})
+	m := Merge(ps)
+	if len(m) >= len(ps)+1 {
+		t.Errorf("merge gave %d pieces from %d", len(m), len(ps))
+	}
+	a0, a1 := FixedEnd(l, ps)
+	b0, b1 := FixedEnd(l, m)
+	tot := func(ps []Piece) (s float64) {
+		for _, p := range ps {
+			s += p.Total()
+		}
+		return
+	}
+	for _, c := range [][2]float64{{a0, b0}, {a1, b1}, {tot(ps), tot(m)}} {
+		if math.Abs(c[0]-c[1]) > 1e-9*math.Abs(c[0]) {
+			t.Errorf("merged %g, original %g", c[1], c[0])
+		}
+	}
+}

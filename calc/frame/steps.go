@@ -2,6 +2,7 @@ package frame
 
 import (
 	"fmt"
+	"strconv"
 	"strings"
 
 	"colsheet/calc/trace"
@@ -45,42 +46,67 @@ func FEMTrapezoidStep(id, title string, w, l, a trace.Q) trace.Step {
 // on the quartic term, which makes it exact. Parts of pieces outside [0, l] are left out, as
 // in FixedEnd.
 func FEMStep(id, title string, side Side, l trace.Q, loads []Piece) trace.Step {
-	args := []trace.Arg{trace.A("L", l)}
-	var terms []string
+	args := make([]trace.Arg, 1, 1+4*len(loads))
+	args[0] = trace.A("L", l)
+	var expr strings.Builder
 	v := 0.0
+	n := 0
 	for _, p := range loads {
 		p, ok := clip(p, l.V)
 		if !ok {
 			continue
 		}
-		n := len(terms) + 1
-		name := func(s string) string { return fmt.Sprintf("%s_%d", s, n) }
-		x0, x1, w0, w1 := name("x0"), name("x1"), name("w0"), name("w1")
+		n++
+		k := strconv.Itoa(n)
+		x0, x1, w0, w1 := "x0_"+k, "x1_"+k, "w0_"+k, "w1_"+k
 		args = append(args,
-			trace.A(x0, trace.Const(p.X0, fmt.Sprintf("x_0,%d", n), "mm")),
-			trace.A(x1, trace.Const(p.X1, fmt.Sprintf("x_1,%d", n), "mm")),
-			trace.A(w0, trace.Const(p.W0, fmt.Sprintf("w_0,%d", n), "N/mm")),
-			trace.A(w1, trace.Const(p.W1, fmt.Sprintf("w_1,%d", n), "N/mm")))
-		xm := fmt.Sprintf("(%s + %s) / 2", x0, x1)
-		g := func(x string) string { return fmt.Sprintf("%s * (L - %s) ** 2", x, x) }
-		gv, cubic, corr := func(x float64) float64 { return x * (l.V - x) * (l.V - x) }, 1.0, "-"
-		if side == AtEnd {
-			g = func(x string) string { return fmt.Sprintf("%s ** 2 * (L - %s)", x, x) }
-			gv, cubic, corr = func(x float64) float64 { return x * x * (l.V - x) }, -1, "+"
+			trace.A(x0, trace.Const(p.X0, "x_0,"+k, "mm")),
+			trace.A(x1, trace.Const(p.X1, "x_1,"+k, "mm")),
+			trace.A(w0, trace.Const(p.W0, "w_0,"+k, "N/mm")),
+			trace.A(w1, trace.Const(p.W1, "w_1,"+k, "N/mm")))
+		if n > 1 {
+			expr.WriteString(" + ")
 		}
-		terms = append(terms, fmt.Sprintf("(%s - %s) / 6 * (%s * %s + 2 * (%s + %s) * %s + %s * %s) %s (%s - %s) ** 4 * (%s - %s) / 120",
-			x1, x0, w0, g(x0), w0, w1, g("("+xm+")"), w1, g(x1), corr, x1, x0, w1, w0))
-		v += exact(p, gv, cubic)
+		writeFEMTerm(&expr, side, x0, x1, w0, w1)
+		if side == AtEnd {
+			v += exact(p, func(x float64) float64 { return x * x * (l.V - x) }, -1)
+		} else {
+			v += exact(p, func(x float64) float64 { return x * (l.V - x) * (l.V - x) }, 1)
+		}
 	}
-	expr := "0 * L"
-	if len(terms) > 0 {
-		v /= l.V * l.V
-		expr = "(" + strings.Join(terms, " + ") + ") / L ** 2"
+	v /= l.V * l.V
+	text := "0 * L"
+	if n > 0 {
+		text = "(" + expr.String() + ") / L ** 2"
 	}
 	if side == AtStart {
-		v, expr = -v, "-"+expr
+		v, text = -v, "-"+text
 	}
-	return trace.Formula(id, title, femClause, "M_F", "Nmm", v, expr, args...)
+	return trace.Formula(id, title, femClause, "M_F", "Nmm", v, text, args...)
+}
+
+// writeFEMTerm writes one piece's term of FEMStep's expression: Simpson's rule on the
+// influence x·(L−x)² (start) or x²·(L−x) (end) with the correction of exact.
+func writeFEMTerm(b *strings.Builder, side Side, x0, x1, w0, w1 string) {
+	g := func(x string) {
+		if side == AtEnd {
+			b.WriteString(x + " ** 2 * (L - " + x + ")")
+		} else {
+			b.WriteString(x + " * (L - " + x + ") ** 2")
+		}
+	}
+	xm := "((" + x0 + " + " + x1 + ") / 2)"
+	b.WriteString("(" + x1 + " - " + x0 + ") / 6 * (" + w0 + " * ")
+	g(x0)
+	b.WriteString(" + 2 * (" + w0 + " + " + w1 + ") * ")
+	g(xm)
+	b.WriteString(" + " + w1 + " * ")
+	g(x1)
+	corr := " - "
+	if side == AtEnd {
+		corr = " + "
+	}
+	b.WriteString(")" + corr + "(" + x1 + " - " + x0 + ") ** 4 * (" + w1 + " - " + w0 + ") / 120")
 }
 
 // StiffnessStep records the stiffness k·4·E·I/L of a member end (slope-deflection equations,
