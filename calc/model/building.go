@@ -16,6 +16,7 @@ type Building struct {
 	Floors   []Floor      // area loads per level
 	Lines    []LineLoad   // line loads on beams (façades)
 	Omit     []string     // grid points without a column, e.g. "B2"
+	Bars     *BarSpec     // given bars for every column to check; nil to design them
 	Base     string       // BaseFixed or BasePinned
 	Analysis string       // AnalysisSubframe or AnalysisFrame
 	Options  BuildingOptions

@@ -17,7 +17,8 @@ type Input struct {
 	Code      code.Params // partial factors and nationally determined parameters in force
 	Materials Materials   // concrete and steel
 	Options   Options     // method choices
-	Columns   []Column    // columns in input order
+	Columns   []Column    // columns in input order (the actions form)
+	Building  *Building   // the building form; nil for the actions form
 }
 
 // Project is the title block of every sheet.
