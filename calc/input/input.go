@@ -1,9 +1,11 @@
-// Package input reads an input file (YAML, the actions form) into a validated model.Input.
+// Package input reads an input file (YAML, the actions form or the building form) into a
+// validated model.Input.
 //
 // Every numeric field takes a plain number in its documented unit or a text with a unit or
 // an expression over the names under vars (see package quantity). Plain numbers are in these
 // units: all lengths, covers, effective lengths and diameters mm; forces kN; moments kNm;
-// stresses MPa; code overrides in the unit their catalogue entry states (a pure number if none).
+// stresses MPa; area loads kN/m2; line loads kN/m; weight densities kN/m3; code overrides in
+// the unit their catalogue entry states (a pure number if none).
 // Unknown keys are faults, and all faults of a file are reported together as Errors.
 //
 // The keys, with their defaults where optional:
@@ -19,7 +21,23 @@
 //	storeys:   list of {name, l0: {y, z} or one value, length, NEd,
 //	            M: {y: {top, bottom}, z: {top, bottom}}, phi_ef}
 //
-// The building form (key building) is refused for now.
+// A file gives either columns (the actions form) or building (the building form), not both:
+//
+//	building:  {storeys, grid, columns, beams, column_sizes, beam_sizes, floors, line_loads,
+//	            omit, base: fixed, analysis: subframe, beam_stiffness: half, combination: 6.10,
+//	            imposed_reduction: none, density: code density_rc or 25 kN/m3, l0_factor: 1, bars}
+//	storeys:   list of {name, height}, lowest first, names unique
+//	grid:      {x: [bay widths], y: [bay widths]}; lettered lines A, B, ..., Z, AA, ... at the x
+//	           positions, numbered lines 1, 2, ... at the y positions; column ids such as B2
+//	columns:   {b, h, cover: 40 mm}, h along building x, b along y; beams: {b, h}
+//	column_sizes: list of {columns, levels, b, h}; beam_sizes: list of {levels, dir, lines, b, h}
+//	floors:    list of {levels, gk, qk, category, spans}; every level in exactly one entry
+//	line_loads: list of {levels, line, from, to, gk, qk, category}; with one end given the
+//	           other is the end of the line, so from and to are both set or both empty
+//
+// A missing levels, columns or lines list means all of them; a single name may stand for a
+// list of one. Where size overrides overlap, the later entry holds.
+// Grid names are read without regard to case and stored upper-case and without leading zeros.
 package input
 
 import (
@@ -87,7 +105,7 @@ func (r *reader) parse(data []byte) *model.Input {
 	var doc yaml.Node
 	if err := dec.Decode(&doc); err != nil {
 		if errors.Is(err, io.EOF) {
-			r.fail(nil, "", "the file is empty; expected a mapping with at least columns")
+			r.fail(nil, "", "the file is empty; expected a mapping with at least materials and columns or building")
 		} else {
 			r.yamlError(err)
 		}
@@ -100,12 +118,12 @@ func (r *reader) parse(data []byte) *model.Input {
 		r.yamlError(err)
 	}
 	if len(doc.Content) == 0 || isNull(doc.Content[0]) {
-		r.fail(nil, "", "the file is empty; expected a mapping with at least columns")
+		r.fail(nil, "", "the file is empty; expected a mapping with at least materials and columns or building")
 		return nil
 	}
 	root := resolve(doc.Content[0])
 	if root.Kind != yaml.MappingNode {
-		r.fail(root, "", "the top level must be a mapping with the keys %s, found %s", strings.Join(topKeys[:6], ", "), kindName(root))
+		r.fail(root, "", "the top level must be a mapping with the keys %s, found %s", strings.Join(topKeys, ", "), kindName(root))
 		return nil
 	}
 	top := r.fields(root, "", topKeys...)
@@ -138,14 +156,17 @@ func (r *reader) parse(data []byte) *model.Input {
 		r.fail(root, "materials", "is required but missing (e.g. materials: {concrete: C30/37})")
 	}
 	in.Options = r.design(top)
-	if p, ok := top["building"]; ok {
-		r.fail(p.key, "building", "the building form is not supported yet; give the columns with their actions under columns")
-		return in
-	}
-	if p, ok := top["columns"]; ok {
-		in.Columns = r.columns(p.val, in.Options)
-	} else {
-		r.fail(root, "columns", "is required but missing")
+	bp, hasBuilding := top["building"]
+	cp, hasColumns := top["columns"]
+	switch {
+	case hasBuilding && hasColumns:
+		r.fail(bp.key, "building", "a file gives either columns (the actions form, line %d) or building (the building form, line %d), not both", cp.key.Line, bp.key.Line)
+	case hasBuilding:
+		in.Building = r.building(bp.key, bp.val, in)
+	case hasColumns:
+		in.Columns = r.columns(cp.val, in.Options)
+	default:
+		r.fail(root, "columns", "is required but missing (give the columns with their actions under columns, or the building form under building)")
 	}
 	return in
 }
@@ -209,12 +230,16 @@ func (r *reader) project(n *yaml.Node) model.Project {
 	return p
 }
 
-// overrideUnit returns the documented unit of a code parameter, taken from its description.
+// overrideUnit returns the documented unit of a code parameter, taken from the end of its
+// description ("..., mm", "..., N/mm³"); a pure number when it names none.
 func overrideUnit(c code.Param) string {
-	for _, u := range []string{"MPa", "mm"} {
-		if strings.HasSuffix(c.What, ", "+u) {
-			return u
-		}
+	i := strings.LastIndex(c.What, ", ")
+	if i < 0 {
+		return ""
+	}
+	u := c.What[i+2:]
+	if q, ok := quantity.LookupUnit(u); ok && q.Dim != quantity.Number {
+		return u
 	}
 	return ""
 }

@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"colsheet/calc/code"
 	"colsheet/calc/material"
 	"colsheet/calc/model"
 )
@@ -117,6 +118,15 @@ func TestParseGood(t *testing.T) {
 	}
 }
 
+// catalogue lists the code parameters as the message of an unknown one does.
+func catalogue() string {
+	var names []string
+	for _, c := range code.Catalogue {
+		names = append(names, c.Name)
+	}
+	return strings.Join(names, ", ")
+}
+
 func equal(a, b []float64) bool {
 	if len(a) != len(b) {
 		return false
@@ -183,10 +193,10 @@ func TestParseErrors(t *testing.T) {
 		name, text string
 		want       []string
 	}{
-		{"empty", "", []string{"in.yaml:1: the file is empty; expected a mapping with at least columns"}},
-		{"comments only", "# nothing\n", []string{"in.yaml:1: the file is empty; expected a mapping with at least columns"}},
-		{"null document", "---\n", []string{"in.yaml:1: the file is empty; expected a mapping with at least columns"}},
-		{"top-level list", "- a\n- b\n", []string{"in.yaml:1: the top level must be a mapping with the keys project, code, materials, design, vars, columns, found a list"}},
+		{"empty", "", []string{"in.yaml:1: the file is empty; expected a mapping with at least materials and columns or building"}},
+		{"comments only", "# nothing\n", []string{"in.yaml:1: the file is empty; expected a mapping with at least materials and columns or building"}},
+		{"null document", "---\n", []string{"in.yaml:1: the file is empty; expected a mapping with at least materials and columns or building"}},
+		{"top-level list", "- a\n- b\n", []string{"in.yaml:1: the top level must be a mapping with the keys project, code, materials, design, vars, columns, building, found a list"}},
 		{"YAML syntax", "materials: {concrete: C30/37}\ncolumns:\n\t- id: K1\n", []string{"in.yaml:3: YAML: found character that cannot start any token"}},
 		{"two documents", head + "        NEd: 10\n---\nx: 1\n", []string{"in.yaml:11: the file holds more than one YAML document; give one per file"}},
 		{"NEd with a length", head + "        NEd: 10\n      - name: L2\n        l0: 3 m\n        NEd: 3.6 m\n",
@@ -205,10 +215,10 @@ func TestParseErrors(t *testing.T) {
 			[]string{"in.yaml:11: columns[0].storeys[0].Ned: unknown key (known here: name, l0, length, NEd, M, phi_ef)"}},
 		{"repeated key", head + "        NEd: 10\n        NEd: 20\n", []string{"in.yaml:11: columns[0].storeys[0].NEd: the key is given twice"}},
 		{"unknown top key", "materials: {concrete: C30/37}\ncolums: []\n", []string{
-			"in.yaml:1: columns: is required but missing",
+			"in.yaml:1: columns: is required but missing (give the columns with their actions under columns, or the building form under building)",
 			"in.yaml:2: colums: unknown key (known here: project, code, materials, design, vars, columns, building)"}},
-		{"building form", "materials: {concrete: C30/37}\nbuilding:\n  storeys: []\n",
-			[]string{"in.yaml:2: building: the building form is not supported yet; give the columns with their actions under columns"}},
+		{"columns and building", head + "        NEd: 10\nbuilding:\n  storeys: []\n",
+			[]string{"in.yaml:11: building: a file gives either columns (the actions form, line 2) or building (the building form, line 11), not both"}},
 		{"materials missing", "columns:\n  - {id: K1, b: 300, h: 300, cover: 30, storeys: [{name: L1, l0: 3000, NEd: 1}]}\n",
 			[]string{"in.yaml:1: materials: is required but missing (e.g. materials: {concrete: C30/37})"}},
 		{"not a class", "materials: {concrete: C32/41}\ncolumns:\n  - {id: K1, b: 300, h: 300, cover: 30, storeys: [{name: L1, l0: 3000, NEd: 1}]}\n",
@@ -220,7 +230,7 @@ func TestParseErrors(t *testing.T) {
 			`in.yaml:2: code.annex: annex "UK" is not supported (supported: recommended)`,
 			"in.yaml:4: code.overrides.gamma_c: gamma_c = 3 is outside the accepted range 1 to 2",
 			`in.yaml:5: code.overrides.Es: "200 mm" is a length, expected a stress`,
-			`in.yaml:6: code.overrides.gamma: unknown parameter "gamma" (known: gamma_c, gamma_s, alpha_cc, Es, theta_0, lambda_lim_k, c_curv, phi_ef_default, As_min_N, As_min_Ac, As_max_Ac, As_max_lap_Ac, phi_min, link_dia_min, link_dia_ratio, link_spacing_bars, link_spacing_max, link_spacing_zone, spacing_k1, spacing_k2, spacing_min)`}},
+			`in.yaml:6: code.overrides.gamma: unknown parameter "gamma" (known: ` + catalogue() + ")"}},
 		{"design block", "design:\n  stress_block: parabolic\n  imperfection: none\n  members: 1.5\n  bar_diameters: []\n  link_diameters: [8, -1]\n  link_spacing_step: 0\n" + head + "        NEd: 10\n", []string{
 			`in.yaml:2: design.stress_block: "parabolic" is not one of parabola-rectangle, rectangular`,
 			`in.yaml:3: design.imperfection: "none" is not one of inclination, l0/400`,
@@ -318,22 +328,30 @@ columns:
 	}
 }
 
-// The golden list holds every fault of a file with many faults.
+// The golden lists hold every fault of files with many faults; go test -update rewrites them.
+// The list of code parameters is written <catalogue> so that adding one keeps the lists valid.
 func TestManyErrors(t *testing.T) {
-	_, err := parseFile(t, "testdata/bad.yaml")
-	if err == nil {
-		t.Fatal("no error")
-	}
-	got := err.Error() + "\n"
-	if *update {
-		os.WriteFile("testdata/bad.errors", []byte(got), 0o644)
-	}
-	want, rerr := os.ReadFile("testdata/bad.errors")
-	if rerr != nil {
-		t.Fatal(rerr)
-	}
-	if got != string(want) {
-		t.Errorf("errors:\n%s\nwant:\n%s", got, want)
+	for _, name := range []string{"bad", "building_bad", "building_refs"} {
+		t.Run(name, func(t *testing.T) {
+			_, err := parseFile(t, "testdata/"+name+".yaml")
+			if err == nil {
+				t.Fatal("no error")
+			}
+			got := strings.ReplaceAll(err.Error(), catalogue(), "<catalogue>") + "\n"
+			golden := "testdata/" + name + ".errors"
+			if *update {
+				if err := os.WriteFile(golden, []byte(got), 0o644); err != nil {
+					t.Fatal(err)
+				}
+			}
+			want, rerr := os.ReadFile(golden)
+			if rerr != nil {
+				t.Fatal(rerr)
+			}
+			if got != string(want) {
+				t.Errorf("errors:\n%s\nwant:\n%s", got, want)
+			}
+		})
 	}
 }
 
@@ -355,7 +373,8 @@ func TestErrorFormat(t *testing.T) {
 }
 
 func FuzzParse(f *testing.F) {
-	for _, p := range []string{"testdata/good.yaml", "testdata/bad.yaml", "testdata/minimal.yaml"} {
+	for _, p := range []string{"testdata/good.yaml", "testdata/bad.yaml", "testdata/minimal.yaml",
+		"testdata/building.yaml", "testdata/building_bad.yaml", "testdata/building_refs.yaml", "testdata/building_contract.yaml"} {
 		data, err := os.ReadFile(p)
 		if err != nil {
 			f.Fatal(err)
@@ -365,6 +384,8 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte(head + "        NEd: 10\n"))
 	f.Add([]byte("a: &a {<<: *a}\n"))
 	f.Add([]byte("vars: {x: y, y: x}\n"))
+	f.Add([]byte(building))
+	f.Add([]byte(building + "  omit: [a1]\n  line_loads: [{line: B, from: 2, gk: 1}]\n  column_sizes: [{levels: R, b: 300, h: 300}]\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		in, err := Parse("f.yaml", data)
 		if err != nil {
@@ -377,6 +398,10 @@ func FuzzParse(f *testing.F) {
 					t.Fatalf("bad position in %v", e)
 				}
 			}
+			return
+		}
+		if in.Building != nil {
+			checkBuilding(t, in.Building)
 			return
 		}
 		if len(in.Columns) == 0 {
@@ -398,4 +423,60 @@ func FuzzParse(f *testing.F) {
 			}
 		}
 	})
+}
+
+// checkBuilding fails t when an accepted building breaks what the parser promises.
+func checkBuilding(t *testing.T, b *model.Building) {
+	t.Helper()
+	positive := func(what string, vs ...float64) {
+		for _, v := range vs {
+			if !(v > 0) || math.IsInf(v, 0) {
+				t.Fatalf("%s %g accepted in %+v", what, v, b)
+			}
+		}
+	}
+	if len(b.Storeys) == 0 || len(b.GridX) == 0 || len(b.GridY) == 0 {
+		t.Fatalf("building without storeys or bays accepted: %+v", b)
+	}
+	levels := map[string]int{}
+	for _, l := range b.Storeys {
+		positive("storey height", l.Height)
+		levels[l.Name] = 0
+	}
+	positive("bay", b.GridX...)
+	positive("bay", b.GridY...)
+	positive("member size", b.Column.B, b.Column.H, b.Beam.B, b.Beam.H, b.Cover, b.Options.Density, b.Options.L0Factor)
+	for _, c := range b.Columns {
+		positive("column size", c.B, c.H)
+	}
+	for _, c := range b.Beams {
+		positive("beam size", c.B, c.H)
+	}
+	for _, f := range b.Floors {
+		ls := f.Levels
+		if len(ls) == 0 {
+			for _, l := range b.Storeys {
+				ls = append(ls, l.Name)
+			}
+		}
+		for _, l := range ls {
+			levels[l]++
+		}
+		if !(f.Gk >= 0 && f.Qk >= 0) || math.IsInf(f.Gk+f.Qk, 0) || f.Spans == "" || f.Qk > 0 && f.Category == "" {
+			t.Fatalf("invalid floor accepted: %+v", f)
+		}
+	}
+	for l, n := range levels {
+		if n != 1 {
+			t.Fatalf("level %s has %d floors", l, n)
+		}
+	}
+	for _, l := range b.Lines {
+		if !(l.Gk >= 0 && l.Qk >= 0) || math.IsInf(l.Gk+l.Qk, 0) || l.GridLine == "" || (l.From == "") != (l.To == "") {
+			t.Fatalf("invalid line load accepted: %+v", l)
+		}
+	}
+	if len(b.Omit) >= (len(b.GridX)+1)*(len(b.GridY)+1) {
+		t.Fatalf("every column omitted: %+v", b.Omit)
+	}
 }

@@ -251,6 +251,12 @@ func example(unit string) string {
 		return `"85 kNm"`
 	case "MPa":
 		return `"500 MPa"`
+	case "kN/m2":
+		return `"2.5 kN/m2"`
+	case "kN/m":
+		return `"8.5 kN/m"`
+	case "kN/m3":
+		return `"25 kN/m3"`
 	}
 	return "0.8"
 }

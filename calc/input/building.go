@@ -1,0 +1,824 @@
+package input
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"colsheet/calc/code"
+	"colsheet/calc/model"
+
+	"gopkg.in/yaml.v3"
+)
+
+// Limits of the building form that keep a file within the size of a braced building.
+const (
+	MaxBays    = 100 // bays along each grid direction
+	MaxStoreys = 100 // storeys
+)
+
+// Defaults of the building form.
+const (
+	DefaultBuildingCover = 40     // nominal cover to the links of the columns, mm
+	DefaultDensity       = 2.5e-5 // weight density of reinforced concrete, N/mm³ (25 kN/m³)
+	DefaultL0Factor      = 1.0    // effective length over storey height
+)
+
+// densityParam is the code parameter of the weight density of reinforced concrete, when catalogued.
+const densityParam = "density_rc"
+
+// densityInForce returns the weight density of reinforced concrete the code parameters give,
+// or DefaultDensity when the catalogue has no such parameter.
+func densityInForce(p code.Params) float64 {
+	if _, ok := code.Lookup(densityParam); ok {
+		return p.Get(densityParam)
+	}
+	return DefaultDensity
+}
+
+// Imposed-load categories of EN 1991-1-1 Table 6.1 the building form accepts.
+var categories = []string{"A", "B", "C", "D", "E", "F", "G", "H"}
+
+var buildingKeys = []string{"storeys", "grid", "columns", "beams", "column_sizes", "beam_sizes", "floors",
+	"line_loads", "omit", "base", "analysis", "beam_stiffness", "combination", "imposed_reduction",
+	"density", "l0_factor", "bars"}
+
+// site holds what the entries of a building refer to: its levels and its grid.
+type site struct {
+	levels   []string       // storey names, lowest first
+	level    map[string]int // index of each storey name
+	levelsOK bool           // every storey name was read, so references can be checked
+	nx, ny   int            // grid lines: lettered (at x positions) and numbered (at y positions)
+	gridOK   bool           // both directions were read, so grid names can be checked
+	omitted  map[string]bool
+}
+
+// letters names lettered grid line i (from 0): A to Z, then AA, AB, ...
+func letters(i int) string {
+	var b []byte
+	for i++; i > 0; i = (i - 1) / 26 {
+		b = append([]byte{byte('A' + (i-1)%26)}, b...)
+	}
+	return string(b)
+}
+
+// lineKind tells the lettered grid lines (they run along y) from the numbered ones (along x).
+type lineKind int
+
+const (
+	lettered lineKind = iota + 1
+	numbered
+)
+
+// parseLine reads a grid line name ("B", "b", "2", "02") and returns its kind, its index from
+// 0 and its canonical name; it does not check the name against the grid.
+func parseLine(s string) (lineKind, int, string, bool) {
+	s = strings.ToUpper(strings.TrimSpace(s))
+	switch {
+	case s == "" || len(s) > 4:
+		return 0, 0, "", false
+	case strings.Trim(s, "ABCDEFGHIJKLMNOPQRSTUVWXYZ") == "":
+		i := 0
+		for _, c := range s {
+			i = i*26 + int(c-'A') + 1
+		}
+		return lettered, i - 1, s, true
+	case strings.Trim(s, "0123456789") == "":
+		n, _ := strconv.Atoi(s)
+		if n < 1 {
+			return 0, 0, "", false
+		}
+		return numbered, n - 1, strconv.Itoa(n), true
+	}
+	return 0, 0, "", false
+}
+
+// extent describes the grid's lines for messages.
+func (s *site) extent() string {
+	return fmt.Sprintf("lettered lines A to %s, numbered lines 1 to %d", letters(s.nx-1), s.ny)
+}
+
+// inGrid reports whether line index i of kind k exists.
+func (s *site) inGrid(k lineKind, i int) bool {
+	if k == lettered {
+		return i < s.nx
+	}
+	return i < s.ny
+}
+
+// gridLine reads the name of a grid line at n and returns its kind, index and canonical name.
+func (r *reader) gridLine(s *site, n *yaml.Node, path string) (lineKind, int, string, bool) {
+	text, ok := r.str(n, path)
+	if !ok {
+		return 0, 0, "", false
+	}
+	k, i, name, ok := parseLine(text)
+	if !ok {
+		r.fail(n, path, "%q is not a grid line name (lettered lines A, B, ... run along y, numbered lines 1, 2, ... along x)", text)
+		return 0, 0, "", false
+	}
+	if s.gridOK && !s.inGrid(k, i) {
+		r.fail(n, path, "line %s is not on the grid (%s)", name, s.extent())
+		return 0, 0, "", false
+	}
+	return k, i, name, true
+}
+
+// point reads a grid point id such as "B2" (lettered line B, numbered line 2) and returns it
+// upper-cased and without leading zeros.
+func (r *reader) point(s *site, n *yaml.Node, path string) (string, bool) {
+	text, ok := r.str(n, path)
+	if !ok {
+		return "", false
+	}
+	t := strings.ToUpper(strings.TrimSpace(text))
+	cut := strings.IndexAny(t, "0123456789")
+	if cut <= 0 {
+		r.fail(n, path, "%q is not a column id; give a lettered and a numbered grid line, e.g. B2", text)
+		return "", false
+	}
+	kx, ix, x, okx := parseLine(t[:cut])
+	ky, iy, y, oky := parseLine(t[cut:])
+	if !okx || !oky || kx != lettered || ky != numbered {
+		r.fail(n, path, "%q is not a column id; give a lettered and a numbered grid line, e.g. B2", text)
+		return "", false
+	}
+	id := x + y
+	if s.gridOK && (!s.inGrid(kx, ix) || !s.inGrid(ky, iy)) {
+		r.fail(n, path, "%s is not a grid point (%s)", id, s.extent())
+		return "", false
+	}
+	return id, true
+}
+
+// items returns the entries of a list, or a single scalar as a list of one, with their paths.
+func (r *reader) items(n *yaml.Node, path, what string) ([]*yaml.Node, []string, bool) {
+	n = resolve(n)
+	if n.Kind == yaml.ScalarNode {
+		return []*yaml.Node{n}, []string{path}, true
+	}
+	its, ok := r.list(n, path, what)
+	paths := make([]string, len(its))
+	for i := range its {
+		paths[i] = index(path, i)
+	}
+	return its, paths, ok
+}
+
+// levelRefs reads a list of storey names, each known and given once.
+func (r *reader) levelRefs(s *site, n *yaml.Node, path string) ([]string, bool) {
+	its, paths, ok := r.items(n, path, "storey levels")
+	if !ok {
+		return nil, false
+	}
+	var out []string
+	seen := map[string]bool{}
+	good := true
+	for i, it := range its {
+		name, ok := r.name(it, paths[i])
+		switch {
+		case !ok:
+			good = false
+		case s.levelsOK && !has(s.level, name):
+			r.fail(it, paths[i], "%q is not a storey level (levels: %s)", name, strings.Join(s.levels, ", "))
+			good = false
+		case seen[name]:
+			r.fail(it, paths[i], "level %s is listed twice", name)
+			good = false
+		default:
+			seen[name] = true
+			out = append(out, name)
+		}
+	}
+	return out, good
+}
+
+// has reports whether m holds key k.
+func has[V any](m map[string]V, k string) bool {
+	_, ok := m[k]
+	return ok
+}
+
+// building reads the building form under key, the building: entry.
+func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
+	opt := in.Options
+	const top = "building"
+	b := &model.Building{
+		Line:     key.Line,
+		Cover:    DefaultBuildingCover,
+		Base:     model.BaseFixed,
+		Analysis: model.AnalysisSubframe,
+		Options: model.BuildingOptions{
+			BeamStiffness: "half",
+			Combination:   model.Comb610,
+			Reduction:     model.ReduceNone,
+			Density:       densityInForce(in.Code),
+			L0Factor:      DefaultL0Factor,
+		},
+	}
+	n = resolve(n)
+	f := r.fields(n, top, buildingKeys...)
+	if f == nil {
+		return b
+	}
+	required := func(k, what string) (pair, bool) {
+		e, ok := f[k]
+		if !ok {
+			r.fail(n, join(top, k), "is required but missing (%s)", what)
+		}
+		return e, ok
+	}
+	s := &site{level: map[string]int{}, omitted: map[string]bool{}}
+
+	if e, ok := required("storeys", "the levels lowest first, e.g. storeys: [{name: L1, height: 3.8 m}]"); ok {
+		b.Storeys, s.levelsOK = r.levels(e.val, join(top, "storeys"))
+		for i, l := range b.Storeys {
+			s.levels = append(s.levels, l.Name)
+			s.level[l.Name] = i
+		}
+	}
+	if e, ok := required("grid", "the bay widths, e.g. grid: {x: [6.6 m, 6.6 m], y: [7.8 m]}"); ok {
+		b.GridX, b.GridY, s.gridOK = r.grid(e.val, join(top, "grid"))
+		s.nx, s.ny = len(b.GridX)+1, len(b.GridY)+1
+	}
+
+	// Method choices and the given bars come first: the room check of the columns uses the bars.
+	if e, ok := f["base"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "base"), model.BaseFixed, model.BasePinned); ok {
+			b.Base = v
+		}
+	}
+	if e, ok := f["analysis"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "analysis"), model.AnalysisSubframe, model.AnalysisFrame); ok {
+			b.Analysis = v
+		}
+	}
+	if e, ok := f["beam_stiffness"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "beam_stiffness"), "half", "full"); ok {
+			b.Options.BeamStiffness = v
+		}
+	}
+	if e, ok := f["combination"]; ok {
+		if v, ok := r.combination(e.val, join(top, "combination")); ok {
+			b.Options.Combination = v
+		}
+	}
+	if e, ok := f["imposed_reduction"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "imposed_reduction"), model.ReduceNone, model.ReduceArea, model.ReduceStoreys); ok {
+			b.Options.Reduction = v
+		}
+	}
+	if e, ok := f["density"]; ok {
+		path := join(top, "density")
+		if v, ok := r.positive(e.val, path, "kN/m3"); ok {
+			c, catalogued := code.Lookup(densityParam)
+			switch {
+			case catalogued && in.Code.IsOverridden(densityParam):
+				r.fail(e.val, path, "the density is also given as code.overrides.%s; give it once", densityParam)
+			case catalogued && (v < c.Min || v > c.Max):
+				r.fail(e.val, path, "%s is outside the accepted range %s to %s", show(v, "kN/m3"), show(c.Min, "kN/m3"), show(c.Max, "kN/m3"))
+			default:
+				b.Options.Density = v
+			}
+		}
+	}
+	if e, ok := f["l0_factor"]; ok {
+		if v, ok := r.number(e.val, join(top, "l0_factor"), ""); ok {
+			if v < 0.5 || v > 2 {
+				r.fail(e.val, join(top, "l0_factor"), "the effective length factor must lie between 0.5 and 2, found %s", show(v, ""))
+			} else {
+				b.Options.L0Factor = v
+			}
+		}
+	}
+	barsOK := true
+	if e, ok := f["bars"]; ok {
+		b.Bars, barsOK = r.bars(e.val, join(top, "bars"))
+		if !barsOK {
+			b.Bars = nil
+		}
+	}
+
+	if e, ok := f["omit"]; ok {
+		b.Omit = r.omit(s, e.val, join(top, "omit"))
+	}
+	if e, ok := required("columns", "the default column size, e.g. columns: {b: 350 mm, h: 450 mm}"); ok {
+		path := join(top, "columns")
+		g := r.fields(e.val, path, "b", "h", "cover")
+		if g != nil {
+			var sizeOK bool
+			b.Column, sizeOK = r.size(g, e.val, path, "column")
+			coverOK := true
+			coverAt := e.val
+			if c, ok := g["cover"]; ok {
+				b.Cover, coverOK = r.positive(c.val, join(path, "cover"), "mm")
+				coverAt = c.val
+			}
+			if sizeOK && coverOK && barsOK {
+				r.room(coverAt, join(path, "cover"), b.Column, b.Cover, b.Bars, opt)
+			}
+			if !coverOK {
+				b.Cover = 0
+			}
+		}
+	}
+	if e, ok := required("beams", "the default beam size, e.g. beams: {b: 275 mm, h: 500 mm}"); ok {
+		path := join(top, "beams")
+		if g := r.fields(e.val, path, "b", "h"); g != nil {
+			b.Beam, _ = r.size(g, e.val, path, "beam")
+		}
+	}
+	if e, ok := f["column_sizes"]; ok {
+		b.Columns = r.columnSizes(s, e.val, join(top, "column_sizes"), b, barsOK, opt)
+	}
+	if e, ok := f["beam_sizes"]; ok {
+		b.Beams = r.beamSizes(s, e.val, join(top, "beam_sizes"))
+	}
+	if e, ok := required("floors", "the area loads of every level, e.g. floors: [{gk: 5.8 kN/m2, qk: 2.5 kN/m2, category: B, spans: y}]"); ok {
+		b.Floors = r.floors(s, e.key, e.val, join(top, "floors"))
+	}
+	if e, ok := f["line_loads"]; ok {
+		b.Lines = r.lineLoads(s, e.val, join(top, "line_loads"))
+	}
+	return b
+}
+
+// levels reads the storeys; it reports whether every name was read.
+func (r *reader) levels(n *yaml.Node, path string) ([]model.Level, bool) {
+	items, ok := r.list(n, path, "storeys")
+	if !ok {
+		return nil, false
+	}
+	if len(items) > MaxStoreys {
+		r.fail(n, path, "%d storeys are more than the %d the building form takes", len(items), MaxStoreys)
+		return nil, false
+	}
+	var out []model.Level
+	seen := map[string]int{}
+	good := true
+	for i, it := range items {
+		p := index(path, i)
+		l := model.Level{Line: it.Line}
+		f := r.fields(it, p, "name", "height")
+		if f == nil {
+			good = false
+			continue
+		}
+		if e, ok := f["name"]; ok {
+			if v, ok := r.name(e.val, join(p, "name")); !ok {
+				good = false
+			} else if first, dup := seen[v]; dup {
+				r.fail(e.val, join(p, "name"), "storey name %q is used twice (first at %s)", v, index(path, first))
+				good = false
+			} else {
+				seen[v] = i
+				l.Name = v
+			}
+		} else {
+			r.fail(it, join(p, "name"), "is required but missing (the level at the top of the lift, e.g. name: L1)")
+			good = false
+		}
+		if e, ok := f["height"]; ok {
+			l.Height, _ = r.positive(e.val, join(p, "height"), "mm")
+		} else {
+			r.fail(it, join(p, "height"), "is required but missing (the height from the level below, e.g. height: 3.8 m)")
+		}
+		if l.Name != "" {
+			out = append(out, l)
+		}
+	}
+	return out, good
+}
+
+// grid reads the bay widths along x and y; it reports whether both were read whole.
+func (r *reader) grid(n *yaml.Node, path string) (x, y []float64, ok bool) {
+	f := r.fields(n, path, "x", "y")
+	if f == nil {
+		return nil, nil, false
+	}
+	bays := func(axis string) ([]float64, bool) {
+		p := join(path, axis)
+		e, ok := f[axis]
+		if !ok {
+			r.fail(n, p, "is required but missing (the bay widths along %s, e.g. %s: [6.6 m, 6.6 m])", axis, axis)
+			return nil, false
+		}
+		items, ok := r.list(e.val, p, "bay widths")
+		if !ok {
+			return nil, false
+		}
+		if len(items) > MaxBays {
+			r.fail(e.val, p, "%d bays are more than the %d the building form takes", len(items), MaxBays)
+			return nil, false
+		}
+		var out []float64
+		good := true
+		for i, it := range items {
+			v, ok := r.positive(it, index(p, i), "mm")
+			good = good && ok
+			out = append(out, v)
+		}
+		return out, good
+	}
+	x, okx := bays("x")
+	y, oky := bays("y")
+	return x, y, okx && oky
+}
+
+// size reads the required b and h of a member from fields f of mapping n.
+func (r *reader) size(f map[string]pair, n *yaml.Node, path, member string) (model.Size, bool) {
+	var s model.Size
+	ok := true
+	for _, k := range []string{"b", "h"} {
+		e, has := f[k]
+		if !has {
+			what := "the width, e.g. b: 275 mm"
+			switch {
+			case member == "column" && k == "b":
+				what = "the width along building y, e.g. b: 350 mm"
+			case member == "column":
+				what = "the depth along building x, e.g. h: 450 mm"
+			case k == "h":
+				what = "the depth, e.g. h: 500 mm"
+			}
+			r.fail(n, join(path, k), "is required but missing (%s)", what)
+			ok = false
+			continue
+		}
+		v, good := r.positive(e.val, join(path, k), "mm")
+		ok = ok && good
+		if k == "b" {
+			s.B = v
+		} else {
+			s.H = v
+		}
+	}
+	return s, ok
+}
+
+// room reports a column section too small for its cover, links and bars.
+func (r *reader) room(at *yaml.Node, path string, s model.Size, cover float64, bars *model.BarSpec, opt model.Options) {
+	link := 0.0
+	if len(opt.LinkDiameters) > 0 {
+		link = opt.LinkDiameters[0]
+	}
+	bar := 0.0
+	if bars != nil {
+		bar = bars.Dia
+	} else if len(opt.BarDiameters) > 0 {
+		bar = opt.BarDiameters[0]
+	}
+	need := 2 * (cover + link + bar)
+	if !(need < min(s.B, s.H)) {
+		r.fail(at, path, "no room for links and bars: 2·(cover + link + bar) = 2·(%s + %s + %s) = %s is not less than min(b, h) = %s",
+			show(cover, ""), show(link, ""), show(bar, ""), show(need, "mm"), show(min(s.B, s.H), "mm"))
+	}
+}
+
+// combination reads 6.10 or 6.10ab; the YAML number 6.10 (or 6.1) counts as "6.10".
+func (r *reader) combination(n *yaml.Node, path string) (string, bool) {
+	v := resolve(n)
+	if v.Kind == yaml.ScalarNode && v.ShortTag() == "!!float" {
+		if x, err := strconv.ParseFloat(v.Value, 64); err == nil && x == 6.1 {
+			return model.Comb610, true
+		}
+	}
+	return r.oneOf(n, path, model.Comb610, model.Comb610ab)
+}
+
+// omit reads the grid points without a column.
+func (r *reader) omit(s *site, n *yaml.Node, path string) []string {
+	its, paths, ok := r.items(n, path, "grid points")
+	if !ok {
+		return nil
+	}
+	var out []string
+	for i, it := range its {
+		id, ok := r.point(s, it, paths[i])
+		switch {
+		case !ok:
+		case s.omitted[id]:
+			r.fail(it, paths[i], "%s is omitted twice", id)
+		default:
+			s.omitted[id] = true
+			out = append(out, id)
+		}
+	}
+	if s.gridOK && len(s.omitted) == s.nx*s.ny {
+		r.fail(n, path, "every grid point is omitted; at least one column must remain")
+	}
+	return out
+}
+
+// columnSizes reads the column size overrides; where two cover a column and level, the later one holds.
+func (r *reader) columnSizes(s *site, n *yaml.Node, path string, b *model.Building, barsOK bool, opt model.Options) []model.ColumnSize {
+	items, ok := r.list(n, path, "column size overrides")
+	if !ok {
+		return nil
+	}
+	var out []model.ColumnSize
+	for i, it := range items {
+		p := index(path, i)
+		c := model.ColumnSize{Line: it.Line}
+		f := r.fields(it, p, "columns", "levels", "b", "h")
+		if f == nil {
+			continue
+		}
+		if e, ok := f["columns"]; ok {
+			c.IDs, _ = r.columnRefs(s, e.val, join(p, "columns"))
+		}
+		if e, ok := f["levels"]; ok {
+			c.Levels, _ = r.levelRefs(s, e.val, join(p, "levels"))
+		}
+		var sizeOK bool
+		c.Size, sizeOK = r.size(f, it, p, "column")
+		if sizeOK && barsOK && b.Cover > 0 {
+			r.room(f["b"].val, join(p, "b"), c.Size, b.Cover, b.Bars, opt)
+		}
+		out = append(out, c)
+	}
+	return out
+}
+
+// columnRefs reads a list of column ids: grid points with a column, each given once.
+func (r *reader) columnRefs(s *site, n *yaml.Node, path string) ([]string, bool) {
+	its, paths, ok := r.items(n, path, "column ids")
+	if !ok {
+		return nil, false
+	}
+	var out []string
+	seen := map[string]bool{}
+	good := true
+	for i, it := range its {
+		id, ok := r.point(s, it, paths[i])
+		switch {
+		case !ok:
+			good = false
+		case s.omitted[id]:
+			r.fail(it, paths[i], "%s is omitted, so it has no column", id)
+			good = false
+		case seen[id]:
+			r.fail(it, paths[i], "column %s is listed twice", id)
+			good = false
+		default:
+			seen[id] = true
+			out = append(out, id)
+		}
+	}
+	return out, good
+}
+
+// beamSizes reads the beam size overrides; where two cover a beam, the later one holds.
+func (r *reader) beamSizes(s *site, n *yaml.Node, path string) []model.BeamSize {
+	items, ok := r.list(n, path, "beam size overrides")
+	if !ok {
+		return nil
+	}
+	var out []model.BeamSize
+	for i, it := range items {
+		p := index(path, i)
+		c := model.BeamSize{Line: it.Line}
+		f := r.fields(it, p, "levels", "dir", "lines", "b", "h")
+		if f == nil {
+			continue
+		}
+		if e, ok := f["levels"]; ok {
+			c.Levels, _ = r.levelRefs(s, e.val, join(p, "levels"))
+		}
+		if e, ok := f["dir"]; ok {
+			c.Dir, _ = r.oneOf(e.val, join(p, "dir"), "x", "y")
+		}
+		if e, ok := f["lines"]; ok {
+			c.Lines, _ = r.beamLines(s, e.val, join(p, "lines"), c.Dir)
+		}
+		c.Size, _ = r.size(f, it, p, "beam")
+		out = append(out, c)
+	}
+	return out
+}
+
+// beamLines reads the grid lines of a beam override; with dir x only numbered lines fit, with dir y only lettered ones.
+func (r *reader) beamLines(s *site, n *yaml.Node, path, dir string) ([]string, bool) {
+	its, paths, ok := r.items(n, path, "grid lines")
+	if !ok {
+		return nil, false
+	}
+	var out []string
+	seen := map[string]bool{}
+	good := true
+	for i, it := range its {
+		k, _, name, ok := r.gridLine(s, it, paths[i])
+		switch {
+		case !ok:
+			good = false
+		case dir == "x" && k == lettered:
+			r.fail(it, paths[i], "line %s is a lettered line, which runs along y; beams along x (dir x) lie on numbered lines", name)
+			good = false
+		case dir == "y" && k == numbered:
+			r.fail(it, paths[i], "line %s is a numbered line, which runs along x; beams along y (dir y) lie on lettered lines", name)
+			good = false
+		case seen[name]:
+			r.fail(it, paths[i], "line %s is listed twice", name)
+			good = false
+		default:
+			seen[name] = true
+			out = append(out, name)
+		}
+	}
+	return out, good
+}
+
+// category reads an imposed-load category of EN 1991-1-1 Table 6.1, upper-cased.
+func (r *reader) category(n *yaml.Node, path string) (string, bool) {
+	v, ok := r.str(n, path)
+	if !ok {
+		return "", false
+	}
+	c := strings.ToUpper(strings.TrimSpace(v))
+	for _, k := range categories {
+		if c == k {
+			return c, true
+		}
+	}
+	r.fail(n, path, "%q is not an imposed-load category of EN 1991-1-1 Table 6.1 (one of %s)", v, strings.Join(categories, ", "))
+	return "", false
+}
+
+// nonNegative reads a number that must not be below zero.
+func (r *reader) nonNegative(n *yaml.Node, path, unit string) (float64, bool) {
+	v, ok := r.number(n, path, unit)
+	if !ok {
+		return 0, false
+	}
+	if v < 0 {
+		r.fail(n, path, "must not be negative, found %s", show(v, unit))
+		return 0, false
+	}
+	return v, true
+}
+
+// floors reads the area loads under key; every level must be covered by exactly one entry.
+func (r *reader) floors(s *site, key, n *yaml.Node, path string) []model.Floor {
+	items, ok := r.list(n, path, "floors")
+	if !ok {
+		return nil
+	}
+	var out []model.Floor
+	owner := map[string]int{}
+	complete := true
+	for i, it := range items {
+		p := index(path, i)
+		fl := model.Floor{Line: it.Line}
+		f := r.fields(it, p, "levels", "gk", "qk", "category", "spans")
+		if f == nil {
+			complete = false
+			continue
+		}
+		levels := s.levels
+		levelsAt, levelsPath := it, p
+		if e, ok := f["levels"]; ok {
+			var good bool
+			fl.Levels, good = r.levelRefs(s, e.val, join(p, "levels"))
+			complete = complete && good
+			levels, levelsAt, levelsPath = fl.Levels, e.val, join(p, "levels")
+		}
+		if s.levelsOK {
+			for _, l := range levels {
+				if first, dup := owner[l]; dup {
+					r.fail(levelsAt, levelsPath, "level %s is given by %s and %s", l, index(path, first), p)
+				} else {
+					owner[l] = i
+				}
+			}
+		}
+		if e, ok := f["gk"]; ok {
+			fl.Gk, _ = r.nonNegative(e.val, join(p, "gk"), "kN/m2")
+		} else {
+			r.fail(it, join(p, "gk"), "is required but missing (the permanent area load besides beams and columns, e.g. gk: 5.8 kN/m2)")
+		}
+		qkOK := false
+		if e, ok := f["qk"]; ok {
+			fl.Qk, qkOK = r.nonNegative(e.val, join(p, "qk"), "kN/m2")
+		} else {
+			r.fail(it, join(p, "qk"), "is required but missing (the imposed area load, e.g. qk: 2.5 kN/m2; 0 for none)")
+		}
+		if e, ok := f["category"]; ok {
+			fl.Category, _ = r.category(e.val, join(p, "category"))
+		} else if qkOK && fl.Qk > 0 {
+			r.fail(it, join(p, "category"), "is required but missing with an imposed load (the category of EN 1991-1-1 Table 6.1, e.g. category: B)")
+		}
+		if e, ok := f["spans"]; ok {
+			fl.Spans, _ = r.oneOf(e.val, join(p, "spans"), model.SpanX, model.SpanY, model.SpanTwoWay)
+		} else {
+			r.fail(it, join(p, "spans"), "is required but missing (how the slab carries its load: x, y or two-way)")
+		}
+		out = append(out, fl)
+	}
+	if s.levelsOK && complete {
+		for _, l := range s.levels {
+			if !has(owner, l) {
+				r.fail(key, path, "level %s has no floor", l)
+			}
+		}
+	}
+	return out
+}
+
+// lineLoads reads the loads on the beams of grid lines.
+func (r *reader) lineLoads(s *site, n *yaml.Node, path string) []model.LineLoad {
+	items, ok := r.list(n, path, "line loads")
+	if !ok {
+		return nil
+	}
+	var out []model.LineLoad
+	for i, it := range items {
+		p := index(path, i)
+		ll := model.LineLoad{Line: it.Line}
+		f := r.fields(it, p, "levels", "line", "from", "to", "gk", "qk", "category")
+		if f == nil {
+			continue
+		}
+		if e, ok := f["levels"]; ok {
+			ll.Levels, _ = r.levelRefs(s, e.val, join(p, "levels"))
+		}
+		kind := lineKind(0)
+		if e, ok := f["line"]; ok {
+			var good bool
+			kind, _, ll.GridLine, good = r.gridLine(s, e.val, join(p, "line"))
+			if !good {
+				kind = 0
+			}
+		} else {
+			r.fail(it, join(p, "line"), "is required but missing (the grid line of the beams, e.g. line: A)")
+		}
+		from, to, bad := -1, -1, false
+		for _, k := range []string{"from", "to"} {
+			e, ok := f[k]
+			if !ok || kind == 0 {
+				continue
+			}
+			ck, ci, name, good := r.gridLine(s, e.val, join(p, k))
+			switch {
+			case !good:
+				bad = true
+			case ck == kind:
+				cross := "a numbered"
+				if kind == numbered {
+					cross = "a lettered"
+				}
+				r.fail(e.val, join(p, k), "line %s runs parallel to line %s and does not cross it; give %s line", name, ll.GridLine, cross)
+				bad = true
+			case k == "from":
+				from, ll.From = ci, name
+			default:
+				to, ll.To = ci, name
+			}
+		}
+		if kind != 0 && !bad && s.gridOK && (from >= 0 || to >= 0) {
+			// With one end given the other is the end of the line, so From and To are both set.
+			last := s.ny - 1
+			if kind == numbered {
+				last = s.nx - 1
+			}
+			at, atPath := f["from"], join(p, "from")
+			if from < 0 {
+				from, ll.From = 0, crossName(kind, 0)
+			}
+			if to < 0 {
+				to, ll.To = last, crossName(kind, last)
+			} else {
+				at, atPath = f["to"], join(p, "to")
+			}
+			if from >= to {
+				r.fail(at.val, atPath, "the range from line %s to line %s along line %s is empty; give from before to", ll.From, ll.To, ll.GridLine)
+			}
+		}
+		qOK := false
+		eg, hasG := f["gk"]
+		if hasG {
+			ll.Gk, _ = r.nonNegative(eg.val, join(p, "gk"), "kN/m")
+		}
+		eq, hasQ := f["qk"]
+		if hasQ {
+			ll.Qk, qOK = r.nonNegative(eq.val, join(p, "qk"), "kN/m")
+		}
+		if !hasG && !hasQ {
+			r.fail(it, p, "give the load: gk, qk or both (e.g. gk: 8.5 kN/m)")
+		}
+		if e, ok := f["category"]; ok {
+			ll.Category, _ = r.category(e.val, join(p, "category"))
+		} else if qOK && ll.Qk > 0 {
+			r.fail(it, join(p, "category"), "is required but missing with an imposed load (the category of EN 1991-1-1 Table 6.1, e.g. category: B)")
+		}
+		out = append(out, ll)
+	}
+	return out
+}
+
+// crossName names cross line i of a line of kind k: numbered lines cross lettered ones and back.
+func crossName(k lineKind, i int) string {
+	if k == lettered {
+		return strconv.Itoa(i + 1)
+	}
+	return letters(i)
+}
