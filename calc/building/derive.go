@@ -98,7 +98,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		st := b.Storeys[k]
 		lv := &levels[k]
 		size := columnSize(b, id, st.Name)
-		l := &trace.Log{Group: "Load take-down at level " + st.Name}
+		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 160)}
 		gk, qk, area := levelTakeDown(l, lv, i, j)
 		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
 			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).

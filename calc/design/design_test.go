@@ -207,7 +207,7 @@ func TestFailureIsLoud(t *testing.T) {
 	if d.Status != StatusFail || d.Utilization <= 1 {
 		t.Fatalf("status %s, utilisation %g", d.Status, d.Utilization)
 	}
-	if !strings.Contains(strings.Join(d.Reasons, " "), "even with As,max") {
+	if !strings.Contains(strings.Join(d.Reasons, " "), "even with the most steel") {
 		t.Errorf("reasons do not say that no arrangement works: %v", d.Reasons)
 	}
 	checkTrace(t, d)

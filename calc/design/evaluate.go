@@ -9,6 +9,9 @@ import (
 	"colsheet/calc/trace"
 )
 
+// stepsPerPattern is the room left for the bar-dependent steps of a full evaluation.
+const stepsPerPattern = 160
+
 // evaluate runs every bar-dependent step for one bar pattern and returns the design it gives.
 // With full false the equilibrium of the section is recorded as one step per axis instead of
 // its whole derivation: that serves to try candidate patterns, whose traces are dropped.
@@ -16,7 +19,9 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	col, st, prm := c.col, c.st, c.p
 	l := &trace.Log{Trial: !full}
 	if full {
-		l.Steps = append(make([]trace.Step, 0, len(c.steps)+128), c.steps...)
+		// The bar-dependent steps follow the common ones in the same backing array: a later
+		// full evaluation overwrites them, which is safe since a design keeps only its last.
+		l.Steps = c.steps[:len(c.steps):cap(c.steps)]
 	}
 	link := c.linkFor(p.Dia)
 	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: link}

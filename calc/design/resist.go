@@ -6,6 +6,7 @@ import (
 	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/section"
+	"colsheet/calc/slender"
 	"colsheet/calc/trace"
 )
 
@@ -112,22 +113,51 @@ func (c *common) resistanceRatio(sec *section.Section, d *Design) (float64, erro
 	return ratio, nil
 }
 
-// cannotPass reports whether the pattern fails for certain: NEd above NRd,max, or a moment
-// resistance below the least design moment max(M02 + NEd·ei, NEd·e0), which second-order
-// effects can only raise (EN 1992-1-1:2004 5.8.8.2, 6.1(4)).
+// cannotPass reports whether the pattern fails a resistance check for certain, by the same
+// value functions as the traced steps but without a trace: NEd above NRd,max, a design moment
+// above the resistance about y or z, or a biaxial ratio above 1 where (5.38) calls for the
+// check. A margin of 1e-6 leaves the verdict on the edge to the traced evaluation.
 func (c *common) cannotPass(p detail.Pattern) bool {
+	const margin = 1 + 1e-6
 	g := detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: c.linkFor(p.Dia)}
-	r := c.section(g.Positions(p), p.BarArea())
-	if c.nEd.V > r.nRdMax() {
+	pos := g.Positions(p)
+	r := c.section(pos, p.BarArea())
+	nMax := r.nRdMax()
+	if c.nEd.V > nMax*margin {
 		return true
 	}
-	for k := 0; k < 2; k++ {
-		a := &c.ax[k]
-		least := math.Max(a.m02i.V, c.nEd.V*a.e0.V)
-		m, ok := r.mRd(k, c.nEd.V)
-		if !ok || m < least {
+	as := p.Area()
+	omega := slender.MechanicalRatioValue(as, c.fyd.V, c.ac.V, c.fcd.V)
+	bFac := slender.FactorBValue(omega)
+	k := c.p.Get("lambda_lim_k")
+	var mEd, mRd [2]float64
+	for ax := 0; ax < 2; ax++ {
+		a := &c.ax[ax]
+		lim := slender.LambdaLimValue(k, a.factorA.V, bFac, a.factorC.V, c.nRel.V)
+		if a.lambda.V > lim {
+			is := slender.GyrationValue(layersOf(pos, ax))
+			d := slender.EffectiveDepthValue(a.depth.V, is)
+			r0 := slender.BaseCurvatureValue(c.fyd.V/c.es.V, d)
+			kphi := slender.KphiValue(slender.BetaValue(c.fck.V, a.lambda.V), a.phiEf.V)
+			curv := slender.CurvatureValue(slender.KrValue(c.nRel.V, omega), kphi, r0)
+			m2 := c.nEd.V * slender.SecondOrderEccentricityValue(curv, a.l0.V, c.p.Get("c_curv"))
+			m0e := slender.EquivalentMomentValue(a.m01i.V, a.m02i.V)
+			mEd[ax] = slender.DesignMomentSlenderValue(a.m01i.V, a.m02i.V, m0e, m2, c.nEd.V, a.e0.V)
+		} else {
+			mEd[ax] = slender.DesignMomentStockyValue(a.m02i.V, c.nEd.V, a.e0.V)
+		}
+		m, ok := r.mRd(ax, c.nEd.V)
+		if !ok || mEd[ax] > m*margin {
 			return true
 		}
+		mRd[ax] = m
 	}
-	return false
+	if slender.SlendernessRatiosCloseValue(c.ax[0].lambda.V, c.ax[1].lambda.V) && slender.EccentricitiesApartValue(mEd[0], mEd[1], c.b.V, c.h.V) {
+		return false
+	}
+	if mRd[0] <= 0 || mRd[1] <= 0 {
+		return true
+	}
+	a := slender.ExponentAValue(c.nEd.V, slender.NRdBiaxialValue(c.ac.V, c.fcd.V, as, c.fyd.V))
+	return slender.BiaxialRatioValue(mEd[0], mRd[0], mEd[1], mRd[1], a) > margin
 }

@@ -145,9 +145,10 @@ func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code}
-	l := &trace.Log{Steps: make([]trace.Step, 0, 96)}
+	// Room for every step of the design, so that evaluate and finish append in place.
+	l := &trace.Log{Steps: make([]trace.Step, 0, 96+stepsPerPattern)}
 	if dv != nil {
-		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+96), dv.Steps...)
+		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+96+stepsPerPattern), dv.Steps...)
 	}
 	p := in.Code
 	conc := in.Materials.Concrete
@@ -279,23 +280,22 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 // design designs or checks one column over one lift whose actions may come from a derivation.
 func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) Design {
 	c := newCommon(in, col, st, dv)
-	given := col.Bars != nil
-	patterns := candidatesFor(c)
-	if given {
-		return c.finish(c.evaluate(patterns[0], true, true))
+	if col.Bars != nil {
+		return c.finish(c.evaluate(c.givenPattern(), true, true))
 	}
-	if len(patterns) > 0 && c.nEd.V > c.section([][2]float64{{0, 0}}, c.asMax.V).nRdMax() {
-		// Not even As,max carries NEd: show the pattern with the most steel, which fails loudly.
-		d := c.evaluate(patterns[len(patterns)-1], false, true)
-		d.Reasons = append([]string{"NEd exceeds the resistance to pure compression even with As,max: enlarge the section or raise the concrete class."}, d.Reasons...)
-		return c.finish(d)
-	}
+	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor, c.asMin.V, c.asMax.V)
 	var best Design
-	found := false
-	for i, p := range patterns {
-		// A pattern whose resistance falls short of the first-order design moments cannot pass
-		// whatever its second-order moments: skip it unless it is the last one left to show.
-		if i < len(patterns)-1 && c.cannotPass(p) {
+	found, seen := false, false
+	var lastP detail.Pattern
+	for p, ok := it.Next(); ok; p, ok = it.Next() {
+		seen, lastP = true, p
+		// NRd,max grows with the steel area alone: below the area that carries NEd every
+		// pattern fails, and the patterns come in order of area.
+		if c.nEd.V > c.section([][2]float64{{0, 0}}, p.Area()).nRdMax() {
+			continue
+		}
+		// A pattern that fails a resistance check for certain is skipped.
+		if c.cannotPass(p) {
 			continue
 		}
 		// The first pattern that survives usually passes, so it is traced in full at once;
@@ -311,32 +311,41 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 			best, found = d, true
 		}
 	}
-	if !found {
+	switch {
+	case !seen:
 		return c.noArrangement()
+	case !found:
+		// Every pattern fails for certain: show the one with the most steel, which fails loudly.
+		d := c.evaluate(lastP, false, true)
+		if c.nEd.V > d.NRdMax {
+			d.Reasons = append([]string{"NEd exceeds the resistance to pure compression even with the most steel that fits: enlarge the section or raise the concrete class."}, d.Reasons...)
+		} else {
+			d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the most steel is shown."}, d.Reasons...)
+		}
+		return c.finish(d)
 	}
 	d := c.evaluate(best.pattern, false, true)
 	d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, d.Reasons...)
 	return c.finish(d)
 }
 
-// candidatesFor returns the given bars laid out, or every pattern to try in order of steel area.
-func candidatesFor(c *common) []detail.Pattern {
-	col, in := c.col, c.in
-	var patterns []detail.Pattern
-	if col.Bars != nil {
-		g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: c.linkFor(col.Bars.Dia)}
-		p, ok := g.ForCount(col.Bars.Count, col.Bars.Dia, 0)
-		if !ok {
-			// Bars that do not fit at all: lay them out two per b-face and the rest on the h-faces,
-			// and let the spacing check fail loudly.
-			p = detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count / 2}
-		}
-		patterns = []detail.Pattern{p}
-	} else {
-		patterns = detail.Candidates(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor,
-			c.asMin.V, c.asMax.V)
+// givenPattern lays out the given bars: the most even pattern that fits, or, when none fits,
+// two bars on each b-face and the rest on the h-faces, which the spacing check then fails loudly.
+func (c *common) givenPattern() detail.Pattern {
+	col := c.col
+	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: c.linkFor(col.Bars.Dia)}
+	if p, ok := g.ForCount(col.Bars.Count, col.Bars.Dia, 0); ok {
+		return p
 	}
-	return patterns
+	return detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count / 2}
+}
+
+// candidatesFor returns the patterns to try: the given bars, or every pattern in order of area.
+func candidatesFor(c *common) []detail.Pattern {
+	if c.col.Bars != nil {
+		return []detail.Pattern{c.givenPattern()}
+	}
+	return detail.Candidates(c.col.B, c.col.H, c.col.Cover, c.in.Options.BarDiameters, c.linkFor, c.sMinFor, c.asMin.V, c.asMax.V)
 }
 
 // onAxis returns the step with its symbol marked for bending about axis n ("y" or "z").

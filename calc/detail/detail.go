@@ -149,71 +149,106 @@ func (g Geometry) ForCount(count int, dia, sMin float64) (Pattern, bool) {
 // Candidates returns every pattern of the given diameters that fits, with sMinFor giving the least
 // clear spacing for a diameter and linkFor the link diameter that goes with it, ordered by steel
 // area, then by number of bars, then by evenness. Patterns outside [asLo, asHi] are left out.
+func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
+	var out []Pattern
+	it := NewIter(b, h, cover, dias, linkFor, sMinFor, asLo, asHi)
+	for p, ok := it.Next(); ok; p, ok = it.Next() {
+		out = append(out, p)
+	}
+	return out
+}
+
+// Iter yields the patterns of Candidates one at a time, in the same order, making each only
+// when it is asked for.
 //
 // For one diameter the patterns come out in order of count, and for one count in order of
-// evenness; the lists of the diameters are then merged by area, so no sort is needed. A count
-// that does not fit means that no larger count fits either (taking a bar off a face widens the gaps).
-func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
-	type cand struct {
-		p      Pattern
-		area   float64
-		spread float64
+// evenness; the diameters' streams are merged by area. A count that does not fit means that
+// no larger count fits either (taking a bar off a face widens the gaps).
+type Iter struct {
+	streams    []stream
+	asLo, asHi float64
+}
+
+type cand struct {
+	p      Pattern
+	area   float64
+	spread float64
+}
+
+// stream makes the patterns of one diameter, a count at a time.
+type stream struct {
+	g       Geometry
+	dia     float64
+	sMin    float64
+	count   int
+	pending []cand
+	done    bool
+}
+
+// NewIter returns an iterator over the patterns that Candidates lists.
+func NewIter(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) *Iter {
+	it := &Iter{asLo: asLo, asHi: asHi, streams: make([]stream, len(dias))}
+	for k, d := range dias {
+		it.streams[k] = stream{g: Geometry{B: b, H: h, Cover: cover, Link: linkFor(d)}, dia: d, sMin: sMinFor(d), count: 4}
 	}
-	lists := make([][]cand, 0, len(dias))
-	total := 0
-	for _, d := range dias {
-		g := Geometry{B: b, H: h, Cover: cover, Link: linkFor(d)}
-		sMin := sMinFor(d)
-		var list []cand
-		for count := 4; ; count += 2 {
-			first := len(list)
-			half := count/2 + 2 // NB + NH
-			fits := false
-			for nb := 2; nb <= half-2; nb++ {
-				p := Pattern{Dia: d, NB: nb, NH: half - nb}
-				if !g.Fits(p, sMin) {
-					continue
-				}
-				fits = true
-				if a := p.Area(); a >= asLo-1e-9 && a <= asHi+1e-9 {
-					list = append(list, cand{p, a, g.spread(p)})
-				}
+	return it
+}
+
+// fill makes the next count's patterns of the stream that lie within the area limits.
+func (s *stream) fill(asLo, asHi float64) {
+	for len(s.pending) == 0 && !s.done {
+		half := s.count/2 + 2 // NB + NH
+		fits := false
+		for nb := 2; nb <= half-2; nb++ {
+			p := Pattern{Dia: s.dia, NB: nb, NH: half - nb}
+			if !s.g.Fits(p, s.sMin) {
+				continue
 			}
-			if !fits || (Pattern{Dia: d, NB: 2, NH: half - 2}).Area() > asHi+1e-9 {
-				break
-			}
-			// Order this count's distributions by evenness (a handful, insertion sort).
-			for i := first + 1; i < len(list); i++ {
-				for j := i; j > first && list[j].spread < list[j-1].spread; j-- {
-					list[j], list[j-1] = list[j-1], list[j]
-				}
-			}
-		}
-		lists = append(lists, list)
-		total += len(list)
-	}
-	less := func(x, y cand) bool {
-		switch {
-		case math.Abs(x.area-y.area) > 1e-6:
-			return x.area < y.area
-		case x.p.Count() != y.p.Count():
-			return x.p.Count() < y.p.Count()
-		case x.spread != y.spread:
-			return x.spread < y.spread
-		}
-		return x.p.Dia < y.p.Dia
-	}
-	ps := make([]Pattern, 0, total)
-	heads := make([]int, len(lists))
-	for len(ps) < total {
-		k := -1
-		for i, l := range lists {
-			if heads[i] < len(l) && (k < 0 || less(l[heads[i]], lists[k][heads[k]])) {
-				k = i
+			fits = true
+			if a := p.Area(); a >= asLo-1e-9 && a <= asHi+1e-9 {
+				s.pending = append(s.pending, cand{p, a, s.g.spread(p)})
 			}
 		}
-		ps = append(ps, lists[k][heads[k]].p)
-		heads[k]++
+		if !fits || (Pattern{Dia: s.dia, NB: 2, NH: half - 2}).Area() > asHi+1e-9 {
+			s.done = true
+		}
+		s.count += 2
+		// Order this count's distributions by evenness (a handful, insertion sort).
+		for i := 1; i < len(s.pending); i++ {
+			for j := i; j > 0 && s.pending[j].spread < s.pending[j-1].spread; j-- {
+				s.pending[j], s.pending[j-1] = s.pending[j-1], s.pending[j]
+			}
+		}
 	}
-	return ps
+}
+
+func less(x, y cand) bool {
+	switch {
+	case math.Abs(x.area-y.area) > 1e-6:
+		return x.area < y.area
+	case x.p.Count() != y.p.Count():
+		return x.p.Count() < y.p.Count()
+	case x.spread != y.spread:
+		return x.spread < y.spread
+	}
+	return x.p.Dia < y.p.Dia
+}
+
+// Next returns the next pattern, or false when there are no more.
+func (it *Iter) Next() (Pattern, bool) {
+	k := -1
+	for i := range it.streams {
+		s := &it.streams[i]
+		s.fill(it.asLo, it.asHi)
+		if len(s.pending) > 0 && (k < 0 || less(s.pending[0], it.streams[k].pending[0])) {
+			k = i
+		}
+	}
+	if k < 0 {
+		return Pattern{}, false
+	}
+	s := &it.streams[k]
+	p := s.pending[0].p
+	s.pending = s.pending[1:]
+	return p, true
 }

@@ -105,7 +105,7 @@ func RelativeForce(id string, nEd, ac, fcd trace.Q) trace.Step {
 // MechanicalRatio returns ω = As·fyd/(Ac·fcd), EN 1992-1-1:2004 5.8.3.1(1).
 func MechanicalRatio(id string, as, fyd, ac, fcd trace.Q) trace.Step {
 	return trace.Formula(id, "Mechanical reinforcement ratio", ec2+"5.8.3.1(1)", "ω", "",
-		as.V*fyd.V/(ac.V*fcd.V), "A_s * f_yd / (A_c * f_cd)",
+		MechanicalRatioValue(as.V, fyd.V, ac.V, fcd.V), "A_s * f_yd / (A_c * f_cd)",
 		trace.A("A_s", as), trace.A("f_yd", fyd), trace.A("A_c", ac), trace.A("f_cd", fcd))
 }
 
@@ -123,7 +123,7 @@ func FactorADefault(id string) trace.Step {
 
 // FactorB returns B = √(1 + 2ω), EN 1992-1-1:2004 5.8.3.1(1).
 func FactorB(id string, omega trace.Q) trace.Step {
-	return trace.Formula(id, "Factor B for reinforcement", ec2+"5.8.3.1(1)", "B", "", math.Sqrt(1+2*omega.V),
+	return trace.Formula(id, "Factor B for reinforcement", ec2+"5.8.3.1(1)", "B", "", FactorBValue(omega.V),
 		"sqrt(1 + 2 * omega)", trace.A("omega", omega))
 }
 
@@ -154,7 +154,7 @@ const nFloor = 1e-4
 // LambdaLim returns λlim = k·A·B·C/√n with k = 20 recommended, EN 1992-1-1:2004 5.8.3.1(1), Eq. (5.13N).
 // n is taken not less than 1e-4 so that the limit stays finite for a column without axial force.
 func LambdaLim(id string, k, a, b, c, n trace.Q) trace.Step {
-	v := k.V * a.V * b.V * c.V / math.Sqrt(math.Max(n.V, nFloor))
+	v := LambdaLimValue(k.V, a.V, b.V, c.V, n.V)
 	s := trace.Formula(id, "Slenderness limit", ec2+"5.8.3.1(1), Eq. (5.13N)", "λ_lim", "", v,
 		"k * A * B * C / sqrt(max(n, 0.0001))", trace.A("k", k), trace.A("A", a), trace.A("B", b),
 		trace.A("C", c), trace.A("n", n))
@@ -189,12 +189,12 @@ func YieldStrain(id string, fyd, es trace.Q) trace.Step {
 // EN 1992-1-1:2004 5.8.8.3(2), Eq. (5.35).
 func EffectiveDepth(id string, depth, is trace.Q) trace.Step {
 	return trace.Formula(id, "Effective depth for the curvature", ec2+"5.8.8.3(2), Eq. (5.35)", "d", "mm",
-		depth.V/2+is.V, "h / 2 + i_s", trace.A("h", depth), trace.A("i_s", is))
+		EffectiveDepthValue(depth.V, is.V), "h / 2 + i_s", trace.A("h", depth), trace.A("i_s", is))
 }
 
 // BaseCurvature returns 1/r0 = εyd/(0.45·d), EN 1992-1-1:2004 5.8.8.3(1).
 func BaseCurvature(id string, epsYd, d trace.Q) trace.Step {
-	return trace.Formula(id, "Basic curvature", ec2+"5.8.8.3(1)", "1/r_0", "1/mm", epsYd.V/(0.45*d.V),
+	return trace.Formula(id, "Basic curvature", ec2+"5.8.8.3(1)", "1/r_0", "1/mm", BaseCurvatureValue(epsYd.V, d.V),
 		"eps_yd / (0.45 * d)", trace.A("eps_yd", epsYd), trace.A("d", d))
 }
 
@@ -202,34 +202,33 @@ func BaseCurvature(id string, epsYd, d trace.Q) trace.Step {
 // nbal = 0.4, EN 1992-1-1:2004 5.8.8.3(3), Eq. (5.36). It is kept at 0 or more: a negative value
 // means NEd is beyond the section's capacity, which the resistance checks report.
 func Kr(id string, n, omega trace.Q) trace.Step {
-	nu := 1 + omega.V
-	v := math.Max(math.Min((nu-n.V)/(nu-0.4), 1), 0)
+	v := KrValue(n.V, omega.V)
 	return trace.Formula(id, "Correction factor for axial load", ec2+"5.8.8.3(3), Eq. (5.36)", "K_r", "", v,
 		"max(min((1 + omega - n) / (1 + omega - 0.4), 1), 0)", trace.A("n", n), trace.A("omega", omega))
 }
 
 // Beta returns β = 0.35 + fck/200 − λ/150, EN 1992-1-1:2004 5.8.8.3(4).
 func Beta(id string, fck, lambda trace.Q) trace.Step {
-	return trace.Formula(id, "Creep coefficient factor", ec2+"5.8.8.3(4)", "β", "", 0.35+fck.V/200-lambda.V/150,
+	return trace.Formula(id, "Creep coefficient factor", ec2+"5.8.8.3(4)", "β", "", BetaValue(fck.V, lambda.V),
 		"0.35 + f_ck / 200 - lambda / 150", trace.A("f_ck", fck), trace.A("lambda", lambda))
 }
 
 // Kphi returns the creep factor Kφ = 1 + β·φef ≥ 1, EN 1992-1-1:2004 5.8.8.3(4), Eq. (5.37).
 func Kphi(id string, beta, phiEf trace.Q) trace.Step {
-	return trace.Formula(id, "Factor for creep", ec2+"5.8.8.3(4), Eq. (5.37)", "K_φ", "", math.Max(1+beta.V*phiEf.V, 1),
+	return trace.Formula(id, "Factor for creep", ec2+"5.8.8.3(4), Eq. (5.37)", "K_φ", "", KphiValue(beta.V, phiEf.V),
 		"max(1 + beta * phi_ef, 1)", trace.A("beta", beta), trace.A("phi_ef", phiEf))
 }
 
 // Curvature returns 1/r = Kr·Kφ·1/r0, EN 1992-1-1:2004 5.8.8.3(1), Eq. (5.34).
 func Curvature(id string, kr, kphi, r0 trace.Q) trace.Step {
-	return trace.Formula(id, "Design curvature", ec2+"5.8.8.3(1), Eq. (5.34)", "1/r", "1/mm", kr.V*kphi.V*r0.V,
+	return trace.Formula(id, "Design curvature", ec2+"5.8.8.3(1), Eq. (5.34)", "1/r", "1/mm", CurvatureValue(kr.V, kphi.V, r0.V),
 		"K_r * K_phi * inv_r0", trace.A("K_r", kr), trace.A("K_phi", kphi), trace.A("inv_r0", r0))
 }
 
 // SecondOrderEccentricity returns e2 = (1/r)·l0²/c, EN 1992-1-1:2004 5.8.8.2(3)-(4).
 func SecondOrderEccentricity(id string, curv, l0, c trace.Q) trace.Step {
 	return trace.Formula(id, "Deflection (second-order eccentricity)", ec2+"5.8.8.2(3), (4)", "e_2", "mm",
-		curv.V*l0.V*l0.V/c.V, "inv_r * l0 ** 2 / c", trace.A("inv_r", curv), trace.A("l0", l0), trace.A("c", c))
+		SecondOrderEccentricityValue(curv.V, l0.V, c.V), "inv_r * l0 ** 2 / c", trace.A("inv_r", curv), trace.A("l0", l0), trace.A("c", c))
 }
 
 // SecondOrderMoment returns M2 = NEd·e2, EN 1992-1-1:2004 5.8.8.2(3), Eq. (5.33).
@@ -240,7 +239,7 @@ func SecondOrderMoment(id string, nEd, e2 trace.Q) trace.Step {
 
 // EquivalentMoment returns M0e = 0.6·M02 + 0.4·M01 ≥ 0.4·M02, EN 1992-1-1:2004 5.8.8.2(2), Eq. (5.32).
 func EquivalentMoment(id string, m01, m02 trace.Q) trace.Step {
-	v := math.Max(0.6*m02.V+0.4*m01.V, 0.4*m02.V)
+	v := EquivalentMomentValue(m01.V, m02.V)
 	return trace.Formula(id, "Equivalent first-order moment", ec2+"5.8.8.2(2), Eq. (5.32)", "M_0e", "Nmm", v,
 		"max(0.6 * M_02 + 0.4 * M_01, 0.4 * M_02)", trace.A("M_01", m01), trace.A("M_02", m02))
 }
@@ -248,7 +247,7 @@ func EquivalentMoment(id string, m01, m02 trace.Q) trace.Step {
 // DesignMomentSlender returns MEd = max{M02, M0e + M2, M01 + 0.5·M2, NEd·e0}, the end and mid-height
 // envelope of EN 1992-1-1:2004 5.8.8.2 with the minimum of 6.1(4), as commonly applied.
 func DesignMomentSlender(id string, m01, m02, m0e, m2, nEd, e0 trace.Q) trace.Step {
-	v := math.Max(math.Max(m02.V, m0e.V+m2.V), math.Max(m01.V+0.5*m2.V, nEd.V*e0.V))
+	v := DesignMomentSlenderValue(m01.V, m02.V, m0e.V, m2.V, nEd.V, e0.V)
 	return trace.Formula(id, "Design moment", ec2+"5.8.8.2(1)-(3), Fig. 5.2; 6.1(4)", "M_Ed", "Nmm", v,
 		"max(M_02, M_0e + M_2, M_01 + 0.5 * M_2, N_Ed * e_0)",
 		trace.A("M_02", m02), trace.A("M_0e", m0e), trace.A("M_2", m2), trace.A("M_01", m01),
@@ -258,14 +257,14 @@ func DesignMomentSlender(id string, m01, m02, m0e, m2, nEd, e0 trace.Q) trace.St
 // DesignMomentStocky returns MEd = max{M02, NEd·e0} for a column whose second-order effects may be
 // ignored, EN 1992-1-1:2004 5.8.3.1(1) and 6.1(4).
 func DesignMomentStocky(id string, m02, nEd, e0 trace.Q) trace.Step {
-	return trace.Formula(id, "Design moment", ec2+"5.8.3.1(1); 6.1(4)", "M_Ed", "Nmm", math.Max(m02.V, nEd.V*e0.V),
+	return trace.Formula(id, "Design moment", ec2+"5.8.3.1(1); 6.1(4)", "M_Ed", "Nmm", DesignMomentStockyValue(m02.V, nEd.V, e0.V),
 		"max(M_02, N_Ed * e_0)", trace.A("M_02", m02), trace.A("N_Ed", nEd), trace.A("e_0", e0))
 }
 
 // SlendernessRatiosClose returns 1 when λy/λz ≤ 2 and λz/λy ≤ 2, EN 1992-1-1:2004 5.8.9(3), Eq. (5.38a).
 func SlendernessRatiosClose(id string, lambdaY, lambdaZ trace.Q) trace.Step {
 	v := 0.0
-	if lambdaY.V <= 2*lambdaZ.V && lambdaZ.V <= 2*lambdaY.V {
+	if SlendernessRatiosCloseValue(lambdaY.V, lambdaZ.V) {
 		v = 1
 	}
 	return trace.Formula(id, "Slenderness ratios within a factor 2 (1 = yes)", ec2+"5.8.9(3), Eq. (5.38a)", "c_a", "", v,
@@ -276,9 +275,8 @@ func SlendernessRatiosClose(id string, lambdaY, lambdaZ trace.Q) trace.Step {
 // (ey/b)/(ez/h) ≤ 0.2 or (ez/h)/(ey/b) ≤ 0.2 with ey = MEdz/NEd and ez = MEdy/NEd,
 // EN 1992-1-1:2004 5.8.9(3), Eq. (5.38b). NEd cancels, so the moments are compared directly.
 func EccentricitiesApart(id string, mEdY, mEdZ, b, h trace.Q) trace.Step {
-	ry, rz := mEdZ.V/b.V, mEdY.V/h.V
 	v := 0.0
-	if math.Min(ry, rz) <= 0.2*math.Max(ry, rz) {
+	if EccentricitiesApartValue(mEdY.V, mEdZ.V, b.V, h.V) {
 		v = 1
 	}
 	return trace.Formula(id, "Relative eccentricities apart by a factor 5 (1 = yes)", ec2+"5.8.9(3), Eq. (5.38b)", "c_b", "", v,
@@ -289,21 +287,14 @@ func EccentricitiesApart(id string, mEdY, mEdZ, b, h trace.Q) trace.Step {
 // NRdBiaxial returns NRd = Ac·fcd + As·fyd for the exponent of (5.39), EN 1992-1-1:2004 5.8.9(4).
 func NRdBiaxial(id string, ac, fcd, as, fyd trace.Q) trace.Step {
 	return trace.Formula(id, "Design axial resistance for the biaxial exponent", ec2+"5.8.9(4)", "N_Rd", "N",
-		ac.V*fcd.V+as.V*fyd.V, "A_c * f_cd + A_s * f_yd",
+		NRdBiaxialValue(ac.V, fcd.V, as.V, fyd.V), "A_c * f_cd + A_s * f_yd",
 		trace.A("A_c", ac), trace.A("f_cd", fcd), trace.A("A_s", as), trace.A("f_yd", fyd))
 }
 
 // ExponentA returns the exponent a of (5.39), linear between NEd/NRd = 0.1, 0.7 and 1.0 where
 // a = 1.0, 1.5 and 2.0, EN 1992-1-1:2004 5.8.9(4).
 func ExponentA(id string, nEd, nRd trace.Q) trace.Step {
-	r := nEd.V / nRd.V
-	var v float64
-	if r <= 0.7 {
-		v = 1 + (r-0.1)*0.5/0.6
-	} else {
-		v = 1.5 + (r-0.7)*0.5/0.3
-	}
-	v = math.Min(math.Max(v, 1), 2)
+	v := ExponentAValue(nEd.V, nRd.V)
 	return trace.Formula(id, "Exponent for the biaxial check", ec2+"5.8.9(4)", "a", "", v,
 		"min(max(N_Ed / N_Rd <= 0.7 ? 1 + (N_Ed / N_Rd - 0.1) * 0.5 / 0.6 : 1.5 + (N_Ed / N_Rd - 0.7) * 0.5 / 0.3, 1), 2)",
 		trace.A("N_Ed", nEd), trace.A("N_Rd", nRd))
@@ -312,7 +303,7 @@ func ExponentA(id string, nEd, nRd trace.Q) trace.Step {
 // BiaxialRatio returns (MEdz/MRdz)^a + (MEdy/MRdy)^a, EN 1992-1-1:2004 5.8.9(4), Eq. (5.39).
 // The resistances must be positive.
 func BiaxialRatio(id string, mEdY, mRdY, mEdZ, mRdZ, a trace.Q) trace.Step {
-	v := math.Pow(mEdZ.V/mRdZ.V, a.V) + math.Pow(mEdY.V/mRdY.V, a.V)
+	v := BiaxialRatioValue(mEdY.V, mRdY.V, mEdZ.V, mRdZ.V, a.V)
 	return trace.Check(id, "Biaxial bending", ec2+"5.8.9(4), Eq. (5.39)",
 		"(M_Edz/M_Rdz)^a + (M_Edy/M_Rdy)^a ≤ 1", v,
 		"(M_Edz / M_Rdz) ** a + (M_Edy / M_Rdy) ** a",
@@ -328,13 +319,10 @@ type Layer struct {
 // ReinforcementGyration returns is = √(Σ n·c²/Σ n), the radius of gyration of the total
 // reinforcement of equal bars about the centroid, EN 1992-1-1:2004 5.8.8.3(2).
 func ReinforcementGyration(id string, layers []Layer) trace.Step {
-	num, den := 0.0, 0.0
 	expr := "sqrt(("
 	sum := ""
 	args := make([]trace.Arg, 0, 2*len(layers))
 	for i, l := range layers {
-		num += float64(l.Count) * l.Coord * l.Coord
-		den += float64(l.Count)
 		c, n := "c"+itoa(i+1), "n"+itoa(i+1)
 		if i > 0 {
 			expr += " + "
@@ -347,7 +335,7 @@ func ReinforcementGyration(id string, layers []Layer) trace.Step {
 	}
 	expr += ") / (" + sum + "))"
 	return trace.Formula(id, "Radius of gyration of the reinforcement", ec2+"5.8.8.3(2)", "i_s", "mm",
-		math.Sqrt(num/den), expr, args...)
+		GyrationValue(layers), expr, args...)
 }
 
 func itoa(i int) string {
