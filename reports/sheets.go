@@ -85,6 +85,8 @@ type designRow struct {
 	Column      string
 	Storey      string
 	Section     string
+	NEd         string // kN
+	MEdY, MEdZ  string // kNm
 	Bars        string
 	Links       string
 	Utilization string
@@ -256,7 +258,8 @@ func index(m markup, r *design.Result, link func(name string) string) sheetView 
 		v.Designs = append(v.Designs, designRow{
 			Sheet: fmt.Sprint(i + 2), Link: link(nm[i]), Column: m.text(d.Column), Storey: m.text(d.Storey),
 			Section: m.text(fmt.Sprintf("%s × %s", fmtNum(d.B).plain(), fmtNum(d.H).plain())),
-			Bars:    m.text(barsText(d)), Links: m.text(linksText(d)),
+			NEd: m.num(fmtNum(d.NEd / 1e3)), MEdY: m.num(fmtNum(d.Y.MEd / 1e6)), MEdZ: m.num(fmtNum(d.Z.MEd / 1e6)),
+			Bars: m.text(barsText(d)), Links: m.text(linksText(d)),
 			Utilization: m.num(fmtNum(d.Utilization)), Status: st, Failed: failed})
 	}
 	n := r.Failed()
