@@ -71,7 +71,7 @@ func methods(in *model.Input) []Method {
 	if in.Options.Imperfection == model.ImperfL0Over400 {
 		imp = Method{"Geometric imperfection", "ei = l0/400 about each axis", "EN 1992-1-1:2004 5.2(9)"}
 	}
-	return []Method{
+	out := []Method{
 		block,
 		{"Reinforcing steel", "bilinear with a horizontal top branch at fyd, no strain limit", "EN 1992-1-1:2004 3.2.7(2)b"},
 		{"Strain limits", "pivots: εcu at the compressed face, or εc2 at (1 − εc2/εcu2)·h when the whole section is compressed", "EN 1992-1-1:2004 6.1(5), Fig. 6.1"},
@@ -85,6 +85,33 @@ func methods(in *model.Input) []Method {
 		{"Links", "diameter, spacing and reduced spacing", "EN 1992-1-1:2004 9.5.3"},
 		{"Scope", "isolated columns of braced frames under the given actions; tension columns excluded", "common practice"},
 	}
+	if b := in.Building; b != nil {
+		analysis := Method{"Column moments", "simplified subframe at each level: the columns above and below with far ends fixed, the beams either side at " + b.Options.BeamStiffness + " stiffness with far ends fixed; the unbalanced beam moment shared by stiffness; a fixed base takes half the moment of the lift above it", "common practice"}
+		if b.Analysis == model.AnalysisFrame {
+			analysis = Method{"Column moments", "each frame line solved whole, braced (joint rotations only), under all spans loaded and the two checkerboard patterns; at each column end the largest moment", "common practice; EN 1992-1-1:2004 5.1.3"}
+		}
+		comb := "Eq. (6.10)"
+		if b.Options.Combination == model.Comb610ab {
+			comb = "the less favourable of Eq. (6.10a) and (6.10b)"
+		}
+		red := "none"
+		switch b.Options.Reduction {
+		case model.ReduceArea:
+			red = "αA by the floor area draining to the column at each level, EN 1991-1-1:2002 6.3.1.2(10)"
+		case model.ReduceStoreys:
+			red = "αn by the storeys of the category above, EN 1991-1-1:2002 6.3.1.2(11)"
+		}
+		out = append(out,
+			Method{"Take-down", "slabs to beams one way or by 45° lines (two way), beams to columns as simply supported; self-weight of beams (b·h) and columns from their sizes; NEd at the bottom of each lift", "common practice; EN 1991-1-1:2002 Annex A"},
+			Method{"Combination", comb + ", each imposed-load category leading in turn, the others with ψ0", "EN 1990:2002 6.4.3.2, Table A1.1, Table A1.2(B)"},
+			Method{"Imposed-load reduction", red, "EN 1991-1-1:2002 6.3.1.2"},
+			Method{"Load arrangements", "for the column moments, at each joint one side γG·Gk + γQ·Qk and the other γG,light·Gk, the side that gives the larger unbalanced moment (ties: the sense that bends the lifts in single curvature); all spans loaded for NEd", "EN 1992-1-1:2004 5.1.3"},
+			analysis,
+			Method{"Design case", "the largest NEd (all spans loaded) with the largest end moments of the arrangements, about both axes", "common practice"},
+			Method{"Effective length", "l0 = " + strconv.FormatFloat(b.Options.L0Factor, 'g', -1, 64) + " × storey height", "EN 1992-1-1:2004 5.8.3.2"},
+		)
+	}
+	return out
 }
 
 // common holds the traced quantities of a lift that do not depend on the bars.
