@@ -25,6 +25,7 @@ type Lift struct {
 // Sources names the traced quantities that the column design takes from the derivation.
 type Sources struct {
 	NEd                        trace.Q
+	NArr                       [2]trace.Q // NEd of the moment arrangements in the frames along x and y
 	MYTop, MYBot, MZTop, MZBot trace.Q
 }
 
@@ -93,13 +94,14 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 	n := len(b.Storeys)
 	lifts := make([]Lift, n)
 	var gAbove trace.Q
+	var dAbove [2]trace.Q // cumulative reductions of the moment arrangements, from the lift above
 	qAbove := map[string]trace.Q{}
 	for k := n - 1; k >= 0; k-- {
 		st := b.Storeys[k]
 		lv := &levels[k]
 		size := columnSize(b, id, st.Name)
 		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 160)}
-		gk, qk, area := levelTakeDown(l, lv, i, j)
+		gk, qk, area, byBeam := levelTakeDown(l, lv, i, j)
 		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
 			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).
 				Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
@@ -142,6 +144,9 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		}
 		lifts[k] = Lift{Column: id, I: i, J: j, Level: k, Name: st.Name, Size: size, Height: st.Height}
 		lifts[k].combine(in, l, levels, k, qCum, gCum)
+		for d := DirX; d <= DirY; d++ {
+			dAbove[d] = lifts[k].arrangementForce(in, l, lv, d, byBeam, dAbove[d], k < n-1)
+		}
 		lifts[k].Steps = l.Steps
 		// Cumulative values for the lift below, referred to across sheets.
 		gAbove = absolute(gCum, id, st.Name)
@@ -217,4 +222,43 @@ func mapList(m map[string]trace.Q) map[string][]trace.Q {
 		out[k] = []trace.Q{v}
 	}
 	return out
+}
+
+// arrangementForce records the design axial force that accompanies the moment arrangements in
+// the frames of direction d: NEd less, at this level and every level above, the part of the
+// lightly loaded beam's reaction that the arrangement leaves off, (γG − γG,light)·R_G + γQ·R_Q
+// (EN 1992-1-1:2004 5.1.3). It returns the cumulative reduction for the lift below.
+func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir, byBeam map[int]reactions, above trace.Q, hasAbove bool) trace.Q {
+	p := in.Code
+	axis := "y"
+	if d == DirY {
+		axis = "z"
+	}
+	l.Group = "Design axial force with the moment arrangement about " + axis
+	pre := "arr/" + d.String() + "/"
+	gG, gQ, gL := p.Get("gamma_G"), p.Get("gamma_Q"), p.Get("gamma_G_light")
+	var delta trace.Q
+	if k := lightBeam(lv, d, lf.I, lf.J, lf.Level, gG, gQ, gL); k >= 0 {
+		re := byBeam[k]
+		rq := l.Add(Sum(pre+"R_Q", "Imposed reaction of the lightly loaded beam "+lv.Beams[k].Name(), "common practice", "R_Q", "N", re.qs))
+		gq := l.Add(actions.ParamStep(pre+"gamma_G", p, "gamma_G", ""))
+		gl := l.Add(actions.ParamStep(pre+"gamma_G_light", p, "gamma_G_light", ""))
+		qq := l.Add(actions.ParamStep(pre+"gamma_Q", p, "gamma_Q", ""))
+		delta = l.Add(trace.Formula(pre+"dN_level", "Load the arrangement leaves off at level "+lv.Name, "EN 1992-1-1:2004 5.1.3(1)P", "ΔN_"+lv.Name, "N",
+			(gq.V-gl.V)*re.g.V+qq.V*rq.V, "(gamma_G - gamma_G_light) * R_G + gamma_Q * R_Q",
+			trace.A("gamma_G", gq), trace.A("gamma_G_light", gl), trace.A("R_G", re.g), trace.A("gamma_Q", qq), trace.A("R_Q", rq)))
+	} else {
+		delta = l.Add(trace.Input(pre+"dN_level", "Load the arrangement leaves off at level "+lv.Name+": none (a beam on one side only, which is loaded)", "EN 1992-1-1:2004 5.1.3(1)P", "ΔN_"+lv.Name, "N", 0))
+	}
+	parts := []trace.Q{delta}
+	if hasAbove {
+		parts = append(parts, above)
+	}
+	cum := l.Add(Sum(pre+"dN", "Load the arrangement leaves off, this level and above", "common practice", "ΔN", "N", parts))
+	nArr := l.Add(trace.Formula(pre+"NEd", "Design axial force with the moment arrangement about "+axis, "EN 1992-1-1:2004 5.1.3", "N_Ed,arr,"+axis, "N",
+		maxf(lf.Src.NEd.V-cum.V, 0), "max(N_Ed - dN, 0)", trace.A("N_Ed", lf.Src.NEd), trace.A("dN", cum)))
+	lf.Src.NArr[d] = nArr
+	a := absolute(cum, lf.Column, lf.Name)
+	a.Symbol = "ΔN_above"
+	return a
 }

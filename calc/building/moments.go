@@ -116,34 +116,13 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 		kq := l.Add(ks)
 		sides[s] = &side{loaded, light, kq}
 	}
-	// The two arrangements: left side loaded, or right side loaded.
-	var unb [2]float64
-	for a := 0; a < 2; a++ {
-		for s := 0; s < 2; s++ {
-			if sides[s] == nil {
-				continue
-			}
-			if s == a {
-				unb[a] += sides[s].loaded.V
-			} else {
-				unb[a] += sides[s].light.V
-			}
+	var loadedFEM, lightFEM [2]float64
+	for s := 0; s < 2; s++ {
+		if sides[s] != nil {
+			loadedFEM[s], lightFEM[s] = sides[s].loaded.V, sides[s].light.V
 		}
 	}
-	choice := 0
-	switch {
-	case math.Abs(math.Abs(unb[0])-math.Abs(unb[1])) <= 1e-9*math.Max(math.Abs(unb[0]), 1):
-		// Equal either way: take the sense that alternates up the column.
-		want := 1.0
-		if m%2 == 1 {
-			want = -1
-		}
-		if unb[0]*want < 0 {
-			choice = 1
-		}
-	case math.Abs(unb[1]) > math.Abs(unb[0]):
-		choice = 1
-	}
+	choice := chooseLoaded(loadedFEM, lightFEM, m)
 	for s := 0; s < 2; s++ {
 		if sides[s] == nil {
 			continue
@@ -284,4 +263,52 @@ func assembleMoments(lifts []Lift, ends [][2]endQ) {
 		}
 		lifts[m].Steps = l.Steps
 	}
+}
+
+// chooseLoaded returns the side (0 left, 1 right) to load at a joint on level m, given the
+// fixed-end moments at the joint of each side's beam loaded and lightly loaded (0 where there
+// is no beam): the side whose arrangement gives the larger unbalanced moment; where both give
+// the same, the one whose sense alternates up the column, so that the lifts bend in single
+// curvature (conservative).
+func chooseLoaded(loaded, light [2]float64, m int) int {
+	unb := [2]float64{loaded[0] + light[1], light[0] + loaded[1]}
+	switch {
+	case math.Abs(math.Abs(unb[0])-math.Abs(unb[1])) <= 1e-9*math.Max(math.Abs(unb[0]), 1):
+		want := 1.0
+		if m%2 == 1 {
+			want = -1
+		}
+		if unb[0]*want < 0 {
+			return 1
+		}
+		return 0
+	case math.Abs(unb[1]) > math.Abs(unb[0]):
+		return 1
+	}
+	return 0
+}
+
+// lightBeam returns the beam of direction d at the column (i, j) on level m that the moment
+// arrangement loads lightly, or -1 when the column has a beam on one side only (then that beam
+// is loaded) or none.
+func lightBeam(lv *Level, d Dir, i, j, m int, gG, gQ, gL float64) int {
+	left, right := lv.beamsAt(d, i, j)
+	if left < 0 || right < 0 {
+		return -1
+	}
+	var loaded, light [2]float64
+	for s, k := range []int{left, right} {
+		bm := lv.Beams[k]
+		a0, a1 := frame.FixedEnd(bm.L, factored(lv.Loads[k], gG, gQ, true))
+		b0, b1 := frame.FixedEnd(bm.L, factored(lv.Loads[k], gL, 0, false))
+		if s == 0 { // the joint is at the left beam's end
+			loaded[s], light[s] = a1, b1
+		} else {
+			loaded[s], light[s] = a0, b0
+		}
+	}
+	if chooseLoaded(loaded, light, m) == 0 {
+		return right
+	}
+	return left
 }

@@ -86,7 +86,14 @@ func ColumnSelfWeight(id string, rho, b, h, height trace.Q) trace.Step {
 
 // levelTakeDown records, for the column at (i, j), the characteristic reactions of the beams
 // that bear on it at one level, and returns the level's permanent load and imposed loads by category.
-func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]trace.Q, area float64) {
+// reactions holds the traced characteristic reactions of one beam at the column.
+type reactions struct {
+	g  trace.Q
+	qs []trace.Q
+}
+
+func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]trace.Q, area float64, byBeam map[int]reactions) {
+	byBeam = map[int]reactions{}
 	ends := lv.endsAt(i, j)
 	var gs []trace.Q
 	qs := map[string][]trace.Q{}
@@ -106,7 +113,9 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 		s := Reaction(pre+name+"/G", "Permanent load from beam "+name+" at level "+lv.Name+" ("+which+")", F, X, L, e.start)
 		s.Symbol = "R_G," + name
 		s = s.Note("F: slab, self-weight of the beam and line loads on the beam; x̄ from the beam's " + which + " of span.")
-		gs = append(gs, l.Add(s))
+		rg := l.Add(s)
+		gs = append(gs, rg)
+		re := reactions{g: rg}
 		for _, cat := range sortedKeys(ld.Q) {
 			f, xb := resultant(ld.Q[cat], bm.L)
 			if f == 0 {
@@ -116,8 +125,11 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 			X := trace.Const(xb, "x̄_Q"+cat+","+name, "mm")
 			s := Reaction(pre+name+"/Q"+cat, "Imposed load (category "+cat+") from beam "+name+" at level "+lv.Name, F, X, L, e.start)
 			s.Symbol = "R_Q" + cat + "," + name
-			qs[cat] = append(qs[cat], l.Add(s))
+			rq := l.Add(s)
+			qs[cat] = append(qs[cat], rq)
+			re.qs = append(re.qs, rq)
 		}
+		byBeam[e.beam] = re
 		// The slab area that drains to this end, for the reduction αA.
 		a, xa := resultant(ld.Slab, bm.L)
 		if e.start {
@@ -131,7 +143,7 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 	for _, cat := range sortedKeysQ(qs) {
 		q[cat] = l.Add(Sum(pre+"Q"+cat, "Imposed load (category "+cat+") delivered at level "+lv.Name, "common practice", "Q_"+cat+","+lv.Name, "N", qs[cat]))
 	}
-	return g, q, area
+	return g, q, area, byBeam
 }
 
 func sortedKeys(m map[string][]frame.Piece) []string {

@@ -187,6 +187,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		l.Add(trace.Input("bi/ratio", "Biaxial ratio: not computed, the section has no moment resistance", "EN 1992-1-1:2004 5.8.9(4)", "ratio", "", 0))
 	}
 
+	d.checks = checks
 	c.settle(&d, l, checks)
 	return d
 }
@@ -203,6 +204,8 @@ type checked struct {
 func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 	d.Status = StatusPass
 	d.Utilization = 0
+	d.Governing = ""
+	d.Reasons = nil
 	for _, ch := range checks {
 		var s *trace.Step
 		for i := len(l.Steps) - 1; i >= 0; i-- {

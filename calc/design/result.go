@@ -68,6 +68,7 @@ type Design struct {
 	Steps          []trace.Step // the full trace of this design; IDs relative to the design (see Trace)
 
 	pattern detail.Pattern // bar pattern evaluated
+	checks  []checked      // its check steps
 }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.

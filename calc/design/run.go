@@ -38,7 +38,7 @@ func Run(in *model.Input) (*Result, error) {
 			l0 := b.Options.L0Factor * lf.Height
 			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
 				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0, L0Z: l0, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ}}}
-			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd,
+			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
 		}
@@ -58,6 +58,7 @@ func Run(in *model.Input) (*Result, error) {
 type Derivation struct {
 	Steps       []trace.Step
 	NEd         trace.Q
+	NArr        [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
 	Top, Bottom [2]trace.Q // end moments about y and z
 }
 
@@ -308,7 +309,9 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) Design {
 	c := newCommon(in, col, st, dv)
 	if col.Bars != nil {
-		return c.finish(c.evaluate(c.givenPattern(), true, true))
+		d := c.evaluate(c.givenPattern(), true, true)
+		c.withArrangements(&d, dv)
+		return c.finish(d)
 	}
 	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor, c.asMin.V, c.asMax.V)
 	var best Design
@@ -332,7 +335,9 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 			if found {
 				d = c.evaluate(p, false, true)
 			}
-			return c.finish(d)
+			if c.withArrangements(&d, dv); d.Status == StatusPass {
+				return c.finish(d)
+			}
 		}
 		if !found || d.Utilization < best.Utilization {
 			best, found = d, true
@@ -352,8 +357,49 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 		return c.finish(d)
 	}
 	d := c.evaluate(best.pattern, false, true)
+	c.withArrangements(&d, dv)
 	d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, d.Reasons...)
 	return c.finish(d)
+}
+
+// withArrangements checks the design's bars once more for each moment arrangement with the
+// smaller NEd that accompanies it (the building form: the largest moment with its NEd,
+// EN 1992-1-1:2004 5.1.3), adds the checks to the trace and settles the design again.
+func (c *common) withArrangements(d *Design, dv *Derivation) {
+	if dv == nil {
+		return
+	}
+	l := &trace.Log{Steps: d.Steps, Group: "Resistance with the NEd of the moment arrangements"}
+	added := false
+	for k := 0; k < 2; k++ {
+		nq := dv.NArr[k]
+		if nq.From == "" || nq.V >= c.nEd.V*(1-1e-12) {
+			continue
+		}
+		st := *c.st
+		st.NEd = nq.V
+		c2 := newCommon(c.in, c.col, &st, &Derivation{NEd: nq, Top: dv.Top, Bottom: dv.Bottom})
+		d2 := c2.evaluate(d.pattern, d.Bars.Given, false)
+		n := []string{"y", "z"}[k]
+		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
+		rb := 0.0
+		if d2.Biaxial.Checked {
+			rb = d2.Biaxial.Ratio
+		}
+		args := []trace.Arg{trace.A("N", nq), trace.A("N_Rd", q(d2.NRdMax, "N_Rd,max", "N")),
+			trace.A("M_y", q(d2.Y.MEd, "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(d2.Y.MRd, 1), "M_Rd,y", "Nmm")),
+			trace.A("M_z", q(d2.Z.MEd, "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(d2.Z.MRd, 1), "M_Rd,z", "Nmm")),
+			trace.A("r_b", q(rb, "biaxial ratio", ""))}
+		ratio := math.Max(math.Max(nq.V/d2.NRdMax, d2.Y.MEd/math.Max(d2.Y.MRd, 1)), math.Max(d2.Z.MEd/math.Max(d2.Z.MRd, 1), rb))
+		s := trace.Check("arr/"+n+"/check", "Resistance with the NEd of the moment arrangement about "+n, "EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
+			"η ≤ 1 at N_Ed,arr,"+n, ratio, "max(N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
+			Note("The same calculation as above (imperfections, slenderness, second order, resistance, biaxial check) repeated with the smaller NEd; its values are shown here.")
+		d.checks = append(d.checks, checked{l.Add(s).From, true})
+		added = true
+	}
+	if added {
+		c.settle(d, l, d.checks)
+	}
 }
 
 // givenPattern lays out the given bars: the most even pattern that fits, or, when none fits,
