@@ -258,7 +258,7 @@ func index(m markup, r *design.Result, link func(name string) string) sheetView 
 		v.Designs = append(v.Designs, designRow{
 			Sheet: fmt.Sprint(i + 2), Link: link(nm[i]), Column: m.text(d.Column), Storey: m.text(d.Storey),
 			Section: m.text(fmt.Sprintf("%s × %s", fmtNum(d.B).plain(), fmtNum(d.H).plain())),
-			NEd: m.num(fmtNum(d.NEd / 1e3)), MEdY: m.num(fmtNum(d.Y.MEd / 1e6)), MEdZ: m.num(fmtNum(d.Z.MEd / 1e6)),
+			NEd:     m.num(fmtNum(d.NEd / 1e3)), MEdY: m.num(fmtNum(d.Y.MEd / 1e6)), MEdZ: m.num(fmtNum(d.Z.MEd / 1e6)),
 			Bars: m.text(barsText(d)), Links: m.text(linksText(d)),
 			Utilization: m.num(fmtNum(d.Utilization)), Status: st, Failed: failed})
 	}
