@@ -173,10 +173,15 @@ func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code}
-	// Room for every step of the design, so that evaluate and finish append in place.
-	l := &trace.Log{Steps: make([]trace.Step, 0, 96+stepsPerPattern)}
-	if dv != nil {
-		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+96+stepsPerPattern), dv.Steps...)
+	// Room for every step of the design, so that evaluate and finish append in place; a
+	// derivation without steps serves a trial only (withArrangements), which keeps no trace.
+	room := 96 + stepsPerPattern
+	if dv != nil && dv.Steps == nil {
+		room = 96
+	}
+	l := &trace.Log{Steps: make([]trace.Step, 0, room)}
+	if dv != nil && dv.Steps != nil {
+		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+room), dv.Steps...)
 	}
 	p := in.Code
 	conc := in.Materials.Concrete
