@@ -190,3 +190,35 @@ func TestOmitOnEdgeIsRefused(t *testing.T) {
 		t.Errorf("omitting an edge point: %v", err)
 	}
 }
+
+// Where the two analyses model the same thing they agree: in a symmetric one-bay, one-storey
+// building with a fixed base, the far end of each beam turns as much as the near end the other
+// way, so the whole frame behaves as the subframe with beams at half stiffness and the base
+// taking the carry-over (slope-deflection equations, common practice, no source).
+func TestFrameAgreesWithSubframe(t *testing.T) {
+	mk := func(analysis string) *Derived {
+		in := contractBuilding()
+		b := in.Building
+		b.Storeys = b.Storeys[:1]
+		b.GridX, b.GridY = []float64{6600}, []float64{5400}
+		b.Floors = []model.Floor{{Levels: []string{"L1"}, Gk: 5.8e-3, Qk: 2.5e-3, Category: "B", Spans: model.SpanTwoWay}}
+		b.Analysis = analysis
+		d, err := Derive(in, panel)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return d
+	}
+	sub, frm := mk(model.AnalysisSubframe), mk(model.AnalysisFrame)
+	for k := range sub.Lifts {
+		a, b := sub.Lifts[k], frm.Lifts[k]
+		for _, c := range [][2]float64{{a.MY.Top, b.MY.Top}, {a.MY.Bottom, b.MY.Bottom}, {a.MZ.Top, b.MZ.Top}, {a.MZ.Bottom, b.MZ.Bottom}} {
+			if math.Abs(c[0]-c[1]) > 1e-9*math.Max(math.Abs(c[0]), 1) {
+				t.Errorf("%s: subframe %.9g, frame %.9g", a.Column, c[0], c[1])
+			}
+		}
+		if a.MY.Top == 0 || a.MZ.Top == 0 {
+			t.Errorf("%s: no moment", a.Column)
+		}
+	}
+}
