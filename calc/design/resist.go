@@ -113,51 +113,73 @@ func (c *common) resistanceRatio(sec *section.Section, d *Design) (float64, erro
 	return ratio, nil
 }
 
-// cannotPass reports whether the pattern fails a resistance check for certain, by the same
-// value functions as the traced steps but without a trace: NEd above NRd,max, a design moment
-// above the resistance about y or z, or a biaxial ratio above 1 where (5.38) calls for the
-// check. A margin of 1e-6 leaves the verdict on the edge to the traced evaluation.
-func (c *common) cannotPass(p detail.Pattern) bool {
-	const margin = 1 + 1e-6
+// quick holds the resistance checks of a pattern at one axial force, without a trace.
+type quick struct {
+	nEd, nRdMax float64
+	mEd, mRd    [2]float64
+	biaxial     bool    // (5.38) calls for (5.39)
+	ratioB      float64 // (5.39), 0 when not called for
+	ok          bool    // the section has a moment resistance about both axes
+}
+
+// ratio returns the largest ratio of action to resistance of the checks.
+func (q quick) ratio() float64 {
+	if !q.ok {
+		return math.Inf(1)
+	}
+	return math.Max(math.Max(q.nEd/q.nRdMax, q.ratioB), math.Max(q.mEd[0]/q.mRd[0], q.mEd[1]/q.mRd[1]))
+}
+
+// quickResist evaluates the resistance checks of the pattern at the axial force nEd by the same
+// value functions as the traced steps (imperfection, slenderness limit, nominal curvature,
+// design moment, resistance, biaxial check), without a trace.
+func (c *common) quickResist(p detail.Pattern, nEd float64) quick {
 	g := detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: c.linkFor(p.Dia)}
 	pos := g.Positions(p)
 	r := c.section(pos, p.BarArea())
-	nMax := r.nRdMax()
-	if c.nEd.V > nMax*margin {
-		return true
+	q := quick{nEd: nEd, nRdMax: r.nRdMax()}
+	if nEd > q.nRdMax {
+		return q
 	}
 	as := p.Area()
+	n := nEd / (c.ac.V * c.fcd.V) // as slender.RelativeForce
 	omega := slender.MechanicalRatioValue(as, c.fyd.V, c.ac.V, c.fcd.V)
 	bFac := slender.FactorBValue(omega)
 	k := c.p.Get("lambda_lim_k")
-	var mEd, mRd [2]float64
 	for ax := 0; ax < 2; ax++ {
 		a := &c.ax[ax]
-		lim := slender.LambdaLimValue(k, a.factorA.V, bFac, a.factorC.V, c.nRel.V)
+		m01i, m02i := a.m01.V+nEd*a.ei.V, a.m02.V+nEd*a.ei.V // as slender.WithImperfection
+		lim := slender.LambdaLimValue(k, a.factorA.V, bFac, a.factorC.V, n)
 		if a.lambda.V > lim {
 			is := slender.GyrationValue(layersOf(pos, ax))
 			d := slender.EffectiveDepthValue(a.depth.V, is)
 			r0 := slender.BaseCurvatureValue(c.fyd.V/c.es.V, d)
 			kphi := slender.KphiValue(slender.BetaValue(c.fck.V, a.lambda.V), a.phiEf.V)
-			curv := slender.CurvatureValue(slender.KrValue(c.nRel.V, omega), kphi, r0)
-			m2 := c.nEd.V * slender.SecondOrderEccentricityValue(curv, a.l0.V, c.p.Get("c_curv"))
-			m0e := slender.EquivalentMomentValue(a.m01i.V, a.m02i.V)
-			mEd[ax] = slender.DesignMomentSlenderValue(a.m01i.V, a.m02i.V, m0e, m2, c.nEd.V, a.e0.V)
+			curv := slender.CurvatureValue(slender.KrValue(n, omega), kphi, r0)
+			m2 := nEd * slender.SecondOrderEccentricityValue(curv, a.l0.V, c.p.Get("c_curv"))
+			m0e := slender.EquivalentMomentValue(m01i, m02i)
+			q.mEd[ax] = slender.DesignMomentSlenderValue(m01i, m02i, m0e, m2, nEd, a.e0.V)
 		} else {
-			mEd[ax] = slender.DesignMomentStockyValue(a.m02i.V, c.nEd.V, a.e0.V)
+			q.mEd[ax] = slender.DesignMomentStockyValue(m02i, nEd, a.e0.V)
 		}
-		m, ok := r.mRd(ax, c.nEd.V)
-		if !ok || mEd[ax] > m*margin {
-			return true
+		m, ok := r.mRd(ax, nEd)
+		if !ok || !(m > 0) {
+			return q
 		}
-		mRd[ax] = m
+		q.mRd[ax] = m
 	}
-	if slender.SlendernessRatiosCloseValue(c.ax[0].lambda.V, c.ax[1].lambda.V) && slender.EccentricitiesApartValue(mEd[0], mEd[1], c.b.V, c.h.V) {
-		return false
+	q.ok = true
+	q.biaxial = !(slender.SlendernessRatiosCloseValue(c.ax[0].lambda.V, c.ax[1].lambda.V) &&
+		slender.EccentricitiesApartValue(q.mEd[0], q.mEd[1], c.b.V, c.h.V))
+	if q.biaxial {
+		a := slender.ExponentAValue(nEd, slender.NRdBiaxialValue(c.ac.V, c.fcd.V, as, c.fyd.V))
+		q.ratioB = slender.BiaxialRatioValue(q.mEd[0], q.mRd[0], q.mEd[1], q.mRd[1], a)
 	}
-	if mRd[0] <= 0 || mRd[1] <= 0 {
-		return true
-	}
-	a := slender.ExponentAValue(c.nEd.V, slender.NRdBiaxialValue(c.ac.V, c.fcd.V, as, c.fyd.V))
-	return slender.BiaxialRatioValue(mEd[0], mRd[0], mEd[1], mRd[1], a) > margin
+	return q
+}
+
+// cannotPass reports whether the pattern fails a resistance check for certain at NEd; a margin
+// of 1e-6 leaves the verdict on the edge to the traced evaluation.
+func (c *common) cannotPass(p detail.Pattern) bool {
+	return c.quickResist(p, c.nEd.V).ratio() > 1+1e-6
 }

@@ -381,24 +381,17 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		if nq.From == "" || nq.V >= c.nEd.V*(1-1e-12) {
 			continue
 		}
-		st := *c.st
-		st.NEd = nq.V
-		c2 := newCommon(c.in, c.col, &st, &Derivation{NEd: nq, Top: dv.Top, Bottom: dv.Bottom})
-		d2 := c2.evaluate(d.pattern, d.Bars.Given, false)
+		qr := c.quickResist(d.pattern, nq.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
-		rb := 0.0
-		if d2.Biaxial.Checked {
-			rb = d2.Biaxial.Ratio
-		}
-		args := []trace.Arg{trace.A("N", nq), trace.A("N_Rd", q(d2.NRdMax, "N_Rd,max", "N")),
-			trace.A("M_y", q(d2.Y.MEd, "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(d2.Y.MRd, 1), "M_Rd,y", "Nmm")),
-			trace.A("M_z", q(d2.Z.MEd, "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(d2.Z.MRd, 1), "M_Rd,z", "Nmm")),
-			trace.A("r_b", q(rb, "biaxial ratio", ""))}
-		ratio := math.Max(math.Max(nq.V/d2.NRdMax, d2.Y.MEd/math.Max(d2.Y.MRd, 1)), math.Max(d2.Z.MEd/math.Max(d2.Z.MRd, 1), rb))
+		args := []trace.Arg{trace.A("N", nq), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
+			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
+			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
+			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
+		ratio := math.Max(math.Max(nq.V/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
 		s := trace.Check("arr/"+n+"/check", "Resistance with the NEd of the moment arrangement about "+n, "EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
 			"η ≤ 1 at N_Ed,arr,"+n, ratio, "max(N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
-			Note("The same calculation as above (imperfections, slenderness, second order, resistance, biaxial check) repeated with the smaller NEd; its values are shown here.")
+			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas at the smaller NEd; their values are shown here.")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
 		added = true
 	}
