@@ -181,23 +181,36 @@ func TestSlenderByHand(t *testing.T) {
 
 // The chosen bars are the least steel that passes: every candidate with less steel fails.
 func TestLeastSteel(t *testing.T) {
-	col := model.Column{ID: "L", B: 300, H: 500, Cover: 35, Storeys: []model.Storey{lift(3200, 3200, 1800, 180, -90, 15, -10)}}
-	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
-	d := mustRun(t, in).Designs[0]
-	if d.Status != StatusPass {
-		t.Fatalf("should pass: %v", d.Reasons)
+	cases := []struct {
+		b, h float64
+		st   model.Storey
+	}{
+		{300, 500, lift(3200, 3200, 1800, 180, -90, 15, -10)}, // strong-axis bending
+		{400, 400, lift(3000, 3000, 600, 150, 120, 140, 100)}, // biaxial, low axial force
+		{300, 300, lift(5500, 5500, 900, 30, 20, 25, 15)},     // slender both ways
+		{500, 500, lift(3500, 3500, 5200, 60, -40, 50, -30)},  // axial force governs
+		{350, 600, lift(4000, 4200, 300, 260, -150, 5, 5)},    // bending with little axial force
 	}
-	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
-	for _, p := range candidatesFor(c) {
-		if p.Area() >= d.AsProv-1e-6 {
-			break
+	for k, cs := range cases {
+		col := model.Column{ID: "L" + string(rune('1'+k)), B: cs.b, H: cs.h, Cover: 35, Storeys: []model.Storey{cs.st}}
+		in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
+		d := mustRun(t, in).Designs[0]
+		if d.Status != StatusPass {
+			t.Errorf("case %d should pass: %v", k, d.Reasons)
+			continue
 		}
-		if e := c.evaluate(p, false, false); e.Status == StatusPass {
-			t.Errorf("%d × %g (%.0f mm²) passes but %.0f mm² was chosen", p.Count(), p.Dia, p.Area(), d.AsProv)
+		c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+		for _, p := range candidatesFor(c) {
+			if p.Area() >= d.AsProv-1e-6 {
+				break
+			}
+			if e := c.evaluate(p, false, false); e.Status == StatusPass {
+				t.Errorf("case %d: %d × %g (%.0f mm²) passes but %.0f mm² was chosen", k, p.Count(), p.Dia, p.Area(), d.AsProv)
+			}
 		}
-	}
-	if d.AsReq > d.AsProv+1e-6 || d.AsReq < d.AsMin-1e-6 {
-		t.Errorf("As,req = %g outside [As,min, As,prov] = [%g, %g]", d.AsReq, d.AsMin, d.AsProv)
+		if d.AsReq > d.AsProv+1e-6 || d.AsReq < d.AsMin-1e-6 {
+			t.Errorf("case %d: As,req = %g outside [As,min, As,prov] = [%g, %g]", k, d.AsReq, d.AsMin, d.AsProv)
+		}
 	}
 }
 

@@ -133,7 +133,10 @@ func (q quick) ratio() float64 {
 // quickResist evaluates the resistance checks of the pattern at the axial force nEd by the same
 // value functions as the traced steps (imperfection, slenderness limit, nominal curvature,
 // design moment, resistance, biaxial check), without a trace.
-func (c *common) quickResist(p detail.Pattern, nEd float64) quick {
+func (c *common) quickResist(p detail.Pattern, nEd float64) quick { return c.quickUpTo(p, nEd, math.Inf(1)) }
+
+// quickUpTo is quickResist that gives up, with ok false, as soon as one ratio exceeds stop.
+func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 	g := detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: c.linkFor(p.Dia)}
 	pos := g.Positions(p)
 	r := c.section(pos, p.BarArea())
@@ -163,7 +166,7 @@ func (c *common) quickResist(p detail.Pattern, nEd float64) quick {
 			q.mEd[ax] = slender.DesignMomentStockyValue(m02i, nEd, a.e0.V)
 		}
 		m, ok := r.mRd(ax, nEd)
-		if !ok || !(m > 0) {
+		if !ok || !(m > 0) || q.mEd[ax]/m > stop {
 			return q
 		}
 		q.mRd[ax] = m
@@ -181,5 +184,50 @@ func (c *common) quickResist(p detail.Pattern, nEd float64) quick {
 // cannotPass reports whether the pattern fails a resistance check for certain at NEd; a margin
 // of 1e-6 leaves the verdict on the edge to the traced evaluation.
 func (c *common) cannotPass(p detail.Pattern) bool {
-	return c.quickResist(p, c.nEd.V).ratio() > 1+1e-6
+	const stop = 1 + 1e-6
+	return c.quickUpTo(p, c.nEd.V, stop).ratio() > stop
+}
+
+// areaFloor returns a steel area below which no pattern resists the least design moments,
+// max(M02 + NEd·ei, NEd·e0) about each axis, which second-order effects can only raise. The
+// bound puts the steel in the two outermost layers at the edge distance of the smallest bars:
+// of all symmetric patterns of one area, steel there has the largest lever arm and strain, so
+// its resistance at NEd bounds theirs from above (common practice, no source). The resistance
+// grows with the area, which is found by bisection.
+func (c *common) areaFloor(dMin float64) float64 {
+	edge := c.col.Cover + c.linkFor(dMin) + dMin/2
+	lo, hi := c.asMin.V, c.asMax.V
+	enough := func(as float64) bool {
+		for k := 0; k < 2; k++ {
+			a := &c.ax[k]
+			least := math.Max(a.m02i.V, c.nEd.V*a.e0.V)
+			pos := [][2]float64{{0, c.col.H/2 - edge}, {0, -(c.col.H/2 - edge)}}
+			if k == 1 {
+				pos = [][2]float64{{c.col.B/2 - edge, 0}, {-(c.col.B/2 - edge), 0}}
+			}
+			r := c.section(pos, as/2)
+			if c.nEd.V > r.nRdMax() {
+				return false
+			}
+			if m, ok := r.mRd(k, c.nEd.V); !ok || m < least {
+				return false
+			}
+		}
+		return true
+	}
+	if !enough(hi) {
+		return hi
+	}
+	if enough(lo) {
+		return lo
+	}
+	for hi-lo > 1e-3*hi {
+		mid := (lo + hi) / 2
+		if enough(mid) {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	return lo
 }

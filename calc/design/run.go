@@ -322,8 +322,13 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 	var best Design
 	found, seen := false, false
 	var lastP detail.Pattern
+	floor := c.areaFloor(in.Options.BarDiameters[0])
 	for p, ok := it.Next(); ok; p, ok = it.Next() {
 		seen, lastP = true, p
+		// Below the area floor no pattern resists the least design moments.
+		if p.Area() < floor*(1-1e-6) {
+			continue
+		}
 		// NRd,max grows with the steel area alone: below the area that carries NEd every
 		// pattern fails, and the patterns come in order of area.
 		if c.nEd.V > c.section([][2]float64{{0, 0}}, p.Area()).nRdMax() {
