@@ -133,7 +133,9 @@ func (q quick) ratio() float64 {
 // quickResist evaluates the resistance checks of the pattern at the axial force nEd by the same
 // value functions as the traced steps (imperfection, slenderness limit, nominal curvature,
 // design moment, resistance, biaxial check), without a trace.
-func (c *common) quickResist(p detail.Pattern, nEd float64) quick { return c.quickUpTo(p, nEd, math.Inf(1)) }
+func (c *common) quickResist(p detail.Pattern, nEd float64) quick {
+	return c.quickUpTo(p, nEd, math.Inf(1))
+}
 
 // quickUpTo is quickResist that gives up, with ok false, as soon as one ratio exceeds stop.
 func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
