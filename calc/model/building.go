@@ -61,6 +61,8 @@ type BuildingOptions struct {
 	Reduction     string  // ReduceNone, ReduceArea or ReduceStoreys
 	Density       float64 // weight density of reinforced concrete, N/mm³ (25 kN/m³ = 2.5e-5)
 	L0Factor      float64 // effective length as a fraction of the storey height (braced: ≤ 1)
+	L0FromFrame   bool    // effective lengths by EN 1992-1-1 Eq. (5.15) from the members at each end
+	Creep         *Creep  // creep data for every lift; Ratio is then derived from the ψ2 combination
 }
 
 // Level is one storey: the level at its top and the height of the lift below it.

@@ -47,12 +47,46 @@ const (
 
 // Options holds the method choices of a calculation.
 type Options struct {
-	StressBlock   string    // ParabolaRectangle or Rectangular
-	Imperfection  string    // ImperfInclination or ImperfL0Over400
-	Members       float64   // m, number of vertical members contributing to the imperfection, 5.2(5)
-	BarDiameters  []float64 // longitudinal bar diameters to choose from, mm, ascending
-	LinkDiameters []float64 // link diameters to choose from, mm, ascending
-	LinkStep      float64   // link spacings are rounded down to a multiple of this, mm
+	StressBlock   string      // ParabolaRectangle or Rectangular
+	Imperfection  string      // ImperfInclination or ImperfL0Over400
+	Members       float64     // m, number of vertical members contributing to the imperfection, 5.2(5)
+	BarDiameters  []float64   // longitudinal bar diameters to choose from, mm, ascending
+	LinkDiameters []float64   // link diameters to choose from, mm, ascending
+	LinkStep      float64     // link spacings are rounded down to a multiple of this, mm
+	SecondOrder   string      // SecondOrderCurvature (default), SecondOrderStiffness or SecondOrderBoth
+	Biaxial       string      // BiaxialRule (5.39, default) or BiaxialExact (inclined neutral axis)
+	CrackedK      float64     // factor on the stiffness of restraining members for cracking, 5.8.3.2(3); default 0.5
+	Sizes         *SizeSearch // the section-size finder, when asked for
+}
+
+// Second-order methods of EN 1992-1-1 5.8.5.
+const (
+	SecondOrderCurvature = "nominal-curvature" // 5.8.8
+	SecondOrderStiffness = "nominal-stiffness" // 5.8.7
+	SecondOrderBoth      = "both"              // both shown; the larger design moment governs
+)
+
+// Biaxial checks.
+const (
+	BiaxialRule  = "5.39"  // EN 1992-1-1 5.8.9(4), Eq. (5.39)
+	BiaxialExact = "exact" // resistance along the resultant moment with an inclined neutral axis
+)
+
+// SizeSearch asks for the smallest section of each column that passes every check.
+type SizeSearch struct {
+	Sizes    []Size  // candidate sections, in the order to try (smallest first); or
+	Step     float64 // a step for b and h, mm, from Min to Max
+	Min, Max float64 // mm
+	Square   bool    // b = h only
+	RhoMax   float64 // largest steel ratio As/Ac accepted, e.g. 0.02
+}
+
+// Creep holds the data of EN 1992-1-1 Annex B for the creep coefficient φ(∞, t0).
+type Creep struct {
+	RH     float64 // relative humidity of the ambient environment, %
+	T0     float64 // age of concrete at loading, days
+	Cement string  // cement class: "S", "N" or "R" (3.1.2(6))
+	Ratio  float64 // M0Eqp/M0Ed, the quasi-permanent over the design first-order moment; 0 when not given
 }
 
 // Column is one column with its section and its lifts.
@@ -84,6 +118,7 @@ type Storey struct {
 	MZ     Ends    // first-order end moments about z, N·mm
 	PhiEf  float64 // effective creep ratio
 	HasPhi bool    // whether PhiEf was given
+	Creep  *Creep  // data to compute φef by Annex B and (5.19); nil when not given
 }
 
 // Ends holds the first-order moments at the two ends of a lift; equal signs mean single curvature.
