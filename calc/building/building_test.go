@@ -222,3 +222,42 @@ func TestFrameAgreesWithSubframe(t *testing.T) {
 		}
 	}
 }
+
+// Effective lengths from the frame by EN 1992-1-1:2004 Eq. (5.15) lie between half the clear
+// height and the clear height, and the lowest lift of a fixed base is the shortest relative to
+// its height (k = 0.1 at the base, 5.8.3.2(3) note).
+func TestEffectiveLengthsFromFrame(t *testing.T) {
+	in := contractBuilding()
+	in.Building.Options.L0FromFrame = true
+	d, err := Derive(in, panel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, lf := range d.Lifts {
+		for k, q := range lf.Src.L0 {
+			if q.From == "" {
+				t.Fatalf("%s/%s: no effective length about axis %d", lf.Column, lf.Name, k)
+			}
+			clear := lf.Height - 500 // the beams are 500 mm deep
+			if q.V < 0.5*clear-1e-9 || q.V > clear+1e-9 {
+				t.Errorf("%s/%s: l0 = %g outside [%g, %g]", lf.Column, lf.Name, q.V, 0.5*clear, clear)
+			}
+		}
+		for _, s := range lf.Steps {
+			if err := trace.Recheck(s, 1e-9); err != nil {
+				t.Error(err)
+			}
+		}
+	}
+	// By hand for B2, lift L2, about y: columns 350 × 450 (I = 350·450³/12 about y), beams
+	// 275 × 500 of 6.6 m either side, cracked at 0.5 and in single curvature (2EI/l); clear
+	// heights: L1 3.3 m, L2 and R 2.8 m. The top joint joins L2 and R, the bottom one L1 and L2.
+	lf := lift(t, d, "B2", "L2")
+	ic := 350 * math.Pow(450, 3) / 12
+	ib := 275 * math.Pow(500, 3) / 12
+	sb := 2 * 0.5 * 2 * ib / 6600
+	kTop := (ic/2800 + ic/2800) / sb
+	kBot := (ic/3300 + ic/2800) / sb
+	want := 0.5 * 2800 * math.Sqrt((1+kTop/(0.45+kTop))*(1+kBot/(0.45+kBot)))
+	near(t, "l0,y of B2/L2", lf.Src.L0[0].V, want, 1e-9)
+}

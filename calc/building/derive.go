@@ -26,6 +26,7 @@ type Lift struct {
 type Sources struct {
 	NEd                        trace.Q
 	NArr                       [2]trace.Q // NEd of the moment arrangements in the frames along x and y
+	L0                         [2]trace.Q // effective lengths about y and z by Eq. (5.15); zero when not derived
 	MYTop, MYBot, MZTop, MZBot trace.Q
 }
 
@@ -80,6 +81,9 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 	}
 	for _, k := range order {
 		assembleMoments(cols[k], ends[k])
+		if b.Options.L0FromFrame {
+			effectiveLengths(in, levels, cols[k])
+		}
 		d.Lifts = append(d.Lifts, cols[k]...)
 	}
 	return d, nil

@@ -35,10 +35,13 @@ func Run(in *model.Input) (*Result, error) {
 		b := in.Building
 		for k := range d.Lifts {
 			lf := &d.Lifts[k]
-			l0 := b.Options.L0Factor * lf.Height
+			l0y, l0z := b.Options.L0Factor*lf.Height, b.Options.L0Factor*lf.Height
+			if b.Options.L0FromFrame {
+				l0y, l0z = lf.Src.L0[0].V, lf.Src.L0[1].V
+			}
 			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
-				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0, L0Z: l0, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ}}}
-			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr,
+				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ}}}
+			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
 		}
@@ -59,6 +62,7 @@ type Derivation struct {
 	Steps       []trace.Step
 	NEd         trace.Q
 	NArr        [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
+	L0          [2]trace.Q // effective lengths about y and z, when derived
 	Top, Bottom [2]trace.Q // end moments about y and z
 }
 
@@ -241,7 +245,11 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		}
 		a.m02 = l.Add(onAxis(n, slender.M02(n+"/M02", top, bot)))
 		a.m01 = l.Add(onAxis(n, slender.M01(n+"/M01", top, bot, a.m02)))
-		a.l0 = l.Add(trace.Input(n+"/l0", "Effective length for buckling about "+n, "input", "l_0,"+n, "mm", l0s[k]))
+		if dv != nil && dv.L0[k].From != "" {
+			a.l0 = dv.L0[k]
+		} else {
+			a.l0 = l.Add(trace.Input(n+"/l0", "Effective length for buckling about "+n, "input", "l_0,"+n, "mm", l0s[k]))
+		}
 		if in.Options.Imperfection == model.ImperfL0Over400 {
 			a.ei = l.Add(onAxis(n, slender.EccentricityL0Over400(n+"/ei", a.l0)))
 		} else {
