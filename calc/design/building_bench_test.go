@@ -60,3 +60,27 @@ func BenchmarkBuilding40x100Frame(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkSizeSearch1000 measures the size finder for 1000 columns of one lift each, square
+// sizes from 250 to 800 mm in steps of 25 mm (target ≤ 2 s).
+func BenchmarkSizeSearch1000(b *testing.B) {
+	c, _ := material.Lookup("C32/40")
+	in := &model.Input{File: "generated.yaml", Code: code.Recommended(),
+		Materials: model.Materials{Concrete: c, Fyk: 500, Aggregate: 20},
+		Options: model.Options{StressBlock: model.ParabolaRectangle, Imperfection: model.ImperfInclination, Members: 1,
+			BarDiameters: []float64{12, 16, 20, 25, 32, 40}, LinkDiameters: []float64{8, 10, 12}, LinkStep: 1,
+			Sizes: &model.SizeSearch{Step: 25, Min: 250, Max: 800, Square: true, RhoMax: 0.03}}}
+	for k := 0; k < 1000; k++ {
+		n := 500 + float64(k%40)*150 // 500 to 6350 kN
+		in.Columns = append(in.Columns, model.Column{ID: "C" + strconv.Itoa(k), B: 400, H: 400, Cover: 35,
+			Storeys: []model.Storey{{Name: "L1", L0Y: 3000, L0Z: 3000, NEd: n * 1e3,
+				MY: model.Ends{Top: 60e6, Bottom: -30e6}, MZ: model.Ends{Top: 25e6, Bottom: -10e6}}}})
+	}
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		r, err := Run(in)
+		if err != nil || len(r.Sizes) != 1000 {
+			b.Fatal(err)
+		}
+	}
+}

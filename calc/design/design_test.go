@@ -278,3 +278,37 @@ func TestQuickMatchesTrace(t *testing.T) {
 		}
 	}
 }
+
+// The size finder returns the smallest listed section that passes, and every smaller one fails
+// (common practice, no source).
+func TestSizeFinder(t *testing.T) {
+	col := model.Column{ID: "S", B: 300, H: 300, Cover: 35, Storeys: []model.Storey{lift(3200, 3200, 2600, 60, -30, 20, 10), lift(3200, 3200, 1500, 90, -70, 30, 20)}}
+	col.Storeys[1].Name = "L2"
+	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
+	in.Options.Sizes = &model.SizeSearch{Step: 50, Min: 250, Max: 600, Square: true, RhoMax: 0.02}
+	r := mustRun(t, in)
+	if len(r.Sizes) != 1 || !r.Sizes[0].Found {
+		t.Fatalf("sizes: %+v", r.Sizes)
+	}
+	got := r.Sizes[0]
+	if got.Rho > 0.02+1e-12 {
+		t.Errorf("steel ratio %g above the target", got.Rho)
+	}
+	for _, sz := range sizeList(in.Options.Sizes) {
+		if sz.B*sz.H >= got.Size.B*got.Size.H {
+			break
+		}
+		for _, st := range in.Columns[0].Storeys {
+			c := in.Columns[0]
+			c.B, c.H = sz.B, sz.H
+			st := st
+			d := design(in, &c, &st, nil)
+			if d.Status == StatusPass && d.AsProv <= 0.02*sz.B*sz.H {
+				continue
+			}
+			goto next
+		}
+		t.Errorf("%g × %g passes every lift but %g × %g was chosen", sz.B, sz.H, got.Size.B, got.Size.H)
+	next:
+	}
+}

@@ -26,6 +26,9 @@ type Result struct {
 	Designs     []Design          // one per column and lift, in input order
 	Methods     []Method          // the methods and assumptions of the calculation, for the design basis
 	Building    *building.Derived // what was derived from the building form; nil for the actions form
+	Sizes       []SizeResult      // the section-size finder, when asked for
+
+	cases []liftCase // the column and lift of each design, for the size finder
 }
 
 // Method is one method or assumption of the calculation with the clause behind it.

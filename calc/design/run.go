@@ -44,14 +44,19 @@ func Run(in *model.Input) (*Result, error) {
 			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
+			r.cases = append(r.cases, liftCase{col, &col.Storeys[0]})
 		}
-		return r, nil
+	} else {
+		for ci := range in.Columns {
+			col := &in.Columns[ci]
+			for si := range col.Storeys {
+				r.Designs = append(r.Designs, One(in, col, &col.Storeys[si]))
+				r.cases = append(r.cases, liftCase{col, &col.Storeys[si]})
+			}
+		}
 	}
-	for ci := range in.Columns {
-		col := &in.Columns[ci]
-		for si := range col.Storeys {
-			r.Designs = append(r.Designs, One(in, col, &col.Storeys[si]))
-		}
+	if in.Options.Sizes != nil {
+		r.Sizes = findSizes(in, r)
 	}
 	return r, nil
 }
