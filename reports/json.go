@@ -118,6 +118,21 @@ type jsonResult struct {
 	InputSHA256 string       `json:"input_sha256"`
 	Code        jsonCode     `json:"code"`
 	Designs     []jsonDesign `json:"designs"`
+	Sizes       []jsonSize   `json:"size_search,omitempty"`
+}
+
+// jsonSize is one column's result of the section-size finder.
+type jsonSize struct {
+	Column      string  `json:"column"`
+	Found       bool    `json:"found"`
+	B           float64 `json:"b_mm"`
+	H           float64 `json:"h_mm"`
+	GivenB      float64 `json:"given_b_mm"`
+	GivenH      float64 `json:"given_h_mm"`
+	AsProv      float64 `json:"As_prov_mm2"`
+	Rho         float64 `json:"rho"`
+	Utilization float64 `json:"utilization"`
+	Tried       int     `json:"sizes_tried"`
 }
 
 func axisJSON(a design.Axis) jsonAxis {
@@ -173,6 +188,10 @@ func JSON(r *design.Result) ([]byte, error) {
 			Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
 			NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
 		})
+	}
+	for _, z := range r.Sizes {
+		out.Sizes = append(out.Sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
+			GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
 	}
 	b, err := json.MarshalIndent(out, "", "  ")
 	if err != nil {

@@ -79,6 +79,11 @@ type groupView struct {
 	Steps []stepView
 }
 
+// sizeRow is one line of the section-size finder's table.
+type sizeRow struct {
+	Column, Given, Found, Steel, Utilization string
+}
+
 type designRow struct {
 	Sheet       string // "2"
 	Link        string // relative link target, safe
@@ -117,7 +122,8 @@ type sheetView struct {
 
 	// index only
 	Designs  []designRow
-	Failures string // sentence on the count of failing designs
+	Sizes    []sizeRow // the section-size finder, when asked for
+	Failures string    // sentence on the count of failing designs
 	AnyFail  bool
 }
 
@@ -253,6 +259,16 @@ func index(m markup, r *design.Result, link func(name string) string) sheetView 
 		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
 		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r)}
 	nm := names(r)
+	for _, z := range r.Sizes {
+		row := sizeRow{Column: m.text(z.Column), Given: m.text(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
+			Found: m.text("none of the sizes passes"), Steel: m.text("–"), Utilization: m.text("–")}
+		if z.Found {
+			row.Found = m.text(fmtNum(z.Size.B).plain() + " × " + fmtNum(z.Size.H).plain())
+			row.Steel = m.text(fmtNum(z.AsProv).plain() + " mm² (" + fmtNum(100*z.Rho).plain() + " %)")
+			row.Utilization = m.num(fmtNum(z.Utilization))
+		}
+		v.Sizes = append(v.Sizes, row)
+	}
 	for i, d := range r.Designs {
 		st, failed := status(d.Status)
 		v.Designs = append(v.Designs, designRow{

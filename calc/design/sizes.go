@@ -84,7 +84,7 @@ func findSizes(in *model.Input, r *Result) []SizeResult {
 			ok, as, util := true, 0.0, 0.0
 			for _, lc := range cases {
 				col := *lc.col
-				col.B, col.H = sz.B, sz.H
+				col.B, col.H, col.Bars = sz.B, sz.H, nil // the bars are designed for each size
 				st := *lc.st
 				col.Storeys = []model.Storey{st}
 				if !quickAxial(in, &col, &col.Storeys[0], rhoMax) {
