@@ -41,7 +41,7 @@ var categories = []string{"A", "B", "C", "D", "E", "F", "G", "H"}
 
 var buildingKeys = []string{"storeys", "grid", "columns", "beams", "column_sizes", "beam_sizes", "floors",
 	"line_loads", "omit", "base", "analysis", "beam_stiffness", "combination", "imposed_reduction",
-	"density", "l0_factor", "bars"}
+	"density", "l0_factor", "effective_length", "creep", "bars"}
 
 // site holds what the entries of a building refer to: its levels and its grid.
 type site struct {
@@ -282,14 +282,24 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 			}
 		}
 	}
+	if e, ok := f["effective_length"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "effective_length"), "frame", "factor"); ok {
+			b.Options.L0FromFrame = v == "frame"
+		}
+	}
 	if e, ok := f["l0_factor"]; ok {
 		if v, ok := r.number(e.val, join(top, "l0_factor"), ""); ok {
-			if v < 0.5 || v > 2 {
+			if b.Options.L0FromFrame {
+				r.fail(e.key, join(top, "l0_factor"), "applies to effective_length: factor; with frame the effective lengths come from EN 1992-1-1 Eq. (5.15)")
+			} else if v < 0.5 || v > 2 {
 				r.fail(e.val, join(top, "l0_factor"), "the effective length factor must lie between 0.5 and 2, found %s", show(v, ""))
 			} else {
 				b.Options.L0Factor = v
 			}
 		}
+	}
+	if e, ok := f["creep"]; ok {
+		b.Options.Creep = r.creep(e.val, join(top, "creep"), false)
 	}
 	barsOK := true
 	if e, ok := f["bars"]; ok {
@@ -477,13 +487,19 @@ func (r *reader) room(at *yaml.Node, path string, s model.Size, cover float64, b
 
 // combination reads 6.10 or 6.10ab; the YAML number 6.10 (or 6.1) counts as "6.10".
 func (r *reader) combination(n *yaml.Node, path string) (string, bool) {
+	return r.clauseOf(n, path, 6.1, model.Comb610, model.Comb610ab)
+}
+
+// clauseOf reads a text that must be one of choices, the first of them a clause number that
+// YAML may have read as the number x (6.10 as 6.1).
+func (r *reader) clauseOf(n *yaml.Node, path string, x float64, choices ...string) (string, bool) {
 	v := resolve(n)
 	if v.Kind == yaml.ScalarNode && v.ShortTag() == "!!float" {
-		if x, err := strconv.ParseFloat(v.Value, 64); err == nil && x == 6.1 {
-			return model.Comb610, true
+		if y, err := strconv.ParseFloat(v.Value, 64); err == nil && y == x {
+			return choices[0], true
 		}
 	}
-	return r.oneOf(n, path, model.Comb610, model.Comb610ab)
+	return r.oneOf(n, path, choices...)
 }
 
 // omit reads the grid points without a column.
@@ -630,17 +646,23 @@ func (r *reader) beamLines(s *site, n *yaml.Node, path, dir string) ([]string, b
 
 // category reads an imposed-load category of EN 1991-1-1 Table 6.1, upper-cased.
 func (r *reader) category(n *yaml.Node, path string) (string, bool) {
+	return r.upperOf(n, path, "an imposed-load category of EN 1991-1-1 Table 6.1", categories)
+}
+
+// upperOf reads a text that, upper-cased and trimmed, must be one of choices; what names the
+// kind of text in the message.
+func (r *reader) upperOf(n *yaml.Node, path, what string, choices []string) (string, bool) {
 	v, ok := r.str(n, path)
 	if !ok {
 		return "", false
 	}
 	c := strings.ToUpper(strings.TrimSpace(v))
-	for _, k := range categories {
+	for _, k := range choices {
 		if c == k {
 			return c, true
 		}
 	}
-	r.fail(n, path, "%q is not an imposed-load category of EN 1991-1-1 Table 6.1 (one of %s)", v, strings.Join(categories, ", "))
+	r.fail(n, path, "%q is not %s (one of %s)", v, what, strings.Join(choices, ", "))
 	return "", false
 }
 

@@ -1,7 +1,6 @@
 package input
 
 import (
-	"errors"
 	"reflect"
 	"strings"
 	"testing"
@@ -328,15 +327,7 @@ func TestBuildingErrors(t *testing.T) {
 			`in.yaml:7: building.storeys[3]: expected a mapping with the keys name, height, found "L3"`}},
 	}
 	for _, c := range cases {
-		_, err := Parse("in.yaml", []byte(c.text))
-		var es Errors
-		if !errors.As(err, &es) {
-			t.Errorf("%s: error %v is not Errors", c.name, err)
-			continue
-		}
-		if got := err.Error(); got != strings.Join(c.want, "\n") {
-			t.Errorf("%s:\n got: %s\nwant: %s", c.name, strings.ReplaceAll(got, "\n", "\n      "), strings.Join(c.want, "\n      "))
-		}
+		expectErrors(t, c.name, c.text, c.want)
 	}
 }
 

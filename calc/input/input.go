@@ -15,17 +15,24 @@
 //	materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}  concrete required (Table 3.1)
 //	design:    {stress_block: parabola-rectangle, imperfection: inclination, members: 1,
 //	            bar_diameters: [12, 16, 20, 25, 32, 40], link_diameters: [6, 8, 10, 12],
-//	            link_spacing_step: 1 mm}
+//	            link_spacing_step: 1 mm, second_order: nominal-curvature (or nominal-stiffness,
+//	            both), biaxial: "5.39" (or exact), cracked_stiffness: 0.5 (0.1 to 1), size_search}
+//	size_search: {sizes: [[b, h], ...]} tried in order, or {step, min, max, square: false};
+//	            either way steel_ratio_max: 0.04 (0.002 to 0.08)
 //	vars:      {NAME: quantity or expression}
 //	columns:   list of {id, b, h, cover, bars: {count, dia}, link_dia, storeys}
 //	storeys:   list of {name, l0: {y, z} or one value, length, NEd,
-//	            M: {y: {top, bottom}, z: {top, bottom}}, phi_ef}
+//	            M: {y: {top, bottom}, z: {top, bottom}}, phi_ef or creep}
+//	creep:     {rh (%, 10 to 100), t0 (days: 28, "28 d" or "28 days"), cement: N (S, N or R),
+//	            ratio (M0Eqp/M0Ed, 0 to 1; 0 when not given)}
 //
 // A file gives either columns (the actions form) or building (the building form), not both:
 //
 //	building:  {storeys, grid, columns, beams, column_sizes, beam_sizes, floors, line_loads,
 //	            omit, base: fixed, analysis: subframe, beam_stiffness: half, combination: 6.10,
-//	            imposed_reduction: none, density: code density_rc or 25 kN/m3, l0_factor: 1, bars}
+//	            imposed_reduction: none, density: code density_rc or 25 kN/m3, l0_factor: 1,
+//	            effective_length: factor (l0_factor × height; or frame, Eq. (5.15) without
+//	            l0_factor), creep: {rh, t0, cement} (the ratio is derived), bars}
 //	storeys:   list of {name, height}, lowest first, names unique
 //	grid:      {x: [bay widths], y: [bay widths]}; lettered lines A, B, ..., Z, AA, ... at the x
 //	           positions, numbered lines 1, 2, ... at the y positions; column ids such as B2
@@ -354,12 +361,15 @@ func (r *reader) design(top map[string]pair) model.Options {
 		BarDiameters:  append([]float64(nil), DefaultBarDiameters...),
 		LinkDiameters: append([]float64(nil), DefaultLinkDiameters...),
 		LinkStep:      1,
+		SecondOrder:   model.SecondOrderCurvature,
+		Biaxial:       model.BiaxialRule,
+		CrackedK:      DefaultCrackedK,
 	}
 	p, ok := top["design"]
 	if !ok {
 		return o
 	}
-	f := r.fields(p.val, "design", "stress_block", "imperfection", "members", "bar_diameters", "link_diameters", "link_spacing_step")
+	f := r.fields(p.val, "design", designKeys...)
 	if e, ok := f["stress_block"]; ok {
 		if s, ok := r.oneOf(e.val, "design.stress_block", model.ParabolaRectangle, model.Rectangular); ok {
 			o.StressBlock = s
@@ -394,6 +404,7 @@ func (r *reader) design(top map[string]pair) model.Options {
 			o.LinkStep = v
 		}
 	}
+	r.methods(f, &o)
 	return o
 }
 
@@ -572,7 +583,7 @@ func (r *reader) storeys(n *yaml.Node, path string) []model.Storey {
 func (r *reader) storey(item *yaml.Node, path string) model.Storey {
 	n := resolve(item)
 	s := model.Storey{Line: item.Line}
-	f := r.fields(n, path, "name", "l0", "length", "NEd", "M", "phi_ef")
+	f := r.fields(n, path, "name", "l0", "length", "NEd", "M", "phi_ef", "creep")
 	if f == nil {
 		return s
 	}
@@ -612,6 +623,13 @@ func (r *reader) storey(item *yaml.Node, path string) model.Storey {
 			} else {
 				s.PhiEf, s.HasPhi = v, true
 			}
+		}
+	}
+	if e, ok := f["creep"]; ok {
+		s.Creep = r.creep(e.val, join(path, "creep"), true)
+		if _, both := f["phi_ef"]; both {
+			r.fail(e.key, join(path, "creep"), "give phi_ef or creep, not both")
+			s.Creep = nil
 		}
 	}
 	return s

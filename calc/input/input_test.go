@@ -212,7 +212,7 @@ func TestParseErrors(t *testing.T) {
 			[]string{`in.yaml:10: columns[0].storeys[0].NEd: "2 ^ 10": ^ is not a power here (it is bitwise XOR in govaluate); use ** for powers`}},
 		{"division by zero", head + "        NEd: 10 kN / 0\n", []string{`in.yaml:10: columns[0].storeys[0].NEd: "10 kN / 0": division by zero`}},
 		{"unknown key", head + "        NEd: 10\n        Ned: 10\n",
-			[]string{"in.yaml:11: columns[0].storeys[0].Ned: unknown key (known here: name, l0, length, NEd, M, phi_ef)"}},
+			[]string{"in.yaml:11: columns[0].storeys[0].Ned: unknown key (known here: name, l0, length, NEd, M, phi_ef, creep)"}},
 		{"repeated key", head + "        NEd: 10\n        NEd: 20\n", []string{"in.yaml:11: columns[0].storeys[0].NEd: the key is given twice"}},
 		{"unknown top key", "materials: {concrete: C30/37}\ncolums: []\n", []string{
 			"in.yaml:1: columns: is required but missing (give the columns with their actions under columns, or the building form under building)",
@@ -386,6 +386,9 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte("vars: {x: y, y: x}\n"))
 	f.Add([]byte(building))
 	f.Add([]byte(building + "  omit: [a1]\n  line_loads: [{line: B, from: 2, gk: 1}]\n  column_sizes: [{levels: R, b: 300, h: 300}]\n"))
+	f.Add([]byte(head + "        NEd: 10\n        creep: {rh: 50 %, t0: 28 d, cement: r, ratio: 0.5}\n" +
+		"design: {second_order: both, biaxial: 5.39, size_search: {step: 25, min: 250, max: 500, square: true}}\n"))
+	f.Add([]byte(building + "  effective_length: frame\n  creep: {rh: 60, t0: 7 days}\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		in, err := Parse("f.yaml", data)
 		if err != nil {
@@ -400,8 +403,10 @@ func FuzzParse(f *testing.F) {
 			}
 			return
 		}
+		checkOptions(t, in.Options)
 		if in.Building != nil {
 			checkBuilding(t, in.Building)
+			checkCreep(t, in.Building.Options.Creep)
 			return
 		}
 		if len(in.Columns) == 0 {
@@ -417,9 +422,10 @@ func FuzzParse(f *testing.F) {
 						t.Fatalf("non-finite value accepted: %+v", s)
 					}
 				}
-				if !(s.L0Y > 0 && s.L0Z > 0 && s.NEd >= 0) {
+				if !(s.L0Y > 0 && s.L0Z > 0 && s.NEd >= 0) || s.HasPhi && s.Creep != nil {
 					t.Fatalf("invalid storey accepted: %+v", s)
 				}
+				checkCreep(t, s.Creep)
 			}
 		}
 	})
@@ -478,5 +484,40 @@ func checkBuilding(t *testing.T, b *model.Building) {
 	}
 	if len(b.Omit) >= (len(b.GridX)+1)*(len(b.GridY)+1) {
 		t.Fatalf("every column omitted: %+v", b.Omit)
+	}
+}
+
+// checkOptions fails t when accepted method choices or a size finder break what the parser promises.
+func checkOptions(t *testing.T, o model.Options) {
+	t.Helper()
+	if o.SecondOrder == "" || o.Biaxial == "" || !(o.CrackedK >= 0.1 && o.CrackedK <= 1) {
+		t.Fatalf("invalid options accepted: %+v", o)
+	}
+	s := o.Sizes
+	if s == nil {
+		return
+	}
+	if !(s.RhoMax >= 0.002 && s.RhoMax <= 0.08) || (len(s.Sizes) > 0) == (s.Step > 0) {
+		t.Fatalf("invalid size search accepted: %+v", s)
+	}
+	for _, z := range s.Sizes {
+		if !(z.B > 0 && z.H > 0) || math.IsInf(z.B+z.H, 0) {
+			t.Fatalf("invalid size accepted: %+v", s)
+		}
+	}
+	if s.Step > 0 && !(s.Min > 0 && s.Min <= s.Max && !math.IsInf(s.Max, 0)) {
+		t.Fatalf("invalid size range accepted: %+v", s)
+	}
+}
+
+// checkCreep fails t when accepted creep data break what the parser promises.
+func checkCreep(t *testing.T, c *model.Creep) {
+	t.Helper()
+	if c == nil {
+		return
+	}
+	if !(c.RH >= 10 && c.RH <= 100 && c.T0 > 0 && !math.IsInf(c.T0, 0) && c.Ratio >= 0 && c.Ratio <= 1) ||
+		c.Cement != "S" && c.Cement != "N" && c.Cement != "R" {
+		t.Fatalf("invalid creep data accepted: %+v", c)
 	}
 }
