@@ -27,6 +27,7 @@ type Sources struct {
 	NEd                        trace.Q
 	NArr                       [2]trace.Q // NEd of the moment arrangements in the frames along x and y
 	L0                         [2]trace.Q // effective lengths about y and z by Eq. (5.15); zero when not derived
+	RatioQP                    trace.Q    // NEd,qp/NEd, standing for M0Eqp/M0Ed in Eq. (5.19); zero when not derived
 	MYTop, MYBot, MZTop, MZBot trace.Q
 }
 
@@ -215,6 +216,9 @@ func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q 
 	}
 	lf.NEd = nEd.V
 	lf.Src.NEd = nEd
+	if b.Options.Creep != nil {
+		lf.quasiPermanent(l, q, g)
+	}
 	if last := l.Last(); last != nil {
 		last.Symbol = "N_Ed"
 	}
@@ -265,4 +269,24 @@ func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir
 	a := absolute(cum, lf.Column, lf.Name)
 	a.Symbol = "ΔN_above"
 	return a
+}
+
+// quasiPermanent records the quasi-permanent axial force Gk + Σψ2·Qk (EN 1990:2002 6.5.3,
+// Eq. (6.16)) and its ratio to NEd, which stands for M0Eqp/M0Ed in EN 1992-1-1 Eq. (5.19): the
+// moments of a braced column follow the same loads (common practice).
+func (lf *Lift) quasiPermanent(l *trace.Log, q map[string]trace.Q, g trace.Q) {
+	l.Group = "Quasi-permanent axial force at the bottom of lift " + lf.Name
+	expr := "G_k"
+	args := []trace.Arg{trace.A("G_k", g)}
+	v := g.V
+	for k, c := range sortedKeysQ(mapList(q)) {
+		psi := l.Add(actions.PsiStep("qp/psi2_"+c, 2, c))
+		n := itoa(k + 1)
+		expr += " + psi_" + n + " * Q_" + n
+		args = append(args, trace.A("psi_"+n, psi), trace.A("Q_"+n, q[c]))
+		v += psi.V * q[c].V
+	}
+	nqp := l.Add(trace.Formula("qp/N", "Quasi-permanent axial force", "EN 1990:2002 6.5.3, Eq. (6.16)", "N_Ed,qp", "N", v, expr, args...))
+	lf.Src.RatioQP = l.Add(trace.Formula("qp/ratio", "Ratio of the quasi-permanent to the design load, for M0Eqp/M0Ed", "EN 1992-1-1:2004 5.8.4(2); common practice", "r_qp", "",
+		nqp.V/lf.Src.NEd.V, "N_qp / N_Ed", trace.A("N_qp", nqp), trace.A("N_Ed", lf.Src.NEd)))
 }

@@ -67,7 +67,7 @@ func PhiRH(id string, rh, h0, fcm, alpha1, alpha2 trace.Q) trace.Step {
 
 // BetaFcm returns the factor for the concrete strength β(fcm) = 16.8/√fcm, EN 1992-1-1:2004 Annex B, Eq. (B.4).
 func BetaFcm(id string, fcm trace.Q) trace.Step {
-	return trace.Formula(id, "Factor for the concrete strength", annexB+"Eq. (B.4)", "β(f_cm)", "",
+	return trace.Formula(id, "Factor for the concrete strength", annexB+"Eq. (B.4)", "β(fcm)", "",
 		BetaFcmValue(fcm.V), "16.8 / sqrt(f_cm)", trace.A("f_cm", fcm))
 }
 
@@ -94,14 +94,14 @@ func AdjustedAge(id string, t0T, alpha trace.Q) trace.Step {
 
 // BetaT0 returns the factor for the age at loading β(t0) = 1/(0.1 + t0^0.20), EN 1992-1-1:2004 Annex B, Eq. (B.5).
 func BetaT0(id string, t0 trace.Q) trace.Step {
-	return trace.Formula(id, "Factor for the age at loading", annexB+"Eq. (B.5)", "β(t_0)", "",
+	return trace.Formula(id, "Factor for the age at loading", annexB+"Eq. (B.5)", "β(t0)", "",
 		BetaT0Value(t0.V), "1 / (0.1 + t_0 ** 0.2)", trace.A("t_0", t0))
 }
 
 // Notional returns the notional creep coefficient φ0 = φRH·β(fcm)·β(t0), which is also
 // φ(∞, t0) since βc(∞, t0) = 1, EN 1992-1-1:2004 Annex B, Eq. (B.1) and (B.2).
 func Notional(id string, phiRH, betaFcm, betaT0 trace.Q) trace.Step {
-	return trace.Formula(id, "Final creep coefficient", annexB+"Eq. (B.1), (B.2)", "φ(∞,t_0)", "",
+	return trace.Formula(id, "Final creep coefficient", annexB+"Eq. (B.1), (B.2)", "φ(∞,t0)", "",
 		NotionalValue(phiRH.V, betaFcm.V, betaT0.V), "phi_RH * beta_fcm * beta_t0",
 		trace.A("phi_RH", phiRH), trace.A("beta_fcm", betaFcm), trace.A("beta_t0", betaT0)).
 		Note("φ(∞, t0) = φ0 because βc(t, t0) tends to 1 as t tends to infinity; valid for a compressive stress at loading not above 0.45·fck(t0), EN 1992-1-1:2004 3.1.4(2).")
@@ -122,14 +122,14 @@ func BetaH(id string, rh, h0, fcm, alpha3 trace.Q) trace.Step {
 
 // BetaC returns βc(t, t0) = [(t − t0)/(βH + t − t0)]^0.3, 0 before loading, EN 1992-1-1:2004 Annex B, Eq. (B.7).
 func BetaC(id string, t, t0, betaH trace.Q) trace.Step {
-	return trace.Formula(id, "Development of creep with time after loading", annexB+"Eq. (B.7)", "β_c(t,t_0)", "",
+	return trace.Formula(id, "Development of creep with time after loading", annexB+"Eq. (B.7)", "β_c(t,t0)", "",
 		BetaCValue(t.V, t0.V, betaH.V), "t > t_0 ? ((t - t_0) / (beta_H + t - t_0)) ** 0.3 : 0",
 		trace.A("t", t), trace.A("t_0", t0), trace.A("beta_H", betaH))
 }
 
 // AtTime returns φ(t, t0) = φ0·βc(t, t0), EN 1992-1-1:2004 Annex B, Eq. (B.1).
 func AtTime(id string, phi0, betaC trace.Q) trace.Step {
-	return trace.Formula(id, "Creep coefficient at time t", annexB+"Eq. (B.1)", "φ(t,t_0)", "",
+	return trace.Formula(id, "Creep coefficient at time t", annexB+"Eq. (B.1)", "φ(t,t0)", "",
 		phi0.V*betaC.V, "phi_0 * beta_c", trace.A("phi_0", phi0), trace.A("beta_c", betaC))
 }
 

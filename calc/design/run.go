@@ -3,6 +3,7 @@ package design
 import (
 	"colsheet/calc/actions"
 	"colsheet/calc/building"
+	"colsheet/calc/creep"
 	"colsheet/calc/frame"
 	"math"
 	"strconv"
@@ -40,8 +41,8 @@ func Run(in *model.Input) (*Result, error) {
 				l0y, l0z = lf.Src.L0[0].V, lf.Src.L0[1].V
 			}
 			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
-				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ}}}
-			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0,
+				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
+			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
 			r.cases = append(r.cases, liftCase{col, &col.Storeys[0]})
@@ -65,6 +66,7 @@ func Run(in *model.Input) (*Result, error) {
 // the steps of the take-down and the moments, and the quantities the design takes from them.
 type Derivation struct {
 	Steps       []trace.Step
+	RatioQP     trace.Q // NEd,qp/NEd from the take-down, standing for M0Eqp/M0Ed in (5.19); zero when not derived
 	NEd         trace.Q
 	NArr        [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
 	L0          [2]trace.Q // effective lengths about y and z, when derived
@@ -226,6 +228,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		c.nEd = l.Add(trace.Input("act/NEd", "Design axial force (compression positive)", "input", "N_Ed", "N", st.NEd))
 	}
 	c.nRel = l.Add(slender.RelativeForce("act/n", c.nEd, c.ac, c.fcd))
+	phiCreep, hasCreep := c.creepRatio(l, dv)
 
 	var theta0 trace.Q
 	if in.Options.Imperfection != model.ImperfL0Over400 {
@@ -278,11 +281,16 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		l.Group = "Slenderness about " + n
 		i := l.Add(onAxis(n, slender.RadiusOfGyration(n+"/i", a.depth)))
 		a.lambda = l.Add(onAxis(n, slender.Slenderness(n+"/lambda", a.l0, i)))
-		if st.HasPhi {
+		switch {
+		case hasCreep:
+			a.phiEf = phiCreep
+			a.factorA = l.Add(onAxis(n, slender.FactorA(n+"/A", a.phiEf)))
+			a.phiGiven = true
+		case st.HasPhi:
 			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio", "EN 1992-1-1:2004 5.8.4(2)", "φ_ef", "", st.PhiEf))
 			a.factorA = l.Add(onAxis(n, slender.FactorA(n+"/A", a.phiEf)))
 			a.phiGiven = true
-		} else {
+		default:
 			a.factorA = l.Add(onAxis(n, slender.FactorADefault(n+"/A")))
 			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio for Kφ (not given)", "common practice", "φ_ef", "", p.Get("phi_ef_default")).
 				Caution("φef is not given: the default value is used for Kφ. Give phi_ef from 5.8.4 for the actual loading history."))
@@ -445,4 +453,41 @@ func onAxis(n string, s trace.Step) trace.Step {
 		s.Symbol += "_" + n
 	}
 	return s
+}
+
+// creepRatio records the effective creep ratio by EN 1992-1-1:2004 Annex B and Eq. (5.19) when the
+// lift has creep data, and reports whether it did.
+func (c *common) creepRatio(l *trace.Log, dv *Derivation) (trace.Q, bool) {
+	cr := c.st.Creep
+	if cr == nil {
+		return trace.Q{}, false
+	}
+	l.Group = "Creep (EN 1992-1-1 Annex B)"
+	fcm := l.Add(trace.Formula("creep/fcm", "Mean compressive strength of concrete", "EN 1992-1-1:2004 Table 3.1", "f_cm", "MPa",
+		c.fck.V+8, "f_ck + 8", trace.A("f_ck", c.fck)))
+	rh := l.Add(trace.Input("creep/RH", "Relative humidity of the ambient environment", "input", "RH", "%", cr.RH))
+	h0 := l.Add(creep.NotionalSizeRect("creep/h0", c.b, c.h))
+	t0 := l.Add(trace.Input("creep/t0T", "Age of the concrete at loading", "input", "t_0,T", "d", cr.T0))
+	cls := cr.Cement
+	if cls == "" {
+		cls = "N"
+	}
+	as, ok := creep.CementExponentStep("creep/alpha", cls)
+	if !ok {
+		as, _ = creep.CementExponentStep("creep/alpha", "N")
+		as = as.Caution("Cement class " + cls + " is not S, N or R: class N is used.")
+	}
+	alpha := l.Add(as)
+	phiInf := creep.Coefficient(l, "creep/", fcm, rh, h0, t0, alpha)
+	var ratio trace.Q
+	switch {
+	case cr.Ratio > 0:
+		ratio = l.Add(trace.Input("creep/r_qp", "Ratio of the quasi-permanent to the design first-order moment", "input", "M_0Eqp/M_0Ed", "", cr.Ratio))
+	case dv != nil && dv.RatioQP.From != "":
+		ratio = dv.RatioQP
+	default:
+		ratio = l.Add(trace.Input("creep/r_qp", "Ratio of the quasi-permanent to the design first-order moment (not given)", "common practice", "M_0Eqp/M_0Ed", "", 1).
+			Caution("M0Eqp/M0Ed is not given: 1 is used, which overstates φef; give creep.ratio."))
+	}
+	return l.Add(creep.EffectiveRatio("creep/phi_ef", phiInf, ratio)), true
 }
