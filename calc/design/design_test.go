@@ -262,18 +262,22 @@ func mustRun(t testing.TB, in *model.Input) *Result {
 // same design moments and resistances as the traced steps (common practice, no source).
 func TestQuickMatchesTrace(t *testing.T) {
 	lifts := []model.Storey{lift(3000, 3000, 2000, 60, -30, 10, 5), lift(6500, 6000, 900, 40, 35, 25, 20), lift(3500, 7000, 1500, 0, 0, 0, 0)}
-	for _, class := range []string{"C30/37", "C70/85"} {
-		for _, st := range lifts {
-			col := model.Column{ID: "Q", B: 350, H: 450, Cover: 35, Storeys: []model.Storey{st}}
-			in := newInput(class, model.ParabolaRectangle, model.ImperfInclination, col)
-			d := mustRun(t, in).Designs[0]
-			c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
-			q := c.quickResist(d.pattern, st.NEd)
-			for _, v := range [][2]float64{{q.mEd[0], d.Y.MEd}, {q.mEd[1], d.Z.MEd}, {q.mRd[0], d.Y.MRd}, {q.mRd[1], d.Z.MRd}, {q.nRdMax, d.NRdMax}} {
-				near(t, class+" quick vs traced", v[0], v[1], 1e-9)
-			}
-			if q.biaxial != d.Biaxial.Checked || (q.biaxial && math.Abs(q.ratioB-d.Biaxial.Ratio) > 1e-9) {
-				t.Errorf("%s: biaxial quick %v %g, traced %v %g", class, q.biaxial, q.ratioB, d.Biaxial.Checked, d.Biaxial.Ratio)
+	for _, method := range []string{model.SecondOrderCurvature, model.SecondOrderStiffness, model.SecondOrderBoth} {
+		for _, class := range []string{"C30/37", "C70/85"} {
+			for _, st := range lifts {
+				col := model.Column{ID: "Q", B: 350, H: 450, Cover: 35, Storeys: []model.Storey{st}}
+				in := newInput(class, model.ParabolaRectangle, model.ImperfInclination, col)
+				in.Options.SecondOrder = method
+				d := mustRun(t, in).Designs[0]
+				c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+				q := c.quickResist(d.pattern, st.NEd)
+				for _, v := range [][2]float64{{q.mEd[0], d.Y.MEd}, {q.mEd[1], d.Z.MEd}, {q.mRd[0], d.Y.MRd}, {q.mRd[1], d.Z.MRd}, {q.nRdMax, d.NRdMax}} {
+					near(t, class+" quick vs traced", v[0], v[1], 1e-9)
+				}
+				if q.biaxial != d.Biaxial.Checked || (q.biaxial && math.Abs(q.ratioB-d.Biaxial.Ratio) > 1e-9) {
+					t.Errorf("%s: biaxial quick %v %g, traced %v %g", class, q.biaxial, q.ratioB, d.Biaxial.Checked, d.Biaxial.Ratio)
+				}
+				checkTrace(t, d)
 			}
 		}
 	}

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"colsheet/calc/detail"
+	"colsheet/calc/model"
 	"colsheet/calc/slender"
 	"colsheet/calc/trace"
 )
@@ -115,20 +116,67 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		ax.M01, ax.M02, ax.Ei, ax.M0Ed, ax.PhiEf = a.m01.V, a.m02.V, a.ei.V, a.m02i.V, a.phiEf.V
 		var mEd trace.Q
 		if ax.Slender {
-			l.Group = "Second-order moment about " + n + " (nominal curvature)"
-			epsYd := l.Add(slender.YieldStrain(n+"/eps_yd", c.fyd, c.es))
-			is := l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", layersOf(pos, k))))
-			dd := l.Add(onAxis(n, slender.EffectiveDepth(n+"/d", a.depth, is)))
-			r0 := l.Add(onAxis(n, slender.BaseCurvature(n+"/inv_r0", epsYd, dd)))
-			kr := l.Add(slender.Kr(n+"/Kr", c.nRel, omega))
-			beta := l.Add(onAxis(n, slender.Beta(n+"/beta", c.fck, a.lambda)))
-			kphi := l.Add(onAxis(n, slender.Kphi(n+"/Kphi", beta, a.phiEf)))
-			curv := l.Add(onAxis(n, slender.Curvature(n+"/inv_r", kr, kphi, r0)))
-			e2 := l.Add(onAxis(n, slender.SecondOrderEccentricity(n+"/e2", curv, a.l0, param(prm, "c_curv", ""))))
-			m2 := l.Add(onAxis(n, slender.SecondOrderMoment(n+"/M2", c.nEd, e2)))
+			method := c.in.Options.SecondOrder
 			m0e := l.Add(onAxis(n, slender.EquivalentMoment(n+"/M0e", a.m01i, a.m02i)))
-			mEd = l.Add(slender.DesignMomentSlender(n+"/MEd", a.m01i, a.m02i, m0e, m2, c.nEd, a.e0))
-			ax.M2 = m2.V
+			is := l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", layersOf(pos, k))))
+			var mCurv, mStiff trace.Q
+			var m2Curv, m2Stiff float64
+			if method != model.SecondOrderStiffness {
+				l.Group = "Second-order moment about " + n + " (nominal curvature, 5.8.8)"
+				epsYd := l.Add(slender.YieldStrain(n+"/eps_yd", c.fyd, c.es))
+				dd := l.Add(onAxis(n, slender.EffectiveDepth(n+"/d", a.depth, is)))
+				r0 := l.Add(onAxis(n, slender.BaseCurvature(n+"/inv_r0", epsYd, dd)))
+				kr := l.Add(slender.Kr(n+"/Kr", c.nRel, omega))
+				beta := l.Add(onAxis(n, slender.Beta(n+"/beta", c.fck, a.lambda)))
+				kphi := l.Add(onAxis(n, slender.Kphi(n+"/Kphi", beta, a.phiEf)))
+				curv := l.Add(onAxis(n, slender.Curvature(n+"/inv_r", kr, kphi, r0)))
+				e2 := l.Add(onAxis(n, slender.SecondOrderEccentricity(n+"/e2", curv, a.l0, param(prm, "c_curv", ""))))
+				m2 := l.Add(onAxis(n, slender.SecondOrderMoment(n+"/M2", c.nEd, e2)))
+				mCurv = l.Add(slender.DesignMomentSlender(n+"/MEd_curv", a.m01i, a.m02i, m0e, m2, c.nEd, a.e0))
+				m2Curv = m2.V
+			}
+			if method == model.SecondOrderStiffness || method == model.SecondOrderBoth {
+				l.Group = "Second-order moment about " + n + " (nominal stiffness, 5.8.7)"
+				rho := l.Add(slender.SteelRatio(n+"/rho", as, c.ac))
+				k1 := l.Add(slender.K1(n+"/k1", c.fck))
+				k2 := l.Add(onAxis(n, slender.K2(n+"/k2", c.nRel, a.lambda)))
+				kc := l.Add(onAxis(n, slender.Kc(n+"/Kc", k1, k2, a.phiEf)))
+				ks := l.Add(slender.Ks(n+"/Ks", rho))
+				ecd := l.Add(slender.Ecd(n+"/Ecd", c.ecm, trace.Const(slender.GammaCE, "γ_cE", "")))
+				width := c.b
+				if k == 1 {
+					width = c.h
+				}
+				ic := l.Add(onAxis(n, slender.ConcreteInertia(n+"/Ic", width, a.depth)))
+				isq := l.Add(onAxis(n, slender.SteelInertia(n+"/Is", as, is)))
+				ei := l.Add(onAxis(n, slender.NominalStiffness(n+"/EI", kc, ecd, ic, ks, c.es, isq)))
+				nb := l.Add(onAxis(n, slender.BucklingLoad(n+"/NB", ei, a.l0)))
+				c0 := l.Add(slender.C0(n+"/c0", slender.ShapeConstant))
+				bt := l.Add(slender.MomentBeta(n+"/beta_M", c0))
+				km := l.Add(onAxis(n, slender.Magnification(n+"/kM", bt, nb, c.nEd)))
+				resistance(slender.BucklingCheck(n+"/check_NB", c.nEd, nb))
+				mm := l.Add(onAxis(n, slender.MagnifiedMoment(n+"/M_mag", m0e, km)))
+				mStiff = l.Add(slender.DesignMomentStocky(n+"/MEd_stiff", mm, c.nEd, a.e0))
+				if mStiff.V < a.m02i.V {
+					mStiff = l.Add(trace.Formula(n+"/MEd_stiff_end", "Design moment: not less than the end moment", "EN 1992-1-1:2004 5.8.8.2; 6.1(4)", "M_Ed", "Nmm",
+						a.m02i.V, "max(M, M_02)", trace.A("M", mStiff), trace.A("M_02", a.m02i)))
+				}
+				m2Stiff = mStiff.V - m0e.V
+			}
+			switch method {
+			case model.SecondOrderStiffness:
+				mEd, ax.M2 = mStiff, math.Max(m2Stiff, 0)
+			case model.SecondOrderBoth:
+				l.Group = "Design moment about " + n + ": the larger of the two methods"
+				mEd = l.Add(trace.Formula(n+"/MEd", "Design moment, the larger of nominal curvature and nominal stiffness", "EN 1992-1-1:2004 5.8.5", "M_Ed", "Nmm",
+					math.Max(mCurv.V, mStiff.V), "max(M_curv, M_stiff)", trace.A("M_curv", mCurv), trace.A("M_stiff", mStiff)))
+				ax.M2 = m2Curv
+				if mStiff.V > mCurv.V {
+					ax.M2 = math.Max(m2Stiff, 0)
+				}
+			default:
+				mEd, ax.M2 = mCurv, m2Curv
+			}
 		} else {
 			l.Group = "Design moment about " + n
 			mEd = l.Add(slender.DesignMomentStocky(n+"/MEd", a.m02i, c.nEd, a.e0))

@@ -157,13 +157,33 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 		lim := slender.LambdaLimValue(k, a.factorA.V, bFac, a.factorC.V, n)
 		if a.lambda.V > lim {
 			is := slender.GyrationValue(layersOf(pos, ax))
-			d := slender.EffectiveDepthValue(a.depth.V, is)
-			r0 := slender.BaseCurvatureValue(c.fyd.V/c.es.V, d)
-			kphi := slender.KphiValue(slender.BetaValue(c.fck.V, a.lambda.V), a.phiEf.V)
-			curv := slender.CurvatureValue(slender.KrValue(n, omega), kphi, r0)
-			m2 := nEd * slender.SecondOrderEccentricityValue(curv, a.l0.V, c.p.Get("c_curv"))
 			m0e := slender.EquivalentMomentValue(m01i, m02i)
-			q.mEd[ax] = slender.DesignMomentSlenderValue(m01i, m02i, m0e, m2, nEd, a.e0.V)
+			method := c.in.Options.SecondOrder
+			mCurv, mStiff := 0.0, 0.0
+			if method != model.SecondOrderStiffness {
+				d := slender.EffectiveDepthValue(a.depth.V, is)
+				r0 := slender.BaseCurvatureValue(c.fyd.V/c.es.V, d)
+				kphi := slender.KphiValue(slender.BetaValue(c.fck.V, a.lambda.V), a.phiEf.V)
+				curv := slender.CurvatureValue(slender.KrValue(n, omega), kphi, r0)
+				m2 := nEd * slender.SecondOrderEccentricityValue(curv, a.l0.V, c.p.Get("c_curv"))
+				mCurv = slender.DesignMomentSlenderValue(m01i, m02i, m0e, m2, nEd, a.e0.V)
+			}
+			if method == model.SecondOrderStiffness || method == model.SecondOrderBoth {
+				width := c.b.V
+				if ax == 1 {
+					width = c.h.V
+				}
+				kc := slender.KcValue(slender.K1Value(c.fck.V), slender.K2Value(n, a.lambda.V), a.phiEf.V)
+				ei := slender.NominalStiffnessValue(kc, slender.EcdValue(c.ecm.V, slender.GammaCE),
+					slender.ConcreteInertiaValue(width, a.depth.V), 1, c.es.V, slender.SteelInertiaValue(as, is))
+				nb := slender.BucklingLoadValue(ei, a.l0.V)
+				km, ok := slender.MagnificationValue(slender.MomentBetaValue(slender.C0Value(slender.ShapeConstant)), nb, nEd)
+				if !ok {
+					return q
+				}
+				mStiff = math.Max(slender.DesignMomentStockyValue(slender.MagnifiedMomentValue(m0e, km), nEd, a.e0.V), m02i)
+			}
+			q.mEd[ax] = math.Max(mCurv, mStiff)
 		} else {
 			q.mEd[ax] = slender.DesignMomentStockyValue(m02i, nEd, a.e0.V)
 		}

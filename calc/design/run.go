@@ -136,6 +136,7 @@ type common struct {
 	cautions     []string
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
+	ecm          trace.Q // for the nominal stiffness method
 	epsC2, epsCu trace.Q
 	nExp         trace.Q
 	lam, eta     trace.Q // rectangular block factors (zero value for parabola-rectangle)
@@ -216,6 +217,9 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	gammaS := paramStep(l, p, "gamma_s", "")
 	c.fyd = l.Add(material.Fyd("mat/fyd", fyk, gammaS))
 	c.es = paramStep(l, p, "Es", "MPa")
+	if so := in.Options.SecondOrder; so == model.SecondOrderStiffness || so == model.SecondOrderBoth {
+		c.ecm = l.Add(material.Ecm("mat/Ecm", c.fck))
+	}
 
 	l.Group = "Section and actions"
 	c.b = l.Add(trace.Input("geo/b", "Section width (along y)", "input", "b", "mm", col.B))
