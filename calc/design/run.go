@@ -90,7 +90,7 @@ func methods(in *model.Input) []Method {
 		{"Concrete displaced by bars", "deducted for bars in compression", "common practice"},
 		imp,
 		{"Minimum eccentricity", "e0 = max(h/30, 20 mm) about each axis", "EN 1992-1-1:2004 6.1(4)"},
-		{"Second-order effects", "nominal curvature for lifts with λ > λlim", "EN 1992-1-1:2004 5.8.3.1, 5.8.8"},
+		secondOrder(in),
 		{"Design moment", "MEd = max{M02, M0e + M2, M01 + 0.5·M2, NEd·e0}, imperfections about both axes", "EN 1992-1-1:2004 5.8.8.2; common practice"},
 		{"Biaxial bending", "criteria (5.38a/b), then (5.39) with a from NEd/NRd", "EN 1992-1-1:2004 5.8.9"},
 		{"Bars", "symmetric patterns with a bar in each corner; the least steel that passes every check", "EN 1992-1-1:2004 9.5.2, 8.2"},
@@ -120,10 +120,34 @@ func methods(in *model.Input) []Method {
 			Method{"Load arrangements", "for the column moments, at each joint one side γG·Gk + γQ·Qk and the other γG,light·Gk, the side that gives the larger unbalanced moment (ties: the sense that bends the lifts in single curvature); all spans loaded for NEd", "EN 1992-1-1:2004 5.1.3"},
 			analysis,
 			Method{"Design case", "the largest NEd (all spans loaded) with the largest end moments of the arrangements, about both axes", "common practice"},
-			Method{"Effective length", "l0 = " + strconv.FormatFloat(b.Options.L0Factor, 'g', -1, 64) + " × storey height", "EN 1992-1-1:2004 5.8.3.2"},
+			effectiveLength(in),
 		)
 	}
 	return out
+}
+
+// effectiveLength returns the way the effective lengths of the building's lifts are set.
+func effectiveLength(in *model.Input) Method {
+	b := in.Building
+	if b.Options.L0FromFrame {
+		k := in.Options.CrackedK
+		if !(k > 0) {
+			k = 0.5
+		}
+		return Method{"Effective length", "Eq. (5.15) from the relative flexibilities k = ΣEI/l of the columns over Σ k_cr·2EI/l of the beams at each end (k ≥ 0.1; fixed base 0.1), k_cr = " + strconv.FormatFloat(k, 'g', -1, 64) + " for cracking, l the clear height", "EN 1992-1-1:2004 5.8.3.2(3); common practice"}
+	}
+	return Method{"Effective length", "l0 = " + strconv.FormatFloat(b.Options.L0Factor, 'g', -1, 64) + " × storey height", "EN 1992-1-1:2004 5.8.3.2"}
+}
+
+// secondOrder returns the method of second-order analysis in force.
+func secondOrder(in *model.Input) Method {
+	switch in.Options.SecondOrder {
+	case model.SecondOrderStiffness:
+		return Method{"Second-order effects", "nominal stiffness, EI = Kc·Ecd·Ic + Ks·Es·Is and the magnification 1 + β/(NB/NEd − 1) with β = π²/8 on M0e, for lifts with λ > λlim", "EN 1992-1-1:2004 5.8.3.1, 5.8.7"}
+	case model.SecondOrderBoth:
+		return Method{"Second-order effects", "both nominal curvature and nominal stiffness for lifts with λ > λlim; the larger design moment governs", "EN 1992-1-1:2004 5.8.3.1, 5.8.7, 5.8.8"}
+	}
+	return Method{"Second-order effects", "nominal curvature for lifts with λ > λlim", "EN 1992-1-1:2004 5.8.3.1, 5.8.8"}
 }
 
 // common holds the traced quantities of a lift that do not depend on the bars.
