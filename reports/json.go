@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"math"
 	"strconv"
 
 	"colsheet/calc/code"
@@ -108,9 +109,28 @@ type jsonDesign struct {
 	Governing   string       `json:"governing"`
 	Steps       int          `json:"steps"`
 	NRdMax      float64      `json:"NRd_max_kN"`
+	Exact       *jsonExact   `json:"biaxial_exact,omitempty"`
+	Interaction *jsonCurves  `json:"interaction,omitempty"`
 	Reasons     []string     `json:"reasons"`
 	Cautions    []string     `json:"cautions"`
 	Trace       []trace.Step `json:"trace"`
+}
+
+// jsonExact is the exact biaxial resistance along the resultant design moment.
+type jsonExact struct {
+	MRd   float64 `json:"MRd_kNm"`
+	MRdY  float64 `json:"MRd_y_kNm"`
+	MRdZ  float64 `json:"MRd_z_kNm"`
+	Ratio float64 `json:"ratio"`
+	Angle float64 `json:"neutral_axis_deg"`
+}
+
+// jsonCurves holds the interaction data for plotting: [N kN, M kNm with the +face compressed,
+// M kNm with the −face compressed] about each axis, and [My kNm, Mz kNm] round the contour at NEd.
+type jsonCurves struct {
+	NMY  [][3]float64 `json:"N_M_y"`
+	NMZ  [][3]float64 `json:"N_M_z"`
+	MyMz [][2]float64 `json:"My_Mz_at_NEd"`
 }
 
 type jsonResult struct {
@@ -189,6 +209,24 @@ func JSON(r *design.Result) ([]byte, error) {
 			NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
 		})
 	}
+	for k, d := range r.Designs {
+		if e := d.Exact; e != nil {
+			out.Designs[k].Exact = &jsonExact{MRd: e.MRd / 1e6, MRdY: e.My / 1e6, MRdZ: e.Mz / 1e6, Ratio: e.Ratio, Angle: e.Angle * 180 / math.Pi}
+		}
+		if it := d.Interaction; it != nil {
+			c := &jsonCurves{NMY: [][3]float64{}, NMZ: [][3]float64{}, MyMz: [][2]float64{}}
+			for _, p := range it.NMY {
+				c.NMY = append(c.NMY, [3]float64{p.N / 1e3, p.M / 1e6, p.MNeg / 1e6})
+			}
+			for _, p := range it.NMZ {
+				c.NMZ = append(c.NMZ, [3]float64{p.N / 1e3, p.M / 1e6, p.MNeg / 1e6})
+			}
+			for _, p := range it.Contour {
+				c.MyMz = append(c.MyMz, [2]float64{p.My / 1e6, p.Mz / 1e6})
+			}
+			out.Designs[k].Interaction = c
+		}
+	}
 	for _, z := range r.Sizes {
 		out.Sizes = append(out.Sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
 			GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
@@ -226,6 +264,23 @@ func finiteResult(r *design.Result) error {
 			if err := check("design "+id+" axis "+[]string{"y", "z"}[k], a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei,
 				a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd); err != nil {
 				return err
+			}
+		}
+		if e := d.Exact; e != nil {
+			if err := check("design "+id+" exact biaxial", e.MRd, e.Ratio, e.Angle, e.My, e.Mz); err != nil {
+				return err
+			}
+		}
+		if it := d.Interaction; it != nil {
+			for _, p := range append(it.NMY, it.NMZ...) {
+				if err := check("design "+id+" N–M curve", p.N, p.M, p.MNeg); err != nil {
+					return err
+				}
+			}
+			for _, p := range it.Contour {
+				if err := check("design "+id+" My–Mz contour", p.My, p.Mz); err != nil {
+					return err
+				}
 			}
 		}
 		for i, p := range d.Bars.Positions {

@@ -70,6 +70,28 @@ func checkTrace(t *testing.T, d Design) {
 	}
 }
 
+// The exact biaxial check: a design with it passes its own exact check, the check is in the
+// trace beside (5.39), and the least steel still holds (common practice, no source).
+func TestExactBiaxialOption(t *testing.T) {
+	col := model.Column{ID: "X", B: 400, H: 400, Cover: 35, Storeys: []model.Storey{lift(3000, 3000, 1500, 150, 120, 140, 100)}}
+	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)
+	rule := mustRun(t, in).Designs[0]
+	in.Options.Biaxial = model.BiaxialExact
+	ex := mustRun(t, in).Designs[0]
+	if ex.Exact == nil || rule.Exact == nil {
+		t.Fatal("no exact biaxial result")
+	}
+	if ex.Status != StatusPass || ex.Exact.Ratio > 1+1e-9 {
+		t.Errorf("exact design: %s, ratio %g", ex.Status, ex.Exact.Ratio)
+	}
+	// (5.39) is commonly the more conservative: the exact check needs no more steel (common practice).
+	if ex.AsProv > rule.AsProv+1e-6 {
+		t.Errorf("exact check needs %g mm², (5.39) %g mm²", ex.AsProv, rule.AsProv)
+	}
+	checkTrace(t, ex)
+	checkTrace(t, rule)
+}
+
 func TestTraceInvariantsAcrossCases(t *testing.T) {
 	blocks := []string{model.ParabolaRectangle, model.Rectangular}
 	imps := []string{model.ImperfInclination, model.ImperfL0Over400}

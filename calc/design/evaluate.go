@@ -220,12 +220,18 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	aExp := l.Add(slender.ExponentA("bi/a", c.nEd, nRd))
 	d.Biaxial.A = aExp.V
 	d.Biaxial.Checked = !(ca.V == 1 && cb.V == 1)
+	exact := c.in.Options.Biaxial == model.BiaxialExact
 	if mRd[0].V > 0 && mRd[1].V > 0 {
 		s := slender.BiaxialRatio("bi/ratio", mEds[0], mRd[0], mEds[1], mRd[1], aExp)
 		d.Biaxial.Ratio = s.Value
-		if d.Biaxial.Checked {
+		switch {
+		case d.Biaxial.Checked && exact:
+			s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
+			s.Title = "Biaxial ratio of (5.39), for comparison (the exact resistance below is the check)"
+			l.Add(s)
+		case d.Biaxial.Checked:
 			resistance(s)
-		} else {
+		default:
 			s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
 			s.Title = "Biaxial ratio (for information)"
 			l.Add(s.Note("(5.38a) and (5.38b) both hold: the separate checks about y and z suffice, 5.8.9(3)."))
@@ -233,6 +239,37 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	} else {
 		d.Biaxial.Ratio = 0
 		l.Add(trace.Input("bi/ratio", "Biaxial ratio: not computed, the section has no moment resistance", "EN 1992-1-1:2004 5.8.9(4)", "ratio", "", 0))
+	}
+
+	// The exact resistance along the resultant design moment, with an inclined neutral axis:
+	// beside (5.39) on every sheet, and the check itself when the input asks for it.
+	if (full || exact) && mRd[0].V > 0 && mRd[1].V > 0 {
+		theta := math.Atan2(mEds[1].V, mEds[0].V)
+		if st, err := sec.sec.Biaxial(c.nEd.V, theta); err == nil {
+			l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
+			if full {
+				mr, ratio := sec.sec.BiaxialStep(l, "bi/exact/", c.nEd, mEds[0], mEds[1], st)
+				last := l.Last()
+				d.Exact = &Exact{MRd: mr.V, Ratio: ratio.V, Angle: st.Angle, My: st.My, Mz: st.Mz}
+				switch {
+				case exact:
+					checks = append(checks, checked{last.ID, true})
+					*last = last.Note("The exact resistance is the check in use (design.biaxial: exact); (5.39) gives " + which(d.Biaxial.Ratio, ratio.V) + ".")
+				default:
+					last.Kind, last.Verdict, last.Relation = trace.KindFormula, "", ""
+					last.Title = "Biaxial bending, exact section resistance (for comparison; (5.39) is the check in use)"
+					*last = last.Note("(5.39) gives " + which(d.Biaxial.Ratio, ratio.V) + ".")
+				}
+			} else {
+				// A trial: the ratio alone, by the same solution, as a check step.
+				med := math.Hypot(mEds[0].V, mEds[1].V)
+				resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
+					med/math.Max(st.MRd, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", trace.Const(med, "M_Ed", "Nmm")), trace.A("M_Rd", trace.Const(st.MRd, "M_Rd", "Nmm"))))
+			}
+		} else if exact {
+			resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance: no solution", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
+				2, "r", trace.A("r", trace.Const(2, "r", ""))).Caution("The inclined neutral axis could not be found: " + err.Error()))
+		}
 	}
 
 	d.checks = checks
@@ -299,4 +336,15 @@ func layersOf(pos [][2]float64, k int) []slender.Layer {
 		}
 	}
 	return out
+}
+
+// which says whether (5.39) is more or less conservative than the exact resistance.
+func which(rule, exact float64) string {
+	switch {
+	case rule > exact*(1+1e-9):
+		return "a larger ratio than the exact resistance: (5.39) is the more conservative here"
+	case rule < exact*(1-1e-9):
+		return "a smaller ratio than the exact resistance: the exact resistance governs here"
+	}
+	return "the same ratio as the exact resistance"
 }

@@ -14,6 +14,9 @@ const areaBound = 0.2
 
 // finish adds the steel area that the chosen bar pattern needs to resist the design actions.
 func (c *common) finish(d Design) Design {
+	if d.pattern.Count() > 0 {
+		d.sec = &c.section(d.Bars.Positions, d.pattern.BarArea()).sec
+	}
 	if d.pattern.Count() == 0 {
 		return d
 	}
@@ -73,4 +76,26 @@ func (c *common) noArrangement() Design {
 	d.Reasons = append(d.Reasons, "No symmetric pattern of the listed bar diameters between As,min and As,max fits the section with the clear spacing of 8.2(2); enlarge the section or widen the list of diameters.")
 	d.Steps = c.steps
 	return d
+}
+
+// Interaction points per curve.
+const (
+	curvePoints   = 25
+	contourPoints = 36
+)
+
+// AddInteraction computes, for every design with bars, the N–M diagrams about both axes and
+// the My–Mz contour at NEd of its section (EN 1992-1-1:2004 6.1), for plotting.
+func AddInteraction(r *Result) {
+	for k := range r.Designs {
+		d := &r.Designs[k]
+		if d.sec == nil {
+			continue
+		}
+		d.Interaction = &Interaction{
+			NMY:     d.sec.CurveNM(section.AxisY, curvePoints),
+			NMZ:     d.sec.CurveNM(section.AxisZ, curvePoints),
+			Contour: d.sec.ContourMyMz(d.NEd, contourPoints),
+		}
+	}
 }

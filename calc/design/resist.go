@@ -196,6 +196,16 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 	q.ok = true
 	q.biaxial = !(slender.SlendernessRatiosCloseValue(c.ax[0].lambda.V, c.ax[1].lambda.V) &&
 		slender.EccentricitiesApartValue(q.mEd[0], q.mEd[1], c.b.V, c.h.V))
+	if c.in.Options.Biaxial == model.BiaxialExact {
+		// The exact resistance along the resultant moment is the check, as in evaluate.
+		st, err := r.sec.Biaxial(nEd, math.Atan2(q.mEd[1], q.mEd[0]))
+		if err != nil {
+			q.ok = false
+			return q
+		}
+		q.ratioB = math.Hypot(q.mEd[0], q.mEd[1]) / math.Max(st.MRd, 1)
+		return q
+	}
 	if q.biaxial {
 		a := slender.ExponentAValue(nEd, slender.NRdBiaxialValue(c.ac.V, c.fcd.V, as, c.fyd.V))
 		q.ratioB = slender.BiaxialRatioValue(q.mEd[0], q.mRd[0], q.mEd[1], q.mRd[1], a)

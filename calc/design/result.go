@@ -9,6 +9,7 @@ import (
 
 	"colsheet/calc/detail"
 	"colsheet/calc/model"
+	"colsheet/calc/section"
 	"colsheet/calc/trace"
 )
 
@@ -57,6 +58,7 @@ type Design struct {
 	NEd            float64 // N
 	Y, Z           Axis    // bending about y and about z
 	Biaxial        Biaxial
+	Exact          *Exact  // the exact biaxial resistance; nil where it was not found
 	AsReq          float64 // mm², steel area needed for the chosen bar pattern
 	AsMin, AsMax   float64 // mm², 9.5.2(2) and 9.5.2(3)
 	AsProv         float64 // mm²
@@ -70,8 +72,11 @@ type Design struct {
 	Cautions       []string     // cautions particular to this design
 	Steps          []trace.Step // the full trace of this design; IDs relative to the design (see Trace)
 
-	pattern detail.Pattern // bar pattern evaluated
-	checks  []checked      // its check steps
+	Interaction *Interaction // curves for plotting, once AddInteraction has run
+
+	pattern detail.Pattern   // bar pattern evaluated
+	sec     *section.Section // the section with the bars provided
+	checks  []checked        // its check steps
 }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.
@@ -94,6 +99,20 @@ type Biaxial struct {
 	Checked bool    // whether (5.38a/b) call for the check (5.39)
 	A       float64 // exponent a of (5.39)
 	Ratio   float64 // left-hand side of (5.39)
+}
+
+// Interaction holds the interaction data of a design's section with the bars provided.
+type Interaction struct {
+	NMY, NMZ []section.NMPoint   // N–M diagrams about y and about z
+	Contour  []section.MyMzPoint // the My–Mz contour at NEd
+}
+
+// Exact is the resistance along the resultant design moment with an inclined neutral axis.
+type Exact struct {
+	MRd    float64 // N·mm, along the direction of (MEd,y, MEd,z)
+	Ratio  float64 // √(MEdy² + MEdz²)/MRd
+	Angle  float64 // neutral-axis angle, rad
+	My, Mz float64 // components of the resistance, N·mm
 }
 
 // Bars is the longitudinal reinforcement provided.

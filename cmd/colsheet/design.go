@@ -119,6 +119,7 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
+	design.AddInteraction(res)
 
 	files, err := render(res, o.formats)
 	if err != nil {
