@@ -338,3 +338,19 @@ func TestSizeFinder(t *testing.T) {
 	next:
 	}
 }
+
+// Creep by Annex B flows into the design: φef = φ(∞, t0)·ratio, re-evaluated here from
+// EN 1992-1-1:2004 Annex B Eq. (B.1)-(B.5), (B.8c), (B.9) and Eq. (5.19).
+func TestCreepInDesign(t *testing.T) {
+	st := lift(5000, 5000, 1200, 40, 20, 10, 5)
+	st.Creep = &model.Creep{RH: 50, T0: 28, Cement: "N", Ratio: 0.7}
+	col := model.Column{ID: "CR", B: 300, H: 400, Cover: 35, Storeys: []model.Storey{st}}
+	d := mustRun(t, newInput("C40/50", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	fcm := 48.0
+	h0 := 2 * 300.0 * 400 / (2 * (300 + 400))
+	a1, a2 := math.Pow(35/fcm, 0.7), math.Pow(35/fcm, 0.2)
+	phiRH := (1 + (1-0.5)/(0.1*math.Cbrt(h0))*a1) * a2
+	phi := phiRH * 16.8 / math.Sqrt(fcm) * (1 / (0.1 + math.Pow(28, 0.2)))
+	near(t, "phi_ef", d.Y.PhiEf, phi*0.7, 1e-9)
+	checkTrace(t, d)
+}

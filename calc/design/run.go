@@ -161,6 +161,7 @@ type common struct {
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
 	ecm          trace.Q // for the nominal stiffness method
+	phiInf       trace.Q // φ(∞, t0) by Annex B, when the lift has creep data
 	epsC2, epsCu trace.Q
 	nExp         trace.Q
 	lam, eta     trace.Q // rectangular block factors (zero value for parabola-rectangle)
@@ -314,6 +315,12 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 			a.phiEf = phiCreep
 			a.factorA = l.Add(onAxis(n, slender.FactorA(n+"/A", a.phiEf)))
 			a.phiGiven = true
+			// 5.8.4(4) would allow φef = 0 here; the sheet records it and keeps φef, which is conservative.
+			if st := creep.MayIgnoreStep(n+"/creep_ignorable", c.phiInf, a.lambda, a.m02i, c.nEd, a.depth); st.Value == 1 {
+				l.Add(st.Note("colsheet keeps the computed φef all the same, which is on the safe side."))
+			} else {
+				l.Add(st)
+			}
 		case st.HasPhi:
 			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio", "EN 1992-1-1:2004 5.8.4(2)", "φ_ef", "", st.PhiEf))
 			a.factorA = l.Add(onAxis(n, slender.FactorA(n+"/A", a.phiEf)))
@@ -517,5 +524,6 @@ func (c *common) creepRatio(l *trace.Log, dv *Derivation) (trace.Q, bool) {
 		ratio = l.Add(trace.Input("creep/r_qp", "Ratio of the quasi-permanent to the design first-order moment (not given)", "common practice", "M_0Eqp/M_0Ed", "", 1).
 			Caution("M0Eqp/M0Ed is not given: 1 is used, which overstates φef; give creep.ratio."))
 	}
+	c.phiInf = phiInf
 	return l.Add(creep.EffectiveRatio("creep/phi_ef", phiInf, ratio)), true
 }
