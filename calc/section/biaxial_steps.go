@@ -1,0 +1,74 @@
+package section
+
+import (
+	"math"
+
+	"colsheet/calc/trace"
+)
+
+// Clause and method strings of the biaxial trace.
+const (
+	clauseBiax      = "EN 1992-1-1:2004 6.1(2)P, 6.1(5), Fig. 6.1"
+	methodBiaxAngle = "Brent's method (Brent 1973, zeroin) on the neutral-axis angle until the direction of (M_R,y, M_R,z) is within 1e-9 rad of that of (M_Ed,y, M_Ed,z), the depth at each trial angle solved for N = N_Ed"
+	methodBiaxDepth = "Brent's method (Brent 1973, zeroin) on the strain-profile parameter at the angle found, |N − N_Ed| ≤ 1e-11·N_Rd,max"
+)
+
+// BiaxialStep records in log the steps of the exact biaxial resistance st (from Biaxial)
+// against the design moments mEdY and mEdZ at axial force nEd: a solve step for the
+// neutral-axis angle (residual: the sine of the angle between the resisting and the design
+// moment, (M_R,y·M_Ed,z − M_R,z·M_Ed,y)/(M_Rd·M_Ed)), a solve step for its depth (residual
+// N − N_Ed), the formulas for M_Ed = √(M_Ed,y² + M_Ed,z²) and M_Rd = √(M_R,y² + M_R,z²), and
+// the check M_Ed/M_Rd; it returns M_Rd and the ratio. Step IDs are id followed by a short
+// name; every expression reproduces its value.
+func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q, st BiaxialState) (mRd, ratio trace.Q) {
+	my, mz := st.My, st.Mz
+	mey, mez := mEdY.V, mEdZ.V
+	// Values mirror their expressions operation for operation (float64() conversions keep
+	// the compiler from fusing multiply-adds), so that the recheck is exact.
+	mrdV := math.Sqrt(float64(my*my) + float64(mz*mz))
+	medV := math.Sqrt(float64(mey*mey) + float64(mez*mez))
+	sinRes := (float64(my*mez) - float64(mz*mey)) / math.Max(float64(mrdV*medV), 1)
+
+	myQ := trace.Q{V: my, Symbol: "M_R,y", Unit: "Nmm"}
+	mzQ := trace.Q{V: mz, Symbol: "M_R,z", Unit: "Nmm"}
+	nQ := trace.Q{V: st.N, Symbol: "N_R", Unit: "N"}
+	choices := "Concrete: " + s.Block.String() + " block, no tension, integrated in closed form over the compressed polygon; steel: horizontal top branch, no strain limit; concrete displaced by bars in compression deducted."
+	resultants := "N_R, M_R,y = Σ F·z and M_R,z = Σ F·y are the resultants of the concrete and the bars for the strain plane found."
+
+	angle := trace.Solve(id+"beta", "Inclination of the neutral axis for a resisting moment parallel to the design moment",
+		clauseBiax, "β", "deg", st.Angle*180/math.Pi, methodBiaxAngle,
+		"(M_Ry * M_Edz - M_Rz * M_Edy) / max(sqrt(M_Ry ** 2 + M_Rz ** 2) * sqrt(M_Edy ** 2 + M_Edz ** 2), 1)", sinRes,
+		trace.A("M_Ry", myQ), trace.A("M_Rz", mzQ), trace.A("M_Edy", mEdY), trace.A("M_Edz", mEdZ)).
+		Note("β = 0: neutral axis parallel to y with the +z side compressed; β = 90°: parallel to z with the +y side compressed.").
+		Note("The pivots are measured perpendicular to the neutral axis, over the depth b·|sin β| + h·|cos β| of the section.").
+		Note(resultants).Note(choices)
+	angleQ := log.Add(angle)
+
+	var depth trace.Step
+	if st.Pivot != "C" {
+		depth = trace.Solve(id+"x", "Neutral-axis depth from the most compressed corner for equilibrium with N_Ed (pivot B: ε_cu at that corner)",
+			clausePivots, "x", "mm", st.Depth, methodBiaxDepth, "N_R - N_Ed", st.N-nEd.V,
+			trace.A("N_R", nQ), trace.A("N_Ed", nEd))
+	} else {
+		depth = trace.Solve(id+"eps_bot", "Strain at the least compressed corner for equilibrium with N_Ed (pivot C: whole section compressed)",
+			clausePivots, "ε_bot", "", st.EpsBottom, methodBiaxDepth, "N_R - N_Ed", st.N-nEd.V,
+			trace.A("N_R", nQ), trace.A("N_Ed", nEd))
+		if math.IsInf(st.Depth, 1) {
+			depth = depth.Note("Uniform strain: the neutral axis is at infinity and the section has no moment resistance.")
+		} else {
+			depth = depth.Note("The neutral axis lies outside the section.")
+		}
+	}
+	log.Add(depth.Note(resultants))
+
+	med := log.Add(trace.Formula(id+"M_Ed", "Resultant design moment", clauseCommon, "M_Ed", "Nmm", medV,
+		"sqrt(M_Edy ** 2 + M_Edz ** 2)", trace.A("M_Edy", mEdY), trace.A("M_Edz", mEdZ)))
+	myQ.From, mzQ.From = angleQ.From, angleQ.From
+	mRd = log.Add(trace.Formula(id+"M_Rd", "Design moment of resistance in the direction of the design moment", clauseBiax, "M_Rd", "Nmm", mrdV,
+		"sqrt(M_Ry ** 2 + M_Rz ** 2)", trace.A("M_Ry", myQ), trace.A("M_Rz", mzQ)))
+	ratioV := medV / math.Max(mrdV, 1)
+	ratio = log.Add(trace.Check(id+"check", "Biaxial bending, exact section resistance", clauseBiax, "M_Ed ≤ M_Rd", ratioV,
+		"M_Ed / max(M_Rd, 1)", trace.A("M_Ed", med), trace.A("M_Rd", mRd)).
+		Note("An accurate section design for biaxial bending, in place of the simplified criterion of EN 1992-1-1:2004 5.8.9(4), Eq. (5.39)."))
+	return mRd, ratio
+}
