@@ -303,26 +303,48 @@ type biaxSolver struct {
 	buf          [maxPoints]barPt
 	mtol         float64 // moments below mtol have no direction
 	lastP, lastB float64
+	haveLast     bool
 }
+
+// depthWindow is the half-width of the first bracket on the profile parameter round the
+// last root.
+const depthWindow = 0.02
 
 // depth returns the parameter p of the plane at angle beta with N = NEd and the
 // mismatch of the direction of (My, Mz) with theta, wrapped to [−π, π].
 //
-// Method: Brent's method on p in [0, 2], bracketed by N → −As·fyd as p → 0 and N(2) at
-// uniform strain, as in the uniaxial solve.
+// Method: Brent's method on p, bracketed by ±0.02 round the last root when N changes sign
+// there, else on [0, 2] by N → −As·fyd as p → 0 and N(2) at uniform strain, as in the
+// uniaxial solve.
 func (b *biaxSolver) depth(beta float64) (p, mismatch float64, err error) {
 	g := b.s.incline(beta, b.buf[:])
-	n2, _, _ := g.nm(2)
 	fn := func(p float64) float64 {
 		n, _, _ := g.nm(p)
 		return n - b.NEd
 	}
-	p, ok := brent(fn, 0, 2, b.nmin-b.NEd, n2-b.NEd, 1e-15, b.ftol)
+	// The depth moves little between neighbouring trial angles: try a narrow bracket round
+	// the last root first, then the whole range.
+	lo, hi := 0.0, 2.0
+	glo, ghi := b.nmin-b.NEd, 0.0
+	found := false
+	if b.haveLast {
+		l, h := math.Max(b.lastP-depthWindow, 0), math.Min(b.lastP+depthWindow, 2)
+		if l > 0 && h < 2 {
+			gl, gh := fn(l), fn(h)
+			if gl < 0 && gh > 0 {
+				lo, hi, glo, ghi, found = l, h, gl, gh, true
+			}
+		}
+	}
+	if !found {
+		ghi = fn(2)
+	}
+	p, ok := brent(fn, lo, hi, glo, ghi, 1e-15, b.ftol)
 	if !ok {
 		return 0, 0, fmt.Errorf("section: neutral-axis depth search did not converge in %d iterations at NEd = %.6g N", MaxIter, b.NEd)
 	}
 	_, my, mz := g.nm(p)
-	b.lastP, b.lastB = p, beta
+	b.lastP, b.lastB, b.haveLast = p, beta, true
 	if math.Abs(my)+math.Abs(mz) <= b.mtol {
 		return p, 0, errNoMoment
 	}
