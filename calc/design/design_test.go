@@ -102,7 +102,7 @@ func TestTraceInvariantsAcrossCases(t *testing.T) {
 		lift(3000, 3000, 0, 80, -80, 0, 0),      // no axial force
 		lift(3000, 3000, 9000, 50, -20, 20, 10), // beyond any arrangement: must fail loudly
 	}
-	for _, class := range []string{"C30/37", "C70/85", "C32/40"} {
+	for _, class := range []string{"C30/37", "C70/85", "C32/40", "C90/105"} {
 		for _, bl := range blocks {
 			for _, im := range imps {
 				for i, st := range lifts {

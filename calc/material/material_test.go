@@ -58,7 +58,7 @@ func TestTable31(t *testing.T) {
 }
 
 func TestSteps(t *testing.T) {
-	for _, class := range []string{"C30/37", "C70/85"} {
+	for _, class := range []string{"C30/37", "C70/85", "C90/105"} {
 		c, _ := Lookup(class)
 		fck := FckStep("fck", c).Q()
 		steps := []trace.Step{EpsC2Step("a", c, fck), EpsCu2Step("b", c, fck), NStep("n", c, fck),

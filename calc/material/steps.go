@@ -23,7 +23,8 @@ func EpsC2Step(id string, c Concrete, fck trace.Q) trace.Step {
 		return trace.Table(id, "Strain at peak stress, parabola-rectangle", ec2+"Table 3.1", c.Class+", εc2 = 2.0 ‰", "ε_c2", "", c.EpsC2)
 	}
 	return trace.Formula(id, "Strain at peak stress, parabola-rectangle", ec2+"Table 3.1", "ε_c2", "", c.EpsC2,
-		"(2.0 + 0.085 * (f_ck - 50) ** 0.53) / 1000", trace.A("f_ck", fck))
+		"min((2.0 + 0.085 * (f_ck - 50) ** 0.53) / 1000, (2.6 + 35 * ((90 - f_ck) / 100) ** 4) / 1000)", trace.A("f_ck", fck)).
+		Note("Not above εcu2: at C90/105 the expression gives 2.6005 ‰ where Table 3.1 prints 2.6 ‰ for both.")
 }
 
 // EpsCu2Step returns εcu2, read from Table 3.1 up to C50/60 and from the table's expression above.
