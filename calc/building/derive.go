@@ -28,6 +28,7 @@ type Sources struct {
 	NArr                       [2]trace.Q // NEd of the moment arrangements in the frames along x and y
 	L0                         [2]trace.Q // effective lengths about y and z by Eq. (5.15); zero when not derived
 	RatioQP                    trace.Q    // NEd,qp/NEd, standing for M0Eqp/M0Ed in Eq. (5.19); zero when not derived
+	BotAlt                     [2]trace.Q // bottom moments about y and z of an arrangement that bends the lift in single curvature; zero when none
 	MYTop, MYBot, MZTop, MZBot trace.Q
 }
 

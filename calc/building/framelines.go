@@ -120,15 +120,9 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 						axis = "z"
 					}
 					l.Group = "Column moments about " + axis + ": frame along " + d.String() + " on line " + lineName
-					var q [2]trace.Q
-					for endIdx := 0; endIdx < 2; endIdx++ {
-						best := 0
-						for a := range results {
-							if math.Abs(results[a].End[mem][endIdx]) > math.Abs(results[best].End[mem][endIdx])*(1+1e-12) {
-								best = a
-							}
-						}
-						r := results[best]
+					// record adds the solve step of one end (0 bottom, 1 top) under arrangement a.
+					record := func(endIdx, a int, suffix, extra string) trace.Q {
+						r := results[a]
 						nd := f.Members[mem].I
 						where := "bottom"
 						if endIdx == 1 {
@@ -156,14 +150,29 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 						if f.Nodes[nd].Fixed {
 							expr, sum = "0", 0 // a fixed base takes any moment: no equilibrium to state
 						}
-						st := trace.Solve("frm/"+d.String()+"/"+where, "Column moment at the "+where+" of the lift, clockwise (frame along "+d.String()+" on line "+lineName+")",
+						st := trace.Solve("frm/"+d.String()+"/"+where+suffix, "Column moment at the "+where+" of the lift, clockwise (frame along "+d.String()+" on line "+lineName+")"+extra,
 							"common practice (braced frame analysis)", "M_"+where[:1]+","+axis, "Nmm", r.End[mem][endIdx], frameMethod, expr, sum, args...).
-							Note("Governing arrangement at this end (EN 1992-1-1 5.1.3): " + arrangements[best].name + "; loaded spans γG·Gk + γQ·Qk, the others γG,light·Gk.").
+							Note("Arrangement (EN 1992-1-1 5.1.3): " + arrangements[a].name + "; loaded spans γG·Gk + γQ·Qk, the others γG,light·Gk.").
 							Note("The residual is the sum of the end moments of the members meeting at the joint (equilibrium).")
-						q[endIdx] = l.Add(st)
+						return l.Add(st)
+					}
+					var q [2]trace.Q
+					var best [2]int
+					for endIdx := 0; endIdx < 2; endIdx++ {
+						for a := range results {
+							if math.Abs(results[a].End[mem][endIdx]) > math.Abs(results[best[endIdx]].End[mem][endIdx])*(1+1e-12) {
+								best[endIdx] = a
+							}
+						}
+						q[endIdx] = record(endIdx, best[endIdx], "", "")
+					}
+					e := endQ{top: q[1], bot: q[0]}
+					if best[0] != best[1] {
+						// The bottom under the top's own arrangement: one consistent load case.
+						e.botAlt = record(0, best[1], "_alt", ", under the arrangement of the top")
 					}
 					lifts[m].Steps = l.Steps
-					out[key][m][d] = endQ{top: q[1], bot: q[0]}
+					out[key][m][d] = e
 				}
 			}
 		}

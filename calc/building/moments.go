@@ -12,6 +12,7 @@ import (
 // jointResult is the traced outcome of the subframe at one joint and direction.
 type jointResult struct {
 	below, above frame.JointColumn // the columns below and above the joint
+	aboveAlt     frame.JointColumn // the column above under the other side's arrangement, when both sides have a beam
 }
 
 // beamsAt returns the indices of the beams of direction d on the left (ending at the column)
@@ -167,7 +168,28 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 	if last := js.Steps; len(last) > 0 {
 		l.Steps[len(l.Steps)-len(last)] = l.Steps[len(l.Steps)-len(last)].Note(arrangementNote(choice, sides[0] != nil, sides[1] != nil))
 	}
-	return jointResult{below: js.Below, above: js.Above}
+	res := jointResult{below: js.Below, above: js.Above}
+	// The other side loaded: with unequal spans the two arrangements turn the joint the same way
+	// or not; the lift above may be bent in single curvature by this one (see assembleMoments).
+	if sides[0] != nil && sides[1] != nil && jt.Above != nil {
+		alt := jt
+		other := 1 - choice
+		l0 := &frame.JointBeam{K: sides[0].k, FEM: sides[0].light}
+		r0 := &frame.JointBeam{K: sides[1].k, FEM: sides[1].light}
+		if other == 0 {
+			l0.FEM = sides[0].loaded
+		} else {
+			r0.FEM = sides[1].loaded
+		}
+		alt.Left, alt.Right, alt.Below = l0, r0, jt.Below
+		l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + ", the other side loaded"
+		ja := alt.Steps(pre + "alt/")
+		for idx := range ja.Steps {
+			l.Add(ja.Steps[idx])
+		}
+		res.aboveAlt = ja.Above
+	}
+	return res
 }
 
 func iExpr(d Dir) string {
@@ -189,8 +211,9 @@ func arrangementNote(choice int, hasLeft, hasRight bool) string {
 	return "No beam frames into the column in this direction."
 }
 
-// endQ holds the clockwise end moments of the column of one lift in one direction.
-type endQ struct{ top, bot trace.Q }
+// endQ holds the clockwise end moments of the column of one lift in one direction, and a
+// bottom moment of another arrangement that may bend the lift in single curvature.
+type endQ struct{ top, bot, botAlt trace.Q }
 
 // subframeEnds records the simplified subframe at each level of one column and returns the
 // clockwise end moments of each lift's column in each direction. The moment at the bottom of a
@@ -215,6 +238,9 @@ func subframeEnds(in *model.Input, levels []Level, lifts []Lift) [][2]endQ {
 			switch {
 			case m > 0:
 				e.bot = absolute(results[m-1][d].above.AtJoint, id, lifts[m-1].Name)
+				if alt := results[m-1][d].aboveAlt; alt.Present {
+					e.botAlt = absolute(alt.AtJoint, id, lifts[m-1].Name)
+				}
 			case b.Base == model.BasePinned:
 				e.bot = trace.Const(0, "M_base", "Nmm")
 			default:
@@ -252,12 +278,19 @@ func assembleMoments(lifts []Lift, ends [][2]endQ) {
 				-bot.V, "-M_i", trace.A("M_i", bot)).
 				Note("Minus the column's clockwise end moment at its bottom.")
 			tq, bq := l.Add(topS), l.Add(botS)
-			ends := model.Ends{Top: tq.V, Bottom: bq.V}
+			me := model.Ends{Top: tq.V, Bottom: bq.V}
+			// Where the arrangements bend the lift in double curvature, the other arrangement at the
+			// joint below may bend it in single curvature, which the design checks too.
+			if alt := ends[m][d].botAlt; alt.From != "" && tq.V*bq.V < 0 && tq.V*alt.V < 0 {
+				lifts[m].Src.BotAlt[d] = l.Add(trace.Formula("mom/"+axis+"/bot_alt", "Moment at the bottom of the lift about "+axis+", the other side loaded at the joint below (single curvature)",
+					"common practice; EN 1992-1-1:2004 5.1.3", "M_bot,"+axis+",alt", "Nmm", -alt.V, "-M_i", trace.A("M_i", alt)).
+					Note("With this arrangement the lift bends in single curvature; the design is checked for it as well."))
+			}
 			if d == DirX {
-				lifts[m].MY = ends
+				lifts[m].MY = me
 				lifts[m].Src.MYTop, lifts[m].Src.MYBot = tq, bq
 			} else {
-				lifts[m].MZ = ends
+				lifts[m].MZ = me
 				lifts[m].Src.MZTop, lifts[m].Src.MZBot = tq, bq
 			}
 		}

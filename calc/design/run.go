@@ -42,7 +42,7 @@ func Run(in *model.Input) (*Result, error) {
 			}
 			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
 				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
-			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP,
+			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
 			r.cases = append(r.cases, liftCase{col, &col.Storeys[0]})
@@ -66,7 +66,8 @@ func Run(in *model.Input) (*Result, error) {
 // the steps of the take-down and the moments, and the quantities the design takes from them.
 type Derivation struct {
 	Steps       []trace.Step
-	RatioQP     trace.Q // NEd,qp/NEd from the take-down, standing for M0Eqp/M0Ed in (5.19); zero when not derived
+	RatioQP     trace.Q    // NEd,qp/NEd from the take-down, standing for M0Eqp/M0Ed in (5.19); zero when not derived
+	BottomAlt   [2]trace.Q // bottom moments about y and z of an arrangement with single curvature; zero when none
 	NEd         trace.Q
 	NArr        [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
 	L0          [2]trace.Q // effective lengths about y and z, when derived
@@ -453,6 +454,33 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		s := trace.Check("arr/"+n+"/check", "Resistance with the NEd of the moment arrangement about "+n, "EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
 			"η ≤ 1 at N_Ed,arr,"+n, ratio, "max(N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas at the smaller NEd; their values are shown here.")
+		d.checks = append(d.checks, checked{l.Add(s).From, true})
+		added = true
+	}
+	// An arrangement that bends the lift in single curvature where the governing one bends it in
+	// double curvature: the same NEd, the other bottom moment.
+	for k := 0; k < 2; k++ {
+		alt := dv.BottomAlt[k]
+		if alt.From == "" {
+			continue
+		}
+		bottom := dv.Bottom
+		bottom[k] = alt
+		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP})
+		qr := c2.quickResist(d.pattern, c.nEd.V)
+		n := []string{"y", "z"}[k]
+		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
+		args := []trace.Arg{trace.A("M_bot", alt), trace.A("N", c.nEd), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
+			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
+			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
+			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
+		ratio := math.Max(math.Max(c.nEd.V/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
+		if !qr.ok {
+			ratio = math.Max(ratio, 2)
+		}
+		s := trace.Check("arr/"+n+"/single", "Resistance with the arrangement that bends the lift in single curvature about "+n, "EN 1992-1-1:2004 5.1.3; 5.8.8; 6.1; 5.8.9",
+			"η ≤ 1 in single curvature about "+n, ratio, "max(0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
+			Note("The checks above (imperfection, slenderness with C from the new end moments, second order, resistance, biaxial) evaluated again by the same formulas with this bottom moment.")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
 		added = true
 	}
