@@ -111,7 +111,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
 			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).
 				Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
-			for _, c := range sortedKeysQ(mapList(qk)) {
+			for _, c := range keys(qk) {
 				psi0 := l.Add(actions.PsiStep("td/"+st.Name+"/psi0_"+c, 0, c))
 				aa := l.Add(actions.AlphaA("td/"+st.Name+"/alpha_A_"+c, c, psi0, aq))
 				if aa.V < 1 {
@@ -138,7 +138,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		for c := range qAbove {
 			cats[c] = true
 		}
-		for _, c := range sortedBool(cats) {
+		for _, c := range keys(cats) {
 			var ps []trace.Q
 			if q, ok := qk[c]; ok {
 				ps = append(ps, q)
@@ -175,15 +175,6 @@ func absolute(q trace.Q, column, lift string) trace.Q {
 	return q
 }
 
-func sortedBool(m map[string]bool) []string {
-	var out []string
-	for k := range m {
-		out = append(out, k)
-	}
-	sortStrings(out)
-	return out
-}
-
 // combine records the design axial force of the lift from its cumulative characteristic
 // loads, EN 1990:2002 6.4.3.2, with the imposed-load reduction by the number of storeys
 // where the input asks for it.
@@ -191,7 +182,7 @@ func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q 
 	b := in.Building
 	l.Group = "Design axial force at the bottom of lift " + lf.Name
 	var vs []actions.Variable
-	for _, c := range sortedKeysQ(mapList(q)) {
+	for _, c := range keys(q) {
 		v := actions.Variable{Category: c, Q: q[c]}
 		if b.Options.Reduction == model.ReduceStoreys {
 			n := 0
@@ -225,24 +216,13 @@ func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q 
 	}
 }
 
-func mapList(m map[string]trace.Q) map[string][]trace.Q {
-	out := map[string][]trace.Q{}
-	for k, v := range m {
-		out[k] = []trace.Q{v}
-	}
-	return out
-}
-
 // arrangementForce records the design axial force that accompanies the moment arrangements in
 // the frames of direction d: NEd less, at this level and every level above, the part of the
 // lightly loaded beam's reaction that the arrangement leaves off, (γG − γG,light)·R_G + γQ·R_Q
 // (EN 1992-1-1:2004 5.1.3). It returns the cumulative reduction for the lift below.
 func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir, byBeam map[int]reactions, above trace.Q, hasAbove bool) trace.Q {
 	p := in.Code
-	axis := "y"
-	if d == DirY {
-		axis = "z"
-	}
+	axis := d.Axis()
 	l.Group = "Design axial force with the moment arrangement about " + axis
 	pre := "arr/" + d.String() + "/"
 	gG, gQ, gL := p.Get("gamma_G"), p.Get("gamma_Q"), p.Get("gamma_G_light")
@@ -280,7 +260,7 @@ func (lf *Lift) quasiPermanent(l *trace.Log, q map[string]trace.Q, g trace.Q) {
 	expr := "G_k"
 	args := []trace.Arg{trace.A("G_k", g)}
 	v := g.V
-	for k, c := range sortedKeysQ(mapList(q)) {
+	for k, c := range keys(q) {
 		psi := l.Add(actions.PsiStep("qp/psi2_"+c, 2, c))
 		n := itoa(k + 1)
 		expr += " + psi_" + n + " * Q_" + n

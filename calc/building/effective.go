@@ -37,10 +37,7 @@ func effectiveLengths(in *model.Input, levels []Level, lifts []Lift) {
 	for m := range lifts {
 		l := &trace.Log{Steps: lifts[m].Steps}
 		for d := DirX; d <= DirY; d++ {
-			axis := "y"
-			if d == DirY {
-				axis = "z"
-			}
+			axis := d.Axis()
 			l.Group = "Effective length about " + axis + " (frame along " + d.String() + ")"
 			pre := "l0/" + axis + "/"
 			kc := trace.Const(kcr, "k_cr", "")

@@ -115,10 +115,7 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 				for m := 0; m < n; m++ {
 					mem := colMember[[2]int{ci, m}]
 					l := &trace.Log{Steps: lifts[m].Steps}
-					axis := "y"
-					if d == DirY {
-						axis = "z"
-					}
+					axis := d.Axis()
 					l.Group = "Column moments about " + axis + ": frame along " + d.String() + " on line " + lineName
 					// record adds the solve step of one end (0 bottom, 1 top) under arrangement a.
 					record := func(endIdx, a int, suffix, extra string) trace.Q {

@@ -104,6 +104,15 @@ func (d Dir) String() string {
 	return "x"
 }
 
+// Axis returns the section axis that the frames of direction d bend the columns about:
+// frames along x bend them about y, frames along y about z.
+func (d Dir) Axis() string {
+	if d == DirY {
+		return "z"
+	}
+	return "y"
+}
+
 // Beam is a beam between two neighbouring columns on one grid line at one level.
 type Beam struct {
 	Dir      Dir

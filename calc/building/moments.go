@@ -53,7 +53,7 @@ func factored(ld BeamLoad, gammaG, gammaQ float64, loaded bool) []frame.Piece {
 		out = append(out, p.Scale(gammaG))
 	}
 	if loaded {
-		for _, c := range sortedKeys(ld.Q) {
+		for _, c := range keys(ld.Q) {
 			for _, p := range ld.Q[c] {
 				out = append(out, p.Scale(gammaQ))
 			}
@@ -72,10 +72,7 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 	p := in.Code
 	lv := &levels[m]
 	pre := "sub" + d.String() + "/" + lv.Name + "/"
-	axis := "y"
-	if d == DirY {
-		axis = "z"
-	}
+	axis := d.Axis()
 	l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + " (frame along " + d.String() + ")"
 	gG := l.Add(actions.ParamStep(pre+"gamma_G", p, "gamma_G", ""))
 	gQ := l.Add(actions.ParamStep(pre+"gamma_Q", p, "gamma_Q", ""))
@@ -265,10 +262,7 @@ func assembleMoments(lifts []Lift, ends [][2]endQ) {
 	for m := range lifts {
 		l := &trace.Log{Steps: lifts[m].Steps}
 		for d := DirX; d <= DirY; d++ {
-			axis := "y"
-			if d == DirY {
-				axis = "z"
-			}
+			axis := d.Axis()
 			l.Group = "First-order end moments about " + axis + " of lift " + lifts[m].Name
 			top, bot := ends[m][d].top, ends[m][d].bot
 			topS := trace.Formula("mom/"+axis+"/top", "Moment at the top of the lift about "+axis+" (same sign at both ends: single curvature)",

@@ -1,6 +1,9 @@
 package building
 
 import (
+	"maps"
+	"slices"
+
 	"colsheet/calc/frame"
 	"colsheet/calc/trace"
 )
@@ -116,7 +119,7 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 		rg := l.Add(s)
 		gs = append(gs, rg)
 		re := reactions{g: rg}
-		for _, cat := range sortedKeys(ld.Q) {
+		for _, cat := range keys(ld.Q) {
 			f, xb := resultant(ld.Q[cat], bm.L)
 			if f == 0 {
 				continue
@@ -140,34 +143,11 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 	}
 	g = l.Add(Sum(pre+"G", "Permanent load delivered at level "+lv.Name, "common practice", "G_"+lv.Name, "N", gs))
 	q = map[string]trace.Q{}
-	for _, cat := range sortedKeysQ(qs) {
+	for _, cat := range keys(qs) {
 		q[cat] = l.Add(Sum(pre+"Q"+cat, "Imposed load (category "+cat+") delivered at level "+lv.Name, "common practice", "Q_"+cat+","+lv.Name, "N", qs[cat]))
 	}
 	return g, q, area, byBeam
 }
 
-func sortedKeys(m map[string][]frame.Piece) []string {
-	var out []string
-	for k := range m {
-		out = append(out, k)
-	}
-	sortStrings(out)
-	return out
-}
-
-func sortedKeysQ(m map[string][]trace.Q) []string {
-	var out []string
-	for k := range m {
-		out = append(out, k)
-	}
-	sortStrings(out)
-	return out
-}
-
-func sortStrings(s []string) {
-	for i := 1; i < len(s); i++ {
-		for j := i; j > 0 && s[j] < s[j-1]; j-- {
-			s[j], s[j-1] = s[j-1], s[j]
-		}
-	}
-}
+// keys returns the keys of a map, sorted.
+func keys[V any](m map[string]V) []string { return slices.Sorted(maps.Keys(m)) }
