@@ -20,6 +20,14 @@ type Building struct {
 	Base     string       // BaseFixed or BasePinned
 	Analysis string       // AnalysisSubframe or AnalysisFrame
 	Options  BuildingOptions
+	Fires    []FireLevels // fire ratings by level, overriding Options.Fire there
+}
+
+// FireLevels gives the fire resistance of the columns at some levels (lifts named by their top).
+type FireLevels struct {
+	Levels []string
+	Fire   Fire
+	Line   int
 }
 
 // Base fixities.

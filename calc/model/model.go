@@ -57,6 +57,8 @@ type Options struct {
 	Biaxial       string      // BiaxialRule (5.39, default) or BiaxialExact (inclined neutral axis)
 	CrackedK      float64     // factor on the stiffness of restraining members for cracking, 5.8.3.2(3); default 0.5
 	Sizes         *SizeSearch // the section-size finder, when asked for
+	Durability    *Durability // cover for durability, for every column unless a column gives its own
+	Fire          *Fire       // fire resistance, for every column unless a column or level gives its own
 }
 
 // Second-order methods of EN 1992-1-1 5.8.5.
@@ -91,13 +93,15 @@ type Creep struct {
 
 // Column is one column with its section and its lifts.
 type Column struct {
-	ID      string
-	Line    int      // input line of the column entry
-	B, H    float64  // section width along y and depth along z, mm
-	Cover   float64  // nominal cover to the links, mm
-	Bars    *BarSpec // given bars to check; nil to design them
-	LinkDia float64  // given link diameter, mm; 0 to choose
-	Storeys []Storey
+	ID         string
+	Line       int         // input line of the column entry
+	B, H       float64     // section width along y and depth along z, mm
+	Cover      float64     // nominal cover to the links, mm
+	Bars       *BarSpec    // given bars to check; nil to design them
+	LinkDia    float64     // given link diameter, mm; 0 to choose
+	Durability *Durability // overrides Options.Durability; nil to inherit
+	Fire       *Fire       // overrides Options.Fire; nil to inherit
+	Storeys    []Storey
 }
 
 // BarSpec is a given set of longitudinal bars: a count of one diameter, laid out symmetrically.
@@ -124,4 +128,22 @@ type Storey struct {
 // Ends holds the first-order moments at the two ends of a lift; equal signs mean single curvature.
 type Ends struct {
 	Top, Bottom float64
+}
+
+// Durability holds what EN 1992-1-1 4.4.1 needs for the nominal cover.
+type Durability struct {
+	Exposure        []string // exposure classes of Table 4.1, e.g. ["XC3", "XD1"]; the most onerous governs
+	StructuralClass int      // recommended S4 for a 50-year design life, before the modifications of Table 4.3N; 0 = 4
+	DesignLife      float64  // years; 100 raises the structural class by 2 (Table 4.3N); 0 = 50
+	SpecialQC       bool     // special quality control of concrete production: class reduced by 1 (Table 4.3N)
+	SlabGeometry    bool     // member with slab geometry: class reduced by 1 (Table 4.3N); never for columns, kept for completeness
+	DeltaCdev       float64  // allowance for deviation Δcdev, mm (4.4.1.3(1)P); 0 = 10
+	DeltaCdurGamma  float64  // additive safety element Δcdur,γ, mm (4.4.1.2(6)); recommended 0
+}
+
+// Fire holds what EN 1992-1-2 5.3.2 (Method A) needs for the fire resistance of a column.
+type Fire struct {
+	Rating  int     // standard fire resistance R in minutes: 30, 60, 90, 120, 180, 240; 0 = no fire check
+	EtaFi   float64 // reduction factor ηfi for μfi = ηfi when NEd,fi/NRd is not computed; 0 = 0.7 (2.4.2(3))
+	UseMuFi bool    // μfi = NEd,fi/NRd with NEd,fi = ηfi·NEd (5.3.2(3)); otherwise μfi = ηfi, conservative
 }
