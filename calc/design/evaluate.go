@@ -54,6 +54,17 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		c.asMin.V/as.V, "A_s_min / A_s", trace.A("A_s_min", c.asMin), trace.A("A_s", as)))
 	check(trace.Check("bars/check_As_max", "Maximum reinforcement outside laps", "EN 1992-1-1:2004 9.5.2(3)", "A_s,prov ≤ A_s,max",
 		as.V/c.asMax.V, "A_s / A_s_max", trace.A("A_s", as), trace.A("A_s_max", c.asMax)))
+	if dv := c.dv; dv != nil && dv.AsAbove > 0 {
+		// The lap above this lift holds its bars and those of the lift above, 9.5.2(3).
+		aa := l.Add(trace.Input("bars/As_above", "Bars of the lift above ("+dv.NameAbove+")", "design of the lift above", "A_s,above", "mm2", dv.AsAbove))
+		acA := l.Add(trace.Input("bars/Ac_above", "Section of the lift above", "design of the lift above", "A_c,above", "mm2", dv.AcAbove))
+		lapMax := l.Add(trace.Formula("bars/As_max_lap", "Maximum reinforcement at laps", "EN 1992-1-1:2004 9.5.2(3)", "A_s,max,lap", "mm2",
+			prm.Get("As_max_lap_Ac")*math.Min(c.ac.V, acA.V), "k * min(A_c, A_c_above)", trace.A("k", param(prm, "As_max_lap_Ac", "")), trace.A("A_c", c.ac), trace.A("A_c_above", acA)))
+		check(trace.Check("bars/check_As_lap", "Reinforcement at the lap above the lift", "EN 1992-1-1:2004 9.5.2(3)", "A_s,prov + A_s,above ≤ A_s,max,lap",
+			(as.V+aa.V)/lapMax.V, "(A_s + A_s_above) / A_s_max_lap", trace.A("A_s", as), trace.A("A_s_above", aa), trace.A("A_s_max_lap", lapMax)))
+		check(trace.Check("bars/check_not_less", "Bars not less than in the lift above", "common practice", "A_s,above ≤ A_s,prov",
+			aa.V/as.V, "A_s_above / A_s", trace.A("A_s_above", aa), trace.A("A_s", as)))
+	}
 	phiMin := param(prm, "phi_min", "mm")
 	check(trace.Check("bars/check_phi_min", "Minimum bar diameter", "EN 1992-1-1:2004 9.5.2(1)", "φ_min ≤ φ",
 		phiMin.V/p.Dia, "phi_min / phi", trace.A("phi_min", phiMin), trace.A("phi", phi)))

@@ -34,7 +34,12 @@ func Run(in *model.Input) (*Result, error) {
 		}
 		r.Building = d
 		b := in.Building
-		for k := range d.Lifts {
+		r.Designs = make([]Design, len(d.Lifts))
+		r.cases = make([]liftCase, len(d.Lifts))
+		// Each column from its top lift down, so that a lift's bars are not less than those of
+		// the lift above (the bars do not grow up the building, common practice) and the lap
+		// above a lift can be checked.
+		for k := len(d.Lifts) - 1; k >= 0; k-- {
 			lf := &d.Lifts[k]
 			l0y, l0z := b.Options.L0Factor*lf.Height, b.Options.L0Factor*lf.Height
 			if b.Options.L0FromFrame {
@@ -44,8 +49,12 @@ func Run(in *model.Input) (*Result, error) {
 				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
 			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
-			r.Designs = append(r.Designs, design(in, col, &col.Storeys[0], dv))
-			r.cases = append(r.cases, liftCase{col, &col.Storeys[0]})
+			if k+1 < len(d.Lifts) && d.Lifts[k+1].Column == lf.Column {
+				above := &r.Designs[k+1]
+				dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.B*above.H, above.Storey
+			}
+			r.Designs[k] = design(in, col, &col.Storeys[0], dv)
+			r.cases[k] = liftCase{col, &col.Storeys[0]}
 		}
 	} else {
 		for ci := range in.Columns {
@@ -68,6 +77,9 @@ type Derivation struct {
 	Steps       []trace.Step
 	RatioQP     trace.Q    // NEd,qp/NEd from the take-down, standing for M0Eqp/M0Ed in (5.19); zero when not derived
 	BottomAlt   [2]trace.Q // bottom moments about y and z of an arrangement with single curvature; zero when none
+	AsAbove     float64    // mm², the bars of the lift above (0 at the top); the lift takes no less
+	AcAbove     float64    // mm², the section of the lift above, for the lap
+	NameAbove   string     // the lift above
 	NEd         trace.Q
 	NArr        [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
 	L0          [2]trace.Q // effective lengths about y and z, when derived
@@ -163,6 +175,7 @@ type common struct {
 	fyd, es      trace.Q
 	ecm          trace.Q // for the nominal stiffness method
 	phiInf       trace.Q // φ(∞, t0) by Annex B, when the lift has creep data
+	dv           *Derivation
 	epsC2, epsCu trace.Q
 	nExp         trace.Q
 	lam, eta     trace.Q // rectangular block factors (zero value for parabola-rectangle)
@@ -210,7 +223,7 @@ func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
 }
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) *common {
-	c := &common{in: in, col: col, st: st, p: in.Code}
+	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv}
 	// Room for every step of the design, so that evaluate and finish append in place; a
 	// derivation without steps serves a trial only (withArrangements), which keeps no trace.
 	room := 96 + stepsPerPattern
@@ -375,7 +388,11 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 		c.withArrangements(&d, dv)
 		return c.finish(d)
 	}
-	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor, c.asMin.V, c.asMax.V)
+	asLo := c.asMin.V
+	if dv != nil && dv.AsAbove > asLo {
+		asLo = dv.AsAbove
+	}
+	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor, asLo, c.asMax.V)
 	var best Design
 	found, seen := false, false
 	var lastP detail.Pattern
