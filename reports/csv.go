@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/csv"
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 
@@ -58,4 +59,58 @@ func cell(s string) string {
 		return "'" + s
 	}
 	return s
+}
+
+// ScheduleHeader names the columns of the column schedule.
+var ScheduleHeader = []string{"column", "lift", "b_mm", "h_mm", "bars", "As_prov_mm2", "link_dia_mm", "link_spacing_mm",
+	"link_spacing_reduced_mm", "reduced_zone_mm", "reduced_over_laps", "lap_length_mm", "extra_ties", "cover_mm",
+	"cover_required_mm", "fire_rating", "fire", "utilization", "status", "governing"}
+
+// Schedule returns the column schedule, one row per column and lift, for the drawing office.
+func Schedule(r *design.Result) ([]byte, error) {
+	if r == nil {
+		return nil, fmt.Errorf("reports: no result")
+	}
+	if err := finiteResult(r); err != nil {
+		return nil, err
+	}
+	var b bytes.Buffer
+	w := csv.NewWriter(&b)
+	if err := w.Write(ScheduleHeader); err != nil {
+		return nil, err
+	}
+	for _, d := range r.Designs {
+		if err := w.Write(scheduleRow(d, func(s string) string { return cell(s) })); err != nil {
+			return nil, err
+		}
+	}
+	w.Flush()
+	return b.Bytes(), w.Error()
+}
+
+// scheduleRow returns one design's schedule entries as text, passing user text through esc.
+func scheduleRow(d design.Design, esc func(string) string) []string {
+	n := func(v float64) string { return fmtNum(v).plain() }
+	opt := func(v float64) string {
+		if v <= 0 {
+			return "–"
+		}
+		return n(v)
+	}
+	fire, rating := "–", "–"
+	if d.Detailing.FireRating > 0 {
+		rating = "R" + strconv.Itoa(d.Detailing.FireRating)
+		fire = "fails"
+		if d.Detailing.FireOK {
+			fire = "passes"
+		}
+	}
+	laps := "no"
+	if d.Detailing.LapZone {
+		laps = "yes"
+	}
+	return []string{esc(d.Column), esc(d.Storey), n(d.B), n(d.H), fmt.Sprintf("%d × %s mm", d.Bars.Count, n(d.Bars.Dia)), n(math.Round(d.AsProv)),
+		n(d.Links.Dia), n(d.Links.Spacing), n(d.Links.SpacingReduced), n(d.Detailing.ZoneLength), laps, opt(d.Detailing.LapLength),
+		strconv.Itoa(d.Detailing.ExtraTies), n(d.Cover), opt(d.Detailing.CoverRequired), rating, fire,
+		fmtNum(d.Utilization).plain(), d.Status, esc(d.Governing)}
 }

@@ -122,8 +122,9 @@ type sheetView struct {
 
 	// index only
 	Designs  []designRow
-	Sizes    []sizeRow // the section-size finder, when asked for
-	Failures string    // sentence on the count of failing designs
+	Sizes    []sizeRow  // the section-size finder, when asked for
+	Schedule [][]string // the column schedule, one row per design, cells already marked up
+	Failures string     // sentence on the count of failing designs
 	AnyFail  bool
 }
 
@@ -259,6 +260,9 @@ func index(m markup, r *design.Result, link func(name string) string) sheetView 
 		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
 		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r)}
 	nm := names(r)
+	for _, d := range r.Designs {
+		v.Schedule = append(v.Schedule, scheduleRow(d, m.text))
+	}
 	for _, z := range r.Sizes {
 		row := sizeRow{Column: m.text(z.Column), Given: m.text(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
 			Found: m.text("none of the sizes passes"), Steel: m.text("–"), Utilization: m.text("–")}

@@ -87,6 +87,9 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	s1 := l.Add(detail.RoundDown("links/s", "Link spacing provided", "s_t", sMax, step))
 	s2 := l.Add(detail.RoundDown("links/s_zone", "Link spacing provided near beams, slabs and laps", "s_t,red", sRed, step))
 	d.Links = Links{Dia: link, Spacing: s1.V, SpacingReduced: s2.V}
+	zone := l.Add(trace.Formula("links/zone", "Length of the zones with the reduced spacing above and below beams and slabs", "EN 1992-1-1:2004 9.5.3(4)", "l_zone", "mm",
+		math.Max(col.B, col.H), "max(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
+	d.Detailing.ZoneLength = zone.V
 
 	// Clear spacing of bars, EN 1992-1-1:2004 8.2(2).
 	l.Group = "Bar spacing"

@@ -65,6 +65,7 @@ type Design struct {
 	NRdMax         float64 // N, resistance to pure compression with the provided bars
 	Bars           Bars
 	Links          Links
+	Detailing      Detailing
 	Utilization    float64      // largest ratio of action to resistance among all checks
 	Status         string       // StatusPass or StatusFail
 	Governing      string       // the check that sets Utilization, in words
@@ -121,6 +122,17 @@ type Bars struct {
 	Dia       float64      // mm
 	Positions [][2]float64 // (y, z) of each bar centre from the centroid, mm
 	Given     bool         // true when the input fixed the bars
+}
+
+// Detailing holds what the column schedule gives beside bars and links.
+type Detailing struct {
+	ZoneLength    float64 // mm, length of the zones with the reduced link spacing above and below beams and slabs, 9.5.3(4)
+	LapLength     float64 // mm, lap length of the bars, 8.7.3; 0 when not computed
+	LapZone       bool    // the reduced spacing also applies over the laps (φ > 14 mm), 9.5.3(4)
+	ExtraTies     int     // ties needed besides the perimeter link so that no bar is more than 150 mm from a restrained one, 9.5.3(6)
+	CoverRequired float64 // mm, nominal cover to the links required for durability and bond, 4.4.1; 0 when not computed
+	FireRating    int     // minutes; 0 when no fire check
+	FireOK        bool    // the fire check passes
 }
 
 // Links is the transverse reinforcement provided.

@@ -156,6 +156,11 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 		return nil, err
 	}
 	files["summary.csv"] = csv
+	schedule, err := reports.Schedule(res)
+	if err != nil {
+		return nil, err
+	}
+	files["schedule.csv"] = schedule
 	type maker func(*design.Result) ([]reports.Sheet, error)
 	for _, f := range []struct {
 		name string
