@@ -41,7 +41,13 @@ var categories = []string{"A", "B", "C", "D", "E", "F", "G", "H"}
 
 var buildingKeys = []string{"storeys", "grid", "columns", "beams", "column_sizes", "beam_sizes", "floors",
 	"line_loads", "omit", "base", "analysis", "beam_stiffness", "combination", "imposed_reduction",
-	"density", "l0_factor", "effective_length", "creep", "bars"}
+	"density", "l0_factor", "effective_length", "creep", "bars", "fire_levels"}
+
+// buildingMisplaced answers keys that belong elsewhere than under building.
+var buildingMisplaced = map[string]string{
+	"durability": "the durability of the building's columns is given under design.durability; move it there",
+	"fire":       "the fire resistance is given under design.fire (every level) and building.fire_levels (some levels)",
+}
 
 // site holds what the entries of a building refer to: its levels and its grid.
 type site struct {
@@ -217,7 +223,7 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 		},
 	}
 	n = resolve(n)
-	f := r.fields(n, top, buildingKeys...)
+	f := r.fieldsHinted(n, top, buildingMisplaced, buildingKeys...)
 	if f == nil {
 		return b
 	}
@@ -349,6 +355,9 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	}
 	if e, ok := f["line_loads"]; ok {
 		b.Lines = r.lineLoads(s, e.val, join(top, "line_loads"))
+	}
+	if e, ok := f["fire_levels"]; ok {
+		b.Fires = r.fireLevels(s, e.val, join(top, "fire_levels"), opt.Fire)
 	}
 	return b
 }

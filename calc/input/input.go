@@ -16,11 +16,19 @@
 //	design:    {stress_block: parabola-rectangle, imperfection: inclination, members: 1,
 //	            bar_diameters: [12, 16, 20, 25, 32, 40], link_diameters: [6, 8, 10, 12],
 //	            link_spacing_step: 1 mm, second_order: nominal-curvature (or nominal-stiffness,
-//	            both), biaxial: "5.39" (or exact), cracked_stiffness: 0.5 (0.1 to 1), size_search}
+//	            both), biaxial: "5.39" (or exact), cracked_stiffness: 0.5 (0.1 to 1), size_search,
+//	            durability, fire}
 //	size_search: {sizes: [[b, h], ...]} tried in order, or {step, min, max, square: false};
 //	            either way steel_ratio_max: 0.04 (0.002 to 0.08)
 //	vars:      {NAME: quantity or expression}
-//	columns:   list of {id, b, h, cover, bars: {count, dia}, link_dia, storeys}
+//	durability: {exposure: a class or a list of EN 1992-1-1 Table 4.1 (X0 alone), required;
+//	            structural_class: 4 (1 to 6 or S1 to S6), design_life: 50 (10 to 200 years),
+//	            special_qc: false, delta_cdev: 10 mm (0 to 20), delta_cdur_gamma: 0 mm (0 to 20)}
+//	fire:      {rating: R30, R60, R90, R120, R180 or R240 (or the minutes; none for no check),
+//	            required; eta_fi: 0 (the engine's 0.7; else 0.3 to 1), mu_fi: eta_fi (or computed)}
+//	columns:   list of {id, b, h, cover, bars: {count, dia}, link_dia, durability, fire, storeys};
+//	            a column's durability and fire override design.durability and design.fire key
+//	            by key, so that what the column leaves out (the exposure, the rating) is inherited
 //	storeys:   list of {name, l0: {y, z} or one value, length, NEd,
 //	            M: {y: {top, bottom}, z: {top, bottom}}, phi_ef or creep}
 //	creep:     {rh (%, 10 to 100), t0 (days: 28, "28 d" or "28 days"), cement: N (S, N or R),
@@ -32,7 +40,9 @@
 //	            omit, base: fixed, analysis: subframe, beam_stiffness: half, combination: 6.10,
 //	            imposed_reduction: none, density: code density_rc or 25 kN/m3, l0_factor: 1,
 //	            effective_length: factor (l0_factor × height; or frame, Eq. (5.15) without
-//	            l0_factor), creep: {rh, t0, cement} (the ratio is derived), bars}
+//	            l0_factor), creep: {rh, t0, cement} (the ratio is derived), bars, fire_levels}
+//	fire_levels: list of {levels, rating, eta_fi, mu_fi} over design.fire, key by key; levels
+//	           required, no level in two entries. The durability is design.durability.
 //	storeys:   list of {name, height}, lowest first, names unique
 //	grid:      {x: [bay widths], y: [bay widths]}; lettered lines A, B, ..., Z, AA, ... at the x
 //	           positions, numbered lines 1, 2, ... at the y positions; column ids such as B2
@@ -467,7 +477,7 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 	n := resolve(item)
 	c := model.Column{Line: item.Line}
 	before := len(r.errs)
-	f := r.fields(n, path, "id", "b", "h", "cover", "bars", "link_dia", "storeys")
+	f := r.fields(n, path, "id", "b", "h", "cover", "bars", "link_dia", "durability", "fire", "storeys")
 	if f == nil {
 		return c, false
 	}
@@ -518,6 +528,12 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 			r.fail(coverEntry.val, join(path, "cover"), "no room for links and bars: 2·(cover + link + bar) = 2·(%s + %s + %s) = %s is not less than min(b, h) = %s",
 				show(c.Cover, ""), show(link, ""), show(bar, ""), show(need, "mm"), show(min(c.B, c.H), "mm"))
 		}
+	}
+	if e, ok := f["durability"]; ok {
+		c.Durability = r.durability(e.val, join(path, "durability"), opt.Durability)
+	}
+	if e, ok := f["fire"]; ok {
+		c.Fire = r.fire(e.val, join(path, "fire"), opt.Fire)
 	}
 	if e, ok := required("storeys", "the lifts with their actions"); ok {
 		c.Storeys = r.storeys(e.val, join(path, "storeys"))

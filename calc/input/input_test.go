@@ -385,6 +385,9 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte("a: &a {<<: *a}\n"))
 	f.Add([]byte("vars: {x: y, y: x}\n"))
 	f.Add([]byte(building))
+	f.Add([]byte("design: {durability: {exposure: [XC3, XD1], structural_class: S4}, fire: {rating: R90, mu_fi: computed}}\n" +
+		head + "        NEd: 10\n    durability: {special_qc: true}\n    fire: {eta_fi: 0.6}\n"))
+	f.Add([]byte(building + "  fire_levels: [{levels: [L1], rating: 120}, {levels: R, rating: none}]\n"))
 	f.Add([]byte(building + "  omit: [a1]\n  line_loads: [{line: B, from: 2, gk: 1}]\n  column_sizes: [{levels: R, b: 300, h: 300}]\n"))
 	f.Add([]byte(head + "        NEd: 10\n        creep: {rh: 50 %, t0: 28 d, cement: r, ratio: 0.5}\n" +
 		"design: {second_order: both, biaxial: 5.39, size_search: {step: 25, min: 250, max: 500, square: true}}\n"))

@@ -31,10 +31,10 @@ const (
 var cements = []string{"S", "N", "R"}
 
 var designKeys = []string{"stress_block", "imperfection", "members", "bar_diameters", "link_diameters",
-	"link_spacing_step", "second_order", "biaxial", "cracked_stiffness", "size_search"}
+	"link_spacing_step", "second_order", "biaxial", "cracked_stiffness", "size_search", "durability", "fire"}
 
-// methods reads the second-order, biaxial and cracked-stiffness choices and the size finder of
-// the design block's fields f into o.
+// methods reads the second-order, biaxial and cracked-stiffness choices, the size finder and the
+// durability and fire data of the design block's fields f into o.
 func (r *reader) methods(f map[string]pair, o *model.Options) {
 	if e, ok := f["second_order"]; ok {
 		if s, ok := r.oneOf(e.val, "design.second_order", model.SecondOrderCurvature, model.SecondOrderStiffness, model.SecondOrderBoth); ok {
@@ -54,6 +54,12 @@ func (r *reader) methods(f map[string]pair, o *model.Options) {
 	}
 	if e, ok := f["size_search"]; ok {
 		o.Sizes = r.sizeSearch(e.key, e.val, "design.size_search")
+	}
+	if e, ok := f["durability"]; ok {
+		o.Durability = r.durability(e.val, "design.durability", nil)
+	}
+	if e, ok := f["fire"]; ok {
+		o.Fire = r.fire(e.val, "design.fire", nil)
 	}
 }
 

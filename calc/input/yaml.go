@@ -138,6 +138,12 @@ func (r *reader) pairs(n *yaml.Node, path string) []pair {
 // fields reads mapping n, reporting keys not in known, and returns its entries by key.
 // It reports a fault and returns nil when n is not a mapping.
 func (r *reader) fields(n *yaml.Node, path string, known ...string) map[string]pair {
+	return r.fieldsHinted(n, path, nil, known...)
+}
+
+// fieldsHinted is fields where some keys that do not belong here are answered with a hint of
+// where they go instead of the list of known keys.
+func (r *reader) fieldsHinted(n *yaml.Node, path string, misplaced map[string]string, known ...string) map[string]pair {
 	n = resolve(n)
 	if n.Kind != yaml.MappingNode {
 		r.fail(n, path, "expected a mapping with the keys %s, found %s", strings.Join(known, ", "), kindName(n))
@@ -148,6 +154,10 @@ func (r *reader) fields(n *yaml.Node, path string, known ...string) map[string]p
 		ok := false
 		for _, k := range known {
 			ok = ok || k == p.name
+		}
+		if hint, moved := misplaced[p.name]; !ok && moved {
+			r.fail(p.key, join(path, p.name), "%s", hint)
+			continue
 		}
 		if !ok {
 			r.fail(p.key, join(path, p.name), "unknown key (known here: %s)", strings.Join(known, ", "))
