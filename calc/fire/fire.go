@@ -1,0 +1,285 @@
+// Package fire holds the fire resistance of braced columns by EN 1992-1-2:2004 5.3.2, Method A:
+// the degree of utilisation μfi, the conditions of the method, Table 5.2a for columns exposed on
+// more than one side (interpolated linearly between its μfi columns and between the alternatives
+// of a row), the axis distance and the checks, and the resistance R of Eq. (5.7).
+//
+// Every step function takes traced quantities and returns one trace step whose value its
+// expression reproduces; the value functions hold the same formulas untraced.
+package fire
+
+import (
+	"fmt"
+
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+)
+
+const en2 = "EN 1992-1-2:2004 "
+
+const notApply = "Method A does not apply."
+
+// EtaFi returns the reduction factor ηfi for the design load in fire, the given value or the
+// recommended 0.7, EN 1992-1-2:2004 2.4.2(3).
+func EtaFi(id string, f model.Fire) trace.Step {
+	if f.EtaFi == 0 {
+		return trace.Input(id, "Reduction factor for the design load in fire", en2+"2.4.2(3)", "η_fi", "", EtaFiDefault).
+			Note("Recommended simplified value.")
+	}
+	return trace.Input(id, "Reduction factor for the design load in fire", "input", "η_fi", "", f.EtaFi)
+}
+
+// NEdFi returns the design axial force in fire NEd,fi = ηfi·NEd, EN 1992-1-2:2004 2.4.2, Eq. (2.4).
+func NEdFi(id string, etaFi, nEd trace.Q) trace.Step {
+	return trace.Formula(id, "Design axial force in fire", en2+"2.4.2, Eq. (2.4)", "N_Ed,fi", "N",
+		etaFi.V*nEd.V, "eta_fi * N_Ed", trace.A("eta_fi", etaFi), trace.A("N_Ed", nEd))
+}
+
+// MuFi returns the degree of utilisation in fire μfi = NEd,fi/NRd, EN 1992-1-2:2004 5.3.2(3).
+func MuFi(id string, nEdFi, nRd trace.Q) trace.Step {
+	return trace.Formula(id, "Degree of utilisation in fire", en2+"5.3.2(3)", "μ_fi", "", nEdFi.V/nRd.V,
+		"N_Ed_fi / N_Rd", trace.A("N_Ed_fi", nEdFi), trace.A("N_Rd", nRd)).
+		Note("NRd is the design resistance of the column at normal temperature (EN 1992-1-1), second-order effects and imperfections included.")
+}
+
+// MuFiFromEta returns μfi = ηfi, the simplification that assumes full utilisation at normal
+// temperature, EN 1992-1-2:2004 5.3.2(3), note.
+func MuFiFromEta(id string, etaFi trace.Q) trace.Step {
+	return trace.Formula(id, "Degree of utilisation in fire (taken as ηfi)", en2+"5.3.2(3), note", "μ_fi", "",
+		etaFi.V, "eta_fi", trace.A("eta_fi", etaFi)).
+		Note("μfi = ηfi assumes full utilisation at normal temperature and is on the safe side.")
+}
+
+// condition returns a step worth 1 when the condition of the method holds and 0 otherwise,
+// with a caution that the method does not apply when it does not.
+func condition(id, title, clause, symbol, expr string, met bool, args ...trace.Arg) trace.Step {
+	s := trace.Formula(id, title+" (1 = met, 0 = not met)", clause, symbol, "", boolNum(met), expr, args...)
+	if !met {
+		s = s.Caution("Condition not met: " + notApply)
+	}
+	return s
+}
+
+// LengthCondition returns 1 when the effective length in fire l0,fi ≤ 3 m, EN 1992-1-2:2004 5.3.2(2).
+func LengthCondition(id string, l0fi trace.Q) trace.Step {
+	return condition(id, "Condition of Table 5.2a: l0,fi ≤ 3 m", en2+"5.3.2(2)", "cond_l0",
+		"l0_fi <= 3000 ? 1 : 0", l0fi.V <= L0FiMax, trace.A("l0_fi", l0fi))
+}
+
+// EMax returns the greatest first-order eccentricity of the method emax = k·h (or b), k = 0.15
+// recommended, EN 1992-1-2:2004 5.3.2(2), note.
+func EMax(id string, k, dim trace.Q) trace.Step {
+	return trace.Formula(id, "Greatest first-order eccentricity for Table 5.2a", en2+"5.3.2(2), note", "e_max", "mm",
+		k.V*dim.V, "k * h", trace.A("k", k), trace.A("h", dim))
+}
+
+// Eccentricity returns the first-order eccentricity e = M0Ed/NEd, equal in fire and at normal
+// temperature since Efi,d = ηfi·Ed scales both alike, EN 1992-1-2:2004 5.3.2(2) and 2.4.2.
+func Eccentricity(id string, m, n trace.Q) trace.Step {
+	return trace.Formula(id, "First-order eccentricity in fire", en2+"5.3.2(2); 2.4.2", "e", "mm",
+		EccentricityValue(m.V, n.V), "abs(M) / max(N, 1)", trace.A("M", m), trace.A("N", n))
+}
+
+// EccentricityCondition returns 1 when e ≤ emax, EN 1992-1-2:2004 5.3.2(2).
+func EccentricityCondition(id string, e, eMax trace.Q) trace.Step {
+	return condition(id, "Condition of Table 5.2a: e ≤ e_max", en2+"5.3.2(2)", "cond_e",
+		"e <= e_max ? 1 : 0", e.V <= eMax.V, trace.A("e", e), trace.A("e_max", eMax))
+}
+
+// SteelCondition returns 1 when As < 0.04·Ac, EN 1992-1-2:2004 5.3.2(2).
+func SteelCondition(id string, as, ac trace.Q) trace.Step {
+	return condition(id, "Condition of Table 5.2a: A_s < 0.04·A_c", en2+"5.3.2(2)", "cond_As",
+		"A_s < 0.04 * A_c ? 1 : 0", as.V < SteelMax*ac.V, trace.A("A_s", as), trace.A("A_c", ac))
+}
+
+// LeastWidth returns the least dimension of the section, the width b of Table 5.2a, EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func LeastWidth(id string, b, h trace.Q) trace.Step {
+	return trace.Formula(id, "Least dimension of the column", en2+"5.3.2, Table 5.2a", "b", "mm",
+		min(b.V, h.V), "min(b, h)", trace.A("b", b), trace.A("h", h))
+}
+
+// AxisDistance returns the axis distance of the main bars a = c + φt + φ/2 with c the cover to
+// the links, EN 1992-1-2:2004 Figure 5.2.
+func AxisDistance(id string, cover, link, dia trace.Q) trace.Step {
+	return trace.Formula(id, "Axis distance of the main bars", en2+"Figure 5.2", "a", "mm",
+		AxisDistanceValue(cover.V, link.V, dia.V), "c + phi_t + phi / 2",
+		trace.A("c", cover), trace.A("phi_t", link), trace.A("phi", dia))
+}
+
+// AlternativeWidth returns the column width of the i-th alternative (0 or 1) of the rating's row
+// of Table 5.2a at μfi, interpolated linearly between the μfi columns (the first is bmin),
+// EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func AlternativeWidth(id string, rating, i int, muFi trace.Q) trace.Step {
+	b, _ := AlternativeValue(rating, muFi.V, i)
+	return alternative(id, fmt.Sprintf("Column width of Table 5.2a, alternative %d", i+1), "b_min", rating, i, muFi, b,
+		func(x alt) float64 { return x.b })
+}
+
+// AlternativeAxis returns the axis distance of the i-th alternative (0 or 1) of the rating's row
+// of Table 5.2a at μfi, interpolated linearly between the μfi columns, EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func AlternativeAxis(id string, rating, i int, muFi trace.Q) trace.Step {
+	_, a := AlternativeValue(rating, muFi.V, i)
+	return alternative(id, fmt.Sprintf("Axis distance of Table 5.2a, alternative %d", i+1), "a_min", rating, i, muFi, a,
+		func(x alt) float64 { return x.a })
+}
+
+func alternative(id, title, symbol string, rating, i int, muFi trace.Q, v float64, of func(alt) float64) trace.Step {
+	lk := locate(rating, muFi.V)
+	x1, x2 := lk.ends(i)
+	mu1, mu2 := muColumns[lk.k1], muColumns[lk.k2]
+	sym := fmt.Sprintf("%s,%d", symbol, i+1)
+	s := trace.Formula(id, title, en2+"5.3.2, Table 5.2a", sym, "mm", v,
+		"x_1 + (x_2 - x_1) * min(max((mu - mu_1) / (mu_2 - mu_1), 0), 1)",
+		trace.A("x_1", trace.Const(of(x1), fmt.Sprintf("%s(μ_fi=%g)", sym, mu1), "mm")),
+		trace.A("x_2", trace.Const(of(x2), fmt.Sprintf("%s(μ_fi=%g)", sym, mu2), "mm")),
+		trace.A("mu", muFi),
+		trace.A("mu_1", trace.Const(mu1, "μ_fi,1", "")),
+		trace.A("mu_2", trace.Const(mu2, "μ_fi,2", "")))
+	s.Row = fmt.Sprintf("R%d, columns μfi = %g and %g (exposed on more than one side)", ratings[lk.row], mu1, mu2)
+	if lk.t > 0 && lk.t < 1 {
+		s = s.Note("Linear interpolation between the μfi columns, as 5.3.2 permits.")
+	}
+	if lk.belowMin {
+		s = s.Note("μfi is below the first column of the table: that column is used.")
+	}
+	if !lk.exact && lk.covered {
+		s = s.Note("The required rating is not a row of Table 5.2a: the next higher row is used.")
+	}
+	if r := table52a[lk.row]; i > 0 && (len(r[lk.k1]) == 1 || (r[lk.k2] != nil && len(r[lk.k2]) == 1)) {
+		s = s.Note("Where a column of the row gives one alternative, it serves as both.")
+	}
+	if !lk.covered {
+		s = s.Caution(uncovered(rating, muFi.V))
+	}
+	return s
+}
+
+func uncovered(rating int, mu float64) string {
+	switch {
+	case rating > ratings[len(ratings)-1]:
+		return "Ratings above R240 are outside Table 5.2a: " + notApply
+	case mu > muColumns[2]:
+		return "μfi above 0.7 is outside Table 5.2a: " + notApply
+	}
+	return "At this rating and μfi Table 5.2a asks for a width above 600 mm and a particular assessment of buckling: " + notApply
+}
+
+// RequiredAxis returns the axis distance needed at the least width b, interpolated linearly
+// between the two alternatives (b1, a1) and (b2, a2) of the row and constant outside them,
+// EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func RequiredAxis(id string, b, b1, a1, b2, a2 trace.Q) trace.Step {
+	s := trace.Formula(id, "Axis distance required at the column's width", en2+"5.3.2, Table 5.2a", "a_req", "mm",
+		RequiredAxisValue(b.V, b1.V, a1.V, b2.V, a2.V),
+		"a_1 + (a_2 - a_1) * min(max((b - b_1) / max(b_2 - b_1, 0.001), 0), 1)",
+		trace.A("b", b), trace.A("b_1", b1), trace.A("a_1", a1), trace.A("b_2", b2), trace.A("a_2", a2))
+	if b.V > b1.V && b.V < b2.V {
+		s = s.Note("Linear interpolation between the alternatives of the row.")
+	}
+	return s
+}
+
+// WidthCheck returns the check b ≥ bmin, ratio bmin/b, EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func WidthCheck(id string, bMin, b trace.Q) trace.Step {
+	return trace.Check(id, "Least column width in fire", en2+"5.3.2, Table 5.2a", "b_min ≤ b",
+		bMin.V/b.V, "b_min / b", trace.A("b_min", bMin), trace.A("b", b))
+}
+
+// AxisCheck returns the check a ≥ a_req, ratio a_req/a, EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func AxisCheck(id string, aReq, a trace.Q) trace.Step {
+	return trace.Check(id, "Axis distance in fire", en2+"5.3.2, Table 5.2a", "a_req ≤ a",
+		aReq.V/a.V, "a_req / a", trace.A("a_req", aReq), trace.A("a", a))
+}
+
+// MinBars returns the check of the number of bars against the 8 that Table 5.2a asks for where an
+// alternative used carries its double asterisk (4 otherwise), EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func MinBars(id string, rating int, muFi, b, n trace.Q) trace.Step {
+	need := float64(MinBarsValue(rating, muFi.V, b.V))
+	s := trace.Check(id, "Number of bars in fire", en2+"5.3.2, Table 5.2a", "n_min ≤ n",
+		need/n.V, "n_min / n", trace.A("n_min", trace.Const(need, "n_min", "")), trace.A("n", n))
+	if need == 8 {
+		s = s.Note("The table's entry carries the double asterisk: at least 8 bars.")
+	}
+	return s
+}
+
+// RatingInput returns the required standard fire resistance R in minutes.
+func RatingInput(id string, rating int) trace.Step {
+	return trace.Input(id, "Required standard fire resistance", "input", "R_req", "min", float64(rating))
+}
+
+// REta returns Rηfi = 83·(1 − μfi·(1 + ω)/(0.85/αcc + ω)), EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func REta(id string, muFi, omega, alphaCc trace.Q) trace.Step {
+	return trace.Formula(id, "Term for the load level", en2+"5.3.2, Eq. (5.7)", "R_ηfi", "min",
+		REtaValue(muFi.V, omega.V, alphaCc.V), "83 * (1 - mu_fi * (1 + omega) / (0.85 / alpha_cc + omega))",
+		trace.A("mu_fi", muFi), trace.A("omega", omega), trace.A("alpha_cc", alphaCc))
+}
+
+// limits adds to a term of Eq. (5.7) a caution where its variable v lies outside [lo, hi] on the
+// side where the equation does not apply, and a note where the limit is used on the safe side.
+func limits(s trace.Step, v, lo, hi float64, safeBelow bool, what string) trace.Step {
+	out, safe := v < lo, v > hi
+	if safeBelow {
+		out, safe = v > hi, v < lo
+	}
+	if out {
+		s = s.Caution("The " + what + " is outside the limits of Eq. (5.7): " + notApply)
+	}
+	if safe {
+		s = s.Note("The " + what + " is outside the limits of Eq. (5.7): the limit is used, on the safe side.")
+	}
+	return s
+}
+
+// RA returns Ra = 1.60·(a − 30) for 25 ≤ a ≤ 80 mm, a above 80 mm taken as 80 (safe),
+// EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func RA(id string, a trace.Q) trace.Step {
+	return limits(trace.Formula(id, "Term for the axis distance", en2+"5.3.2, Eq. (5.7)", "R_a", "min",
+		RAValue(a.V), "1.6 * (min(a, 80) - 30)", trace.A("a", a)), a.V, AxisMin57, AxisMax57, false, "axis distance")
+}
+
+// RL returns Rl = 9.60·(5 − l0,fi) with l0,fi in m for 2 ≤ l0,fi ≤ 6 m, below 2 m taken as 2 m
+// (safe, as the standard states), EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func RL(id string, l0fi trace.Q) trace.Step {
+	return limits(trace.Formula(id, "Term for the effective length", en2+"5.3.2, Eq. (5.7)", "R_l", "min",
+		RLValue(l0fi.V), "9.6 * (5 - max(l0_fi, 2000) / 1000)", trace.A("l0_fi", l0fi)),
+		l0fi.V, L0FiMin57, L0FiMax57, true, "effective length in fire")
+}
+
+// EquivalentWidth returns b′ = 2·Ac/(b + h) of a rectangular section, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func EquivalentWidth(id string, ac, b, h trace.Q) trace.Step {
+	return trace.Formula(id, "Equivalent width of the section", en2+"5.3.2, Eq. (5.7)", "b'", "mm",
+		EquivalentWidthValue(ac.V, b.V, h.V), "2 * A_c / (b + h)", trace.A("A_c", ac), trace.A("b", b), trace.A("h", h))
+}
+
+// RB returns Rb = 0.09·b′ for 200 ≤ b′ ≤ 450 mm, b′ above 450 mm taken as 450 (safe),
+// EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func RB(id string, bEq trace.Q) trace.Step {
+	return limits(trace.Formula(id, "Term for the section size", en2+"5.3.2, Eq. (5.7)", "R_b", "min",
+		RBValue(bEq.V), "0.09 * min(b_eq, 450)", trace.A("b_eq", bEq)), bEq.V, WidthMin57, WidthMax57, false, "equivalent width")
+}
+
+// RN returns Rn = 0 for n = 4 bars (corner bars only) and 12 for more, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func RN(id string, n trace.Q) trace.Step {
+	return trace.Formula(id, "Term for the number of bars", en2+"5.3.2, Eq. (5.7)", "R_n", "min",
+		RNValue(n.V), "n > 4 ? 12 : 0", trace.A("n", n))
+}
+
+// AspectCondition returns 1 when the longer side is at most 1.5 times the shorter, the limit of
+// Eq. (5.7), EN 1992-1-2:2004 5.3.2.
+func AspectCondition(id string, b, h trace.Q) trace.Step {
+	return condition(id, "Limit of Eq. (5.7): h ≤ 1.5·b", en2+"5.3.2, Eq. (5.7)", "cond_h",
+		"max(b, h) <= 1.5 * min(b, h) ? 1 : 0", max(b.V, h.V) <= Aspect57*min(b.V, h.V), trace.A("b", b), trace.A("h", h))
+}
+
+// Eq57 returns the fire resistance R = 120·((Rηfi + Ra + Rl + Rb + Rn)/120)^1.8 in minutes,
+// a negative sum taken as 0, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func Eq57(id string, rEta, ra, rl, rb, rn trace.Q) trace.Step {
+	return trace.Formula(id, "Fire resistance of the column", en2+"5.3.2, Eq. (5.7)", "R", "min",
+		Eq57Value(rEta.V, ra.V, rl.V, rb.V, rn.V), "120 * (max(R_eta + R_a + R_l + R_b + R_n, 0) / 120) ** 1.8",
+		trace.A("R_eta", rEta), trace.A("R_a", ra), trace.A("R_l", rl), trace.A("R_b", rb), trace.A("R_n", rn))
+}
+
+// RatingCheck returns the check R ≥ R_req, ratio R_req/R, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func RatingCheck(id string, required, r trace.Q) trace.Step {
+	return trace.Check(id, "Fire resistance", en2+"5.3.2, Eq. (5.7)", "R_req ≤ R",
+		required.V/max(r.V, 1e-3), "R_req / max(R, 0.001)", trace.A("R_req", required), trace.A("R", r))
+}
