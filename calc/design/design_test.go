@@ -354,3 +354,26 @@ func TestCreepInDesign(t *testing.T) {
 	near(t, "phi_ef", d.Y.PhiEf, phi*0.7, 1e-9)
 	checkTrace(t, d)
 }
+
+// The nominal cover of EN 1992-1-1:2004 4.4.1: XC3 with structural class S4 (no reduction for
+// C30/37, Table 4.3N) gives cmin,dur = 25 mm (Table 4.4N), so cnom = 25 + Δcdev 10 = 35 mm
+// (Eq. (4.1)); a cover of 30 mm fails, 35 mm passes.
+func TestCoverInDesign(t *testing.T) {
+	for _, c := range []struct {
+		cover float64
+		pass  bool
+	}{{35, true}, {30, false}} {
+		col := model.Column{ID: "CV", B: 400, H: 400, Cover: c.cover, Bars: &model.BarSpec{Count: 8, Dia: 16},
+			Durability: &model.Durability{Exposure: []string{"XC3"}, StructuralClass: 4, DesignLife: 50, DeltaCdev: 10},
+			Storeys: []model.Storey{lift(3000, 3000, 1500, 40, -20, 10, 5)}}
+		d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+		near(t, "cnom", d.Detailing.CoverRequired, 35, 1e-12)
+		if (d.Status == StatusPass) != c.pass {
+			t.Errorf("cover %g: status %s, reasons %v", c.cover, d.Status, d.Reasons)
+		}
+		if d.Detailing.LapLength <= 0 {
+			t.Error("no lap length")
+		}
+		checkTrace(t, d)
+	}
+}

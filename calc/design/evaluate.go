@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"colsheet/calc/cover"
 	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/slender"
@@ -108,6 +109,25 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	check(trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
 		(sMin.V+p.Dia)/math.Max(gapMin+p.Dia, 1e-3), "(s_min + phi) / max(min(s_b, s_h) + phi, 0.001)",
 		trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_b", gb), trace.A("s_h", gh)))
+
+	// Cover for durability and bond, EN 1992-1-1:2004 4.4.1.
+	if dur := c.durability(); dur != nil {
+		l.Group = "Cover (EN 1992-1-1 4.4.1)"
+		cl, _ := cover.Nominal(l, "cover/", *dur, c.fck, phi, phiT, dg, cnom)
+		checks = append(checks, checked{"cover/check_link", false}, checked{"cover/check_bar", false})
+		d.Detailing.CoverRequired = cl.V
+	}
+	// Laps of the bars, EN 1992-1-1:2004 8.4, 8.7; all bars lapped at one section above the floor.
+	if full {
+		l.Group = "Laps (EN 1992-1-1 8.4, 8.7)"
+		fctm := l.Add(trace.Table("lap/fctm", "Mean axial tensile strength of concrete", "EN 1992-1-1:2004 Table 3.1",
+			c.in.Materials.Concrete.Class+", fctm", "f_ctm", "MPa", c.in.Materials.Concrete.Fctm))
+		l0 := detail.Lap(l, "lap/", phi, fctm, param(prm, "gamma_c", ""), c.fyd, true, 100)
+		zr := l.Add(detail.LapZoneReduced("lap/zone", phi))
+		d.Detailing.LapLength, d.Detailing.LapZone = l0.V, zr.V == 1
+		l.Group = "Restraint of bars (EN 1992-1-1 9.5.3(6))"
+		d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p)
+	}
 
 	// Slenderness limit and second order, per axis.
 	l.Group = "Slenderness limit"
@@ -361,4 +381,12 @@ func which(rule, exact float64) string {
 		return "a smaller ratio than the exact resistance: the exact resistance governs here"
 	}
 	return "the same ratio as the exact resistance"
+}
+
+// durability returns the durability data of the column, its own or the project's, or nil.
+func (c *common) durability() *model.Durability {
+	if c.col.Durability != nil {
+		return c.col.Durability
+	}
+	return c.in.Options.Durability
 }
