@@ -365,7 +365,7 @@ func TestCoverInDesign(t *testing.T) {
 	}{{35, true}, {30, false}} {
 		col := model.Column{ID: "CV", B: 400, H: 400, Cover: c.cover, Bars: &model.BarSpec{Count: 8, Dia: 16},
 			Durability: &model.Durability{Exposure: []string{"XC3"}, StructuralClass: 4, DesignLife: 50, DeltaCdev: 10},
-			Storeys: []model.Storey{lift(3000, 3000, 1500, 40, -20, 10, 5)}}
+			Storeys:    []model.Storey{lift(3000, 3000, 1500, 40, -20, 10, 5)}}
 		d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 		near(t, "cnom", d.Detailing.CoverRequired, 35, 1e-12)
 		if (d.Status == StatusPass) != c.pass {
@@ -375,5 +375,25 @@ func TestCoverInDesign(t *testing.T) {
 			t.Error("no lap length")
 		}
 		checkTrace(t, d)
+	}
+}
+
+// The fire check by EN 1992-1-2:2004 5.3.2 Method A: a stocky inner column within the method's
+// scope passes R60 with 35 mm cover; with l0,fi above 3 m the method does not apply and the design
+// says so loudly instead of passing (5.3.2(2)).
+func TestFireInDesign(t *testing.T) {
+	mk := func(l0 float64) Design {
+		col := model.Column{ID: "FI", B: 400, H: 400, Cover: 35, Fire: &model.Fire{Rating: 60},
+			Storeys: []model.Storey{lift(l0, l0, 2000, 20, -10, 10, -5)}}
+		return mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	}
+	d := mk(2900)
+	if d.Status != StatusPass || !d.Detailing.FireOK || d.Detailing.FireRating != 60 {
+		t.Errorf("R60 within Method A: status %s, fire %v, reasons %v", d.Status, d.Detailing.FireOK, d.Reasons)
+	}
+	checkTrace(t, d)
+	d = mk(3400)
+	if d.Status != StatusFail || d.Detailing.FireOK || !strings.Contains(strings.Join(d.Reasons, " "), "Method A") {
+		t.Errorf("l0,fi = 3.4 m: status %s, fire %v, reasons %v", d.Status, d.Detailing.FireOK, d.Reasons)
 	}
 }

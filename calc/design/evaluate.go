@@ -3,9 +3,11 @@ package design
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"colsheet/calc/cover"
 	"colsheet/calc/detail"
+	"colsheet/calc/fire"
 	"colsheet/calc/model"
 	"colsheet/calc/slender"
 	"colsheet/calc/trace"
@@ -246,6 +248,29 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	}
 	d.Y.MRd, d.Z.MRd = mRd[0].V, mRd[1].V
 
+	// Fire resistance, EN 1992-1-2:2004 5.3.2, Method A (Table 5.2a).
+	if f := c.fire(); f != nil && f.Rating > 0 {
+		l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (EN 1992-1-2 5.3.2, Method A)"
+		mu := fire.Utilisation(l, "fire/", *f, c.nEd, nRdMax)
+		l0fi := l.Add(trace.Formula("fire/l0_fi", "Effective length in fire, taken as at normal temperature", "EN 1992-1-2:2004 5.3.2(2)", "l_0,fi", "mm",
+			math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
+		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, L0Fi: l0fi, NEd: c.nEd,
+			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", "")}
+		start := len(l.Steps)
+		ok, _ := fire.MethodA(l, "fire/", f.Rating, mu, fc)
+		for k := start; k < len(l.Steps); k++ {
+			if l.Steps[k].Kind == trace.KindCheck {
+				checks = append(checks, checked{l.Steps[k].ID, false})
+			}
+		}
+		if !ok {
+			// A condition of the method not met, or a case the table does not cover: the rating is not shown.
+			check(trace.Check("fire/method", "Fire resistance by Method A: its conditions hold and the table covers the case", "EN 1992-1-2:2004 5.3.2",
+				"Method A applies", 2, "2").Caution("Method A cannot show the rating for this column (see the cautions above): verify the fire resistance another way."))
+		}
+		d.Detailing.FireRating, d.Detailing.FireOK = f.Rating, ok
+	}
+
 	// Biaxial bending, EN 1992-1-1:2004 5.8.9.
 	l.Group = "Biaxial bending"
 	ca := l.Add(slender.SlendernessRatiosClose("bi/c_a", c.ax[0].lambda, c.ax[1].lambda))
@@ -389,4 +414,21 @@ func (c *common) durability() *model.Durability {
 		return c.col.Durability
 	}
 	return c.in.Options.Durability
+}
+
+// fire returns the fire data of the lift: the column's own, the level's (building form), or the project's.
+func (c *common) fire() *model.Fire {
+	if c.col.Fire != nil {
+		return c.col.Fire
+	}
+	if b := c.in.Building; b != nil {
+		for k := range b.Fires {
+			for _, lv := range b.Fires[k].Levels {
+				if lv == c.st.Name {
+					return &b.Fires[k].Fire
+				}
+			}
+		}
+	}
+	return c.in.Options.Fire
 }
