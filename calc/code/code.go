@@ -52,6 +52,7 @@ var Catalogue = []Param{
 	{"xi", "ξ", "EN 1990:2002 A1.3.1(4), Table A1.2(B)", "Reduction factor for unfavourable permanent actions in Eq. (6.10b)", 0.85, 0.5, 1},
 	{"gamma_G_light", "γ_G,light", "EN 1992-1-1:2004 5.1.3(1)P", "Partial factor for permanent load on the lightly loaded spans of the load arrangements", 1.35, 1, 2},
 	{"density_rc", "γ_rc", "EN 1991-1-1:2002 Annex A, Table A.1", "Weight density of reinforced concrete, N/mm³", 2.5e-5, 1e-5, 3.5e-5},
+	{"fire_emax", "k_e", "EN 1992-1-2:2004 5.3.2(2)", "Greatest first-order eccentricity for Method A (Table 5.2a) as a fraction of the section dimension", 0.15, 0.05, 0.5},
 }
 
 // index maps each parameter name to its place in Catalogue.

@@ -255,7 +255,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		l0fi := l.Add(trace.Formula("fire/l0_fi", "Effective length in fire, taken as at normal temperature", "EN 1992-1-2:2004 5.3.2(2)", "l_0,fi", "mm",
 			math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
 		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, L0Fi: l0fi, NEd: c.nEd,
-			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", "")}
+			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", "")}
 		start := len(l.Steps)
 		ok, _ := fire.MethodA(l, "fire/", f.Rating, mu, fc)
 		for k := start; k < len(l.Steps); k++ {
