@@ -112,10 +112,10 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 		}
 		f, xb := resultant(ld.G, bm.L)
 		F := trace.Const(f, "F_G,"+name, "N")
-		X := trace.Const(xb, "x̄_G,"+name, "mm")
+		X := trace.Const(xb, "x_R,G,"+name, "mm")
 		s := Reaction(pre+name+"/G", "Permanent load from beam "+name+" at level "+lv.Name+" ("+which+")", F, X, L, e.start)
 		s.Symbol = "R_G," + name
-		s = s.Note("F: slab, self-weight of the beam and line loads on the beam; x̄ from the beam's " + which + " of span.")
+		s = s.Note("F: slab, self-weight of the beam and line loads on the beam; x_R (the line of action of F) from the beam's " + which + " of span.")
 		rg := l.Add(s)
 		gs = append(gs, rg)
 		re := reactions{g: rg}
@@ -125,7 +125,7 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 				continue
 			}
 			F := trace.Const(f, "F_Q"+cat+","+name, "N")
-			X := trace.Const(xb, "x̄_Q"+cat+","+name, "mm")
+			X := trace.Const(xb, "x_R,Q"+cat+","+name, "mm")
 			s := Reaction(pre+name+"/Q"+cat, "Imposed load (category "+cat+") from beam "+name+" at level "+lv.Name, F, X, L, e.start)
 			s.Symbol = "R_Q" + cat + "," + name
 			rq := l.Add(s)

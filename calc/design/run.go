@@ -132,7 +132,7 @@ func methods(in *model.Input) []Method {
 			Method{"Imposed-load reduction", red, "EN 1991-1-1:2002 6.3.1.2"},
 			Method{"Load arrangements", "for the column moments, at each joint one side γG·Gk + γQ·Qk and the other γG,light·Gk, the side that gives the larger unbalanced moment (ties: the sense that bends the lifts in single curvature); all spans loaded for NEd", "EN 1992-1-1:2004 5.1.3"},
 			analysis,
-			Method{"Design case", "the largest NEd (all spans loaded) with the largest end moments of the arrangements, about both axes", "common practice"},
+			Method{"Design cases", "the largest NEd (all spans loaded) with the largest end moments of the arrangements about both axes; checked again with the smaller NEd of each moment arrangement, and with the arrangement that bends a lift in single curvature where the governing one gives double curvature", "common practice; EN 1992-1-1:2004 5.1.3"},
 			effectiveLength(in),
 		)
 	}
