@@ -84,6 +84,14 @@ func DisplayUnit(engine string) (scale float64, unit string) {
 		return 1, "kN/m"
 	case "N/mm2":
 		return 1e3, "kN/m²"
+	case "N/mm3":
+		return 1e6, "kN/m³"
+	case "Nmm2":
+		return 1e-9, "kNm²"
+	case "deg":
+		return 1, "°"
+	case "d":
+		return 1, "days"
 	}
 	return 1, engine
 }
