@@ -1,8 +1,6 @@
 package building
 
 import (
-	"sort"
-
 	"colsheet/calc/frame"
 	"colsheet/calc/model"
 )
@@ -239,20 +237,4 @@ func minf(a, b float64) float64 {
 		return a
 	}
 	return b
-}
-
-// categories returns the imposed-load categories present in the loads, sorted.
-func categories(loads []BeamLoad) []string {
-	seen := map[string]bool{}
-	for _, l := range loads {
-		for c := range l.Q {
-			seen[c] = true
-		}
-	}
-	var out []string
-	for c := range seen {
-		out = append(out, c)
-	}
-	sort.Strings(out)
-	return out
 }

@@ -189,23 +189,20 @@ type common struct {
 
 // axisCommon holds the bar-independent quantities for bending about one axis.
 type axisCommon struct {
-	name      string  // "y" or "z"
-	depth     trace.Q // section dimension along the lever arm
-	l0        trace.Q
-	m01, m02  trace.Q
-	ei        trace.Q
-	m01i      trace.Q
-	m02i      trace.Q
-	e0        trace.Q
-	lambda    trace.Q
-	factorA   trace.Q
-	factorC   trace.Q
-	phiEf     trace.Q
-	phiGiven  bool
-	lenForAlp float64
+	name     string  // "y" or "z"
+	depth    trace.Q // section dimension along the lever arm
+	l0       trace.Q
+	m01, m02 trace.Q
+	ei       trace.Q
+	m01i     trace.Q
+	m02i     trace.Q
+	e0       trace.Q
+	lambda   trace.Q
+	factorA  trace.Q
+	factorC  trace.Q
+	phiEf    trace.Q
+	phiGiven bool
 }
-
-func (c *common) add(l *trace.Log, s trace.Step) trace.Q { return l.Add(s) }
 
 func param(p code.Params, name, unit string) trace.Q {
 	cat, _ := code.Lookup(name)

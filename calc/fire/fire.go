@@ -144,7 +144,7 @@ func alternative(id, title, symbol string, rating, i int, muFi trace.Q, v float6
 	if !lk.exact && lk.covered {
 		s = s.Note("The required rating is not a row of Table 5.2a: the next higher row is used.")
 	}
-	if r := table52a[lk.row]; i > 0 && (len(r[lk.k1]) == 1 || (r[lk.k2] != nil && len(r[lk.k2]) == 1)) {
+	if r := table52a[lk.row]; i > 0 && (len(r[lk.k1]) == 1 || len(r[lk.k2]) == 1) {
 		s = s.Note("Where a column of the row gives one alternative, it serves as both.")
 	}
 	if !lk.covered {
