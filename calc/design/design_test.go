@@ -380,9 +380,10 @@ func TestCoverInDesign(t *testing.T) {
 	}
 }
 
-// The fire check by EN 1992-1-2:2004 5.3.2 Method A: a stocky inner column within the method's
-// scope passes R60 with 35 mm cover; with l0,fi above 3 m the method does not apply and the design
-// says so loudly instead of passing (5.3.2(2)).
+// The fire check by EN 1992-1-2:2004 5.3.2 Method A: a stocky inner column within the scope of
+// Table 5.2a passes R60 with 35 mm cover; with l0,fi = 3.4 m the table no longer applies (≤ 3 m)
+// but Eq. (5.7) does (2 m ≤ l0,fi ≤ 6 m); with l0,fi = 6.5 m neither does, and the design says so
+// loudly instead of passing (5.3.2(2), (3)).
 func TestFireInDesign(t *testing.T) {
 	mk := func(l0 float64) Design {
 		col := model.Column{ID: "FI", B: 400, H: 400, Cover: 35, Fire: &model.Fire{Rating: 60},
@@ -395,7 +396,12 @@ func TestFireInDesign(t *testing.T) {
 	}
 	checkTrace(t, d)
 	d = mk(3400)
+	if !d.Detailing.FireOK {
+		t.Errorf("l0,fi = 3.4 m: Eq. (5.7) should show R60: %v", d.Reasons)
+	}
+	checkTrace(t, d)
+	d = mk(6500)
 	if d.Status != StatusFail || d.Detailing.FireOK || !strings.Contains(strings.Join(d.Reasons, " "), "Method A") {
-		t.Errorf("l0,fi = 3.4 m: status %s, fire %v, reasons %v", d.Status, d.Detailing.FireOK, d.Reasons)
+		t.Errorf("l0,fi = 6.5 m: status %s, fire %v, reasons %v", d.Status, d.Detailing.FireOK, d.Reasons)
 	}
 }

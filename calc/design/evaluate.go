@@ -256,16 +256,32 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 			math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
 		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, L0Fi: l0fi, NEd: c.nEd,
 			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", "")}
-		start := len(l.Steps)
-		ok, _ := fire.MethodA(l, "fire/", f.Rating, mu, fc)
-		for k := start; k < len(l.Steps); k++ {
-			if l.Steps[k].Kind == trace.KindCheck {
-				checks = append(checks, checked{l.Steps[k].ID, false})
+		// Table 5.2a first; where it cannot show the rating, Eq. (5.7) of the same method.
+		route := func(prefix string, method func(*trace.Log, string, int, trace.Q, fire.Column) (bool, trace.Q)) (bool, []string) {
+			start := len(l.Steps)
+			ok, _ := method(l, prefix, f.Rating, mu, fc)
+			var ids []string
+			for k := start; k < len(l.Steps); k++ {
+				if l.Steps[k].Kind == trace.KindCheck {
+					ids = append(ids, l.Steps[k].ID)
+				}
+			}
+			return ok, ids
+		}
+		ok, ids := route("fire/", fire.MethodA)
+		if !ok {
+			if ok57, ids57 := route("fire57/", fire.MethodAEq57); ok57 {
+				ok, ids = true, ids57
+				l.Add(trace.Input("fire/route", "Fire resistance shown by Eq. (5.7), which the standard offers beside Table 5.2a", "EN 1992-1-2:2004 5.3.2(2)", "route", "", 57).
+					Note("The checks of Table 5.2a above are for information; those of Eq. (5.7) govern."))
 			}
 		}
+		for _, id := range ids {
+			checks = append(checks, checked{id, false})
+		}
 		if !ok {
-			// A condition of the method not met, or a case the table does not cover: the rating is not shown.
-			check(trace.Check("fire/method", "Fire resistance by Method A: its conditions hold and the table covers the case", "EN 1992-1-2:2004 5.3.2",
+			// A condition of the method not met, or a case neither route covers: the rating is not shown.
+			check(trace.Check("fire/method", "Fire resistance by Method A: its conditions hold and the table or Eq. (5.7) covers the case", "EN 1992-1-2:2004 5.3.2",
 				"Method A applies", 2, "2").Caution("Method A cannot show the rating for this column (see the cautions above): verify the fire resistance another way."))
 		}
 		d.Detailing.FireRating, d.Detailing.FireOK = f.Rating, ok
