@@ -10,7 +10,7 @@ import (
 )
 
 // Standard names the editions the engine implements.
-const Standard = "EN 1992-1-1:2004+A1:2014; EN 1990:2002+A1:2005"
+const Standard = "EN 1992-1-1:2004+A1:2014; EN 1992-1-2:2004; EN 1990:2002+A1:2005; EN 1991-1-1:2002"
 
 // Param describes one overridable parameter.
 type Param struct {
