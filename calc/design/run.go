@@ -211,12 +211,7 @@ func param(p code.Params, name, unit string) trace.Q {
 
 // paramStep records a code parameter as an input step so that the sheet shows where it comes from.
 func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
-	cat, _ := code.Lookup(name)
-	s := trace.Input("code/"+name, cat.What, cat.Clause, cat.Symbol, unit, p.Get(name))
-	if p.IsOverridden(name) {
-		s = s.Caution("Overridden in the input: the EN recommended value is " + strconv.FormatFloat(cat.Default, 'g', -1, 64) + ".")
-	}
-	return l.Add(s)
+	return l.Add(actions.ParamStep("code/"+name, p, name, unit))
 }
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) *common {
