@@ -17,6 +17,24 @@ var CSVHeader = []string{"column", "storey", "b_mm", "h_mm", "NEd_kN", "MEd_y_kN
 
 // CSV returns a summary table with one row per design, numbers in display units.
 func CSV(r *design.Result) ([]byte, error) {
+	f := func(v float64, dec int) string {
+		s := strconv.FormatFloat(v, 'f', dec, 64)
+		if strings.Trim(s, "-0.") == "" {
+			s = strings.TrimPrefix(s, "-")
+		}
+		return s
+	}
+	return table(r, CSVHeader, func(d design.Design) []string {
+		return []string{cell(d.Column), cell(d.Storey), f(d.B, 0), f(d.H, 0), f(d.NEd/1e3, 1),
+			f(d.Y.MEd/1e6, 1), f(d.Y.MRd/1e6, 1), f(d.Z.MEd/1e6, 1), f(d.Z.MRd/1e6, 1),
+			fmt.Sprintf("%d x %s mm", d.Bars.Count, fmtNum(d.Bars.Dia).plain()),
+			fmt.Sprintf("%s mm @ %s mm", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain()),
+			f(d.Utilization, 3), d.Status, cell(d.Governing)}
+	})
+}
+
+// table writes a CSV table with the header and one row per design.
+func table(r *design.Result, header []string, row func(design.Design) []string) ([]byte, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
 	}
@@ -25,23 +43,11 @@ func CSV(r *design.Result) ([]byte, error) {
 	}
 	var b bytes.Buffer
 	w := csv.NewWriter(&b)
-	if err := w.Write(CSVHeader); err != nil {
+	if err := w.Write(header); err != nil {
 		return nil, err
 	}
-	f := func(v float64, dec int) string {
-		s := strconv.FormatFloat(v, 'f', dec, 64)
-		if strings.Trim(s, "-0.") == "" {
-			s = strings.TrimPrefix(s, "-")
-		}
-		return s
-	}
 	for _, d := range r.Designs {
-		row := []string{cell(d.Column), cell(d.Storey), f(d.B, 0), f(d.H, 0), f(d.NEd/1e3, 1),
-			f(d.Y.MEd/1e6, 1), f(d.Y.MRd/1e6, 1), f(d.Z.MEd/1e6, 1), f(d.Z.MRd/1e6, 1),
-			fmt.Sprintf("%d x %s mm", d.Bars.Count, fmtNum(d.Bars.Dia).plain()),
-			fmt.Sprintf("%s mm @ %s mm", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain()),
-			f(d.Utilization, 3), d.Status, cell(d.Governing)}
-		if err := w.Write(row); err != nil {
+		if err := w.Write(row(d)); err != nil {
 			return nil, err
 		}
 	}
@@ -68,24 +74,7 @@ var ScheduleHeader = []string{"column", "lift", "b_mm", "h_mm", "bars", "As_prov
 
 // Schedule returns the column schedule, one row per column and lift, for the drawing office.
 func Schedule(r *design.Result) ([]byte, error) {
-	if r == nil {
-		return nil, fmt.Errorf("reports: no result")
-	}
-	if err := finiteResult(r); err != nil {
-		return nil, err
-	}
-	var b bytes.Buffer
-	w := csv.NewWriter(&b)
-	if err := w.Write(ScheduleHeader); err != nil {
-		return nil, err
-	}
-	for _, d := range r.Designs {
-		if err := w.Write(scheduleRow(d, func(s string) string { return cell(s) })); err != nil {
-			return nil, err
-		}
-	}
-	w.Flush()
-	return b.Bytes(), w.Error()
+	return table(r, ScheduleHeader, func(d design.Design) []string { return scheduleRow(d, cell) })
 }
 
 // scheduleRow returns one design's schedule entries as text, passing user text through esc.
