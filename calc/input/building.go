@@ -173,7 +173,20 @@ func (r *reader) items(n *yaml.Node, path, what string) ([]*yaml.Node, []string,
 
 // levelRefs reads a list of storey names, each known and given once.
 func (r *reader) levelRefs(s *site, n *yaml.Node, path string) ([]string, bool) {
-	its, paths, ok := r.items(n, path, "storey levels")
+	return r.refs(n, path, "storey levels", "level %s is listed twice", func(it *yaml.Node, p string) (string, bool) {
+		name, ok := r.name(it, p)
+		if ok && s.levelsOK && !has(s.level, name) {
+			r.fail(it, p, "%q is not a storey level (levels: %s)", name, strings.Join(s.levels, ", "))
+			return "", false
+		}
+		return name, ok
+	})
+}
+
+// refs reads a list of names: each read and checked by one, which reports its own faults, and
+// none given twice (twice formats that fault with the name).
+func (r *reader) refs(n *yaml.Node, path, what, twice string, one func(it *yaml.Node, p string) (string, bool)) ([]string, bool) {
+	its, paths, ok := r.items(n, path, what)
 	if !ok {
 		return nil, false
 	}
@@ -181,15 +194,12 @@ func (r *reader) levelRefs(s *site, n *yaml.Node, path string) ([]string, bool) 
 	seen := map[string]bool{}
 	good := true
 	for i, it := range its {
-		name, ok := r.name(it, paths[i])
+		name, ok := one(it, paths[i])
 		switch {
 		case !ok:
 			good = false
-		case s.levelsOK && !has(s.level, name):
-			r.fail(it, paths[i], "%q is not a storey level (levels: %s)", name, strings.Join(s.levels, ", "))
-			good = false
 		case seen[name]:
-			r.fail(it, paths[i], "level %s is listed twice", name)
+			r.fail(it, paths[i], twice, name)
 			good = false
 		default:
 			seen[name] = true
@@ -567,30 +577,14 @@ func (r *reader) columnSizes(s *site, n *yaml.Node, path string, b *model.Buildi
 
 // columnRefs reads a list of column ids: grid points with a column, each given once.
 func (r *reader) columnRefs(s *site, n *yaml.Node, path string) ([]string, bool) {
-	its, paths, ok := r.items(n, path, "column ids")
-	if !ok {
-		return nil, false
-	}
-	var out []string
-	seen := map[string]bool{}
-	good := true
-	for i, it := range its {
-		id, ok := r.point(s, it, paths[i])
-		switch {
-		case !ok:
-			good = false
-		case s.omitted[id]:
-			r.fail(it, paths[i], "%s is omitted, so it has no column", id)
-			good = false
-		case seen[id]:
-			r.fail(it, paths[i], "column %s is listed twice", id)
-			good = false
-		default:
-			seen[id] = true
-			out = append(out, id)
+	return r.refs(n, path, "column ids", "column %s is listed twice", func(it *yaml.Node, p string) (string, bool) {
+		id, ok := r.point(s, it, p)
+		if ok && s.omitted[id] {
+			r.fail(it, p, "%s is omitted, so it has no column", id)
+			return "", false
 		}
-	}
-	return out, good
+		return id, ok
+	})
 }
 
 // beamSizes reads the beam size overrides; where two cover a beam, the later one holds.
@@ -624,33 +618,20 @@ func (r *reader) beamSizes(s *site, n *yaml.Node, path string) []model.BeamSize 
 
 // beamLines reads the grid lines of a beam override; with dir x only numbered lines fit, with dir y only lettered ones.
 func (r *reader) beamLines(s *site, n *yaml.Node, path, dir string) ([]string, bool) {
-	its, paths, ok := r.items(n, path, "grid lines")
-	if !ok {
-		return nil, false
-	}
-	var out []string
-	seen := map[string]bool{}
-	good := true
-	for i, it := range its {
-		k, _, name, ok := r.gridLine(s, it, paths[i])
+	return r.refs(n, path, "grid lines", "line %s is listed twice", func(it *yaml.Node, p string) (string, bool) {
+		k, _, name, ok := r.gridLine(s, it, p)
 		switch {
 		case !ok:
-			good = false
+			return "", false
 		case dir == "x" && k == lettered:
-			r.fail(it, paths[i], "line %s is a lettered line, which runs along y; beams along x (dir x) lie on numbered lines", name)
-			good = false
+			r.fail(it, p, "line %s is a lettered line, which runs along y; beams along x (dir x) lie on numbered lines", name)
+			return "", false
 		case dir == "y" && k == numbered:
-			r.fail(it, paths[i], "line %s is a numbered line, which runs along x; beams along y (dir y) lie on lettered lines", name)
-			good = false
-		case seen[name]:
-			r.fail(it, paths[i], "line %s is listed twice", name)
-			good = false
-		default:
-			seen[name] = true
-			out = append(out, name)
+			r.fail(it, p, "line %s is a numbered line, which runs along x; beams along y (dir y) lie on lettered lines", name)
+			return "", false
 		}
-	}
-	return out, good
+		return name, true
+	})
 }
 
 // category reads an imposed-load category of EN 1991-1-1 Table 6.1, upper-cased.

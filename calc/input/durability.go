@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"regexp"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -95,24 +96,13 @@ func (r *reader) durability(n *yaml.Node, path string, base *model.Durability) *
 
 // exposure reads one exposure class or a list of them, upper-cased, each given once; X0 stands alone.
 func (r *reader) exposure(n *yaml.Node, path string) []string {
-	its, paths, ok := r.items(n, path, "exposure classes")
-	if !ok {
+	out, _ := r.refs(n, path, "exposure classes", "%s is listed twice", func(it *yaml.Node, p string) (string, bool) {
+		return r.upperOf(it, p, "an exposure class of EN 1992-1-1 Table 4.1", exposureClasses)
+	})
+	if out == nil {
 		return nil
 	}
-	var out []string
-	seen := map[string]bool{}
-	for i, it := range its {
-		c, ok := r.upperOf(it, paths[i], "an exposure class of EN 1992-1-1 Table 4.1", exposureClasses)
-		switch {
-		case !ok:
-		case seen[c]:
-			r.fail(it, paths[i], "%s is listed twice", c)
-		default:
-			seen[c] = true
-			out = append(out, c)
-		}
-	}
-	if seen["X0"] && len(out) > 1 {
+	if len(out) > 1 && slices.Contains(out, "X0") {
 		r.fail(n, path, "X0 (no risk of corrosion or attack) does not go with other classes; give X0 alone or leave it out")
 	}
 	return out
