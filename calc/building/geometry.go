@@ -135,30 +135,24 @@ func (b Beam) Name() string {
 // neighbouring columns (a beam spans across an omitted grid point).
 func (g *Grid) Beams(sizeOf func(d Dir, line int) model.Size) []Beam {
 	var out []Beam
-	for j := 0; j < g.NY; j++ { // beams along x on y line j
-		prev := -1
-		for i := 0; i < g.NX; i++ {
-			if !g.Has[i][j] {
-				continue
+	// lines runs the beams of direction d: along each line, between neighbouring columns at the
+	// cross-line coordinates cross; has tells whether a column stands at (line, cross line).
+	lines := func(d Dir, nLines int, cross []float64, has func(line, c int) bool) {
+		for line := 0; line < nLines; line++ {
+			prev := -1
+			for c := range cross {
+				if !has(line, c) {
+					continue
+				}
+				if prev >= 0 {
+					out = append(out, Beam{Dir: d, Line: line, From: prev, To: c, Start: cross[prev], L: cross[c] - cross[prev], Size: sizeOf(d, line)})
+				}
+				prev = c
 			}
-			if prev >= 0 {
-				out = append(out, Beam{Dir: DirX, Line: j, From: prev, To: i, Start: g.X[prev], L: g.X[i] - g.X[prev], Size: sizeOf(DirX, j)})
-			}
-			prev = i
 		}
 	}
-	for i := 0; i < g.NX; i++ { // beams along y on x line i
-		prev := -1
-		for j := 0; j < g.NY; j++ {
-			if !g.Has[i][j] {
-				continue
-			}
-			if prev >= 0 {
-				out = append(out, Beam{Dir: DirY, Line: i, From: prev, To: j, Start: g.Y[prev], L: g.Y[j] - g.Y[prev], Size: sizeOf(DirY, i)})
-			}
-			prev = j
-		}
-	}
+	lines(DirX, g.NY, g.X, func(j, i int) bool { return g.Has[i][j] }) // along x on the numbered lines
+	lines(DirY, g.NX, g.Y, func(i, j int) bool { return g.Has[i][j] }) // along y on the lettered lines
 	return out
 }
 
