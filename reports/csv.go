@@ -86,7 +86,7 @@ func scheduleRow(d design.Design, esc func(string) string) []string {
 		}
 		return n(v)
 	}
-	fire, rating := "–", "–"
+	fire, rating := "not required", "none"
 	if d.Detailing.FireRating > 0 {
 		rating = "R" + strconv.Itoa(d.Detailing.FireRating)
 		fire = "fails"

@@ -405,3 +405,23 @@ func TestFireInDesign(t *testing.T) {
 		t.Errorf("l0,fi = 6.5 m: status %s, fire %v, reasons %v", d.Status, d.Detailing.FireOK, d.Reasons)
 	}
 }
+
+// A lift with no rating asked still says so on its sheet: one input step R_req = 0 with a note,
+// no fire check and no effect on the verdict (common practice, no source).
+func TestNoFireRatingIsStated(t *testing.T) {
+	col := model.Column{ID: "NF", B: 400, H: 400, Cover: 35,
+		Storeys: []model.Storey{lift(3000, 3000, 2000, 20, -10, 10, -5)}}
+	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	var found bool
+	for _, s := range d.Steps {
+		if s.ID == "fire/R_req" {
+			found = s.Value == 0 && len(s.Notes) > 0
+		}
+		if strings.HasPrefix(s.ID, "fire/") && s.Kind == trace.KindCheck {
+			t.Errorf("%s: a fire check without a rating", s.ID)
+		}
+	}
+	if !found || d.Detailing.FireRating != 0 {
+		t.Errorf("no fire/R_req = 0 step with a note (rating %d)", d.Detailing.FireRating)
+	}
+}

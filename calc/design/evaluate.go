@@ -285,6 +285,11 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 				"Method A applies", 2, "2").Caution("Method A cannot show the rating for this column (see the cautions above): verify the fire resistance another way."))
 		}
 		d.Detailing.FireRating, d.Detailing.FireOK = f.Rating, ok
+	} else {
+		// No rating asked of this lift: the sheet says so, so that no lift is silent on fire.
+		l.Group = "Fire resistance: none required"
+		l.Add(fire.RatingInput("fire/R_req", 0).
+			Note("The input asks no standard fire resistance of this lift, so none is checked. The building regulations and the project's fire strategy govern; give a rating in the design options, the fire levels of the building or the column where one is required."))
 	}
 
 	// Biaxial bending, EN 1992-1-1:2004 5.8.9.

@@ -213,9 +213,9 @@ func TestBuildingDemo(t *testing.T) {
 	if err := json.Unmarshal(data, &res); err != nil {
 		t.Fatal(err)
 	}
-	// 4 × 4 grid points less the void at C3, six lifts each.
-	if len(res.Designs) != 15*6 {
-		t.Fatalf("%d designs, want 90", len(res.Designs))
+	// 5 × 5 grid points less the void at C3, six lifts each.
+	if len(res.Designs) != 24*6 {
+		t.Fatalf("%d designs, want 144", len(res.Designs))
 	}
 	ids := map[string]bool{}
 	for _, d := range res.Designs {
