@@ -5,6 +5,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"sort"
 	"strings"
 	"time"
 
@@ -21,6 +22,7 @@ type options struct {
 	out     string
 	formats map[string]bool
 	date    string
+	replace bool // replace an earlier output folder
 }
 
 func parseDesignArgs(args []string) (options, error) {
@@ -64,6 +66,8 @@ func parseDesignArgs(args []string) (options, error) {
 					return o, fmt.Errorf("--formats: unknown format %q (md, tex, html)", f)
 				}
 			}
+		case "--replace":
+			o.replace = true
 		case "--date":
 			v, err := val()
 			if err != nil {
@@ -98,40 +102,60 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "colsheet design: %v\n\n%s", err, usage)
 		return 2
 	}
-	data, err := os.ReadFile(o.input)
+	job, err := produce(o, stderr)
 	if err != nil {
+		fmt.Fprintln(stderr, err)
+		return 2
+	}
+	if err := publish(o.out, job.files, o.replace); err != nil {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
+	}
+	return job.report(o.out, stdout, stderr)
+}
+
+// job is one run of the design: the result and every output file, in memory.
+type job struct {
+	input []byte // the input file as read
+	res   *design.Result
+	files map[string][]byte // output files keyed by their slash-separated path below the output folder
+}
+
+// produce reads and designs the input of o and renders every output file in memory; nothing is written.
+func produce(o options, stderr io.Writer) (*job, error) {
+	data, err := os.ReadFile(o.input)
+	if err != nil {
+		return nil, fmt.Errorf("colsheet: %v", err)
 	}
 	in, err := input.Parse(o.input, data)
 	if err != nil {
-		fmt.Fprintln(stderr, err)
-		return 2
+		return nil, err
 	}
-	switch {
-	case o.date != "":
+	if o.date != "" {
 		in.Project.Date = o.date
-	case in.Project.Date == "":
-		in.Project.Date = time.Now().Format("2006-01-02")
+	}
+	if in.Project.Date == "" {
+		// No clock in the output: reruns stay byte-identical.
+		fmt.Fprintln(stderr, "colsheet: no date given (project.date or --date): the sheets say \"undated\"")
+		in.Project.Date = "undated"
 	}
 	res, err := design.Run(in)
 	if err != nil {
-		fmt.Fprintln(stderr, err)
-		return 2
+		return nil, err
 	}
 	design.AddInteraction(res)
-
 	files, err := render(res, o.formats)
 	if err != nil {
-		fmt.Fprintf(stderr, "colsheet: rendering failed, nothing written: %v\n", err)
-		return 2
+		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
-	if err := writeAll(o.out, files); err != nil {
-		fmt.Fprintf(stderr, "colsheet: %v\n", err)
-		return 2
-	}
+	return &job{input: data, res: res, files: files}, nil
+}
+
+// report prints the count of passing and failing designs and returns the exit status.
+func (j *job) report(out string, stdout, stderr io.Writer) int {
+	res := j.res
 	failed := res.Failed()
-	fmt.Fprintf(stdout, "colsheet: %d designs, %d pass, %d fail; written to %s\n", len(res.Designs), len(res.Designs)-failed, failed, o.out)
+	fmt.Fprintf(stdout, "colsheet: %d designs, %d pass, %d fail; written to %s\n", len(res.Designs), len(res.Designs)-failed, failed, out)
 	for _, d := range res.Designs {
 		if d.Status != design.StatusPass {
 			fmt.Fprintf(stderr, "FAIL %s/%s: %s\n", d.Column, d.Storey, strings.Join(d.Reasons, "; "))
@@ -174,41 +198,102 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 			return nil, fmt.Errorf("%s: %v", f.name, err)
 		}
 		for _, s := range sheets {
-			files[filepath.Join(f.name, s.Name)] = s.Data
+			files[f.name+"/"+s.Name] = s.Data
 		}
 	}
 	return files, nil
 }
 
-// writeAll writes every file below dir, each to a temporary file renamed into place,
-// so that an interrupted run never leaves a half-written file.
-func writeAll(dir string, files map[string][]byte) error {
-	for name, data := range files {
-		path := filepath.Join(dir, name)
+// publish writes files as the folder dir. The files go to a new temporary folder beside dir,
+// which is then renamed into place, so that an interrupted run leaves any previous dir whole.
+// An existing dir is replaced only when replace is set and it holds an earlier colsheet output.
+func publish(dir string, files map[string][]byte, replace bool) error {
+	dir = filepath.Clean(dir)
+	old, err := os.Stat(dir)
+	exists := err == nil
+	switch {
+	case err != nil && !os.IsNotExist(err):
+		return err
+	case exists && !old.IsDir():
+		return fmt.Errorf("%s exists and is not a folder; nothing written", dir)
+	case exists && !replace && !emptyDir(dir):
+		return fmt.Errorf("%s exists; nothing written (give --replace to replace an earlier output)", dir)
+	case exists && !emptyDir(dir) && !ownOutput(dir):
+		return fmt.Errorf("%s is not an earlier colsheet output (no results.json or manifest.json); nothing written", dir)
+	}
+	parent := filepath.Dir(dir)
+	if err := os.MkdirAll(parent, 0o755); err != nil {
+		return err
+	}
+	tmp, err := os.MkdirTemp(parent, "."+filepath.Base(dir)+".new-")
+	if err != nil {
+		return err
+	}
+	if err := writeTree(tmp, files); err != nil {
+		os.RemoveAll(tmp)
+		return err
+	}
+	if err := os.Chmod(tmp, 0o755); err != nil {
+		os.RemoveAll(tmp)
+		return err
+	}
+	if !exists {
+		if err := os.Rename(tmp, dir); err != nil {
+			os.RemoveAll(tmp)
+			return err
+		}
+		return nil
+	}
+	// Move the old folder aside, the new one in, then drop the old one.
+	aside, err := os.MkdirTemp(parent, "."+filepath.Base(dir)+".old-")
+	if err != nil {
+		os.RemoveAll(tmp)
+		return err
+	}
+	os.Remove(aside)
+	if err := os.Rename(dir, aside); err != nil {
+		os.RemoveAll(tmp)
+		return err
+	}
+	if err := os.Rename(tmp, dir); err != nil {
+		os.Rename(aside, dir) // put the previous output back
+		os.RemoveAll(tmp)
+		return err
+	}
+	return os.RemoveAll(aside)
+}
+
+// writeTree writes every file below dir, which must exist.
+func writeTree(dir string, files map[string][]byte) error {
+	names := make([]string, 0, len(files))
+	for name := range files {
+		names = append(names, name)
+	}
+	sort.Strings(names)
+	for _, name := range names {
+		path := filepath.Join(dir, filepath.FromSlash(name))
 		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
 			return err
 		}
-		tmp, err := os.CreateTemp(filepath.Dir(path), ".colsheet-*")
-		if err != nil {
-			return err
-		}
-		if _, err := tmp.Write(data); err != nil {
-			tmp.Close()
-			os.Remove(tmp.Name())
-			return err
-		}
-		if err := tmp.Close(); err != nil {
-			os.Remove(tmp.Name())
-			return err
-		}
-		if err := os.Chmod(tmp.Name(), 0o644); err != nil {
-			os.Remove(tmp.Name())
-			return err
-		}
-		if err := os.Rename(tmp.Name(), path); err != nil {
-			os.Remove(tmp.Name())
+		if err := os.WriteFile(path, files[name], 0o644); err != nil {
 			return err
 		}
 	}
 	return nil
+}
+
+// emptyDir reports whether dir holds no entries.
+func emptyDir(dir string) bool {
+	es, err := os.ReadDir(dir)
+	return err == nil && len(es) == 0
+}
+
+// ownOutput reports whether dir looks like an earlier output of colsheet.
+func ownOutput(dir string) bool {
+	for _, f := range []string{"results.json", "manifest.json"} {
+		if st, err := os.Stat(filepath.Join(dir, f)); err == nil && st.Mode().IsRegular() {
+			return true
+		}
+	}
+	return false
 }

@@ -3,7 +3,7 @@
 //
 // Usage:
 //
-//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD]
+//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace]
 //	colsheet version
 //
 // Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage.
@@ -20,13 +20,14 @@ func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
 const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992-1-1
 
 usage:
-  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD]
+  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace]
   colsheet version
   colsheet help
 
 design writes DIR/results.json, DIR/summary.csv and the calc sheets under
-DIR/md, DIR/tex and DIR/html. Exit status: 0 every design passes, 1 some
-design fails (everything is still written), 2 bad input or usage.
+DIR/md, DIR/tex and DIR/html. DIR must not exist yet; --replace replaces an
+earlier output as a whole (never half). Exit status: 0 every design passes,
+1 some design fails (everything is still written), 2 bad input or usage.
 `
 
 func run(args []string, stdout, stderr io.Writer) int {
