@@ -230,7 +230,7 @@ func Combine(id, rule string, p code.Params, g trace.Q, qs []Variable) ([]trace.
 	title := "Design value: the least favourable combination"
 	clause := en1990 + "6.4.3.2(3)"
 	if ab {
-		clause = en1990 + "6.4.3.2(3), Eq. (6.10a) and (6.10b)"
+		clause = en1990 + "6.4.3.2(3), Eq. (6.10a), (6.10b)"
 	}
 	s := trace.Formula(id, title, clause, "E_d", g.Unit, cands[best].step.Value,
 		"max("+strings.Join(names, ", ")+")", args...).Note("Governed by " + cands[best].label + ".")

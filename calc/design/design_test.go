@@ -52,6 +52,9 @@ func checkTrace(t *testing.T, d Design) {
 			t.Errorf("duplicate step id %s", s.ID)
 		}
 		seen[s.ID] = true
+		if !trace.ClauseForm(s.Clause) {
+			t.Errorf("step %s: clause %q is not in the one form of trace.ClauseForm", s.ID, s.Clause)
+		}
 	}
 	for _, s := range d.Steps {
 		for _, a := range s.Args {

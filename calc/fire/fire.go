@@ -100,7 +100,7 @@ func LeastWidth(id string, b, h trace.Q) trace.Step {
 // AxisDistance returns the axis distance of the main bars a = c + φt + φ/2 with c the cover to
 // the links, EN 1992-1-2:2004 Figure 5.2.
 func AxisDistance(id string, cover, link, dia trace.Q) trace.Step {
-	return trace.Formula(id, "Axis distance of the main bars", en2+"Figure 5.2", "a", "mm",
+	return trace.Formula(id, "Axis distance of the main bars", en2+"Fig. 5.2", "a", "mm",
 		AxisDistanceValue(cover.V, link.V, dia.V), "c + phi_t + phi / 2",
 		trace.A("c", cover), trace.A("phi_t", link), trace.A("phi", dia))
 }

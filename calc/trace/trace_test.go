@@ -24,3 +24,35 @@ func TestRecheck(t *testing.T) {
 		t.Fatal("ratio 1.2 should fail")
 	}
 }
+
+// The one form of clause references (DESIGN.md, the trace contract).
+func TestClauseForm(t *testing.T) {
+	for _, c := range []struct {
+		c  string
+		ok bool
+	}{
+		{"EN 1992-1-1:2004 5.8.3.1(1), Eq. (5.13N)", true},
+		{"EN 1992-1-1:2004 3.1.6(1)P, Eq. (3.15)", true},
+		{"EN 1992-1-1:2004 Annex B, Eq. (B.1), (B.2)", true},
+		{"EN 1990:2002 A1.2.2(1), Table A1.1", true},
+		{"EN 1990:2002 A1.3.1(4), Table A1.2(B)", true},
+		{"EN 1992-1-2:2004 5.3.2(2), note", true},
+		{"EN 1992-1-2:2004 5.3.2, Table 5.2a", true},
+		{"EN 1992-1-1:2004 5.8.8.2(1)-(2), Fig. 5.7; 6.1(4)", true},
+		{"EN 1992-1-1:2004 5.8.7.2(1), Eq. (5.22)-(5.23)", true},
+		{"common practice", true},
+		{"common practice (simply supported beam reaction)", true},
+		{"input", true},
+		{"chosen: the least steel that passes every check", true},
+		{"EN 1992-1-2:2004 Figure 5.2", false}, // "Fig." is the one form
+		{"EC2 5.8.3", false},
+		{"EN 1992-1-1 5.8.3", false}, // edition missing
+		{"5.8.3.1", false},
+		{"", false},
+		{"common practice, no source", false},
+	} {
+		if got := ClauseForm(c.c); got != c.ok {
+			t.Errorf("ClauseForm(%q) = %v, want %v", c.c, got, c.ok)
+		}
+	}
+}

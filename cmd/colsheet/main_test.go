@@ -231,6 +231,9 @@ func TestBuildingDemo(t *testing.T) {
 			if err := trace.Recheck(s, 1e-9); err != nil {
 				t.Error(err)
 			}
+			if !trace.ClauseForm(s.Clause) {
+				t.Errorf("step %s: clause %q is not in the one form", s.ID, s.Clause)
+			}
 			for _, a := range s.Args {
 				if a.From != "" && !ids[a.From] {
 					t.Errorf("%s: argument %s refers to %s, which results.json does not hold", s.ID, a.Name, a.From)
