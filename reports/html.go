@@ -85,11 +85,12 @@ func HTML(r *design.Result) ([]Sheet, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
 	}
-	single, err := markdown(r, func(name string) string { return name + ".html" })
+	pageOf := func(name string) string { return name + ".html" }
+	single, err := markdown(r, pageOf, place{file: pageOf})
 	if err != nil {
 		return nil, err
 	}
-	whole, err := markdown(r, func(name string) string { return "#" + name })
+	whole, err := markdown(r, func(name string) string { return "#" + name }, place{onePage: true})
 	if err != nil {
 		return nil, err
 	}

@@ -2,6 +2,7 @@ package reports
 
 import (
 	"regexp"
+	"strconv"
 	"strings"
 	"unicode"
 )
@@ -14,6 +15,27 @@ type markup interface {
 	num(n num) string                        // a number in running text
 	qty(v float64, engineUnit string) string // a value in engine units shown in display units
 	formula(ps []piece) string               // a formula laid out from pieces
+	link(label, target string) string        // label (already marked up) linked to target; the label alone when target is ""
+	anchor(name string) string               // a link target named name (from anchorName)
+}
+
+// anchorName turns a step ID or sheet name into a link-target name of ASCII letters, digits,
+// '.' and '-' only, the same in every format and distinct for distinct IDs: '/' becomes '.',
+// any other character outside [A-Za-z0-9] becomes "-XX-" with its hex code.
+func anchorName(prefix, id string) string {
+	var b strings.Builder
+	b.WriteString(prefix)
+	for _, r := range id {
+		switch {
+		case r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9':
+			b.WriteRune(r)
+		case r == '/':
+			b.WriteByte('.')
+		default:
+			b.WriteString("-" + strings.ToLower(strconv.FormatInt(int64(r), 16)) + "-")
+		}
+	}
+	return b.String()
 }
 
 // symbolRE finds symbols with a subscript, such as "f_cd", "λ_lim", "M_Ed,y", in running text.
@@ -88,6 +110,15 @@ func mdEscape(s string, leading bool) string {
 }
 
 func (m md) rich(s string) string { return richWith(s, m.text, m.sym) }
+
+func (md) link(label, target string) string {
+	if target == "" {
+		return label
+	}
+	return "[" + label + "](" + target + ")"
+}
+
+func (md) anchor(name string) string { return `<a id="` + name + `"></a>` }
 
 func (m md) sym(s string) string {
 	base, sub := splitSymbol(oneLine(s))
@@ -330,6 +361,16 @@ func (t tex) mathUnit(u string) string {
 }
 
 func (t tex) rich(s string) string { return richWith(s, t.text, t.sym) }
+
+// link makes an internal hyperlink; targets are anchor names, or "" for none.
+func (tex) link(label, target string) string {
+	if target == "" {
+		return label
+	}
+	return `\hyperlink{` + strings.TrimPrefix(target, "#") + "}{" + label + "}"
+}
+
+func (tex) anchor(name string) string { return `\hypertarget{` + name + `}{}` }
 
 func (t tex) sym(s string) string { return "$" + t.mathSym(s) + "$" }
 

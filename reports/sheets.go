@@ -54,6 +54,7 @@ type axisRow struct{ Label, Y, Z string }
 
 type stepView struct {
 	Number   int
+	Anchor   string // the link target of the step, already marked up for the format
 	ID       string
 	Title    string
 	Clause   string
@@ -69,7 +70,7 @@ type stepView struct {
 	Relation string
 	Verdict  string // PASS or FAIL for a check step
 	Failed   bool
-	Uses     string // numbers of the steps whose results this step uses, e.g. "3, 5"
+	Uses     string // the steps whose results this step uses, linked: "steps 3, 5" or "B2/L2 step 57"
 	Notes    []string
 	Cautions []string
 }
@@ -100,6 +101,10 @@ type designRow struct {
 }
 
 type sheetView struct {
+	H        string // Markdown: extra '#' that push the design's headings one level down in the calc document
+	Sec1     string // LaTeX: the sectioning command of the design's parts ("section*", or "subsection*" in the calc document)
+	Sec2     string // LaTeX: the sectioning command one level below
+	Anchor   string // link target of the design's section, marked up (calc document only)
 	Project  projectView
 	Sheet    string // "sheet 3 of 12"
 	SheetNo  string // "3 of 12"
@@ -295,13 +300,14 @@ func index(m markup, r *design.Result, link func(name string) string) sheetView 
 	return v
 }
 
-// sheet builds the view of the sheet of design i.
-func sheet(m markup, r *design.Result, i int) sheetView {
+// sheet builds the view of the sheet of design i, its step links laid out for p.
+func sheet(m markup, b *book, i int, p place) sheetView {
+	r := b.r
 	in := input(r)
 	d := r.Designs[i]
 	total := len(r.Designs) + 1
 	st, failed := status(d.Status)
-	v := sheetView{Project: project(m, in), Number: i + 2, Total: total,
+	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(m, in), Number: i + 2, Total: total,
 		Sheet:   m.text(fmt.Sprintf("sheet %d of %d", i+2, total)),
 		SheetNo: m.text(fmt.Sprintf("%d of %d", i+2, total)),
 		Subject: m.text(subject(d)), Cautions: texts(m, Cautions), Basis: basis(m, r),
@@ -354,39 +360,77 @@ func sheet(m markup, r *design.Result, i int) sheetView {
 		ax("Design moment M_Ed", func(a design.Axis) string { return m.qty(a.MEd, "Nmm") }),
 		ax("Resistance M_Rd", func(a design.Axis) string { return m.qty(a.MRd, "Nmm") }),
 	}
-	v.Groups = groups(m, d.Trace())
+	v.Groups = groups(m, b, i, p)
 	return v
 }
 
-// groups gathers the steps under their Step.Group, groups in order of first appearance;
-// each step keeps its number in the trace.
-func groups(m markup, steps []trace.Step) []groupView {
-	numbers := make(map[string]int, len(steps))
-	for i, s := range steps {
-		if _, ok := numbers[s.ID]; !ok {
-			numbers[s.ID] = i + 1
+// book holds what every sheet of a result needs to link its steps: the sheets' names, each
+// design's trace with full step IDs, and where each step ID is.
+type book struct {
+	r      *design.Result
+	names  []string       // sheet base names, one per design
+	traces [][]trace.Step // each design's trace, IDs from the root
+	at     map[string]where
+}
+
+// where is a step's design and its number on that design's sheet.
+type where struct{ design, number int }
+
+func newBook(r *design.Result) *book {
+	b := &book{r: r, names: names(r), traces: make([][]trace.Step, len(r.Designs)), at: map[string]where{}}
+	for i, d := range r.Designs {
+		b.traces[i] = d.Trace()
+		for k, s := range b.traces[i] {
+			if _, ok := b.at[s.ID]; !ok {
+				b.at[s.ID] = where{i, k + 1}
+			}
 		}
 	}
+	return b
+}
+
+// place says how one rendering links steps on other sheets.
+type place struct {
+	onePage bool                     // every design in one document: anchors link directly
+	file    func(name string) string // the file of another design's sheet; nil when files are not linked
+}
+
+// target returns the link to step id (at w) from the sheet of design from, or "" for none.
+func (b *book) target(p place, from int, w where, id string) string {
+	a := "#" + anchorName("s-", id)
+	switch {
+	case p.onePage || w.design == from:
+		return a
+	case p.file != nil:
+		return p.file(b.names[w.design]) + a
+	}
+	return ""
+}
+
+// groups gathers the steps of design i under their Step.Group, groups in order of first
+// appearance; each step keeps its number in the trace.
+func groups(m markup, b *book, i int, p place) []groupView {
+	steps := b.traces[i]
 	var out []groupView
 	at := map[string]int{}
-	for i, s := range steps {
+	for k, s := range steps {
 		g := s.Group
 		if strings.TrimSpace(g) == "" {
 			g = "Further steps"
 		}
-		k, ok := at[g]
+		n, ok := at[g]
 		if !ok {
-			k = len(out)
-			at[g] = k
+			n = len(out)
+			at[g] = n
 			out = append(out, groupView{Title: m.rich(g)})
 		}
-		out[k].Steps = append(out[k].Steps, step(m, s, i+1, numbers))
+		out[n].Steps = append(out[n].Steps, step(m, s, k+1, b, i, p))
 	}
 	return out
 }
 
-func step(m markup, s trace.Step, n int, numbers map[string]int) stepView {
-	v := stepView{Number: n, ID: m.text(s.ID), Title: m.rich(upperFirst(s.Title)), Clause: dash(m, s.Clause),
+func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
+	v := stepView{Number: n, Anchor: m.anchor(anchorName("s-", s.ID)), ID: m.text(s.ID), Title: m.rich(upperFirst(s.Title)), Clause: dash(m, s.Clause),
 		Kind: m.text(string(s.Kind)), Type: string(s.Kind), Notes: texts(m, s.Notes), Cautions: texts(m, s.Cautions)}
 	symbol := s.Symbol
 	if s.Kind == trace.KindCheck && symbol == "" {
@@ -445,23 +489,46 @@ func step(m markup, s trace.Step, n int, numbers map[string]int) stepView {
 			v.Verdict, v.Failed = "FAIL", true
 		}
 	}
-	var used []int
-	seen := map[int]bool{}
+	// The steps whose results this one uses: those on this sheet by number, then those on
+	// other sheets by column, lift and number; each linked where the format can.
+	var here, there []where
+	seen := map[where]bool{}
+	ids := map[where]string{}
 	for _, a := range s.Args {
-		if k, ok := numbers[a.From]; ok && a.From != "" && !seen[k] && k != n {
-			seen[k] = true
-			used = append(used, k)
+		w, ok := b.at[a.From]
+		if a.From == "" || !ok || seen[w] || w.design == from && w.number == n {
+			continue
+		}
+		seen[w], ids[w] = true, a.From
+		if w.design == from {
+			here = append(here, w)
+		} else {
+			there = append(there, w)
 		}
 	}
-	sort.Ints(used)
+	sort.Slice(here, func(x, y int) bool { return here[x].number < here[y].number })
+	sort.Slice(there, func(x, y int) bool {
+		if there[x].design != there[y].design {
+			return there[x].design < there[y].design
+		}
+		return there[x].number < there[y].number
+	})
 	var uses []string
-	for _, k := range used {
-		uses = append(uses, fmt.Sprint(k))
+	for _, w := range here {
+		uses = append(uses, m.link(m.text(fmt.Sprint(w.number)), b.target(p, from, w, ids[w])))
 	}
-	if len(uses) == 1 {
+	if len(here) == 1 {
 		v.Uses = "step " + uses[0]
-	} else if len(uses) > 1 {
+	} else if len(here) > 1 {
 		v.Uses = "steps " + strings.Join(uses, ", ")
+	}
+	for _, w := range there {
+		d := b.r.Designs[w.design]
+		label := m.text(d.Column + "/" + d.Storey + " step " + fmt.Sprint(w.number))
+		if v.Uses != "" {
+			v.Uses += ", "
+		}
+		v.Uses += m.link(label, b.target(p, from, w, ids[w]))
 	}
 	return v
 }
@@ -490,8 +557,9 @@ func execute(t *template.Template, name string, v any) ([]byte, error) {
 	return b.Bytes(), nil
 }
 
-// render runs the index and sheet templates over r for markup m.
-func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT, ext string, link func(string) string) ([]Sheet, error) {
+// render runs the index and sheet templates over r for markup m; link gives the target of a
+// design's sheet from the index, p how steps link across sheets.
+func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT, ext string, link func(string) string, p place) ([]Sheet, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
 	}
@@ -507,8 +575,9 @@ func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT
 		return nil, err
 	}
 	out := []Sheet{{Name: "index" + ext, Data: b}}
-	for i, name := range names(r) {
-		b, err := execute(t, sheetT, sheet(m, r, i))
+	bk := newBook(r)
+	for i, name := range bk.names {
+		b, err := execute(t, sheetT, sheet(m, bk, i, p))
 		if err != nil {
 			return nil, err
 		}
@@ -519,15 +588,16 @@ func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT
 
 // Markdown returns the calc sheets in CommonMark with GFM tables: index.md first, then one sheet per design.
 func Markdown(r *design.Result) ([]Sheet, error) {
-	return markdown(r, func(name string) string { return name + ".md" })
+	md := func(name string) string { return name + ".md" }
+	return markdown(r, md, place{file: md})
 }
 
-func markdown(r *design.Result, link func(string) string) ([]Sheet, error) {
-	return render(md{}, r, [2]string{"{{", "}}"}, "md/common.md.tmpl", "md/index.md.tmpl", "md/sheet.md.tmpl", ".md", link)
+func markdown(r *design.Result, link func(string) string, p place) ([]Sheet, error) {
+	return render(md{}, r, [2]string{"{{", "}}"}, "md/common.md.tmpl", "md/index.md.tmpl", "md/sheet.md.tmpl", ".md", link, p)
 }
 
 // LaTeX returns the calc sheets as standalone pdflatex documents: index.tex first, then one per design.
 func LaTeX(r *design.Result) ([]Sheet, error) {
 	return render(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/index.tex.tmpl", "tex/sheet.tex.tmpl", ".tex",
-		func(name string) string { return name + ".pdf" })
+		func(name string) string { return name + ".pdf" }, place{})
 }

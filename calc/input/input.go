@@ -103,6 +103,7 @@ func Parse(file string, data []byte) (*model.Input, error) {
 	}
 	in.File = file
 	in.SHA256 = hex.EncodeToString(sum[:])
+	in.Source = string(data)
 	return in, nil
 }
 

@@ -13,6 +13,7 @@ import (
 type Input struct {
 	File      string      // path of the input file as given
 	SHA256    string      // hex SHA-256 of the file's bytes
+	Source    string      // the file's text as read, for the listing in the calc document
 	Project   Project     // title block
 	Code      code.Params // partial factors and nationally determined parameters in force
 	Materials Materials   // concrete and steel
