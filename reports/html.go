@@ -157,3 +157,28 @@ func execPage(t *template.Template, p htmlPage) ([]byte, error) {
 	}
 	return b.Bytes(), nil
 }
+
+// DocumentHTML returns the calc document as one self-contained HTML page (calc.html),
+// rendered from the Markdown document.
+func DocumentHTML(r *design.Result) (Sheet, error) {
+	doc, err := DocumentMarkdown(r)
+	if err != nil {
+		return Sheet{}, err
+	}
+	t, err := template.ParseFS(templates.FS, "html/page.html.tmpl")
+	if err != nil {
+		return Sheet{}, err
+	}
+	body, err := toHTML(doc.Data)
+	if err != nil {
+		return Sheet{}, err
+	}
+	tool := strings.TrimSpace(r.ToolName + " " + r.ToolVersion)
+	if r.ToolName == "" {
+		tool = strings.TrimSpace("colsheet " + r.ToolVersion)
+	}
+	title := oneLine(strings.TrimSpace(input(r).Project.Title + " calculation package"))
+	page, err := execPage(t, htmlPage{Title: title, Tool: tool,
+		Sheets: []htmlSheet{{ID: "calc", Failed: r.Failed() > 0, Body: body}}})
+	return Sheet{Name: "calc.html", Data: page}, err
+}

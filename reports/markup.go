@@ -17,6 +17,7 @@ type markup interface {
 	formula(ps []piece) string               // a formula laid out from pieces
 	link(label, target string) string        // label (already marked up) linked to target; the label alone when target is ""
 	anchor(name string) string               // a link target named name (from anchorName)
+	listing(line string) string              // one line of a verbatim listing (the input file)
 }
 
 // anchorName turns a step ID or sheet name into a link-target name of ASCII letters, digits,
@@ -119,6 +120,9 @@ func (md) link(label, target string) string {
 }
 
 func (md) anchor(name string) string { return `<a id="` + name + `"></a>` }
+
+// listing keeps the line as it is: it goes inside a fenced code block, where nothing is markup.
+func (md) listing(line string) string { return oneLine(line) }
 
 func (m md) sym(s string) string {
 	base, sub := splitSymbol(oneLine(s))
@@ -371,6 +375,11 @@ func (tex) link(label, target string) string {
 }
 
 func (tex) anchor(name string) string { return `\hypertarget{` + name + `}{}` }
+
+// listing sets the line in typewriter type, every space kept.
+func (t tex) listing(line string) string {
+	return `\texttt{` + strings.ReplaceAll(t.text(line), " ", "~") + `}`
+}
 
 func (t tex) sym(s string) string { return "$" + t.mathSym(s) + "$" }
 

@@ -159,6 +159,17 @@ func TestGolden(t *testing.T) {
 			}
 			return []Sheet{{"results.json", j}, {"summary.csv", c}}, nil
 		}},
+		{"doc", func(r *design.Result) ([]Sheet, error) {
+			var out []Sheet
+			for _, f := range []func(*design.Result) (Sheet, error){DocumentMarkdown, DocumentLaTeX, DocumentHTML} {
+				s, err := f(r)
+				if err != nil {
+					return nil, err
+				}
+				out = append(out, s)
+			}
+			return out, nil
+		}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.dir, func(t *testing.T) {

@@ -261,7 +261,7 @@ func linksText(d design.Design) string {
 func index(m markup, r *design.Result, link func(name string) string) sheetView {
 	in := input(r)
 	total := len(r.Designs) + 1
-	v := sheetView{Project: project(m, in), Number: 1, Total: total, Sheet: m.text(fmt.Sprintf("sheet 1 of %d", total)),
+	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(m, in), Number: 1, Total: total, Sheet: m.text(fmt.Sprintf("sheet 1 of %d", total)),
 		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
 		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r)}
 	nm := names(r)

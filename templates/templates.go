@@ -6,9 +6,11 @@
 //	md/common.md.tmpl     shared Markdown blocks (title block, cautions, code basis)
 //	md/index.md.tmpl      the index sheet in Markdown
 //	md/sheet.md.tmpl      one design's sheet in Markdown
+//	md/doc.md.tmpl        the calc document: every design in one Markdown file
 //	tex/common.tex.tmpl   shared LaTeX preamble and blocks
 //	tex/index.tex.tmpl    the index sheet as a standalone LaTeX document
 //	tex/sheet.tex.tmpl    one design's sheet as a standalone LaTeX document
+//	tex/doc.tex.tmpl      the calc document: every design in one LaTeX document
 //	html/page.html.tmpl   the self-contained HTML page that wraps sheets rendered from Markdown
 //
 // The Markdown and HTML templates use the usual {{ }} delimiters; the LaTeX templates use

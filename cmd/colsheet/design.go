@@ -23,6 +23,7 @@ type options struct {
 	formats map[string]bool
 	date    string
 	replace bool // replace an earlier output folder
+	pdf     bool // run pdflatex over the calc document
 }
 
 func parseDesignArgs(args []string) (options, error) {
@@ -68,6 +69,8 @@ func parseDesignArgs(args []string) (options, error) {
 			}
 		case "--replace":
 			o.replace = true
+		case "--pdf":
+			o.pdf = true
 		case "--date":
 			v, err := val()
 			if err != nil {
@@ -107,11 +110,20 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
+	pdfErr := error(nil)
+	if o.pdf {
+		pdfErr = makePDF(job.files, job.res.Input.Project.Date)
+	}
 	if err := publish(o.out, job.files, o.replace); err != nil {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
 	}
-	return job.report(o.out, stdout, stderr)
+	code := job.report(o.out, stdout, stderr)
+	if pdfErr != nil {
+		fmt.Fprintf(stderr, "colsheet: no PDF: %v\n", pdfErr)
+		return 3
+	}
+	return code
 }
 
 // job is one run of the design: the result and every output file, in memory.
@@ -200,6 +212,20 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 		for _, s := range sheets {
 			files[f.name+"/"+s.Name] = s.Data
 		}
+	}
+	// The calc document: every design in one file per format.
+	for _, f := range []struct {
+		name string
+		make func(*design.Result) (reports.Sheet, error)
+	}{{"md", reports.DocumentMarkdown}, {"tex", reports.DocumentLaTeX}, {"html", reports.DocumentHTML}} {
+		if !formats[f.name] {
+			continue
+		}
+		doc, err := f.make(res)
+		if err != nil {
+			return nil, fmt.Errorf("calc document, %s: %v", f.name, err)
+		}
+		files["doc/"+doc.Name] = doc.Data
 	}
 	return files, nil
 }
