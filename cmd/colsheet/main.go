@@ -3,7 +3,7 @@
 //
 // Usage:
 //
-//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace]
+//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace] [--pdf]
 //	colsheet version
 //
 // Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage.
@@ -20,7 +20,10 @@ func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
 const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992-1-1
 
 usage:
-  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace]
+  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace] [--pdf]
+  colsheet archive INPUT.yaml -o BUNDLE [--date YYYY-MM-DD] [--replace] [--pdf]
+  colsheet recheck BUNDLE
+  colsheet compare OLD NEW [-o FILE.md]
   colsheet version
   colsheet help
 
@@ -28,6 +31,12 @@ design writes DIR/results.json, DIR/summary.csv and the calc sheets under
 DIR/md, DIR/tex and DIR/html. DIR must not exist yet; --replace replaces an
 earlier output as a whole (never half). Exit status: 0 every design passes,
 1 some design fails (everything is still written), 2 bad input or usage.
+
+archive writes the same files plus BUNDLE/input/ (the input file) and
+BUNDLE/manifest.json (size and SHA-256 of every file). recheck verifies a
+bundle against its manifest and re-evaluates every traced step (exit 0 all
+reproduce, 1 something does not, 2 unreadable bundle or usage). compare
+prints the changed inputs and results of two bundles as a Markdown table.
 `
 
 func run(args []string, stdout, stderr io.Writer) int {
@@ -38,6 +47,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 	switch args[0] {
 	case "design":
 		return runDesign(args[1:], stdout, stderr)
+	case "archive":
+		return runArchive(args[1:], stdout, stderr)
+	case "recheck":
+		return runRecheck(args[1:], stdout, stderr)
+	case "compare":
+		return runCompare(args[1:], stdout, stderr)
 	case "version", "--version":
 		fmt.Fprintln(stdout, "colsheet", version())
 		return 0

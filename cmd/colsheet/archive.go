@@ -1,0 +1,153 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"colsheet/reports/archive"
+)
+
+// runArchive runs the design of an input and writes it, with the input and a manifest, as a package folder.
+func runArchive(args []string, stdout, stderr io.Writer) int {
+	for _, a := range args {
+		if a == "--formats" || strings.HasPrefix(a, "--formats=") {
+			fmt.Fprintf(stderr, "colsheet archive: --formats is not taken: a package holds every format\n\n%s", usage)
+			return 2
+		}
+	}
+	o, err := parseDesignArgs(args)
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet archive: %v\n\n%s", err, usage)
+		return 2
+	}
+	o.formats = map[string]bool{"md": true, "tex": true, "html": true}
+	job, err := produce(o, stderr)
+	if err != nil {
+		fmt.Fprintln(stderr, err)
+		return 2
+	}
+	inName := filepath.Base(o.input)
+	inPath := "input/" + inName
+	if _, clash := job.files[inPath]; clash {
+		fmt.Fprintf(stderr, "colsheet archive: %s is already an output file; nothing written\n", inPath)
+		return 2
+	}
+	job.files[inPath] = job.input
+	m := archive.NewManifest(job.files, archive.Meta{
+		ToolName: job.res.ToolName, ToolVersion: job.res.ToolVersion,
+		Date: job.res.Input.Project.Date, InputName: inName, Input: job.input,
+	})
+	data, err := m.JSON()
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet archive: %s: %v; nothing written\n", archive.ManifestName, err)
+		return 2
+	}
+	job.files[archive.ManifestName] = data
+	if err := publish(o.out, job.files, o.replace); err != nil {
+		fmt.Fprintf(stderr, "colsheet: %v\n", err)
+		return 2
+	}
+	return job.report(o.out, stdout, stderr)
+}
+
+// runRecheck verifies a package folder against its manifest and re-evaluates its trace.
+func runRecheck(args []string, stdout, stderr io.Writer) int {
+	if len(args) != 1 || strings.HasPrefix(args[0], "-") {
+		fmt.Fprintf(stderr, "colsheet recheck: give one package folder\n\n%s", usage)
+		return 2
+	}
+	rep, err := archive.Verify(args[0])
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet recheck: %v\n", err)
+		return 2
+	}
+	if err := rep.WriteText(stdout); err != nil {
+		fmt.Fprintf(stderr, "colsheet recheck: %v\n", err)
+		return 2
+	}
+	if !rep.OK() {
+		return 1
+	}
+	return 0
+}
+
+// runCompare prints, or writes to a new file, the revision table between two package folders.
+func runCompare(args []string, stdout, stderr io.Writer) int {
+	var dirs []string
+	out := ""
+	for i := 0; i < len(args); i++ {
+		switch a := args[i]; {
+		case a == "-o" || a == "--out":
+			if i+1 >= len(args) {
+				fmt.Fprintf(stderr, "colsheet compare: %s needs a value\n\n%s", a, usage)
+				return 2
+			}
+			i++
+			out = args[i]
+		case strings.HasPrefix(a, "-o="):
+			out = strings.TrimPrefix(a, "-o=")
+		case strings.HasPrefix(a, "--out="):
+			out = strings.TrimPrefix(a, "--out=")
+		case strings.HasPrefix(a, "-"):
+			fmt.Fprintf(stderr, "colsheet compare: unknown option %s\n\n%s", a, usage)
+			return 2
+		default:
+			dirs = append(dirs, a)
+		}
+	}
+	if len(dirs) != 2 {
+		fmt.Fprintf(stderr, "colsheet compare: give two package folders, the old one first\n\n%s", usage)
+		return 2
+	}
+	ch, err := archive.Compare(dirs[0], dirs[1])
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
+		return 2
+	}
+	md := ch.Markdown()
+	if out == "" {
+		if _, err := stdout.Write(md); err != nil {
+			fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
+			return 2
+		}
+		return 0
+	}
+	if err := writeNewFile(out, md); err != nil {
+		fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
+		return 2
+	}
+	fmt.Fprintf(stdout, "colsheet: revision table written to %s\n", out)
+	return 0
+}
+
+// writeNewFile writes data as the file name through a temporary file renamed into place; it refuses an existing name.
+func writeNewFile(name string, data []byte) error {
+	if _, err := os.Lstat(name); err == nil {
+		return fmt.Errorf("%s exists; nothing written", name)
+	} else if !os.IsNotExist(err) {
+		return err
+	}
+	dir := filepath.Dir(name)
+	tmp, err := os.CreateTemp(dir, "."+filepath.Base(name)+".new-")
+	if err != nil {
+		return err
+	}
+	_, err = tmp.Write(data)
+	if e := tmp.Close(); err == nil {
+		err = e
+	}
+	if err == nil {
+		err = os.Chmod(tmp.Name(), 0o644)
+	}
+	if err == nil {
+		err = os.Rename(tmp.Name(), name)
+	}
+	if err != nil {
+		os.Remove(tmp.Name())
+		return fmt.Errorf("%s: %v", name, err)
+	}
+	return nil
+}
