@@ -10,7 +10,7 @@ import (
 	"colsheet/reports/archive"
 )
 
-// runArchive runs the design of an input and writes it, with the input and a manifest, as a package folder.
+// runArchive runs the design of an input and writes it, with the input, the PDF if asked and a manifest, as a package folder.
 func runArchive(args []string, stdout, stderr io.Writer) int {
 	for _, a := range args {
 		if a == "--formats" || strings.HasPrefix(a, "--formats=") {
@@ -28,6 +28,10 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		fmt.Fprintln(stderr, err)
 		return 2
+	}
+	pdfErr := error(nil)
+	if o.pdf {
+		pdfErr = makePDF(job.files, job.res.Input.Project.Date)
 	}
 	inName := filepath.Base(o.input)
 	inPath := "input/" + inName
@@ -50,7 +54,12 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
 	}
-	return job.report(o.out, stdout, stderr)
+	code := job.report(o.out, stdout, stderr)
+	if pdfErr != nil {
+		fmt.Fprintf(stderr, "colsheet: no PDF: %v\n", pdfErr)
+		return 3
+	}
+	return code
 }
 
 // runRecheck verifies a package folder against its manifest and re-evaluates its trace.

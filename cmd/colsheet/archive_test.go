@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/json"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -230,5 +231,30 @@ func TestArchiveUsage(t *testing.T) {
 	}
 	if es, _ := os.ReadDir(empty); len(es) != 0 {
 		t.Errorf("usage errors wrote files: %v", es)
+	}
+}
+
+// With --pdf the calc document's PDF is part of the bundle and listed in its manifest.
+func TestArchivePDF(t *testing.T) {
+	if _, err := exec.LookPath("pdflatex"); err != nil {
+		t.Skip("pdflatex not installed")
+	}
+	dir := filepath.Join(t.TempDir(), "bundle")
+	if code, stdout, stderr := runCLI("archive", demoInput, "-o", dir, "--date", "2026-12-01", "--pdf"); code != 0 {
+		t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
+	}
+	m, err := archive.ReadManifest(filepath.Join(dir, archive.ManifestName))
+	if err != nil {
+		t.Fatal(err)
+	}
+	listed := false
+	for _, f := range m.Files {
+		listed = listed || f.Path == "doc/calc.pdf" && f.Size > 0
+	}
+	if !listed {
+		t.Error("doc/calc.pdf is not listed")
+	}
+	if code, stdout, _ := runCLI("recheck", dir); code != 0 {
+		t.Errorf("recheck: exit %d\n%s", code, stdout)
 	}
 }
