@@ -56,12 +56,20 @@ func checkTrace(t *testing.T, d Design) {
 			t.Errorf("step %s: clause %q is not in the one form of trace.ClauseForm", s.ID, s.Clause)
 		}
 	}
+	value := map[string]float64{}
+	for _, s := range d.Steps {
+		value[s.ID] = s.Value
+	}
 	for _, s := range d.Steps {
 		for _, a := range s.Args {
 			// A reference from the root ("/column/lift/…") names another lift's sheet; the command's
 			// tests resolve those across results.json.
 			if a.From != "" && !strings.HasPrefix(a.From, "/") && !seen[a.From] {
 				t.Errorf("step %s: argument %s refers to %s, which is not in the trace", s.ID, a.Name, a.From)
+			}
+			// An argument that names its producing step carries that step's value (the trace contract).
+			if v, ok := value[a.From]; ok && math.Abs(v-a.Value) > 1e-9*math.Max(1, math.Abs(v)) {
+				t.Errorf("step %s: argument %s = %g, but its step %s records %g", s.ID, a.Name, a.Value, a.From, v)
 			}
 		}
 	}

@@ -82,7 +82,7 @@ func (r *resist) mRdSteps(l *trace.Log, n string, k int, nEd trace.Q, full bool)
 	}
 	c := r.c
 	refs := section.Refs{Fcd: c.fcd.From, Fyd: c.fyd.From, Es: c.es.From, B: c.b.From, H: c.h.From,
-		Concrete: c.epsC2.From, Bars: "bars/As"}
+		EpsPeak: c.epsC2.From, EpsUlt: c.epsCu.From, N: c.nExp.From, Lambda: c.lam.From, Eta: c.eta.From}
 	q := r.sec.Trace(l, n+"/sec/", nEd, st, refs)
 	if q.V < 0 {
 		q = l.Add(trace.Formula(n+"/MRd", "Moment resistance about "+n+" (magnitude)", "common practice", "M_Rd,"+n, "Nmm",

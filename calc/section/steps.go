@@ -25,8 +25,10 @@ const (
 type Refs struct {
 	Fcd, Fyd, Es string // steps giving fcd, fyd and Es
 	B, H         string // steps giving b and h
-	Concrete     string // step giving the class's strain limits, n, λ and η
-	Bars         string // step giving the bar layout
+	EpsPeak      string // step giving εc2 (or εc3 for the rectangular block)
+	EpsUlt       string // step giving εcu2 (or εcu3)
+	N            string // step giving the exponent n of the parabola
+	Lambda, Eta  string // steps giving λ and η of the rectangular block
 }
 
 // Trace records in log the steps of the equilibrium state st of the section (from MRd,
@@ -55,17 +57,17 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	fcd := trace.Q{V: s.Fcd, Symbol: "f_cd", Unit: "MPa", From: refs.Fcd}
 	fyd := trace.Q{V: s.Fyd, Symbol: "f_yd", Unit: "MPa", From: refs.Fyd}
 	es := trace.Q{V: s.Es, Symbol: "E_s", Unit: "MPa", From: refs.Es}
-	con := func(v float64, sym string) trace.Q { return trace.Q{V: v, Symbol: sym, Unit: "", From: refs.Concrete} }
+	con := func(v float64, sym, from string) trace.Q { return trace.Q{V: v, Symbol: sym, Unit: "", From: from} }
 	c := s.Concrete
 	var epk, eult trace.Q
 	pkn, ultn := "eps_c2", "eps_cu2"
 	if f.rect {
-		epk, eult = con(c.EpsC3, "ε_c3"), con(c.EpsCu3, "ε_cu3")
+		epk, eult = con(c.EpsC3, "ε_c3", refs.EpsPeak), con(c.EpsCu3, "ε_cu3", refs.EpsUlt)
 		pkn, ultn = "eps_c3", "eps_cu3"
 	} else {
-		epk, eult = con(c.EpsC2, "ε_c2"), con(c.EpsCu2, "ε_cu2")
+		epk, eult = con(c.EpsC2, "ε_c2", refs.EpsPeak), con(c.EpsCu2, "ε_cu2", refs.EpsUlt)
 	}
-	nq, lam, eta := con(c.N, "n"), con(c.Lambda, "λ"), con(c.Eta, "η")
+	nq, lam, eta := con(c.N, "n", refs.N), con(c.Lambda, "λ", refs.Lambda), con(c.Eta, "η", refs.Eta)
 
 	// IDs of later steps, as the log will name them (the solve step refers forward to them).
 	full := func(name string) string { return log.Prefix + id + name }
@@ -269,8 +271,9 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	mval := float64(fc * zc)
 	for i, l := range layers {
 		v := vals[i]
-		zq := trace.Q{V: l.Coord, Symbol: li(cn+"_s", i), Unit: "mm", From: refs.Bars}
-		aq := trace.Q{V: l.Area, Symbol: li("A_s", i), Unit: "mm2", From: refs.Bars}
+		// The layer's coordinate and area are data of the bar layout (listed in the bar step).
+		zq := trace.Q{V: l.Coord, Symbol: li(cn+"_s", i), Unit: "mm"}
+		aq := trace.Q{V: l.Area, Symbol: li("A_s", i), Unit: "mm2"}
 		var eStep trace.Step
 		title := "Strain of bar layer " + strconv.Itoa(i+1) + " (" + strconv.Itoa(l.Bars) + " bar(s) at " + zq.Symbol + ")"
 		if !pr.pivotC {

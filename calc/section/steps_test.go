@@ -14,12 +14,12 @@ import (
 func traceState(t *testing.T, s *Section, st State, ned float64, what string) []trace.Step {
 	t.Helper()
 	log := &trace.Log{Prefix: "K1/L1/", Group: "section"}
-	refs := Refs{Fcd: "K1/mat/fcd", Fyd: "K1/mat/fyd", Es: "K1/mat/Es", B: "K1/b", H: "K1/h", Concrete: "K1/mat/class", Bars: "K1/bars"}
+	refs := Refs{Fcd: "K1/mat/fcd", Fyd: "K1/mat/fyd", Es: "K1/mat/Es", B: "K1/b", H: "K1/h", EpsPeak: "K1/mat/eps_c2", EpsUlt: "K1/mat/eps_cu2", N: "K1/mat/n", Lambda: "K1/mat/lambda", Eta: "K1/mat/eta"}
 	nq := trace.Q{V: ned, Symbol: "N_Ed", Unit: "N", From: "K1/L1/NEd"}
 	id := "sec/" + st.Axis.String() + "/"
 	m := s.Trace(log, id, nq, st, refs)
 	known := map[string]bool{nq.From: true}
-	for _, r := range []string{refs.Fcd, refs.Fyd, refs.Es, refs.B, refs.H, refs.Concrete, refs.Bars} {
+	for _, r := range []string{refs.Fcd, refs.Fyd, refs.Es, refs.B, refs.H, refs.EpsPeak, refs.EpsUlt, refs.N, refs.Lambda, refs.Eta} {
 		known[r] = true
 	}
 	for _, step := range log.Steps {
