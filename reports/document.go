@@ -134,7 +134,7 @@ func inputTables(m markup, in *model.Input) []tableView {
 			}
 			return strings.Join(s, ", ")
 		}
-		g := tableView{Title: m.text("Grid, members and analysis"), Head: heads("Item", "As read"), Align: "lX"}
+		g := tableView{Title: m.text("Grid, members and analysis"), Head: heads("Item", "As read"), Align: "ll"}
 		g.Rows = [][]string{
 			{m.text("Bays along x"), bays(b.GridX)},
 			{m.text("Bays along y"), bays(b.GridY)},

@@ -18,6 +18,7 @@ type markup interface {
 	link(label, target string) string        // label (already marked up) linked to target; the label alone when target is ""
 	anchor(name string) string               // a link target named name (from anchorName)
 	listing(line string) string              // one line of a verbatim listing (the input file)
+	picture(g diagram) string                // a diagram drawn for the format: SVG, or pgfplots for LaTeX
 }
 
 // anchorName turns a step ID or sheet name into a link-target name of ASCII letters, digits,
@@ -123,6 +124,9 @@ func (md) anchor(name string) string { return `<a id="` + name + `"></a>` }
 
 // listing keeps the line as it is: it goes inside a fenced code block, where nothing is markup.
 func (md) listing(line string) string { return oneLine(line) }
+
+// picture is the inline SVG, a raw HTML block (it holds no blank line) that goldmark passes on.
+func (md) picture(g diagram) string { return g.SVG() }
 
 func (m md) sym(s string) string {
 	base, sub := splitSymbol(oneLine(s))
@@ -375,6 +379,8 @@ func (tex) link(label, target string) string {
 }
 
 func (tex) anchor(name string) string { return `\hypertarget{` + name + `}{}` }
+
+func (tex) picture(g diagram) string { return g.PGF() }
 
 // listing sets the line in typewriter type, every space kept.
 func (t tex) listing(line string) string {

@@ -75,6 +75,9 @@ type stepView struct {
 	Cautions []string
 }
 
+// figureView is one drawn diagram with its caption, both marked up.
+type figureView struct{ Body, Caption string }
+
 type groupView struct {
 	Title string
 	Steps []stepView
@@ -123,6 +126,7 @@ type sheetView struct {
 	Governing      string
 	Summary        []kv
 	Axes           []axisRow
+	Diagrams       []figureView // interaction diagrams, when the result holds their data
 	Groups         []groupView
 
 	// index only
@@ -359,6 +363,9 @@ func sheet(m markup, b *book, i int, p place) sheetView {
 		ax("Creep ratio φ_ef", func(a design.Axis) string { return m.num(fmtNum(a.PhiEf)) }),
 		ax("Design moment M_Ed", func(a design.Axis) string { return m.qty(a.MEd, "Nmm") }),
 		ax("Resistance M_Rd", func(a design.Axis) string { return m.qty(a.MRd, "Nmm") }),
+	}
+	for _, g := range diagrams(d) {
+		v.Diagrams = append(v.Diagrams, figureView{Body: m.picture(g), Caption: m.text(g.Caption())})
 	}
 	v.Groups = groups(m, b, i, p)
 	return v

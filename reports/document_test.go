@@ -1,0 +1,235 @@
+package reports
+
+import (
+	"bytes"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+
+	"colsheet/calc/design"
+	yamlinput "colsheet/calc/input"
+)
+
+// A small invented building: two lifts, so that the take-down of the lower lift uses steps
+// of the sheet above and the links must cross sheets.
+const linkBuilding = `project: {title: Link test, job: T-1, revision: A, designer: A. Berg, checker: C. Dahl, date: 2026-01-05}
+materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}
+building:
+  storeys:
+    - {name: L1, height: 3.5 m}
+    - {name: R, height: 3.2 m}
+  grid: {x: [6 m], y: [5 m]}
+  columns: {b: 300 mm, h: 300 mm, cover: 35 mm}
+  beams: {b: 300 mm, h: 500 mm}
+  floors:
+    - {levels: [L1], gk: 5 kN/m2, qk: 2.5 kN/m2, category: B, spans: y}
+    - {levels: [R], gk: 4 kN/m2, qk: 0.6 kN/m2, category: H, spans: y}
+  base: fixed
+`
+
+func buildingResult(t testing.TB) *design.Result {
+	t.Helper()
+	in, err := yamlinput.Parse("links.yaml", []byte(linkBuilding))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := design.Run(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	design.AddInteraction(r)
+	return r
+}
+
+var (
+	hrefRE = regexp.MustCompile(`href="([^"]*)"`)
+	idRE   = regexp.MustCompile(`id="([^"]*)"`)
+)
+
+// ids returns the set of id attributes in an HTML text.
+func ids(html []byte) map[string]bool {
+	out := map[string]bool{}
+	for _, m := range idRE.FindAllSubmatch(html, -1) {
+		out[string(m[1])] = true
+	}
+	return out
+}
+
+// Every link of the calc document and of the HTML sheets lands on an anchor that exists: in the
+// same page, or in the named page of the same set (common practice, no source).
+func TestLinksResolve(t *testing.T) {
+	r := buildingResult(t)
+	doc, err := DocumentHTML(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pages := map[string][]byte{doc.Name: doc.Data}
+	sheets, err := HTML(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, s := range sheets {
+		pages[s.Name] = s.Data
+	}
+	cross := 0
+	for name, page := range pages {
+		have := ids(page)
+		links := hrefRE.FindAllSubmatch(page, -1)
+		if name == doc.Name && len(links) < 100 {
+			t.Errorf("%s: only %d links", name, len(links))
+		}
+		for _, m := range links {
+			href := string(m[1])
+			file, frag, _ := strings.Cut(href, "#")
+			target := have
+			if file != "" {
+				p, ok := pages[file]
+				if !ok {
+					t.Errorf("%s: link %q to a page not in the set", name, href)
+					continue
+				}
+				target = ids(p)
+				if frag != "" {
+					cross++
+				}
+			}
+			if frag != "" && !target[frag] {
+				t.Errorf("%s: link %q has no target", name, href)
+			}
+		}
+	}
+	if cross == 0 {
+		t.Error("no step links across sheets: the lower lifts should use steps of the lifts above")
+	}
+	// In the document the cross-sheet references are plain anchors of the one page.
+	if !bytes.Contains(doc.Data, []byte(`/R step `)) {
+		t.Error("the calc document names no step of another sheet")
+	}
+}
+
+// The calc document holds the parts the submission needs, in every format.
+func TestDocumentParts(t *testing.T) {
+	r := buildingResult(t)
+	mdDoc, err := DocumentMarkdown(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	texDoc, err := DocumentLaTeX(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"# Calculation package: Link test", "| Revision | A |", "Input SHA-256", r.Input.SHA256,
+		"## Contents", "## Basis of design", "## The input as read", "  12  ", "## Column A1, lift L1", "## Column B2, lift R",
+		"## Column schedule", "## Failures and warnings", "competent engineer", "### Interaction diagrams"} {
+		if !strings.Contains(string(mdDoc.Data), want) {
+			t.Errorf("calc.md lacks %q", want)
+		}
+	}
+	if n, want := strings.Count(string(mdDoc.Data), "<svg "), 3*len(r.Designs); n != want {
+		t.Errorf("calc.md: %d SVG pictures, want %d", n, want)
+	}
+	for _, want := range []string{`\tableofcontents`, `\section{Column A1, lift L1}`, `\hypertarget{s-A1.L1.`, `\hyperlink{s-A1.R.`, `\section{Failures and warnings}`} {
+		if !strings.Contains(string(texDoc.Data), want) {
+			t.Errorf("calc.tex lacks %q", want)
+		}
+	}
+	if n, want := strings.Count(string(texDoc.Data), `\begin{tikzpicture}`), 3*len(r.Designs); n != want {
+		t.Errorf("calc.tex: %d pictures, want %d", n, want)
+	}
+}
+
+// The calc document compiles with pdflatex and leaves no link or reference undefined.
+func TestDocumentCompiles(t *testing.T) {
+	bin, err := exec.LookPath("pdflatex")
+	if err != nil {
+		t.Skip("pdflatex not installed; .ci/run installs TeX Live")
+	}
+	if testing.Short() {
+		t.Skip("short")
+	}
+	doc, err := DocumentLaTeX(buildingResult(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	if err := os.WriteFile(filepath.Join(dir, "calc.tex"), doc.Data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	for run := 0; run < 2; run++ {
+		cmd := exec.Command(bin, "-interaction=nonstopmode", "-halt-on-error", "calc.tex")
+		cmd.Dir = dir
+		if out, err := cmd.CombinedOutput(); err != nil {
+			t.Fatalf("pdflatex: %v\n%s", err, tailText(out, 30))
+		}
+	}
+	log, _ := os.ReadFile(filepath.Join(dir, "calc.log"))
+	for _, bad := range []string{"undefined", "Undefined"} {
+		if bytes.Contains(log, []byte(bad)) {
+			t.Errorf("calc.log reports something %s:\n%s", bad, grepLines(log, bad))
+		}
+	}
+}
+
+// The HTML calc document renders in headless Chromium without a script or console error.
+func TestHTMLInChromium(t *testing.T) {
+	var bin string
+	for _, b := range []string{"chromium", "chromium-browser", "google-chrome"} {
+		if p, err := exec.LookPath(b); err == nil {
+			bin = p
+			break
+		}
+	}
+	if bin == "" {
+		t.Skip("chromium not installed; .ci/run installs it")
+	}
+	r := buildingResult(t)
+	doc, err := DocumentHTML(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+	page := filepath.Join(dir, "calc.html")
+	if err := os.WriteFile(page, doc.Data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	cmd := exec.Command(bin, "--headless", "--no-sandbox", "--disable-gpu", "--user-data-dir="+filepath.Join(dir, "profile"),
+		"--enable-logging=stderr", "--v=0", "--dump-dom", "file://"+page)
+	var stdout, stderr bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &stdout, &stderr
+	if err := cmd.Run(); err != nil {
+		t.Fatalf("chromium: %v\n%s", err, tailText(stderr.Bytes(), 20))
+	}
+	dom := stdout.String()
+	if !strings.Contains(dom, "Calculation package") || !strings.Contains(dom, "Column B2, lift R") {
+		t.Errorf("the rendered page lacks its headings (%d bytes of DOM)", len(dom))
+	}
+	if n, want := strings.Count(dom, "<svg "), 3*len(r.Designs); n != want {
+		t.Errorf("rendered DOM holds %d SVG pictures, want %d", n, want)
+	}
+	for _, line := range strings.Split(stderr.String(), "\n") {
+		if strings.Contains(line, "CONSOLE") || strings.Contains(line, "Uncaught") {
+			t.Errorf("chromium: %s", line)
+		}
+	}
+}
+
+func tailText(b []byte, n int) string {
+	lines := strings.Split(strings.TrimRight(string(b), "\n"), "\n")
+	if len(lines) > n {
+		lines = lines[len(lines)-n:]
+	}
+	return strings.Join(lines, "\n")
+}
+
+func grepLines(b []byte, s string) string {
+	var out []string
+	for _, l := range strings.Split(string(b), "\n") {
+		if strings.Contains(l, s) {
+			out = append(out, l)
+		}
+	}
+	return strings.Join(out, "\n")
+}
