@@ -65,7 +65,7 @@ func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q
 		"sqrt(M_Edy ** 2 + M_Edz ** 2)", trace.A("M_Edy", mEdY), trace.A("M_Edz", mEdZ)))
 	mRd = log.Add(trace.Formula(id+"M_Rd", "Design moment of resistance in the direction of the design moment", clauseBiax, "M_Rd", "Nmm", mrdV,
 		"sqrt(M_Ry ** 2 + M_Rz ** 2)", trace.A("M_Ry", myQ), trace.A("M_Rz", mzQ)).
-		Note("M_R,y and M_R,z are the resultants at the neutral axis of step "+angleQ.From+" (and its depth), integrated over the section."))
+		Note("M_R,y and M_R,z are the resultants at the neutral axis of step " + angleQ.From + " (and its depth), integrated over the section."))
 	ratioV := medV / math.Max(mrdV, 1)
 	ratio = log.Add(trace.Check(id+"check", "Biaxial bending, exact section resistance", clauseBiax, "M_Ed ≤ M_Rd", ratioV,
 		"M_Ed / max(M_Rd, 1)", trace.A("M_Ed", med), trace.A("M_Rd", mRd)).
