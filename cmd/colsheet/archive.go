@@ -29,37 +29,25 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
-	pdfErr := error(nil)
-	if o.pdf {
-		pdfErr = makePDF(job.files, job.res.Input.Project.Date)
-	}
 	inName := filepath.Base(o.input)
-	inPath := "input/" + inName
-	if _, clash := job.files[inPath]; clash {
-		fmt.Fprintf(stderr, "colsheet archive: %s is already an output file; nothing written\n", inPath)
-		return 2
+	seal := func(files map[string][]byte) error {
+		inPath := "input/" + inName
+		if _, clash := files[inPath]; clash {
+			return fmt.Errorf("%s is already an output file", inPath)
+		}
+		files[inPath] = job.input
+		m := archive.NewManifest(files, archive.Meta{
+			ToolName: job.res.ToolName, ToolVersion: job.res.ToolVersion,
+			Date: job.res.Input.Project.Date, InputName: inName, Input: job.input,
+		})
+		data, err := m.JSON()
+		if err != nil {
+			return fmt.Errorf("%s: %v", archive.ManifestName, err)
+		}
+		files[archive.ManifestName] = data
+		return nil
 	}
-	job.files[inPath] = job.input
-	m := archive.NewManifest(job.files, archive.Meta{
-		ToolName: job.res.ToolName, ToolVersion: job.res.ToolVersion,
-		Date: job.res.Input.Project.Date, InputName: inName, Input: job.input,
-	})
-	data, err := m.JSON()
-	if err != nil {
-		fmt.Fprintf(stderr, "colsheet archive: %s: %v; nothing written\n", archive.ManifestName, err)
-		return 2
-	}
-	job.files[archive.ManifestName] = data
-	if err := publish(o.out, job.files, o.replace); err != nil {
-		fmt.Fprintf(stderr, "colsheet: %v\n", err)
-		return 2
-	}
-	code := job.report(o.out, stdout, stderr)
-	if pdfErr != nil {
-		fmt.Fprintf(stderr, "colsheet: no PDF: %v\n", pdfErr)
-		return 3
-	}
-	return code
+	return deliver(o, job, seal, stdout, stderr)
 }
 
 // runRecheck verifies a package folder against its manifest and re-evaluates its trace.

@@ -110,15 +110,27 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
+	return deliver(o, job, nil, stdout, stderr)
+}
+
+// deliver makes the PDF when asked, lets seal add its files (the archive's input copy and
+// manifest), writes the output folder whole and reports; it returns the exit status.
+func deliver(o options, j *job, seal func(files map[string][]byte) error, stdout, stderr io.Writer) int {
 	pdfErr := error(nil)
 	if o.pdf {
-		pdfErr = makePDF(job.files, job.res.Input.Project.Date)
+		pdfErr = makePDF(j.files, j.res.Input.Project.Date)
 	}
-	if err := publish(o.out, job.files, o.replace); err != nil {
+	if seal != nil {
+		if err := seal(j.files); err != nil {
+			fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
+			return 2
+		}
+	}
+	if err := publish(o.out, j.files, o.replace); err != nil {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
 	}
-	code := job.report(o.out, stdout, stderr)
+	code := j.report(o.out, stdout, stderr)
 	if pdfErr != nil {
 		fmt.Fprintf(stderr, "colsheet: no PDF: %v\n", pdfErr)
 		return 3
