@@ -13,7 +13,7 @@ import (
 )
 
 // errNoTeX says that pdflatex is not installed.
-var errNoTeX = errors.New("pdflatex not found on PATH: the calc document is written as doc/calc.tex only; install TeX Live (Debian: texlive-latex-base texlive-latex-recommended texlive-latex-extra texlive-pictures) to get doc/calc.pdf")
+var errNoTeX = errors.New("pdflatex not found on PATH: the calc document is written as doc/calc.tex only; install TeX Live (Debian: texlive-latex-base texlive-latex-recommended texlive-pictures) to get doc/calc.pdf")
 
 // makePDF runs pdflatex over doc/calc.tex of files in a temporary folder and adds doc/calc.pdf.
 // The PDF's dates come from the project date (SOURCE_DATE_EPOCH), so that reruns match.

@@ -246,7 +246,7 @@ func (r *Report) checkSteps(res *results) {
 			ids[s.ID] = stepAt{di, s}
 		}
 	}
-	for di, d := range res.Designs {
+	for _, d := range res.Designs {
 		prefix := d.Column + "/" + d.Lift + "/"
 		for _, s := range d.Trace {
 			r.Steps++
@@ -264,7 +264,7 @@ func (r *Report) checkSteps(res *results) {
 					continue
 				}
 				r.References++
-				if carries(a, src.step, src.design != di) && !near(a.Value, src.step.Value) {
+				if !near(a.Value, src.step.Value) {
 					r.stepProblem(d, s, fmt.Sprintf("argument %s does not carry the value of its source step %s", a.Name, src.step.ID), true, a.Value, src.step.Value)
 					r.StepProblems[len(r.StepProblems)-1].Source = true
 				}
@@ -311,16 +311,6 @@ func (r *Report) checkStep(d resultsCase, s trace.Step) {
 func (r *Report) stepProblem(d resultsCase, s trace.Step, problem string, numbers bool, recorded, recomputed float64) {
 	r.StepProblems = append(r.StepProblems, StepProblem{Column: d.Column, Lift: d.Lift, ID: s.ID, Title: s.Title,
 		Problem: problem, Numbers: numbers, Recorded: recorded, Recomputed: recomputed})
-}
-
-// carries reports whether argument a stands for the value of its source step src rather than for a
-// quantity merely derived from it: it points into another design, or it has the source's symbol,
-// possibly qualified (G_k,above for G_k).
-func carries(a trace.Arg, src trace.Step, otherDesign bool) bool {
-	if otherDesign || a.Symbol == src.Symbol {
-		return true
-	}
-	return src.Symbol != "" && (strings.HasPrefix(a.Symbol, src.Symbol+",") || strings.HasPrefix(a.Symbol, src.Symbol+"_"))
 }
 
 // near reports whether a and b agree to the relative Tolerance.
