@@ -1,0 +1,135 @@
+package main
+
+import (
+	"bytes"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// readTree returns every file below dir by its slash path.
+func readTree(t *testing.T, dir string) map[string][]byte {
+	t.Helper()
+	out := map[string][]byte{}
+	err := filepath.WalkDir(dir, func(p string, e fs.DirEntry, err error) error {
+		if err != nil || e.IsDir() {
+			return err
+		}
+		b, err := os.ReadFile(p)
+		rel, _ := filepath.Rel(dir, p)
+		out[filepath.ToSlash(rel)] = b
+		return err
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return out
+}
+
+// Two runs of the same input give byte-identical files in every format (no clock, no map order).
+func TestRerunIsByteIdentical(t *testing.T) {
+	base := t.TempDir()
+	var trees []map[string][]byte
+	for _, name := range []string{"a", "b"} {
+		dir := filepath.Join(base, name)
+		if code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", dir); code != 0 {
+			t.Fatalf("exit %d: %s", code, stderr)
+		}
+		trees = append(trees, readTree(t, dir))
+	}
+	if len(trees[0]) < 20 {
+		t.Fatalf("only %d files written", len(trees[0]))
+	}
+	for name, a := range trees[0] {
+		if b, ok := trees[1][name]; !ok || !bytes.Equal(a, b) {
+			t.Errorf("%s differs between two runs", name)
+		}
+	}
+	for _, want := range []string{"doc/calc.md", "doc/calc.tex", "doc/calc.html", "results.json", "schedule.csv"} {
+		if len(trees[0][want]) == 0 {
+			t.Errorf("%s not written", want)
+		}
+	}
+}
+
+// An existing output is never replaced without --replace, a folder that is not an earlier output
+// never at all, and a failed write leaves the earlier output whole.
+func TestOutputFolderSafety(t *testing.T) {
+	base := t.TempDir()
+	out := filepath.Join(base, "out")
+	if code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", out); code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	before := readTree(t, out)
+	marker := filepath.Join(out, "md", "mine.txt")
+	if err := os.WriteFile(marker, []byte("kept"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", out, "--date", "2027-01-01")
+	if code != 2 || !strings.Contains(stderr, "--replace") {
+		t.Errorf("second run without --replace: exit %d, %q", code, stderr)
+	}
+	if _, err := os.Stat(marker); err != nil {
+		t.Error("the earlier output was touched")
+	}
+
+	// A failed write (a file name the system refuses) leaves the earlier output as it was.
+	if err := publish(out, map[string][]byte{"ok.txt": []byte("x"), "bad\x00name": []byte("y")}, true); err == nil {
+		t.Error("publish of an impossible file name succeeded")
+	}
+	after := readTree(t, out)
+	if len(after) != len(before)+1 {
+		t.Errorf("after a failed replace: %d files, want %d", len(after), len(before)+1)
+	}
+	for name, b := range before {
+		if !bytes.Equal(after[name], b) {
+			t.Errorf("%s changed by a failed replace", name)
+		}
+	}
+	if es, _ := os.ReadDir(base); len(es) != 1 {
+		var names []string
+		for _, e := range es {
+			names = append(names, e.Name())
+		}
+		t.Errorf("temporary folders left beside the output: %v", names)
+	}
+
+	// --replace swaps the whole folder.
+	if code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", out, "--replace", "--date", "2027-01-01"); code != 0 {
+		t.Fatalf("--replace: exit %d: %s", code, stderr)
+	}
+	if _, err := os.Stat(marker); err == nil {
+		t.Error("--replace kept a file of the earlier output")
+	}
+
+	// A folder that is not an earlier output is refused even with --replace.
+	foreign := filepath.Join(base, "notes")
+	if err := os.MkdirAll(foreign, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(foreign, "todo.txt"), []byte("mine"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, stderr = runCLI("design", "../../testdata/columns.yaml", "-o", foreign, "--replace")
+	if code != 2 || !strings.Contains(stderr, "not an earlier colsheet output") {
+		t.Errorf("foreign folder: exit %d, %q", code, stderr)
+	}
+	if b, err := os.ReadFile(filepath.Join(foreign, "todo.txt")); err != nil || string(b) != "mine" {
+		t.Error("a foreign folder was touched")
+	}
+}
+
+// Without pdflatex, --pdf says so, still writes the LaTeX, and exits 3.
+func TestPDFWithoutTeX(t *testing.T) {
+	t.Setenv("PATH", t.TempDir())
+	out := filepath.Join(t.TempDir(), "out")
+	code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", out, "--pdf")
+	if code != 3 || !strings.Contains(stderr, "pdflatex not found") {
+		t.Errorf("exit %d, %q", code, stderr)
+	}
+	if st, err := os.Stat(filepath.Join(out, "doc", "calc.tex")); err != nil || st.Size() == 0 {
+		t.Error("doc/calc.tex not written")
+	}
+}
