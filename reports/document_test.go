@@ -233,3 +233,17 @@ func grepLines(b []byte, s string) string {
 	}
 	return strings.Join(out, "\n")
 }
+
+// The calc document of a small building (eight lifts), Markdown and LaTeX.
+func BenchmarkDocument(b *testing.B) {
+	r := buildingResult(b)
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := DocumentMarkdown(r); err != nil {
+			b.Fatal(err)
+		}
+		if _, err := DocumentLaTeX(r); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

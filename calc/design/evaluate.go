@@ -388,7 +388,12 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 		}
 		if s.Verdict == trace.Fail {
 			d.Status = StatusFail
-			d.Reasons = append(d.Reasons, fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", s.Title, s.Relation, s.Value, s.Clause))
+			if len(s.Args) == 0 {
+				// A condition with no ratio to give (its value only marks the failure).
+				d.Reasons = append(d.Reasons, fmt.Sprintf("%s: not met (%s)", s.Title, s.Clause))
+			} else {
+				d.Reasons = append(d.Reasons, fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", s.Title, s.Relation, s.Value, s.Clause))
+			}
 		}
 	}
 	d.Steps = l.Steps
