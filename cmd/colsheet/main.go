@@ -4,9 +4,12 @@
 // Usage:
 //
 //	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--date YYYY-MM-DD] [--replace] [--pdf]
+//	colsheet archive INPUT.yaml -o BUNDLE [--date YYYY-MM-DD] [--replace] [--pdf]
+//	colsheet recheck BUNDLE
+//	colsheet compare OLD NEW [-o FILE.md]
 //	colsheet version
 //
-// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage.
+// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage, 3 no PDF.
 package main
 
 import (
@@ -27,10 +30,12 @@ usage:
   colsheet version
   colsheet help
 
-design writes DIR/results.json, DIR/summary.csv and the calc sheets under
-DIR/md, DIR/tex and DIR/html. DIR must not exist yet; --replace replaces an
-earlier output as a whole (never half). Exit status: 0 every design passes,
-1 some design fails (everything is still written), 2 bad input or usage.
+design writes DIR/results.json, DIR/summary.csv, DIR/schedule.csv, the calc
+document DIR/doc/calc.{md,tex,html} (calc.pdf with --pdf, which needs pdflatex)
+and the calc sheets under DIR/md, DIR/tex and DIR/html. DIR must not exist
+yet; --replace replaces an earlier output as a whole (never half). Exit
+status: 0 every design passes, 1 some design fails (everything is still
+written), 2 bad input or usage, 3 the PDF could not be made.
 
 archive writes the same files plus BUNDLE/input/ (the input file) and
 BUNDLE/manifest.json (size and SHA-256 of every file). recheck verifies a
