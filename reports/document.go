@@ -155,6 +155,13 @@ func inputTables(m markup, in *model.Input) []tableView {
 			}
 			g.Rows = append(g.Rows, []string{m.text("Beams along " + dir + " on lines " + all(c.Lines) + " at " + all(c.Levels)), m.qty(c.B, "mm") + " × " + m.qty(c.H, "mm")})
 		}
+		for _, x := range b.Fires {
+			r := m.text("none")
+			if x.Fire.Rating > 0 {
+				r = m.text(fmt.Sprintf("R%d", x.Fire.Rating))
+			}
+			g.Rows = append(g.Rows, []string{m.text("Fire resistance at " + all(x.Levels)), r})
+		}
 		out = append(out, g)
 		f := tableView{Title: m.text("Floor loads (gk without the self-weight of beams and columns)"),
 			Head: heads("Levels", "g_k", "q_k", "Category", "Spans"), Align: "lrrll"}
