@@ -152,7 +152,15 @@ func (c *Changes) inputs(o, n *resultsCase) {
 	}
 }
 
-func isInput(s trace.Step) bool { return s.Kind == trace.KindInput || s.Kind == trace.KindTable }
+// isInput reports whether s is a value given to the calculation rather than one it found.
+func isInput(s trace.Step) bool {
+	if s.Kind != trace.KindInput && s.Kind != trace.KindTable {
+		return false
+	}
+	// Choices of the design (the bars, the link diameter) and values taken over from the lift
+	// above are results, reported as such, not inputs.
+	return !strings.HasPrefix(s.Clause, "chosen:") && s.Clause != "design of the lift above"
+}
 
 // results adds a row for every contract value of o and n that differs.
 func (c *Changes) results(o, n *resultsCase) {
