@@ -261,3 +261,27 @@ func TestEffectiveLengthsFromFrame(t *testing.T) {
 	want := 0.5 * 2800 * math.Sqrt((1+kTop/(0.45+kTop))*(1+kBot/(0.45+kBot)))
 	near(t, "l0,y of B2/L2", lf.Src.L0[0].V, want, 1e-9)
 }
+
+// The load on each beam is traced from the input: F_G = g_k·A_slab + ρ·b·h·L, the slab area by
+// tributary widths (common practice, no source). Beam A1–B1 of the contract building at L1 spans
+// 6.6 m along x on line 1; the slab spans y, so half of the 7.8 m bay drains to it.
+func TestBeamLoadTraced(t *testing.T) {
+	d, err := Derive(contractBuilding(), panel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	l := lift(t, d, "A1", "L1")
+	near(t, "g_k", stepValue(t, l, "td/L1/g_k"), 5.8e-3, 1e-12)
+	near(t, "q_k", stepValue(t, l, "td/L1/q_k"), 2.5e-3, 1e-12)
+	area := 6600.0 * 7800 / 2
+	near(t, "A_slab", stepValue(t, l, "td/L1/A1–B1/A_slab"), area, 1e-12)
+	gBeam := 25e-6 * 275 * 500 * 6600
+	near(t, "G_beam", stepValue(t, l, "td/L1/A1–B1/G_beam"), gBeam, 1e-12)
+	near(t, "F_G", stepValue(t, l, "td/L1/A1–B1/F_G"), 5.8e-3*area+gBeam, 1e-12)
+	near(t, "F_QB", stepValue(t, l, "td/L1/A1–B1/F_QB"), 2.5e-3*area, 1e-12)
+	for _, s := range l.Steps {
+		if err := trace.Recheck(s, 1e-9); err != nil {
+			t.Error(err)
+		}
+	}
+}

@@ -107,7 +107,8 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		lv := &levels[k]
 		size := columnSize(b, id, st.Name)
 		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 160)}
-		gk, qk, area, byBeam := levelTakeDown(l, lv, i, j)
+		rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
+		gk, qk, area, byBeam := levelTakeDown(l, lv, i, j, rho)
 		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
 			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).
 				Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
@@ -119,7 +120,6 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 				}
 			}
 		}
-		rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
 		bq := l.Add(trace.Input("td/b", "Column width (along building y)", "input", "b", "mm", size.B))
 		hq := l.Add(trace.Input("td/h", "Column depth (along building x)", "input", "h", "mm", size.H))
 		hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", st.Height))

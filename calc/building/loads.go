@@ -7,18 +7,21 @@ import (
 
 // BeamLoad holds the characteristic loads on one beam at one level.
 type BeamLoad struct {
-	G    []frame.Piece            // permanent: slab, self-weight, line loads
-	Q    map[string][]frame.Piece // imposed, by category
-	Slab []frame.Piece            // the slab area draining to the beam per unit length (a unit area load), mm
+	G     []frame.Piece            // permanent: slab, self-weight, line loads
+	Q     map[string][]frame.Piece // imposed, by category
+	Slab  []frame.Piece            // the slab area draining to the beam per unit length (a unit area load), mm
+	LineG []frame.Piece            // the permanent line loads on the beam, N/mm
+	LineQ map[string][]frame.Piece // the imposed line loads on the beam by category, N/mm
 }
 
 // Level holds the beams of one level and their loads.
 type Level struct {
-	Index int
-	Name  string
-	Floor model.Floor
-	Beams []Beam
-	Loads []BeamLoad
+	Index   int
+	Name    string
+	Floor   model.Floor
+	Density float64 // weight density of the beams, N/mm³
+	Beams   []Beam
+	Loads   []BeamLoad
 }
 
 // floorOf returns the floor entry that gives the level's loads.
@@ -80,12 +83,13 @@ type panelLoader func(lx, ly float64, spans string) (south, north, west, east []
 func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 	out := make([]Level, len(b.Storeys))
 	for li, st := range b.Storeys {
-		lv := Level{Index: li, Name: st.Name}
+		lv := Level{Index: li, Name: st.Name, Density: b.Options.Density}
 		lv.Floor, _ = floorOf(b, st.Name)
 		lv.Beams = g.Beams(func(d Dir, line int) model.Size { return beamSize(b, st.Name, d, g.lineName(d, line)) })
 		lv.Loads = make([]BeamLoad, len(lv.Beams))
 		for k := range lv.Loads {
 			lv.Loads[k].Q = map[string][]frame.Piece{}
+			lv.Loads[k].LineQ = map[string][]frame.Piece{}
 		}
 		addQ := func(k int, cat string, ps []frame.Piece) {
 			lv.Loads[k].Q[cat] = append(lv.Loads[k].Q[cat], ps...)
@@ -149,9 +153,11 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 				p := frame.Piece{X0: a - bm.Start, X1: c - bm.Start, W0: 1, W1: 1}
 				if ll.Gk > 0 {
 					lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(ll.Gk))
+					lv.Loads[k].LineG = append(lv.Loads[k].LineG, p.Scale(ll.Gk))
 				}
 				if ll.Qk > 0 {
 					addQ(k, ll.Category, []frame.Piece{p.Scale(ll.Qk)})
+					lv.Loads[k].LineQ[ll.Category] = append(lv.Loads[k].LineQ[ll.Category], p.Scale(ll.Qk))
 				}
 			}
 		}

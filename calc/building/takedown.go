@@ -3,6 +3,7 @@ package building
 import (
 	"maps"
 	"slices"
+	"strings"
 
 	"colsheet/calc/frame"
 	"colsheet/calc/trace"
@@ -61,6 +62,34 @@ func Reaction(id, title string, f, xbar, l trace.Q, atStart bool) trace.Step {
 		f.V*xbar.V/l.V, "F * xbar / L", trace.A("F", f), trace.A("xbar", xbar), trace.A("L", l))
 }
 
+// PiecesTotal returns the total of linearly varying pieces, Σ (x1 − x0)·(w0 + w1)/2 (statics):
+// with unit pieces the area that drains to a beam, with line loads their resultant.
+func PiecesTotal(id, title, clause, symbol, unit string, ps []frame.Piece) trace.Step {
+	var terms []string
+	var args []trace.Arg
+	v := 0.0
+	for k, p := range ps {
+		n := itoa(k + 1)
+		terms = append(terms, "(x1_"+n+" - x0_"+n+") * (w0_"+n+" + w1_"+n+") / 2")
+		args = append(args, trace.A("x0_"+n, trace.Const(p.X0, "x_0,"+n, "mm")), trace.A("x1_"+n, trace.Const(p.X1, "x_1,"+n, "mm")),
+			trace.A("w0_"+n, trace.Const(p.W0, "w_0,"+n, "")), trace.A("w1_"+n, trace.Const(p.W1, "w_1,"+n, "")))
+		v += (p.X1 - p.X0) * (p.W0 + p.W1) / 2
+	}
+	expr := strings.Join(terms, " + ")
+	if expr == "" {
+		expr = "0"
+	}
+	return trace.Formula(id, title, clause, symbol, unit, v, expr, args...).
+		Note("Each piece runs from x_0 to x_1 along the beam with the intensity w_0 to w_1 (for the slab: the width that drains to the beam).")
+}
+
+// BeamSelfWeight returns the weight of a beam, ρ·b·h·L, EN 1991-1-1:2002 Annex A, Table A.1.
+func BeamSelfWeight(id, name string, rho trace.Q, b, h float64, l trace.Q) trace.Step {
+	bq, hq := trace.Const(b, "b_"+name, "mm"), trace.Const(h, "h_"+name, "mm")
+	return trace.Formula(id, "Self-weight of beam "+name, en1991+"Annex A, Table A.1", "G_beam,"+name, "N",
+		rho.V*b*h*l.V, "rho * b * h * L", trace.A("rho", rho), trace.A("b", bq), trace.A("h", hq), trace.A("L", l))
+}
+
 // Sum returns a formula step adding the given quantities, which are named q1, q2, ….
 func Sum(id, title, clause, symbol, unit string, qs []trace.Q) trace.Step {
 	expr := ""
@@ -95,12 +124,19 @@ type reactions struct {
 	qs []trace.Q
 }
 
-func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]trace.Q, area float64, byBeam map[int]reactions) {
+func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q map[string]trace.Q, area float64, byBeam map[int]reactions) {
 	byBeam = map[int]reactions{}
 	ends := lv.endsAt(i, j)
 	var gs []trace.Q
 	qs := map[string][]trace.Q{}
 	pre := "td/" + lv.Name + "/"
+	var gkQ, qkQ trace.Q
+	if len(ends) > 0 {
+		gkQ = l.Add(trace.Input(pre+"g_k", "Permanent area load of the floor at level "+lv.Name+" (without beams and columns)", "input", "g_k", "N/mm2", lv.Floor.Gk))
+		if lv.Floor.Qk > 0 {
+			qkQ = l.Add(trace.Input(pre+"q_k", "Imposed area load of the floor at level "+lv.Name+" (category "+lv.Floor.Category+")", "input", "q_k", "N/mm2", lv.Floor.Qk))
+		}
+	}
 	for _, e := range ends {
 		bm := lv.Beams[e.beam]
 		ld := lv.Loads[e.beam]
@@ -110,8 +146,17 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 		if e.start {
 			which = "start"
 		}
-		f, xb := resultant(ld.G, bm.L)
-		F := trace.Const(f, "F_G,"+name, "N")
+		_, xb := resultant(ld.G, bm.L)
+		aSlab := l.Add(PiecesTotal(pre+name+"/A_slab", "Slab area that drains to beam "+name, "common practice (tributary areas)", "A_slab,"+name, "mm2", ld.Slab))
+		gBeam := l.Add(BeamSelfWeight(pre+name+"/G_beam", name, rho, bm.Size.B, bm.Size.H, L))
+		parts := []trace.Arg{trace.A("g_k", gkQ), trace.A("A_slab", aSlab), trace.A("G_beam", gBeam)}
+		expr := "g_k * A_slab + G_beam"
+		if len(ld.LineG) > 0 {
+			gl := l.Add(PiecesTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "input", "G_line,"+name, "N", ld.LineG))
+			parts, expr = append(parts, trace.A("G_line", gl)), expr+" + G_line"
+		}
+		fv, _ := trace.Eval(expr, parts)
+		F := l.Add(trace.Formula(pre+name+"/F_G", "Permanent load on beam "+name, "common practice", "F_G,"+name, "N", fv, expr, parts...))
 		X := trace.Const(xb, "x_R,G,"+name, "mm")
 		s := Reaction(pre+name+"/G", "Permanent load from beam "+name+" at level "+lv.Name+" ("+which+")", F, X, L, e.start)
 		s.Symbol = "R_G," + name
@@ -124,7 +169,21 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int) (g trace.Q, q map[string]t
 			if f == 0 {
 				continue
 			}
-			F := trace.Const(f, "F_Q"+cat+","+name, "N")
+			var parts []trace.Arg
+			var terms []string
+			if cat == lv.Floor.Category && lv.Floor.Qk > 0 {
+				parts, terms = append(parts, trace.A("q_k", qkQ), trace.A("A_slab", aSlab)), append(terms, "q_k * A_slab")
+			}
+			if len(ld.LineQ[cat]) > 0 {
+				ql := l.Add(PiecesTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "input", "Q_line,"+cat+","+name, "N", ld.LineQ[cat]))
+				parts, terms = append(parts, trace.A("Q_line", ql)), append(terms, "Q_line")
+			}
+			expr := strings.Join(terms, " + ")
+			fv, err := trace.Eval(expr, parts)
+			if err != nil {
+				fv, expr, parts = f, "F", []trace.Arg{trace.A("F", trace.Const(f, "F", "N"))}
+			}
+			F := l.Add(trace.Formula(pre+name+"/F_Q"+cat, "Imposed load (category "+cat+") on beam "+name, "common practice", "F_Q"+cat+","+name, "N", fv, expr, parts...))
 			X := trace.Const(xb, "x_R,Q"+cat+","+name, "mm")
 			s := Reaction(pre+name+"/Q"+cat, "Imposed load (category "+cat+") from beam "+name+" at level "+lv.Name, F, X, L, e.start)
 			s.Symbol = "R_Q" + cat + "," + name

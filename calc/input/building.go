@@ -294,7 +294,13 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 			case catalogued && (v < c.Min || v > c.Max):
 				r.fail(e.val, path, "%s is outside the accepted range %s to %s", show(v, "kN/m3"), show(c.Min, "kN/m3"), show(c.Max, "kN/m3"))
 			default:
+				// The one density in force: for the beams here and, through the parameter, for the columns.
 				b.Options.Density = v
+				if catalogued {
+					if pc, err := in.Code.Override(densityParam, v); err == nil {
+						in.Code = pc
+					}
+				}
 			}
 		}
 	}

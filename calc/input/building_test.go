@@ -198,6 +198,10 @@ func TestBuildingCases(t *testing.T) {
 			if !near(in.Building.Options.Density, 2.4e-5) {
 				return "plain density not in kN/m3"
 			}
+			// The columns' self-weight takes the same density, through the parameter.
+			if !near(in.Code.Get("density_rc"), 2.4e-5) || !in.Code.IsOverridden("density_rc") {
+				return "building.density does not set density_rc"
+			}
 			return ""
 		}},
 		{"line along the whole line", "  line_loads: [{line: \"1\", gk: 8}]\n", func(in *model.Input) string {
