@@ -64,7 +64,7 @@ func Reaction(id, title string, f, xbar, l trace.Q, atStart bool) trace.Step {
 
 // PiecesTotal returns the total of linearly varying pieces, Σ (x1 − x0)·(w0 + w1)/2 (statics):
 // with unit pieces the area that drains to a beam, with line loads their resultant.
-func PiecesTotal(id, title, clause, symbol, unit string, ps []frame.Piece) trace.Step {
+func PiecesTotal(id, title, clause, symbol, unit, wUnit string, ps []frame.Piece) trace.Step {
 	var terms []string
 	var args []trace.Arg
 	v := 0.0
@@ -72,7 +72,7 @@ func PiecesTotal(id, title, clause, symbol, unit string, ps []frame.Piece) trace
 		n := itoa(k + 1)
 		terms = append(terms, "(x1_"+n+" - x0_"+n+") * (w0_"+n+" + w1_"+n+") / 2")
 		args = append(args, trace.A("x0_"+n, trace.Const(p.X0, "x_0,"+n, "mm")), trace.A("x1_"+n, trace.Const(p.X1, "x_1,"+n, "mm")),
-			trace.A("w0_"+n, trace.Const(p.W0, "w_0,"+n, "")), trace.A("w1_"+n, trace.Const(p.W1, "w_1,"+n, "")))
+			trace.A("w0_"+n, trace.Const(p.W0, "w_0,"+n, wUnit)), trace.A("w1_"+n, trace.Const(p.W1, "w_1,"+n, wUnit)))
 		v += (p.X1 - p.X0) * (p.W0 + p.W1) / 2
 	}
 	expr := strings.Join(terms, " + ")
@@ -147,12 +147,12 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 			which = "start"
 		}
 		_, xb := resultant(ld.G, bm.L)
-		aSlab := l.Add(PiecesTotal(pre+name+"/A_slab", "Slab area that drains to beam "+name, "common practice (tributary areas)", "A_slab,"+name, "mm2", ld.Slab))
+		aSlab := l.Add(PiecesTotal(pre+name+"/A_slab", "Slab area that drains to beam "+name, "common practice (tributary areas)", "A_slab,"+name, "mm2", "mm", ld.Slab))
 		gBeam := l.Add(BeamSelfWeight(pre+name+"/G_beam", name, rho, bm.Size.B, bm.Size.H, L))
 		parts := []trace.Arg{trace.A("g_k", gkQ), trace.A("A_slab", aSlab), trace.A("G_beam", gBeam)}
 		expr := "g_k * A_slab + G_beam"
 		if len(ld.LineG) > 0 {
-			gl := l.Add(PiecesTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "input", "G_line,"+name, "N", ld.LineG))
+			gl := l.Add(PiecesTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "input", "G_line,"+name, "N", "N/mm", ld.LineG))
 			parts, expr = append(parts, trace.A("G_line", gl)), expr+" + G_line"
 		}
 		fv, _ := trace.Eval(expr, parts)
@@ -175,7 +175,7 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 				parts, terms = append(parts, trace.A("q_k", qkQ), trace.A("A_slab", aSlab)), append(terms, "q_k * A_slab")
 			}
 			if len(ld.LineQ[cat]) > 0 {
-				ql := l.Add(PiecesTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "input", "Q_line,"+cat+","+name, "N", ld.LineQ[cat]))
+				ql := l.Add(PiecesTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "input", "Q_line,"+cat+","+name, "N", "N/mm", ld.LineQ[cat]))
 				parts, terms = append(parts, trace.A("Q_line", ql)), append(terms, "Q_line")
 			}
 			expr := strings.Join(terms, " + ")
