@@ -199,7 +199,7 @@ func TestArchiveRefusesExisting(t *testing.T) {
 	os.MkdirAll(dir, 0o755)
 	os.WriteFile(filepath.Join(dir, "manifest.json"), []byte("earlier"), 0o644)
 	code, _, stderr := runCLI("archive", demoInput, "-o", dir, "--date", "2026-12-01")
-	if code != 2 || !strings.Contains(stderr, "exists") {
+	if code != 2 || !strings.Contains(stderr, "earlier output") {
 		t.Errorf("exit %d, want 2: %s", code, stderr)
 	}
 	if es, _ := os.ReadDir(dir); len(es) != 1 {

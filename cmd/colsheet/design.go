@@ -254,10 +254,11 @@ func publish(dir string, files map[string][]byte, replace bool) error {
 		return err
 	case exists && !old.IsDir():
 		return fmt.Errorf("%s exists and is not a folder; nothing written", dir)
-	case exists && !replace && !emptyDir(dir):
-		return fmt.Errorf("%s exists; nothing written (give --replace to replace an earlier output)", dir)
 	case exists && !emptyDir(dir) && !ownOutput(dir):
-		return fmt.Errorf("%s is not an earlier colsheet output (no results.json or manifest.json); nothing written", dir)
+		// A folder of other files (the input beside it, say): add ours, overwriting nothing.
+		return beside(dir, files)
+	case exists && !replace && !emptyDir(dir):
+		return fmt.Errorf("%s holds an earlier output; nothing written (give --replace to replace it)", dir)
 	}
 	parent := filepath.Dir(dir)
 	if err := os.MkdirAll(parent, 0o755); err != nil {
@@ -299,6 +300,52 @@ func publish(dir string, files map[string][]byte, replace bool) error {
 		return err
 	}
 	return os.RemoveAll(aside)
+}
+
+// beside writes the output files into dir, a folder of other files, each to a temporary file
+// renamed into place; it refuses, writing nothing, when any of the output's entries is there already.
+func beside(dir string, files map[string][]byte) error {
+	tops := map[string]bool{}
+	for name := range files {
+		top, _, _ := strings.Cut(name, "/")
+		tops[top] = true
+	}
+	for top := range tops {
+		if _, err := os.Lstat(filepath.Join(dir, top)); err == nil {
+			return fmt.Errorf("%s already holds %s (but no earlier results.json); nothing written", dir, top)
+		}
+	}
+	names := make([]string, 0, len(files))
+	for name := range files {
+		names = append(names, name)
+	}
+	sort.Strings(names)
+	for _, name := range names {
+		path := filepath.Join(dir, filepath.FromSlash(name))
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			return err
+		}
+		tmp, err := os.CreateTemp(filepath.Dir(path), ".colsheet-*")
+		if err != nil {
+			return err
+		}
+		_, werr := tmp.Write(files[name])
+		cerr := tmp.Close()
+		if werr == nil {
+			werr = cerr
+		}
+		if werr == nil {
+			werr = os.Chmod(tmp.Name(), 0o644)
+		}
+		if werr == nil {
+			werr = os.Rename(tmp.Name(), path)
+		}
+		if werr != nil {
+			os.Remove(tmp.Name())
+			return werr
+		}
+	}
+	return nil
 }
 
 // writeTree writes every file below dir, which must exist.

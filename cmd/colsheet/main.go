@@ -32,10 +32,11 @@ usage:
 
 design writes DIR/results.json, DIR/summary.csv, DIR/schedule.csv, the calc
 document DIR/doc/calc.{md,tex,html} (calc.pdf with --pdf, which needs pdflatex)
-and the calc sheets under DIR/md, DIR/tex and DIR/html. DIR must not exist
-yet; --replace replaces an earlier output as a whole (never half). Exit
-status: 0 every design passes, 1 some design fails (everything is still
-written), 2 bad input or usage, 3 the PDF could not be made.
+and the calc sheets under DIR/md, DIR/tex and DIR/html. An earlier output in
+DIR is replaced only with --replace, as a whole (never half); other files in
+DIR are never overwritten. Exit status: 0 every design passes, 1 some design
+fails (everything is still written), 2 bad input or usage, 3 the PDF could
+not be made.
 
 archive writes the same files plus BUNDLE/input/ (the input file) and
 BUNDLE/manifest.json (size and SHA-256 of every file). recheck verifies a

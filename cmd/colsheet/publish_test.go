@@ -104,20 +104,38 @@ func TestOutputFolderSafety(t *testing.T) {
 		t.Error("--replace kept a file of the earlier output")
 	}
 
-	// A folder that is not an earlier output is refused even with --replace.
-	foreign := filepath.Join(base, "notes")
+	// A folder of other files (the input beside it) takes the output beside them, overwriting
+	// nothing, and is refused when one of the output's entries is there already.
+	foreign := filepath.Join(base, "case")
 	if err := os.MkdirAll(foreign, 0o755); err != nil {
 		t.Fatal(err)
 	}
-	if err := os.WriteFile(filepath.Join(foreign, "todo.txt"), []byte("mine"), 0o644); err != nil {
+	in, _ := os.ReadFile("../../testdata/columns.yaml")
+	if err := os.WriteFile(filepath.Join(foreign, "in.yaml"), in, 0o644); err != nil {
 		t.Fatal(err)
 	}
-	code, _, stderr = runCLI("design", "../../testdata/columns.yaml", "-o", foreign, "--replace")
-	if code != 2 || !strings.Contains(stderr, "not an earlier colsheet output") {
-		t.Errorf("foreign folder: exit %d, %q", code, stderr)
+	if code, _, stderr := runCLI("design", filepath.Join(foreign, "in.yaml"), "-o", foreign); code != 0 {
+		t.Errorf("folder holding the input: exit %d, %q", code, stderr)
 	}
-	if b, err := os.ReadFile(filepath.Join(foreign, "todo.txt")); err != nil || string(b) != "mine" {
-		t.Error("a foreign folder was touched")
+	if b, err := os.ReadFile(filepath.Join(foreign, "in.yaml")); err != nil || !bytes.Equal(b, in) {
+		t.Error("the input beside the output was touched")
+	}
+	if st, err := os.Stat(filepath.Join(foreign, "results.json")); err != nil || st.Size() == 0 {
+		t.Error("no results.json beside the input")
+	}
+	other := filepath.Join(base, "other")
+	if err := os.MkdirAll(filepath.Join(other, "md"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(other, "md", "notes.md"), []byte("mine"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, stderr = runCLI("design", "../../testdata/columns.yaml", "-o", other, "--replace")
+	if code != 2 || !strings.Contains(stderr, "already holds md") {
+		t.Errorf("folder with an md/ of its own: exit %d, %q", code, stderr)
+	}
+	if es, _ := os.ReadDir(other); len(es) != 1 {
+		t.Errorf("files written into a refused folder: %d entries", len(es))
 	}
 }
 
