@@ -153,6 +153,7 @@ func Verify(dir string) (*Report, error) {
 		r.fileProblem(ResultsName, fmt.Sprintf("input_sha256 %s differs from the manifest's input.sha256 %s", res.InputSHA256, m.Input.SHA256))
 	}
 	r.checkSteps(res)
+	r.checkContract(res)
 	return r, nil
 }
 
@@ -317,4 +318,35 @@ func (r *Report) stepProblem(d resultsCase, s trace.Step, problem string, number
 func near(a, b float64) bool {
 	d := math.Abs(a - b)
 	return d <= Tolerance*math.Max(math.Abs(a), math.Abs(b)) || d <= 1e-300
+}
+
+// checkContract checks that every contract value of a design (NEd, MEd and MRd about each axis,
+// As,prov, the utilisation) is the value of one of its traced steps, so that a number changed in
+// results.json outside the trace is caught too.
+func (r *Report) checkContract(res *results) {
+	for _, d := range res.Designs {
+		for _, c := range []struct {
+			key   string
+			v     float64
+			scale float64 // to engine units
+		}{
+			{"NEd_kN", d.NEd, 1e3},
+			{"axes.y.MEd_kNm", d.Axes.Y.MEd, 1e6}, {"axes.y.MRd_kNm", d.Axes.Y.MRd, 1e6},
+			{"axes.z.MEd_kNm", d.Axes.Z.MEd, 1e6}, {"axes.z.MRd_kNm", d.Axes.Z.MRd, 1e6},
+			{"As_prov_mm2", d.AsProv, 1}, {"utilization", d.Utilization, 1},
+		} {
+			want := c.v * c.scale
+			found := false
+			for _, s := range d.Trace {
+				if near(s.Value, want) {
+					found = true
+					break
+				}
+			}
+			if !found {
+				r.StepProblems = append(r.StepProblems, StepProblem{Column: d.Column, Lift: d.Lift, ID: d.Column + "/" + d.Lift + "/" + c.key,
+					Title: "contract value " + c.key, Problem: "no traced step records this value"})
+			}
+		}
+	}
 }

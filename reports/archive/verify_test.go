@@ -117,14 +117,20 @@ func TestVerify(t *testing.T) {
 		{name: "input tampered, caught in the lift below", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) { step(d, 0, 0)["value"] = 950000.0 })
 			rehash(t, dir)
-		}, steps: []string{"K1/L2/chk/N", "K1/L1/act/N_above"}},
+		}, steps: []string{"K1/L2/chk/N", "K1/L1/act/N_above", "K1/L2/NEd_kN"}},
 		{name: "verdict flipped", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) {
 				s := step(d, 2, 4)
 				s["value"], s["expr"], s["verdict"] = 1.5, "1.5", "pass"
 			})
 			rehash(t, dir)
-		}, steps: []string{"K3/L1/chk/N"}, text: []string{"verdict pass with a ratio above 1"}},
+		}, steps: []string{"K3/L1/chk/N", "K3/L1/utilization"}, text: []string{"verdict pass with a ratio above 1"}},
+		{name: "contract value tampered, manifest rehashed", tamper: func(t *testing.T, dir string) {
+			editResults(t, dir, func(d []any) {
+				d[0].(map[string]any)["axes"].(map[string]any)["y"].(map[string]any)["MRd_kNm"] = 99.0
+			})
+			rehash(t, dir)
+		}, steps: []string{"K1/L2/axes.y.MRd_kNm"}, text: []string{"contract value axes.y.MRd_kNm"}},
 		{name: "dangling source", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) {
 				step(d, 1, 5)["args"].([]any)[0].(map[string]any)["from"] = "/K1/L9/act/NEd"
@@ -191,8 +197,8 @@ func TestVerify(t *testing.T) {
 			if r.OK() && !strings.Contains(text.String(), "OK: every file") || !r.OK() && !strings.Contains(text.String(), "NOT OK") {
 				t.Errorf("report does not end with the verdict:\n%s", text.String())
 			}
-			if tc.name == "fresh" && (r.Files != 4 || r.Steps != 16 || r.References != 13) {
-				t.Errorf("checked %d files, %d steps, %d references; want 4, 16, 13", r.Files, r.Steps, r.References)
+			if tc.name == "fresh" && (r.Files != 4 || r.Steps != 31 || r.References != 13) {
+				t.Errorf("checked %d files, %d steps, %d references; want 4, 31, 13", r.Files, r.Steps, r.References)
 			}
 		})
 	}
