@@ -69,12 +69,18 @@ func (c *common) noArrangement() Design {
 		axes[k].L0, axes[k].Lambda, axes[k].M01, axes[k].M02 = a.l0.V, a.lambda.V, a.m01.V, a.m02.V
 		axes[k].Ei, axes[k].M0Ed, axes[k].PhiEf = a.ei.V, a.m02i.V, a.phiEf.V
 	}
-	d.Utilization = math.Max(c.asMin.V/c.asMax.V, 1)
+	// The failure is recorded as a check step, so that the utilisation is a traced value.
+	l := &trace.Log{Steps: c.steps, Group: "Reinforcement limits"}
 	if c.asMin.V > c.asMax.V {
+		d.Utilization = l.Add(trace.Check("lim/As_range", "Minimum steel within the maximum", "EN 1992-1-1:2004 9.5.2(2), (3)", "A_s,min ≤ A_s,max",
+			c.asMin.V/c.asMax.V, "As_min / As_max", trace.A("As_min", c.asMin), trace.A("As_max", c.asMax))).V
 		d.Reasons = append(d.Reasons, fmt.Sprintf("As,min = %.0f mm² exceeds As,max = %.0f mm²: the section is too small for the axial force.", c.asMin.V, c.asMax.V))
+	} else {
+		d.Utilization = l.Add(trace.Check("bars/none", "A symmetric bar pattern of the listed diameters that fits the section", "EN 1992-1-1:2004 8.2(2); 9.5.2(2), (3)",
+			"a pattern fits", 2, "2").Caution("No pattern fits: the value 2 only marks the failure.")).V
 	}
 	d.Reasons = append(d.Reasons, "No symmetric pattern of the listed bar diameters between As,min and As,max fits the section with the clear spacing of 8.2(2); enlarge the section or widen the list of diameters.")
-	d.Steps = c.steps
+	d.Steps = l.Steps
 	return d
 }
 

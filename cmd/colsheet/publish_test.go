@@ -189,3 +189,26 @@ building:
 		t.Error("compare lists the unchanged L1 floor load")
 	}
 }
+
+// A fresh bundle of failing designs (no pattern between As,min and As,max, NEd above NRd,max,
+// a slender column short of resistance, a nearly unloaded column in bending) rechecks clean:
+// every contract value, the utilisation of a failure included, is a traced value.
+func TestRecheckOfFailingDesigns(t *testing.T) {
+	const failing = `project: {title: Edge cases, job: E-1, revision: A, designer: A. Berg, checker: C. Dahl, date: 2026-01-05}
+materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}
+columns:
+  - {id: RANGE, b: 150 mm, h: 150 mm, cover: 35 mm, storeys: [{name: L1, l0: 3 m, NEd: 10000 kN}]}
+  - {id: TINY, b: 200 mm, h: 200 mm, cover: 30 mm, storeys: [{name: L1, l0: 3 m, NEd: 4000 kN}]}
+  - {id: OVER, b: 250 mm, h: 250 mm, cover: 30 mm, bars: {count: 4, dia: 12 mm}, storeys: [{name: L1, l0: 3 m, NEd: 2500 kN}]}
+  - {id: SLEND, b: 250 mm, h: 250 mm, cover: 30 mm, storeys: [{name: L1, l0: 9 m, NEd: 300 kN, M: {y: {top: 30 kNm, bottom: 30 kNm}}}]}
+  - {id: TENS, b: 300 mm, h: 300 mm, cover: 30 mm, storeys: [{name: L1, l0: 3 m, NEd: 10 kN, M: {y: {top: 120 kNm, bottom: -60 kNm}, z: {top: 40 kNm, bottom: 40 kNm}}}]}
+`
+	dir := filepath.Join(t.TempDir(), "pkg")
+	if code, _, stderr := runCLI("archive", writeFile(t, "failing.yaml", failing), "-o", dir); code != 1 {
+		t.Fatalf("archive of failing designs: exit %d, want 1: %s", code, stderr)
+	}
+	code, out, stderr := runCLI("recheck", dir)
+	if code != 0 {
+		t.Errorf("recheck: exit %d\n%s%s", code, out, stderr)
+	}
+}
