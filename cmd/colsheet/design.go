@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -131,7 +132,11 @@ func deliver(o options, j *job, seal func(files map[string][]byte) error, stdout
 		return 2
 	}
 	code := j.report(o.out, stdout, stderr)
-	if pdfErr != nil {
+	switch {
+	case errors.Is(pdfErr, errNoTeX):
+		// Not installed: the LaTeX is written and the run stands; the message says how to get the PDF.
+		fmt.Fprintf(stderr, "colsheet: no PDF: %v\n", pdfErr)
+	case pdfErr != nil:
 		fmt.Fprintf(stderr, "colsheet: no PDF: %v\n", pdfErr)
 		return 3
 	}

@@ -9,7 +9,7 @@
 //	colsheet compare OLD NEW [-o FILE.md]
 //	colsheet version
 //
-// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage, 3 no PDF.
+// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage, 3 pdflatex failed.
 package main
 
 import (
@@ -35,8 +35,8 @@ document DIR/doc/calc.{md,tex,html} (calc.pdf with --pdf, which needs pdflatex)
 and the calc sheets under DIR/md, DIR/tex and DIR/html. An earlier output in
 DIR is replaced only with --replace, as a whole (never half); other files in
 DIR are never overwritten. Exit status: 0 every design passes, 1 some design
-fails (everything is still written), 2 bad input or usage, 3 the PDF could
-not be made.
+fails (everything is still written), 2 bad input or usage, 3 pdflatex failed
+(without pdflatex, --pdf only says so).
 
 archive writes the same files plus BUNDLE/input/ (the input file) and
 BUNDLE/manifest.json (size and SHA-256 of every file). recheck verifies a
