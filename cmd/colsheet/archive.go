@@ -127,23 +127,7 @@ func writeNewFile(name string, data []byte) error {
 	} else if !os.IsNotExist(err) {
 		return err
 	}
-	dir := filepath.Dir(name)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(name)+".new-")
-	if err != nil {
-		return err
-	}
-	_, err = tmp.Write(data)
-	if e := tmp.Close(); err == nil {
-		err = e
-	}
-	if err == nil {
-		err = os.Chmod(tmp.Name(), 0o644)
-	}
-	if err == nil {
-		err = os.Rename(tmp.Name(), name)
-	}
-	if err != nil {
-		os.Remove(tmp.Name())
+	if err := writeAtomic(name, data); err != nil {
 		return fmt.Errorf("%s: %v", name, err)
 	}
 	return nil

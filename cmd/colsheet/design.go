@@ -320,40 +320,10 @@ func beside(dir string, files map[string][]byte) error {
 			return fmt.Errorf("%s already holds %s (but no earlier results.json); nothing written", dir, top)
 		}
 	}
-	names := make([]string, 0, len(files))
-	for name := range files {
-		names = append(names, name)
-	}
-	sort.Strings(names)
-	for _, name := range names {
-		path := filepath.Join(dir, filepath.FromSlash(name))
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			return err
-		}
-		tmp, err := os.CreateTemp(filepath.Dir(path), ".colsheet-*")
-		if err != nil {
-			return err
-		}
-		_, werr := tmp.Write(files[name])
-		cerr := tmp.Close()
-		if werr == nil {
-			werr = cerr
-		}
-		if werr == nil {
-			werr = os.Chmod(tmp.Name(), 0o644)
-		}
-		if werr == nil {
-			werr = os.Rename(tmp.Name(), path)
-		}
-		if werr != nil {
-			os.Remove(tmp.Name())
-			return werr
-		}
-	}
-	return nil
+	return writeTree(dir, files)
 }
 
-// writeTree writes every file below dir, which must exist.
+// writeTree writes every file below dir, which must exist, each through writeAtomic.
 func writeTree(dir string, files map[string][]byte) error {
 	names := make([]string, 0, len(files))
 	for name := range files {
@@ -365,11 +335,34 @@ func writeTree(dir string, files map[string][]byte) error {
 		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
 			return err
 		}
-		if err := os.WriteFile(path, files[name], 0o644); err != nil {
+		if err := writeAtomic(path, files[name]); err != nil {
 			return err
 		}
 	}
 	return nil
+}
+
+// writeAtomic writes data as the file name through a temporary file beside it renamed into
+// place, so that name is never seen half-written.
+func writeAtomic(name string, data []byte) error {
+	tmp, err := os.CreateTemp(filepath.Dir(name), "."+filepath.Base(name)+".new-")
+	if err != nil {
+		return err
+	}
+	_, err = tmp.Write(data)
+	if e := tmp.Close(); err == nil {
+		err = e
+	}
+	if err == nil {
+		err = os.Chmod(tmp.Name(), 0o644)
+	}
+	if err == nil {
+		err = os.Rename(tmp.Name(), name)
+	}
+	if err != nil {
+		os.Remove(tmp.Name())
+	}
+	return err
 }
 
 // emptyDir reports whether dir holds no entries.
