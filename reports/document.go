@@ -12,22 +12,16 @@ import (
 // docView is the calc document: the title sheet, contents, design basis, the input as read,
 // one section per design, the schedule and the list of failures and warnings.
 type docView struct {
-	sheetView                  // the title block, cautions, basis, schedule and sizes, as on the index
-	Status        string       // PASS or FAIL for the whole package
-	Designer      string       // marked up
-	Summary       string       // sentence on the count of designs that pass and fail
-	Contents      []contentRow // one per design
-	Materials     []kv
-	Tables        []tableView // the input as read, with units
-	Listing       []string    // the input file's lines, marked up
-	Fence         string      // Markdown: a code fence longer than any run of '~' in the listing
-	Sections      []sheetView // one per design
-	Failures      []noteRow   // failing designs and their reasons
-	Warnings      []noteRow   // designs with cautions
-	ToolVersion   string
-	InputSHA      string
-	InputFile     string
-	DesignsTarget string // the anchor of the first design section, "" when none
+	sheetView              // the title block, cautions, basis, schedule, sizes and the count of failures, as on the index
+	Status    string       // PASS or FAIL for the whole package
+	Contents  []contentRow // one per design
+	Materials []kv
+	Tables    []tableView // the input as read, with units
+	Listing   []string    // the input file's lines, marked up
+	Fence     string      // Markdown: a code fence longer than any run of '~' in the listing
+	Sections  []sheetView // one per design
+	Failing   []noteRow   // failing designs and their reasons
+	Warnings  []noteRow   // designs with cautions
 }
 
 // contentRow is one design's line in the contents; Column and Storey are linked to its section.
@@ -57,17 +51,12 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 	idx.Subject = m.text("Calculation package")
 	idx.Sheet, idx.SheetNo = m.text("calc document"), m.text("—")
 	idx.Sec1, idx.Sec2 = "section", "subsection*"
-	v := docView{sheetView: idx, Summary: idx.Failures, InputFile: dash(m, in.File), InputSHA: dash(m, in.SHA256),
-		ToolVersion: idx.Basis.Tool}
-	v.Status, _ = status(design.StatusPass)
-	if r.Failed() > 0 {
+	v := docView{sheetView: idx, Status: "PASS"}
+	if idx.AnyFail {
 		v.Status = "FAIL"
 	}
 	for i, d := range r.Designs {
 		target := "#" + anchorName("d-", b.names[i])
-		if i == 0 {
-			v.DesignsTarget = target
-		}
 		st, failed := status(d.Status)
 		v.Contents = append(v.Contents, contentRow{Target: target, Column: m.link(m.text(d.Column), target), Storey: m.link(m.text(d.Storey), target),
 			Section: m.text(fmtNum(d.B).plain() + " × " + fmtNum(d.H).plain()), Utilization: m.num(fmtNum(d.Utilization)),
@@ -77,7 +66,7 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 		s.Anchor = m.anchor(anchorName("d-", b.names[i]))
 		v.Sections = append(v.Sections, s)
 		if failed {
-			v.Failures = append(v.Failures, noteRow{Target: target, Subject: m.link(m.text(subject(d)), target), Items: texts(m, d.Reasons)})
+			v.Failing = append(v.Failing, noteRow{Target: target, Subject: m.link(m.text(subject(d)), target), Items: texts(m, d.Reasons)})
 		}
 		if len(d.Cautions) > 0 {
 			v.Warnings = append(v.Warnings, noteRow{Target: target, Subject: m.link(m.text(subject(d)), target), Items: texts(m, d.Cautions)})
@@ -236,4 +225,32 @@ func DocumentMarkdown(r *design.Result) (Sheet, error) {
 func DocumentLaTeX(r *design.Result) (Sheet, error) {
 	b, err := docParts(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/doc.tex.tmpl", place{onePage: true})
 	return Sheet{Name: "calc.tex", Data: b}, err
+}
+
+// Documents returns the calc document in each format asked for (md, tex, html), keyed by the
+// format; the Markdown is rendered once and serves the HTML too.
+func Documents(r *design.Result, formats map[string]bool) (map[string]Sheet, error) {
+	out := map[string]Sheet{}
+	if formats["md"] || formats["html"] {
+		doc, err := DocumentMarkdown(r)
+		if err != nil {
+			return nil, fmt.Errorf("md: %v", err)
+		}
+		if formats["md"] {
+			out["md"] = doc
+		}
+		if formats["html"] {
+			if out["html"], err = documentHTML(r, doc); err != nil {
+				return nil, fmt.Errorf("html: %v", err)
+			}
+		}
+	}
+	if formats["tex"] {
+		doc, err := DocumentLaTeX(r)
+		if err != nil {
+			return nil, fmt.Errorf("tex: %v", err)
+		}
+		out["tex"] = doc
+	}
+	return out, nil
 }

@@ -99,10 +99,7 @@ func HTML(r *design.Result) ([]Sheet, error) {
 		return nil, err
 	}
 	in := input(r)
-	tool := strings.TrimSpace(r.ToolName + " " + r.ToolVersion)
-	if r.ToolName == "" {
-		tool = strings.TrimSpace("colsheet " + r.ToolVersion)
-	}
+	tool := program(r)
 	project := oneLine(in.Project.Title)
 	title := func(i int) string {
 		s := "Index of calculation sheets"
@@ -165,6 +162,11 @@ func DocumentHTML(r *design.Result) (Sheet, error) {
 	if err != nil {
 		return Sheet{}, err
 	}
+	return documentHTML(r, doc)
+}
+
+// documentHTML renders the Markdown calc document doc of r as the HTML one.
+func documentHTML(r *design.Result, doc Sheet) (Sheet, error) {
 	t, err := template.ParseFS(templates.FS, "html/page.html.tmpl")
 	if err != nil {
 		return Sheet{}, err
@@ -173,10 +175,7 @@ func DocumentHTML(r *design.Result) (Sheet, error) {
 	if err != nil {
 		return Sheet{}, err
 	}
-	tool := strings.TrimSpace(r.ToolName + " " + r.ToolVersion)
-	if r.ToolName == "" {
-		tool = strings.TrimSpace("colsheet " + r.ToolVersion)
-	}
+	tool := program(r)
 	title := oneLine(strings.TrimSpace(input(r).Project.Title + " calculation package"))
 	page, err := execPage(t, htmlPage{Title: title, Tool: tool,
 		Sheets: []htmlSheet{{ID: "calc", Failed: r.Failed() > 0, Body: body}}})

@@ -178,12 +178,8 @@ func JSON(r *design.Result) ([]byte, error) {
 		return nil, err
 	}
 	in := input(r)
-	name := r.ToolName
-	if name == "" {
-		name = "colsheet"
-	}
 	out := jsonResult{
-		Tool:        jsonTool{Name: name, Version: r.ToolVersion},
+		Tool:        jsonTool{Name: toolName(r), Version: r.ToolVersion},
 		InputSHA256: in.SHA256,
 		Code:        jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()},
 		Designs:     []jsonDesign{},

@@ -194,15 +194,22 @@ func project(m markup, in *model.Input) projectView {
 		Designer: dash(m, p.Designer), Checker: dash(m, p.Checker), Date: dash(m, p.Date)}
 }
 
+// toolName is the program's name as the result gives it, "colsheet" when it gives none.
+func toolName(r *design.Result) string {
+	if r.ToolName == "" {
+		return "colsheet"
+	}
+	return r.ToolName
+}
+
+// program is the program's name and version, as the sheets show it.
+func program(r *design.Result) string { return strings.TrimSpace(toolName(r) + " " + r.ToolVersion) }
+
 func basis(m markup, r *design.Result) basisView {
 	in := input(r)
 	b := basisView{Standard: m.text(code.Standard), Annex: dash(m, in.Code.Annex),
 		Input: dash(m, in.File), SHA: dash(m, in.SHA256)}
-	tool := r.ToolName
-	if tool == "" {
-		tool = "colsheet"
-	}
-	b.Tool = m.text(strings.TrimSpace(tool + " " + r.ToolVersion))
+	b.Tool = m.text(program(r))
 	for _, o := range in.Code.Overrides() {
 		b.Overrides = append(b.Overrides, overrideView{Name: m.text(o.Name), Symbol: m.sym(o.Symbol),
 			Value: m.num(fmtNum(o.Value)), Default: m.num(fmtNum(o.Default)), Clause: m.text(o.Clause), What: m.rich(o.What)})

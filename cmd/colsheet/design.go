@@ -231,17 +231,11 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 		}
 	}
 	// The calc document: every design in one file per format.
-	for _, f := range []struct {
-		name string
-		make func(*design.Result) (reports.Sheet, error)
-	}{{"md", reports.DocumentMarkdown}, {"tex", reports.DocumentLaTeX}, {"html", reports.DocumentHTML}} {
-		if !formats[f.name] {
-			continue
-		}
-		doc, err := f.make(res)
-		if err != nil {
-			return nil, fmt.Errorf("calc document, %s: %v", f.name, err)
-		}
+	docs, err := reports.Documents(res, formats)
+	if err != nil {
+		return nil, fmt.Errorf("calc document, %v", err)
+	}
+	for _, doc := range docs {
 		files["doc/"+doc.Name] = doc.Data
 	}
 	return files, nil
