@@ -229,22 +229,16 @@ func (r *Report) checkFiles(dir string, m Manifest) {
 	}
 }
 
-// stepAt is a step of results.json with the index of its design.
-type stepAt struct {
-	design int
-	step   trace.Step
-}
-
 // checkSteps re-evaluates every step of res and checks every argument against the step it names as its source.
 func (r *Report) checkSteps(res *results) {
-	ids := map[string]stepAt{}
-	for di, d := range res.Designs {
+	ids := map[string]trace.Step{}
+	for _, d := range res.Designs {
 		for _, s := range d.Trace {
 			if _, dup := ids[s.ID]; dup {
 				r.stepProblem(d, s, "the step ID is used twice", false, 0, 0)
 				continue
 			}
-			ids[s.ID] = stepAt{di, s}
+			ids[s.ID] = s
 		}
 	}
 	for _, d := range res.Designs {
@@ -265,8 +259,8 @@ func (r *Report) checkSteps(res *results) {
 					continue
 				}
 				r.References++
-				if !near(a.Value, src.step.Value) {
-					r.stepProblem(d, s, fmt.Sprintf("argument %s does not carry the value of its source step %s", a.Name, src.step.ID), true, a.Value, src.step.Value)
+				if !near(a.Value, src.Value) {
+					r.stepProblem(d, s, fmt.Sprintf("argument %s does not carry the value of its source step %s", a.Name, src.ID), true, a.Value, src.Value)
 					r.StepProblems[len(r.StepProblems)-1].Source = true
 				}
 			}
