@@ -281,8 +281,8 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		}
 		if !ok {
 			// A condition of the method not met, or a case neither route covers: the rating is not shown.
-			check(trace.Check("fire/method", "Fire resistance by Method A: its conditions hold and the table or Eq. (5.7) covers the case", "EN 1992-1-2:2004 5.3.2",
-				"Method A applies", 2, "2").Caution("Method A cannot show the rating for this column (see the cautions above): verify the fire resistance another way."))
+			check(unmet("fire/method", "Fire resistance by Method A: its conditions hold and the table or Eq. (5.7) covers the case", "EN 1992-1-2:2004 5.3.2",
+				"Method A applies", "Method A cannot show the rating for this column (see the cautions above): verify the fire resistance another way."))
 		}
 		d.Detailing.FireRating, d.Detailing.FireOK = f.Rating, ok
 	} else {
@@ -389,7 +389,7 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 		if s.Verdict == trace.Fail {
 			d.Status = StatusFail
 			if len(s.Args) == 0 {
-				// A condition with no ratio to give (its value only marks the failure).
+				// A condition with no ratio to give (unmet).
 				d.Reasons = append(d.Reasons, fmt.Sprintf("%s: not met (%s)", s.Title, s.Clause))
 			} else {
 				d.Reasons = append(d.Reasons, fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", s.Title, s.Relation, s.Value, s.Clause))
@@ -397,6 +397,12 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 		}
 	}
 	d.Steps = l.Steps
+}
+
+// unmet returns the failed check of a condition that has no ratio to give: its value 2 only
+// marks the failure, and settle words its reason as "not met".
+func unmet(id, title, clause, relation, caution string) trace.Step {
+	return trace.Check(id, title, clause, relation, 2, "2").Caution(caution)
 }
 
 // layersOf groups bar positions into rows along the lever arm of axis k (0: coordinate z, 1: coordinate y).
