@@ -83,11 +83,34 @@ func PiecesTotal(id, title, clause, symbol, unit, wUnit string, ps []frame.Piece
 		Note("Each piece runs from x_0 to x_1 along the beam with the intensity w_0 to w_1 (for the slab: the width that drains to the beam).")
 }
 
-// BeamSelfWeight returns the weight of a beam, ρ·b·h·L, EN 1991-1-1:2002 Annex A, Table A.1.
+// LoadOnBeam returns the load on a beam, F = w·A_slab + F_1 + F_2 + …: the area load w (none when
+// w is nil) over the slab that drains to the beam, plus its other loads (self-weight, line loads),
+// statics.
+func LoadOnBeam(id, title, symbol string, w *trace.Q, area trace.Q, others ...trace.Q) trace.Step {
+	var terms []string
+	var args []trace.Arg
+	v := 0.0
+	if w != nil {
+		terms = append(terms, "w * A_slab")
+		args = append(args, trace.A("w", *w), trace.A("A_slab", area))
+		v = w.V * area.V
+	}
+	for k, q := range others {
+		n := "F_" + itoa(k+1)
+		terms = append(terms, n)
+		args = append(args, trace.A(n, q))
+		v += q.V
+	}
+	expr := strings.Join(terms, " + ")
+	if expr == "" {
+		expr = "0"
+	}
+	return trace.Formula(id, title, "common practice", symbol, "N", v, expr, args...)
+}
+
+// BeamSelfWeight returns the weight of a beam, ρ·b·h·L.
 func BeamSelfWeight(id, name string, rho trace.Q, b, h float64, l trace.Q) trace.Step {
-	bq, hq := trace.Const(b, "b_"+name, "mm"), trace.Const(h, "h_"+name, "mm")
-	return trace.Formula(id, "Self-weight of beam "+name, en1991+"Annex A, Table A.1", "G_beam,"+name, "N",
-		rho.V*b*h*l.V, "rho * b * h * L", trace.A("rho", rho), trace.A("b", bq), trace.A("h", hq), trace.A("L", l))
+	return memberWeight(id, "Self-weight of beam "+name, "G_beam,"+name, rho, trace.Const(b, "b_"+name, "mm"), trace.Const(h, "h_"+name, "mm"), "L", l)
 }
 
 // Sum returns a formula step adding the given quantities, which are named q1, q2, ….
@@ -110,10 +133,16 @@ func Sum(id, title, clause, symbol, unit string, qs []trace.Q) trace.Step {
 	return trace.Formula(id, title, clause, symbol, unit, v, expr, args...)
 }
 
-// ColumnSelfWeight returns the weight of one lift of a column, ρ·b·h·H, EN 1991-1-1:2002 Annex A, Table A.1.
+// ColumnSelfWeight returns the weight of one lift of a column, ρ·b·h·H.
 func ColumnSelfWeight(id string, rho, b, h, height trace.Q) trace.Step {
-	return trace.Formula(id, "Self-weight of the column over the lift", en1991+"Annex A, Table A.1", "G_col", "N",
-		rho.V*b.V*h.V*height.V, "rho * b * h * H", trace.A("rho", rho), trace.A("b", b), trace.A("h", h), trace.A("H", height))
+	return memberWeight(id, "Self-weight of the column over the lift", "G_col", rho, b, h, "H", height)
+}
+
+// memberWeight returns the weight ρ·b·h·l of a member of section b × h and length l (named ln in
+// the expression), EN 1991-1-1:2002 Annex A, Table A.1.
+func memberWeight(id, title, symbol string, rho, b, h trace.Q, ln string, l trace.Q) trace.Step {
+	return trace.Formula(id, title, en1991+"Annex A, Table A.1", symbol, "N",
+		rho.V*b.V*h.V*l.V, "rho * b * h * "+ln, trace.A("rho", rho), trace.A("b", b), trace.A("h", h), trace.A(ln, l))
 }
 
 // levelTakeDown records, for the column at (i, j), the characteristic reactions of the beams
@@ -149,14 +178,12 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 		_, xb := resultant(ld.G, bm.L)
 		aSlab := l.Add(PiecesTotal(pre+name+"/A_slab", "Slab area that drains to beam "+name, "common practice (tributary areas)", "A_slab,"+name, "mm2", "mm", ld.Slab))
 		gBeam := l.Add(BeamSelfWeight(pre+name+"/G_beam", name, rho, bm.Size.B, bm.Size.H, L))
-		parts := []trace.Arg{trace.A("g_k", gkQ), trace.A("A_slab", aSlab), trace.A("G_beam", gBeam)}
-		expr := "g_k * A_slab + G_beam"
+		var others []trace.Q
+		others = append(others, gBeam)
 		if len(ld.LineG) > 0 {
-			gl := l.Add(PiecesTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "input", "G_line,"+name, "N", "N/mm", ld.LineG))
-			parts, expr = append(parts, trace.A("G_line", gl)), expr+" + G_line"
+			others = append(others, l.Add(PiecesTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "input", "G_line,"+name, "N", "N/mm", ld.LineG)))
 		}
-		fv, _ := trace.Eval(expr, parts)
-		F := l.Add(trace.Formula(pre+name+"/F_G", "Permanent load on beam "+name, "common practice", "F_G,"+name, "N", fv, expr, parts...))
+		F := l.Add(LoadOnBeam(pre+name+"/F_G", "Permanent load on beam "+name, "F_G,"+name, &gkQ, aSlab, others...))
 		X := trace.Const(xb, "x_R,G,"+name, "mm")
 		s := Reaction(pre+name+"/G", "Permanent load from beam "+name+" at level "+lv.Name+" ("+which+")", F, X, L, e.start)
 		s.Symbol = "R_G," + name
@@ -169,21 +196,15 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 			if f == 0 {
 				continue
 			}
-			var parts []trace.Arg
-			var terms []string
+			var w *trace.Q // the floor's imposed area load, when of this category
 			if cat == lv.Floor.Category && lv.Floor.Qk > 0 {
-				parts, terms = append(parts, trace.A("q_k", qkQ), trace.A("A_slab", aSlab)), append(terms, "q_k * A_slab")
+				w = &qkQ
 			}
+			var others []trace.Q
 			if len(ld.LineQ[cat]) > 0 {
-				ql := l.Add(PiecesTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "input", "Q_line,"+cat+","+name, "N", "N/mm", ld.LineQ[cat]))
-				parts, terms = append(parts, trace.A("Q_line", ql)), append(terms, "Q_line")
+				others = append(others, l.Add(PiecesTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "input", "Q_line,"+cat+","+name, "N", "N/mm", ld.LineQ[cat])))
 			}
-			expr := strings.Join(terms, " + ")
-			fv, err := trace.Eval(expr, parts)
-			if err != nil {
-				fv, expr, parts = f, "F", []trace.Arg{trace.A("F", trace.Const(f, "F", "N"))}
-			}
-			F := l.Add(trace.Formula(pre+name+"/F_Q"+cat, "Imposed load (category "+cat+") on beam "+name, "common practice", "F_Q"+cat+","+name, "N", fv, expr, parts...))
+			F := l.Add(LoadOnBeam(pre+name+"/F_Q"+cat, "Imposed load (category "+cat+") on beam "+name, "F_Q"+cat+","+name, w, aSlab, others...))
 			X := trace.Const(xb, "x_R,Q"+cat+","+name, "mm")
 			s := Reaction(pre+name+"/Q"+cat, "Imposed load (category "+cat+") from beam "+name+" at level "+lv.Name, F, X, L, e.start)
 			s.Symbol = "R_Q" + cat + "," + name
