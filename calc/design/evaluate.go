@@ -42,7 +42,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 
 	// Reinforcement provided and its limits.
 	l.Group = "Reinforcement provided"
-	src := "chosen: the least steel that passes every check"
+	src := trace.ClauseChosen + "the least steel that passes every check"
 	if given {
 		src = "input"
 	}
@@ -59,8 +59,8 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		as.V/c.asMax.V, "A_s / A_s_max", trace.A("A_s", as), trace.A("A_s_max", c.asMax)))
 	if dv := c.dv; dv != nil && dv.AsAbove > 0 {
 		// The lap above this lift holds its bars and those of the lift above, 9.5.2(3).
-		aa := l.Add(trace.Input("bars/As_above", "Bars of the lift above ("+dv.NameAbove+")", "design of the lift above", "A_s,above", "mm2", dv.AsAbove))
-		acA := l.Add(trace.Input("bars/Ac_above", "Section of the lift above", "design of the lift above", "A_c,above", "mm2", dv.AcAbove))
+		aa := l.Add(trace.Input("bars/As_above", "Bars of the lift above ("+dv.NameAbove+")", trace.ClauseAbove, "A_s,above", "mm2", dv.AsAbove))
+		acA := l.Add(trace.Input("bars/Ac_above", "Section of the lift above", trace.ClauseAbove, "A_c,above", "mm2", dv.AcAbove))
 		lapMax := l.Add(trace.Formula("bars/As_max_lap", "Maximum reinforcement at laps", "EN 1992-1-1:2004 9.5.2(3)", "A_s,max,lap", "mm2",
 			prm.Get("As_max_lap_Ac")*math.Min(c.ac.V, acA.V), "k * min(A_c, A_c_above)", trace.A("k", param(prm, "As_max_lap_Ac", "")), trace.A("A_c", c.ac), trace.A("A_c_above", acA)))
 		check(trace.Check("bars/check_As_lap", "Reinforcement at the lap above the lift", "EN 1992-1-1:2004 9.5.2(3)", "A_s,prov + A_s,above ≤ A_s,max,lap",
@@ -74,7 +74,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 
 	// Links, EN 1992-1-1:2004 9.5.3.
 	l.Group = "Links"
-	linkSrc := "chosen: smallest listed size not below the minimum"
+	linkSrc := trace.ClauseChosen + "smallest listed size not below the minimum"
 	if col.LinkDia > 0 {
 		linkSrc = "input"
 	}

@@ -19,16 +19,28 @@ var (
 	clausePart = regexp.MustCompile(`^(Annex [A-Z]|[A-Z]?[0-9]+(\.[0-9]+)*(\([0-9]+\)(-\([0-9]+\))?)?P?[a-z]?(-\([0-9]+\))?|\([A-Z]?[0-9.]+[a-zN]*\)|Eq\. \([A-Z]?[0-9.]+[a-zN]*\)(-\([0-9.]+[a-zN]*\))?(, \([A-Z]?[0-9.]+[a-zN]*\))?|Table [A-Z]?[0-9.]+[a-zN]*(\([A-Z]\))?|Fig\. [A-Z]?[0-9.]+[a-z]?|note|common practice)$`)
 )
 
+// The clauses of values a calculation found rather than was given.
+const (
+	ClauseChosen = "chosen: "                 // prefix: a choice the design made among candidates
+	ClauseAbove  = "design of the lift above" // a value taken over from another sheet
+)
+
+// Given reports whether s is a value given to the calculation (an input or a table value), not
+// one the calculation chose or took over from another design.
+func Given(s Step) bool {
+	return (s.Kind == KindInput || s.Kind == KindTable) && !strings.HasPrefix(s.Clause, ClauseChosen) && s.Clause != ClauseAbove
+}
+
 // ClauseForm reports whether c is a clause reference in the one form the sheets use.
 func ClauseForm(c string) bool {
 	switch {
-	case c == "input", c == "design of the lift above":
+	case c == "input", c == ClauseAbove:
 		return true
 	case strings.HasPrefix(c, "common practice"):
 		rest := strings.TrimPrefix(c, "common practice")
 		return rest == "" || strings.HasPrefix(rest, " (") && strings.HasSuffix(rest, ")")
-	case strings.HasPrefix(c, "chosen: "):
-		return len(c) > len("chosen: ")
+	case strings.HasPrefix(c, ClauseChosen):
+		return len(c) > len(ClauseChosen)
 	}
 	loc := clauseStd.FindStringIndex(c)
 	if loc == nil {

@@ -119,7 +119,7 @@ func (c *Changes) inputs(o, n *resultsCase) {
 	prefix := n.Column + "/" + n.Lift + "/"
 	olds := map[string]trace.Step{}
 	for _, s := range o.Trace {
-		if isInput(s) {
+		if trace.Given(s) {
 			olds[s.ID] = s
 		}
 	}
@@ -132,7 +132,7 @@ func (c *Changes) inputs(o, n *resultsCase) {
 		return label
 	}
 	for _, s := range n.Trace {
-		if !isInput(s) {
+		if !trace.Given(s) {
 			continue
 		}
 		news[s.ID] = true
@@ -146,21 +146,12 @@ func (c *Changes) inputs(o, n *resultsCase) {
 		}
 	}
 	for _, s := range o.Trace {
-		if isInput(s) && !news[s.ID] {
+		if trace.Given(s) && !news[s.ID] {
 			c.add(n, item(s), quantity(s.Value, s.Unit), none)
 		}
 	}
 }
 
-// isInput reports whether s is a value given to the calculation rather than one it found.
-func isInput(s trace.Step) bool {
-	if s.Kind != trace.KindInput && s.Kind != trace.KindTable {
-		return false
-	}
-	// Choices of the design (the bars, the link diameter) and values taken over from the lift
-	// above are results, reported as such, not inputs.
-	return !strings.HasPrefix(s.Clause, "chosen:") && s.Clause != "design of the lift above"
-}
 
 // results adds a row for every contract value of o and n that differs.
 func (c *Changes) results(o, n *resultsCase) {
