@@ -152,7 +152,6 @@ func (c *Changes) inputs(o, n *resultsCase) {
 	}
 }
 
-
 // results adds a row for every contract value of o and n that differs.
 func (c *Changes) results(o, n *resultsCase) {
 	nums := []struct {
