@@ -75,12 +75,35 @@ const roofNote = "Imposed load on roofs is not applied together with snow or win
 // each variable action leading in turn, and the governing (largest) design value.
 // All actions are taken as unfavourable and share one unit, which the result keeps.
 func Combine(id, rule string, p code.Params, g trace.Q, qs []Variable) ([]trace.Step, trace.Q) {
+	return CombineExpr(id, rule, ExprAll, p, g, qs)
+}
+
+// Expressions of EN 1990:2002 6.4.3.2(3) that CombineExpr may be restricted to.
+const (
+	ExprAll  = ""      // every expression of the rule: (6.10), or (6.10a) and (6.10b)
+	Expr610  = "6.10"  // Eq. (6.10)
+	Expr610a = "6.10a" // Eq. (6.10a) alone
+	Expr610b = "6.10b" // Eq. (6.10b) alone
+	// ExprInf is Eq. (6.10) with the permanent action favourable, γG,inf·Gk (Table A1.2(B)):
+	// the least axial force that goes with the variable actions of a moment arrangement.
+	ExprInf = "inf"
+)
+
+// CombineExpr returns the steps of Combine restricted to the expression expr (ExprAll: all
+// that the rule has), and the governing (largest) design value among them.
+func CombineExpr(id, rule, only string, p code.Params, g trace.Q, qs []Variable) ([]trace.Step, trace.Q) {
 	var steps []trace.Step
 	add := func(s trace.Step) trace.Q { steps = append(steps, s); return s.Q() }
 	var cautions []string
 
 	ab := rule == model.Comb610ab
-	if !ab && rule != model.Comb610 && rule != "" {
+	if only == Expr610a || only == Expr610b {
+		ab = true
+	}
+	if only == Expr610 || only == ExprInf {
+		ab = false
+	}
+	if !ab && rule != model.Comb610 && rule != model.Comb610ab && rule != "" {
 		cautions = append(cautions, "Unknown combination rule "+strconv.Quote(rule)+": Eq. (6.10) is used, which is never less favourable than (6.10a)/(6.10b).")
 	}
 
@@ -122,12 +145,16 @@ func Combine(id, rule string, p code.Params, g trace.Q, qs []Variable) ([]trace.
 		}
 	}
 
-	gammaG := add(ParamStep(id+"/gamma_G", p, "gamma_G", ""))
+	gName := "gamma_G"
+	if only == ExprInf {
+		gName = "gamma_G_inf"
+	}
+	gammaG := add(ParamStep(id+"/"+gName, p, gName, ""))
 	var gammaQ, xi trace.Q
 	if len(acts) > 0 {
 		gammaQ = add(ParamStep(id+"/gamma_Q", p, "gamma_Q", ""))
 	}
-	if ab {
+	if ab && only != Expr610a {
 		xi = add(ParamStep(id+"/xi", p, "xi", ""))
 	}
 	if ab || len(acts) > 1 {
@@ -146,12 +173,12 @@ func Combine(id, rule string, p code.Params, g trace.Q, qs []Variable) ([]trace.
 	build := func(name, eq, label string, withXi bool, lead int) {
 		var e expr
 		e.arg("G_k", g)
-		e.arg("gamma_G", gammaG)
+		e.arg(gName, gammaG)
 		if withXi {
 			e.arg("xi", xi)
 			e.term("xi * gamma_G * G_k", xi.V*gammaG.V*g.V)
 		} else {
-			e.term("gamma_G * G_k", gammaG.V*g.V)
+			e.term(gName+" * G_k", gammaG.V*g.V)
 		}
 		if lead >= 0 {
 			n := strconv.Itoa(lead + 1)
@@ -190,14 +217,29 @@ func Combine(id, rule string, p code.Params, g trace.Q, qs []Variable) ([]trace.
 		cands = append(cands, candidate{label, s})
 	}
 
+	withA, withB := only != Expr610b, only != Expr610a
 	switch {
-	case ab && len(acts) == 0:
-		build(id+"/610a", "Eq. (6.10a)", "Eq. (6.10a)", false, -1)
-		build(id+"/610b", "Eq. (6.10b)", "Eq. (6.10b)", true, -1)
-	case ab:
-		build(id+"/610a", "Eq. (6.10a)", "Eq. (6.10a)", false, -1)
+	case only == ExprInf && len(acts) == 0:
+		build(id+"/inf", "Eq. (6.10)", "Eq. (6.10), permanent action favourable", false, -1)
+	case only == ExprInf:
 		for i, a := range acts {
-			build(id+"/610b_"+a.cat, "Eq. (6.10b)", "Eq. (6.10b), "+catLabel(a.cat)+" leading", true, i)
+			build(id+"/inf_"+a.cat, "Eq. (6.10)", "Eq. (6.10), permanent action favourable, "+catLabel(a.cat)+" leading", false, i)
+		}
+	case ab && len(acts) == 0:
+		if withA {
+			build(id+"/610a", "Eq. (6.10a)", "Eq. (6.10a)", false, -1)
+		}
+		if withB {
+			build(id+"/610b", "Eq. (6.10b)", "Eq. (6.10b)", true, -1)
+		}
+	case ab:
+		if withA {
+			build(id+"/610a", "Eq. (6.10a)", "Eq. (6.10a)", false, -1)
+		}
+		if withB {
+			for i, a := range acts {
+				build(id+"/610b_"+a.cat, "Eq. (6.10b)", "Eq. (6.10b), "+catLabel(a.cat)+" leading", true, i)
+			}
 		}
 	case len(acts) == 0:
 		build(id+"/610", "Eq. (6.10)", "Eq. (6.10)", false, -1)
@@ -229,7 +271,7 @@ func Combine(id, rule string, p code.Params, g trace.Q, qs []Variable) ([]trace.
 	}
 	title := "Design value: the least favourable combination"
 	clause := en1990 + "6.4.3.2(3)"
-	if ab {
+	if ab && withA && withB {
 		clause = en1990 + "6.4.3.2(3), Eq. (6.10a), (6.10b)"
 	}
 	s := trace.Formula(id, title, clause, "E_d", g.Unit, cands[best].step.Value,

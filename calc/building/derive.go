@@ -20,6 +20,8 @@ type Lift struct {
 	MY, MZ model.Ends // first-order end moments about section axes y and z, N·mm (same sign: single curvature)
 	Src    Sources    // the steps that give NEd and the end moments
 	Steps  []trace.Step
+	narr   [2][]trace.Q // the axial force of the moment arrangements about y and z, by load set
+	alphaN map[string]trace.Q // αn applied to NEd, by category
 }
 
 // Sources names the traced quantities that the column design takes from the derivation.
@@ -30,7 +32,13 @@ type Sources struct {
 	RatioQP                    trace.Q    // NEd,qp/NEd, standing for M0Eqp/M0Ed in Eq. (5.19); zero when not derived
 	BotAlt                     [2]trace.Q // bottom moments about y and z of an arrangement that bends the lift in single curvature; zero when none
 	MYTop, MYBot, MZTop, MZBot trace.Q
+	// Min holds, about y and z, the least axial force that goes with the moment arrangement
+	// (permanent actions favourable, γG,inf) and the end moments of that arrangement.
+	Min [2]MinCase
 }
+
+// MinCase is the least axial force of a moment arrangement with its end moments about one axis.
+type MinCase struct{ N, Top, Bot trace.Q }
 
 // Derived is everything derived from the building form.
 type Derived struct {
@@ -100,7 +108,8 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 	n := len(b.Storeys)
 	lifts := make([]Lift, n)
 	var gAbove trace.Q
-	var dAbove [2]trace.Q // cumulative reductions of the moment arrangements, from the lift above
+	var dAbove [2][]arrAbove // cumulative loads the moment arrangements leave off, from the lift above
+	sets := loadSets(in)
 	qAbove := map[string]trace.Q{}
 	for k := n - 1; k >= 0; k-- {
 		st := b.Storeys[k]
@@ -109,6 +118,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 160)}
 		rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
 		gk, qk, area, byBeam := levelTakeDown(l, lv, i, j, rho)
+		alphaA := map[string]trace.Q{}
 		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
 			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).
 				Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
@@ -117,6 +127,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 				aa := l.Add(actions.AlphaA("td/"+st.Name+"/alpha_A_"+c, c, psi0, aq))
 				if aa.V < 1 {
 					qk[c] = l.Add(actions.Reduced("td/"+st.Name+"/Q_red_"+c, aa, qk[c]))
+					alphaA[c] = aa
 				}
 			}
 		}
@@ -151,7 +162,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		lifts[k] = Lift{Column: id, I: i, J: j, Level: k, Name: st.Name, Size: size, Height: st.Height}
 		lifts[k].combine(in, l, levels, k, qCum, gCum)
 		for d := DirX; d <= DirY; d++ {
-			dAbove[d] = lifts[k].arrangementForce(in, l, lv, d, byBeam, dAbove[d], k < n-1)
+			dAbove[d] = lifts[k].arrangementForce(in, l, lv, d, sets, byBeam, alphaA, gCum, qCum, dAbove[d])
 		}
 		lifts[k].Steps = l.Steps
 		// Cumulative values for the lift below, referred to across sheets.
@@ -195,6 +206,10 @@ func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q 
 			nq := l.Add(trace.Input("td/n_"+c, "Storeys of category "+c+" above the lift's bottom", "EN 1991-1-1:2002 6.3.1.2(11)", "n", "", float64(n)))
 			an := l.Add(actions.AlphaN("td/alpha_n_"+c, c, psi0, nq))
 			if an.V < 1 {
+				if lf.alphaN == nil {
+					lf.alphaN = map[string]trace.Q{}
+				}
+				lf.alphaN[c] = an
 				un := q[c]
 				v.Q = l.Add(actions.Reduced("td/Q_red_"+c, an, q[c]))
 				v.Unreduced = &un
@@ -216,40 +231,122 @@ func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q 
 	}
 }
 
-// arrangementForce records the design axial force that accompanies the moment arrangements in
-// the frames of direction d: NEd less, at this level and every level above, the part of the
-// lightly loaded beam's reaction that the arrangement leaves off, (γG − γG,light)·R_G + γQ·R_Q
-// (EN 1992-1-1:2004 5.1.3). It returns the cumulative reduction for the lift below.
-func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir, byBeam map[int]reactions, above trace.Q, hasAbove bool) trace.Q {
+// arrAbove is the cumulative load that a moment arrangement leaves off at the levels above a
+// lift: permanent (zero From when none) and imposed by category, referred to across sheets.
+type arrAbove struct {
+	g trace.Q
+	q map[string]trace.Q
+}
+
+// arrangementForce records, for each load set, the design axial force that accompanies the
+// moment arrangements in the frames of direction d (EN 1992-1-1:2004 5.1.3): the combination of
+// the set's expression (EN 1990:2002 6.4.3.2(3)) over the cumulative loads less what the
+// arrangement leaves off at this level and every level above, the imposed load of the lightly
+// loaded beam (reduced as the floor's load is) and, where γG,light < γG, the part
+// (1 − γG,light/γG)·R_G of its permanent load. It returns the cumulative loads left off, by
+// set, for the lift below.
+func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir, sets []loadSet, byBeam map[int]reactions,
+	alphaA map[string]trace.Q, g trace.Q, q map[string]trace.Q, above []arrAbove) []arrAbove {
 	p := in.Code
+	b := in.Building
 	axis := d.Axis()
-	l.Group = "Design axial force with the moment arrangement about " + axis
-	pre := "arr/" + d.String() + "/"
-	gG, gQ, gL := p.Get("gamma_G"), p.Get("gamma_Q"), p.Get("gamma_G_light")
-	var delta trace.Q
-	if k := lightBeam(lv, d, lf.I, lf.J, lf.Level, gG, gQ, gL); k >= 0 {
-		re := byBeam[k]
-		rq := l.Add(Sum(pre+"R_Q", "Imposed reaction of the lightly loaded beam "+lv.Beams[k].Name(), "common practice", "R_Q", "N", re.qs))
-		gq := l.Add(actions.ParamStep(pre+"gamma_G", p, "gamma_G", ""))
-		gl := l.Add(actions.ParamStep(pre+"gamma_G_light", p, "gamma_G_light", ""))
-		qq := l.Add(actions.ParamStep(pre+"gamma_Q", p, "gamma_Q", ""))
-		delta = l.Add(trace.Formula(pre+"dN_level", "Load the arrangement leaves off at level "+lv.Name, "EN 1992-1-1:2004 5.1.3(1)P", "ΔN_"+lv.Name, "N",
-			(gq.V-gl.V)*re.g.V+qq.V*rq.V, "(gamma_G - gamma_G_light) * R_G + gamma_Q * R_Q",
-			trace.A("gamma_G", gq), trace.A("gamma_G_light", gl), trace.A("R_G", re.g), trace.A("gamma_Q", qq), trace.A("R_Q", rq)))
-	} else {
-		delta = l.Add(trace.Input(pre+"dN_level", "Load the arrangement leaves off at level "+lv.Name+": none (a beam on one side only, which is loaded)", "EN 1992-1-1:2004 5.1.3(1)P", "ΔN_"+lv.Name, "N", 0))
+	out := make([]arrAbove, len(sets))
+	lf.narr[d] = make([]trace.Q, len(sets))
+	for si, s := range sets {
+		pre := "arr/" + d.String() + "/" + s.expr + "/"
+		l.Group = "Design axial force with the moment arrangement about " + axis + ", " + s.label
+		k := lightBeam(lv, d, lf.I, lf.J, lf.Level, s)
+		var ab arrAbove
+		if si < len(above) {
+			ab = above[si]
+		}
+		cum := arrAbove{q: map[string]trace.Q{}}
+		var re reactions
+		if k >= 0 {
+			re = byBeam[k]
+		}
+		// Imposed loads left off, by category.
+		cats := map[string]bool{}
+		for c := range re.qs {
+			cats[c] = true
+		}
+		for c := range ab.q {
+			cats[c] = true
+		}
+		for _, c := range keys(cats) {
+			var parts []trace.Q
+			if r, ok := re.qs[c]; ok {
+				if a, ok := alphaA[c]; ok {
+					r = l.Add(actions.Reduced(pre+"R_Q_red_"+c, a, r))
+				}
+				parts = append(parts, r)
+			}
+			if r, ok := ab.q[c]; ok {
+				parts = append(parts, r)
+			}
+			title := "Imposed load (category " + c + ") the arrangement leaves off, this level and above"
+			if k >= 0 {
+				title += " (beam " + lv.Beams[k].Name() + " lightly loaded at " + lv.Name + ")"
+			}
+			cum.q[c] = l.Add(Sum(pre+"dQ_"+c, title, "EN 1992-1-1:2004 5.1.3(1)P", "ΔQ_k,"+c, "N", parts))
+		}
+		// Permanent load left off where the light spans carry less than γG·Gk.
+		var gParts []trace.Q
+		if k >= 0 && s.fG != s.fL {
+			gq := l.Add(actions.ParamStep(pre+"gamma_G", p, "gamma_G", ""))
+			gl := l.Add(actions.ParamStep(pre+"gamma_G_light", p, "gamma_G_light", ""))
+			gParts = append(gParts, l.Add(trace.Formula(pre+"dG_level", "Permanent load the arrangement leaves off at level "+lv.Name, "EN 1992-1-1:2004 5.1.3(1)P", "ΔG_"+lv.Name, "N",
+				(1-gl.V/gq.V)*re.g.V, "(1 - gamma_G_light / gamma_G) * R_G", trace.A("gamma_G_light", gl), trace.A("gamma_G", gq), trace.A("R_G", re.g))))
+		}
+		if ab.g.From != "" {
+			gParts = append(gParts, ab.g)
+		}
+		gArr := g
+		if len(gParts) > 0 {
+			cum.g = l.Add(Sum(pre+"dG", "Permanent load the arrangement leaves off, this level and above", "EN 1992-1-1:2004 5.1.3(1)P", "ΔG_k", "N", gParts))
+			gArr = l.Add(trace.Formula(pre+"G", "Permanent load with the arrangement", "EN 1992-1-1:2004 5.1.3(1)P", "G_k,arr", "N",
+				g.V-cum.g.V, "G_k - dG", trace.A("G_k", g), trace.A("dG", cum.g)))
+		}
+		var vs []actions.Variable
+		for _, c := range keys(q) {
+			qa := q[c]
+			if dq, ok := cum.q[c]; ok {
+				qa = l.Add(trace.Formula(pre+"Q_"+c, "Imposed load (category "+c+") with the arrangement", "EN 1992-1-1:2004 5.1.3(1)P", "Q_k,"+c+",arr", "N",
+					q[c].V-dq.V, "Q_k - dQ", trace.A("Q_k", q[c]), trace.A("dQ", dq)))
+			}
+			v := actions.Variable{Category: c, Q: qa}
+			if an, ok := lf.alphaN[c]; ok && b.Options.Reduction == model.ReduceStoreys {
+				un := qa
+				v.Q = l.Add(actions.Reduced(pre+"Q_red_"+c, an, qa))
+				v.Unreduced = &un
+			}
+			vs = append(vs, v)
+		}
+		steps, n := actions.CombineExpr(pre+"NEd", b.Options.Combination, s.expr, p, gArr, vs)
+		for _, st := range steps {
+			n = l.Add(st)
+		}
+		if last := l.Last(); last != nil {
+			last.Symbol = "N_Ed,arr," + axis
+			if s.expr == actions.ExprInf {
+				last.Symbol = "N_Ed,inf," + axis
+			}
+			n.Symbol = last.Symbol
+		}
+		lf.narr[d][si] = n
+		// Cumulative values for the lift below, referred to across sheets.
+		if cum.g.From != "" {
+			cum.g = absolute(cum.g, lf.Column, lf.Name)
+			cum.g.Symbol = "ΔG_k,above"
+		}
+		for c, v := range cum.q {
+			a := absolute(v, lf.Column, lf.Name)
+			a.Symbol = "ΔQ_k," + c + ",above"
+			cum.q[c] = a
+		}
+		out[si] = cum
 	}
-	parts := []trace.Q{delta}
-	if hasAbove {
-		parts = append(parts, above)
-	}
-	cum := l.Add(Sum(pre+"dN", "Load the arrangement leaves off, this level and above", "common practice", "ΔN", "N", parts))
-	nArr := l.Add(trace.Formula(pre+"NEd", "Design axial force with the moment arrangement about "+axis, "EN 1992-1-1:2004 5.1.3", "N_Ed,arr,"+axis, "N",
-		maxf(lf.Src.NEd.V-cum.V, 0), "max(N_Ed - dN, 0)", trace.A("N_Ed", lf.Src.NEd), trace.A("dN", cum)))
-	lf.Src.NArr[d] = nArr
-	a := absolute(cum, lf.Column, lf.Name)
-	a.Symbol = "ΔN_above"
-	return a
+	return out
 }
 
 // quasiPermanent records the quasi-permanent axial force Gk + Σψ2·Qk (EN 1990:2002 6.5.3,

@@ -3,34 +3,74 @@ package building
 import (
 	"fmt"
 	"math"
+	"slices"
+	"strings"
 
 	"colsheet/calc/frame"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
 )
 
-// arrangement names a load arrangement of the frame analysis, EN 1992-1-1:2004 5.1.3.
-type arrangement struct {
-	name   string
-	loaded func(k, m int) bool // whether beam k of the line at level m carries γG·Gk + γQ·Qk
-}
-
-var arrangements = []arrangement{
-	{"all spans loaded", func(k, m int) bool { return true }},
-	{"alternate spans loaded, pattern 1 (checkerboard)", func(k, m int) bool { return (k+m)%2 == 0 }},
-	{"alternate spans loaded, pattern 2 (checkerboard)", func(k, m int) bool { return (k+m)%2 == 1 }},
-}
-
 const frameMethod = "direct stiffness method (slope-deflection equations, joint rotations only: braced, no sway), banded Cholesky factorisation (gonum)"
 
-// frameEnds analyses every frame line of the building in each direction under the load
-// arrangements and returns, for each column, the clockwise end moments of each lift's column:
-// at each end the largest in magnitude among the arrangements.
+// superposed holds the solutions of one frame line under one load set: every beam lightly
+// loaded (base), and each beam's added load alone (one case per beam), whose sums give the
+// end moments of any arrangement (linear elasticity: superposition).
+type superposed struct {
+	base  frame.Result
+	extra []frame.Result // by beam of the line
+}
+
+// envelope returns the end moment endIdx of member mem that is largest in magnitude over every
+// arrangement of loaded and lightly loaded beams, and the beams it loads: those whose added
+// load increases the moment's magnitude (EN 1992-1-1:2004 5.1.3(1)P; the envelope of all
+// arrangements by superposition of single-span load cases).
+func (sp superposed) envelope(mem, endIdx int) (float64, []bool) {
+	pos, neg := sp.base.End[mem][endIdx], sp.base.End[mem][endIdx]
+	for _, r := range sp.extra {
+		if v := r.End[mem][endIdx]; v > 0 {
+			pos += v
+		} else {
+			neg += v
+		}
+	}
+	loaded := make([]bool, len(sp.extra))
+	up := math.Abs(pos) >= math.Abs(neg)
+	for k, r := range sp.extra {
+		v := r.End[mem][endIdx]
+		loaded[k] = (up && v > 0) || (!up && v < 0)
+	}
+	if up {
+		return pos, loaded
+	}
+	return neg, loaded
+}
+
+// under returns the end moments of every member with the given beams loaded.
+func (sp superposed) under(loaded []bool) [][2]float64 {
+	out := make([][2]float64, len(sp.base.End))
+	copy(out, sp.base.End)
+	for k, r := range sp.extra {
+		if !loaded[k] {
+			continue
+		}
+		for m := range out {
+			out[m][0] += r.End[m][0]
+			out[m][1] += r.End[m][1]
+		}
+	}
+	return out
+}
+
+// frameEnds analyses every frame line of the building in each direction and returns, for each
+// column, the clockwise end moments of each lift's column: at each end the envelope over every
+// arrangement of loaded and lightly loaded spans (by superposition), under the expression of
+// the combination rule that gives the larger moment, and with γG,inf on every span for the least
+// axial force.
 func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift) (map[[2]int][][2]endQ, error) {
 	b := in.Building
-	p := in.Code
 	e := in.Materials.Concrete.Ecm
-	gG, gQ, gL := p.Get("gamma_G"), p.Get("gamma_Q"), p.Get("gamma_G_light")
+	sets := loadSets(in)
 	n := len(b.Storeys)
 	out := map[[2]int][][2]endQ{}
 	for k := range cols {
@@ -71,11 +111,10 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					f.Members = append(f.Members, frame.Member{I: node(ci, m-1), J: node(ci, m), EI: e * inPlaneI(lifts[m].Size, d), L: lifts[m].Height})
 				}
 			}
-			type beamRef struct{ member, beam, level, k int }
+			type beamRef struct{ member, beam, level int }
 			var beams []beamRef
 			for m := 0; m < n; m++ {
 				lv := &levels[m]
-				k := 0
 				for bi, bm := range lv.Beams {
 					if bm.Dir != d || bm.Line != line {
 						continue
@@ -84,31 +123,73 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					if ci0 < 0 || ci1 < 0 {
 						continue
 					}
-					beams = append(beams, beamRef{len(f.Members), bi, m, k})
+					beams = append(beams, beamRef{len(f.Members), bi, m})
 					f.Members = append(f.Members, frame.Member{I: node(ci0, m), J: node(ci1, m),
 						EI: e * bm.Size.B * math.Pow(bm.Size.H, 3) / 12, L: bm.L})
-					k++
 				}
 			}
-			// Solve each arrangement.
-			results := make([]frame.Result, len(arrangements))
-			for a, arr := range arrangements {
-				for _, br := range beams {
-					ld := levels[br.level].Loads[br.beam]
-					if arr.loaded(br.k, br.level) {
-						f.Members[br.member].Loads = factored(ld, gG, gQ, true)
-					} else {
-						f.Members[br.member].Loads = factored(ld, gL, 0, false)
-					}
-				}
+			lineName := g.lineName(d, line)
+			solve := func() (frame.Result, error) {
 				r, err := f.Solve()
 				if err != nil {
-					return nil, fmt.Errorf("frame along %s on line %s: %v", d, g.lineName(d, line), err)
+					return r, fmt.Errorf("frame along %s on line %s: %v", d, lineName, err)
 				}
-				results[a] = r
+				return r, nil
+			}
+			// Solve each set: every beam light, then each beam's added load alone.
+			sols := make([]superposed, len(sets))
+			for si, st := range sets {
+				for _, br := range beams {
+					f.Members[br.member].Loads = st.pieces(levels[br.level].Loads[br.beam], false)
+				}
+				base, err := solve()
+				if err != nil {
+					return nil, err
+				}
+				sols[si] = superposed{base: base, extra: make([]frame.Result, len(beams))}
+				for _, br := range beams {
+					f.Members[br.member].Loads = nil
+				}
+				for k, br := range beams {
+					f.Members[br.member].Loads = st.extra(levels[br.level].Loads[br.beam])
+					if sols[si].extra[k], err = solve(); err != nil {
+						return nil, err
+					}
+					f.Members[br.member].Loads = nil
+				}
+			}
+			// describe names the loaded spans of an arrangement: those at the levels of the
+			// lift's ends and next to them by name, the others by count.
+			describe := func(loaded []bool, m int, st loadSet) string {
+				byLevel := map[int][]string{}
+				others := 0
+				for k, br := range beams {
+					if !loaded[k] {
+						continue
+					}
+					if br.level < m-2 || br.level > m+1 {
+						others++
+						continue
+					}
+					byLevel[br.level] = append(byLevel[br.level], levels[br.level].Beams[br.beam].Name())
+				}
+				var parts []string
+				for lv := 0; lv < n; lv++ {
+					if names := byLevel[lv]; len(names) > 0 {
+						parts = append(parts, levels[lv].Name+": "+strings.Join(names, ", "))
+					}
+				}
+				text := "none"
+				if len(parts) > 0 {
+					text = strings.Join(parts, "; ")
+				}
+				if others > 0 {
+					text += " (and " + itoa(others) + " spans at other levels)"
+				}
+				return "Arrangement (EN 1992-1-1 5.1.3), the envelope of every arrangement by superposition of single-span load cases: loaded (" + st.loaded +
+					") the spans whose load increases this moment, " + text + "; the others " + st.light + ". Factors of " + st.label + "."
 			}
 			// Record, for each column and lift, the governing end moments with the joint equilibrium.
-			lineName := g.lineName(d, line)
 			for ci, c := range colsOn {
 				key := at(c)
 				lifts := cols[key]
@@ -117,9 +198,9 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					l := &trace.Log{Steps: lifts[m].Steps}
 					axis := d.Axis()
 					l.Group = "Column moments about " + axis + ": frame along " + d.String() + " on line " + lineName
-					// record adds the solve step of one end (0 bottom, 1 top) under arrangement a.
-					record := func(endIdx, a int, suffix, extra string) trace.Q {
-						r := results[a]
+					// record adds the solve step of one end (0 bottom, 1 top) with the given
+					// member end moments of one arrangement.
+					record := func(endIdx int, ends [][2]float64, suffix, extra, note string) trace.Q {
 						nd := f.Members[mem].I
 						where := "bottom"
 						if endIdx == 1 {
@@ -139,7 +220,7 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 									expr += " + "
 								}
 								expr += name
-								v := r.End[mi][s]
+								v := ends[mi][s]
 								sum += v
 								args = append(args, trace.A(name, trace.Const(v, "M_"+itoa(len(args)+1), "Nmm")))
 							}
@@ -148,26 +229,38 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 							expr, sum = "0", 0 // a fixed base takes any moment: no equilibrium to state
 						}
 						st := trace.Solve("frm/"+d.String()+"/"+where+suffix, "Column moment at the "+where+" of the lift, clockwise (frame along "+d.String()+" on line "+lineName+")"+extra,
-							"common practice (braced frame analysis)", "M_"+where[:1]+","+axis, "Nmm", r.End[mem][endIdx], frameMethod, expr, sum, args...).
-							Note("Arrangement (EN 1992-1-1 5.1.3): " + arrangements[a].name + "; loaded spans γG·Gk + γQ·Qk, the others γG,light·Gk.").
+							"common practice (braced frame analysis)", "M_"+where[:1]+","+axis, "Nmm", ends[mem][endIdx], frameMethod, expr, sum, args...).
+							Note(note).
 							Note("The residual is the sum of the end moments of the members meeting at the joint (equilibrium).")
 						return l.Add(st)
 					}
 					var q [2]trace.Q
-					var best [2]int
+					var arr [2][]bool
+					var set [2]int
 					for endIdx := 0; endIdx < 2; endIdx++ {
-						for a := range results {
-							if math.Abs(results[a].End[mem][endIdx]) > math.Abs(results[best[endIdx]].End[mem][endIdx])*(1+1e-12) {
-								best[endIdx] = a
+						best := -1.0
+						for si := range mainSets(sets) {
+							v, loaded := sols[si].envelope(mem, endIdx)
+							if math.Abs(v) > best*(1+1e-12) {
+								best, set[endIdx], arr[endIdx] = math.Abs(v), si, loaded
 							}
 						}
-						q[endIdx] = record(endIdx, best[endIdx], "", "")
+						sp := sols[set[endIdx]]
+						q[endIdx] = record(endIdx, sp.under(arr[endIdx]), "", "", describe(arr[endIdx], m, sets[set[endIdx]]))
 					}
-					e := endQ{top: q[1], bot: q[0]}
-					if best[0] != best[1] {
+					e := endQ{top: q[1], bot: q[0], set: set[1]}
+					if set[0] != set[1] || !slices.Equal(arr[0], arr[1]) {
 						// The bottom under the top's own arrangement: one consistent load case.
-						e.botAlt = record(0, best[1], "_alt", ", under the arrangement of the top")
+						e.botAlt = record(0, sols[set[1]].under(arr[1]), "_alt", ", under the arrangement of the top", describe(arr[1], m, sets[set[1]]))
 					}
+					// The least axial force: γG,inf on every span, the same envelope.
+					l.Group = "Column moments about " + axis + ": frame along " + d.String() + " on line " + lineName + ", permanent load favourable (γG,inf, least axial force)"
+					inf := sols[len(sets)-1]
+					_, topArr := inf.envelope(mem, 1)
+					infEnds := inf.under(topArr)
+					note := describe(topArr, m, sets[len(sets)-1])
+					e.minTop = record(1, infEnds, "_inf", ", permanent load favourable", note)
+					e.minBot = record(0, infEnds, "_inf", ", permanent load favourable, under the arrangement of the top", note)
 					lifts[m].Steps = l.Steps
 					out[key][m][d] = e
 				}

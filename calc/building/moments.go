@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"colsheet/calc/actions"
+	"colsheet/calc/code"
 	"colsheet/calc/frame"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
@@ -11,8 +12,11 @@ import (
 
 // jointResult is the traced outcome of the subframe at one joint and direction.
 type jointResult struct {
+	set          int               // the main load set (index into loadSets) whose arrangement governs
 	below, above frame.JointColumn // the columns below and above the joint
 	aboveAlt     frame.JointColumn // the column above under the other side's arrangement, when both sides have a beam
+	// The columns below and above with the least-axial-force set (γG,inf on every span).
+	minBelow, minAbove frame.JointColumn
 }
 
 // beamsAt returns the indices of the beams of direction d on the left (ending at the column)
@@ -46,47 +50,68 @@ func inPlaneI(s model.Size, d Dir) float64 {
 	return s.H * s.B * s.B * s.B / 12
 }
 
-// factored returns the pieces of γG·G + γQ·ΣQ (loaded) or γG,light·G (light) of a beam.
-func factored(ld BeamLoad, gammaG, gammaQ float64, loaded bool) []frame.Piece {
-	var out []frame.Piece
-	for _, p := range ld.G {
-		out = append(out, p.Scale(gammaG))
-	}
-	if loaded {
-		for _, c := range keys(ld.Q) {
-			for _, p := range ld.Q[c] {
-				out = append(out, p.Scale(gammaQ))
-			}
+// jointFEMs returns the fixed-end moments at the joint (left, right; 0 where there is no beam)
+// of the beams of direction d at the column (i, j), loaded and light under set s.
+func jointFEMs(lv *Level, d Dir, i, j int, s loadSet) (loaded, light [2]float64, ok [2]bool) {
+	left, right := lv.beamsAt(d, i, j)
+	for side, k := range []int{left, right} {
+		if k < 0 {
+			continue
+		}
+		bm := lv.Beams[k]
+		a0, a1 := frame.FixedEnd(bm.L, s.pieces(lv.Loads[k], true))
+		b0, b1 := frame.FixedEnd(bm.L, s.pieces(lv.Loads[k], false))
+		ok[side] = true
+		if side == 0 { // the joint is at the left beam's end
+			loaded[side], light[side] = a1, b1
+		} else {
+			loaded[side], light[side] = a0, b0
 		}
 	}
-	return frame.Merge(out)
+	return
+}
+
+// governingSet returns the index of the main load set whose arrangement gives the largest
+// unbalanced moment at the joint of the column at (i, j) on level m in the frames of direction d,
+// and the side it loads (0 left, 1 right).
+func governingSet(lv *Level, d Dir, i, j, m int, sets []loadSet) (set, side int) {
+	best := -1.0
+	for k, s := range mainSets(sets) {
+		loaded, light, _ := jointFEMs(lv, d, i, j, s)
+		c := chooseLoaded(loaded, light, m)
+		unb := [2]float64{loaded[0] + light[1], light[0] + loaded[1]}[c]
+		if v := math.Abs(unb); v > best*(1+1e-12) {
+			best, set, side = v, k, c
+		}
+	}
+	return set, side
 }
 
 // joint records the simplified subframe (common practice) at the joint of the column at
 // (i, j) on level m for the frames of direction d, under the load arrangement of
-// EN 1992-1-1:2004 5.1.3 that gives the larger unbalanced moment: the span on one side with
-// γG·Gk + γQ·Qk, the other with γG,light·Gk. Where both sides give the same, the sense that
-// bends the lifts in single curvature is taken (alternating up the column, conservative).
-func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d Dir, i, j int, e trace.Q) jointResult {
+// EN 1992-1-1:2004 5.1.3 that gives the larger unbalanced moment: the span on one side loaded,
+// the other lightly loaded, with the factors of the expression of the combination rule that
+// gives the larger unbalanced moment. Where both sides give the same, the sense that bends the
+// lifts in single curvature is taken (alternating up the column, conservative). It records the
+// same joint with γG,inf on every span as well (the least axial force with these moments).
+func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d Dir, i, j int, e trace.Q, sets []loadSet) jointResult {
 	b := in.Building
 	p := in.Code
 	lv := &levels[m]
 	pre := "sub" + d.String() + "/" + lv.Name + "/"
 	axis := d.Axis()
 	l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + " (frame along " + d.String() + ")"
-	gG := l.Add(actions.ParamStep(pre+"gamma_G", p, "gamma_G", ""))
-	gQ := l.Add(actions.ParamStep(pre+"gamma_Q", p, "gamma_Q", ""))
-	gL := l.Add(actions.ParamStep(pre+"gamma_G_light", p, "gamma_G_light", ""))
 	left, right := lv.beamsAt(d, i, j)
 	factor := 0.5
 	if b.Options.BeamStiffness == "full" {
 		factor = 1
 	}
 	kBeam := trace.Const(factor, "k_b", "")
-	var jt frame.Joint
 	type side struct {
-		loaded, light trace.Q
-		k             trace.Q
+		k, L  trace.Q
+		end   frame.Side
+		beam  int
+		label string
 	}
 	var sides [2]*side
 	for s, k := range []int{left, right} {
@@ -94,47 +119,17 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 			continue
 		}
 		bm := lv.Beams[k]
-		ld := lv.Loads[k]
 		name := bm.Name()
 		end := frame.AtEnd
 		if s == 1 {
 			end = frame.AtStart
 		}
 		L := l.Add(trace.Input(pre+name+"/L", "Span of beam "+name, "input", "L_"+name, "mm", bm.L))
-		st := frame.FEMStep(pre+name+"/FEM_loaded", "Fixed-end moment at the column, beam "+name+" loaded (γG·Gk + γQ·Qk)", end, L, factored(ld, gG.V, gQ.V, true))
-		st.Symbol = "M_F," + name + ",max"
-		loaded := l.Add(st.Note("Loads: slab, self-weight and line loads on the beam, factored; clockwise positive."))
-		st = frame.FEMStep(pre+name+"/FEM_light", "Fixed-end moment at the column, beam "+name+" lightly loaded (γG,light·Gk)", end, L, factored(ld, gL.V, 0, false))
-		st.Symbol = "M_F," + name + ",min"
-		light := l.Add(st)
 		ib := l.Add(trace.Formula(pre+name+"/I", "Second moment of area of beam "+name, "common practice", "I_"+name, "mm4",
 			bm.Size.B*math.Pow(bm.Size.H, 3)/12, "b * h ** 3 / 12", trace.A("b", trace.Const(bm.Size.B, "b_b", "mm")), trace.A("h", trace.Const(bm.Size.H, "h_b", "mm"))))
 		ks := frame.StiffnessStep(pre+name+"/k", "Stiffness of beam "+name+" at the joint", kBeam, e, ib, L)
 		ks.Symbol = "k_" + name
-		kq := l.Add(ks)
-		sides[s] = &side{loaded, light, kq}
-	}
-	var loadedFEM, lightFEM [2]float64
-	for s := 0; s < 2; s++ {
-		if sides[s] != nil {
-			loadedFEM[s], lightFEM[s] = sides[s].loaded.V, sides[s].light.V
-		}
-	}
-	choice := chooseLoaded(loadedFEM, lightFEM, m)
-	for s := 0; s < 2; s++ {
-		if sides[s] == nil {
-			continue
-		}
-		fem := sides[s].light
-		if s == choice {
-			fem = sides[s].loaded
-		}
-		jb := &frame.JointBeam{K: sides[s].k, FEM: fem}
-		if s == 0 {
-			jt.Left = jb
-		} else {
-			jt.Right = jb
-		}
+		sides[s] = &side{k: l.Add(ks), L: L, end: end, beam: k, label: name}
 	}
 	// Columns above and below the joint.
 	colK := func(lift int, name string, pinnedFar bool) *trace.Q {
@@ -154,39 +149,92 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 		q := l.Add(ks)
 		return &q
 	}
+	var above, below *trace.Q
 	if m+1 < len(lifts) {
-		jt.Above = colK(m+1, "above", false)
+		above = colK(m+1, "above", false)
 	}
-	jt.Below = colK(m, "below", m == 0 && b.Base == model.BasePinned)
-	js := jt.Steps(pre)
-	for idx := range js.Steps {
-		l.Add(js.Steps[idx])
+	below = colK(m, "below", m == 0 && b.Base == model.BasePinned)
+	factorSteps(l, pre, p, sets)
+
+	// solve records the fixed-end moments of set s and the distribution at the joint under the
+	// arrangement that loads side choice (the other lightly loaded), with step IDs under sub.
+	solve := func(s loadSet, sub string, choice int, why string) frame.JointSteps {
+		var fem [2]trace.Q
+		for k, sd := range sides {
+			if sd == nil {
+				continue
+			}
+			ld := lv.Loads[sd.beam]
+			loaded := k == choice || sides[1-k] == nil
+			title, sym, pieces := "Fixed-end moment at the column, beam "+sd.label+" loaded ("+s.loaded+")", "M_F,"+sd.label+",max", s.pieces(ld, true)
+			id := pre + sub + sd.label + "/FEM_loaded"
+			if !loaded {
+				title, sym, pieces = "Fixed-end moment at the column, beam "+sd.label+" lightly loaded ("+s.light+")", "M_F,"+sd.label+",min", s.pieces(ld, false)
+				id = pre + sub + sd.label + "/FEM_light"
+			}
+			st := frame.FEMStep(id, title, sd.end, sd.L, pieces)
+			st.Symbol = sym
+			fem[k] = l.Add(st.Note("Loads: slab, self-weight and line loads on the beam, factored; clockwise positive."))
+		}
+		jt := frame.Joint{Above: above, Below: below}
+		for k, sd := range sides {
+			if sd == nil {
+				continue
+			}
+			jb := &frame.JointBeam{K: sd.k, FEM: fem[k]}
+			if k == 0 {
+				jt.Left = jb
+			} else {
+				jt.Right = jb
+			}
+		}
+		js := jt.Steps(pre + sub)
+		for idx := range js.Steps {
+			if idx == 0 {
+				js.Steps[idx] = js.Steps[idx].Note(arrangementNote(choice, sides[0] != nil, sides[1] != nil) + " Factors of " + s.label + why)
+			}
+			l.Add(js.Steps[idx])
+		}
+		return js
 	}
-	if last := js.Steps; len(last) > 0 {
-		l.Steps[len(l.Steps)-len(last)] = l.Steps[len(l.Steps)-len(last)].Note(arrangementNote(choice, sides[0] != nil, sides[1] != nil))
+
+	set, choice := governingSet(lv, d, i, j, m, sets)
+	why := "."
+	if len(mainSets(sets)) > 1 {
+		why = ": of the expressions of the combination rule, the one that gives the larger unbalanced moment at this joint."
 	}
-	res := jointResult{below: js.Below, above: js.Above}
+	res := jointResult{set: set}
+	js := solve(sets[set], "", choice, why)
+	res.below, res.above = js.Below, js.Above
 	// The other side loaded: with unequal spans the two arrangements turn the joint the same way
 	// or not; the lift above may be bent in single curvature by this one (see assembleMoments).
-	if sides[0] != nil && sides[1] != nil && jt.Above != nil {
-		alt := jt
-		other := 1 - choice
-		l0 := &frame.JointBeam{K: sides[0].k, FEM: sides[0].light}
-		r0 := &frame.JointBeam{K: sides[1].k, FEM: sides[1].light}
-		if other == 0 {
-			l0.FEM = sides[0].loaded
-		} else {
-			r0.FEM = sides[1].loaded
-		}
-		alt.Left, alt.Right, alt.Below = l0, r0, jt.Below
+	if sides[0] != nil && sides[1] != nil && above != nil {
 		l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + ", the other side loaded"
-		ja := alt.Steps(pre + "alt/")
-		for idx := range ja.Steps {
-			l.Add(ja.Steps[idx])
-		}
+		ja := solve(sets[set], "alt/", 1-choice, ".")
 		res.aboveAlt = ja.Above
 	}
+	// The least axial force: every span's permanent load favourable, γG,inf, with the imposed
+	// load on the side that gives the larger unbalanced moment.
+	inf := sets[len(sets)-1]
+	loaded, light, _ := jointFEMs(lv, d, i, j, inf)
+	l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + ", permanent load favourable (γG,inf, least axial force)"
+	jm := solve(inf, "inf/", chooseLoaded(loaded, light, m), ": the permanent load favourable on every span (EN 1990 Table A1.2(B), Note 3), for the least axial force with these moments.")
+	res.minBelow, res.minAbove = jm.Below, jm.Above
 	return res
+}
+
+// factorSteps records the partial factors that the load sets of the arrangements use.
+func factorSteps(l *trace.Log, pre string, p code.Params, sets []loadSet) {
+	names := []string{"gamma_G", "gamma_Q", "gamma_G_light", "gamma_G_inf"}
+	for _, s := range sets {
+		if s.expr == actions.Expr610b {
+			names = append(names, "xi")
+			break
+		}
+	}
+	for _, n := range names {
+		l.Add(actions.ParamStep(pre+n, p, n, ""))
+	}
 }
 
 func iExpr(d Dir) string {
@@ -210,7 +258,11 @@ func arrangementNote(choice int, hasLeft, hasRight bool) string {
 
 // endQ holds the clockwise end moments of the column of one lift in one direction, and a
 // bottom moment of another arrangement that may bend the lift in single curvature.
-type endQ struct{ top, bot, botAlt trace.Q }
+type endQ struct {
+	top, bot, botAlt trace.Q
+	set              int     // the main load set of the arrangement at the top
+	minTop, minBot   trace.Q // with the least-axial-force set (γG,inf on every span)
+}
 
 // subframeEnds records the simplified subframe at each level of one column and returns the
 // clockwise end moments of each lift's column in each direction. The moment at the bottom of a
@@ -219,29 +271,34 @@ func subframeEnds(in *model.Input, levels []Level, lifts []Lift) [][2]endQ {
 	b := in.Building
 	id := lifts[0].Column
 	i, j := lifts[0].I, lifts[0].J
+	sets := loadSets(in)
 	results := make([][2]jointResult, len(lifts))
 	for m := range lifts {
 		l := &trace.Log{Steps: lifts[m].Steps}
 		e := modulusStep(l, in)
 		for d := DirX; d <= DirY; d++ {
-			results[m][d] = joint(l, in, levels, lifts, m, d, i, j, e)
+			results[m][d] = joint(l, in, levels, lifts, m, d, i, j, e, sets)
 		}
 		lifts[m].Steps = l.Steps
 	}
 	out := make([][2]endQ, len(lifts))
 	for m := range lifts {
 		for d := DirX; d <= DirY; d++ {
-			e := endQ{top: results[m][d].below.AtJoint}
+			r := results[m][d]
+			e := endQ{top: r.below.AtJoint, minTop: r.minBelow.AtJoint, set: r.set}
 			switch {
 			case m > 0:
-				e.bot = absolute(results[m-1][d].above.AtJoint, id, lifts[m-1].Name)
-				if alt := results[m-1][d].aboveAlt; alt.Present {
+				rb := results[m-1][d]
+				e.bot = absolute(rb.above.AtJoint, id, lifts[m-1].Name)
+				e.minBot = absolute(rb.minAbove.AtJoint, id, lifts[m-1].Name)
+				if alt := rb.aboveAlt; alt.Present {
 					e.botAlt = absolute(alt.AtJoint, id, lifts[m-1].Name)
 				}
 			case b.Base == model.BasePinned:
 				e.bot = trace.Const(0, "M_base", "Nmm")
+				e.minBot = e.bot
 			default:
-				e.bot = results[m][d].below.FarEnd
+				e.bot, e.minBot = r.below.FarEnd, r.minBelow.FarEnd
 			}
 			out[m][d] = e
 		}
@@ -280,6 +337,26 @@ func assembleMoments(lifts []Lift, ends [][2]endQ) {
 					"common practice; EN 1992-1-1:2004 5.1.3", "M_bot,"+axis+",alt", "Nmm", -alt.V, "-M_i", trace.A("M_i", alt)).
 					Note("With this arrangement the lift bends in single curvature; the design is checked for it as well."))
 			}
+			// The arrangement's axial force under the same expression as its moments, and the
+			// least axial force (γG,inf) with the moments of the same arrangement.
+			if narr := lifts[m].narr[d]; len(narr) > 0 {
+				lifts[m].Src.NArr[d] = narr[ends[m][d].set]
+				if mt, mb := ends[m][d].minTop, ends[m][d].minBot; mt.From != "" {
+					l.Group = "First-order end moments about " + axis + " of lift " + lifts[m].Name + ", permanent load favourable (least axial force)"
+					tq := l.Add(trace.Formula("mom/"+axis+"/top_min", "Moment at the top of the lift about "+axis+", permanent load favourable",
+						"common practice", "M_top,"+axis+",inf", "Nmm", mt.V, "M_j", trace.A("M_j", mt)).
+						Note("The column's clockwise end moment at its top under the arrangement with γG,inf on every span."))
+					bq := tq
+					if mb.From != "" || mb.V != 0 {
+						bq = l.Add(trace.Formula("mom/"+axis+"/bot_min", "Moment at the bottom of the lift about "+axis+", permanent load favourable",
+							"common practice", "M_bot,"+axis+",inf", "Nmm", -mb.V, "-M_i", trace.A("M_i", mb)).
+							Note("Minus the column's clockwise end moment at its bottom."))
+					} else {
+						bq = l.Add(trace.Input("mom/"+axis+"/bot_min", "Moment at the bottom of the lift about "+axis+", permanent load favourable (pinned base)", "common practice", "M_bot,"+axis+",inf", "Nmm", 0))
+					}
+					lifts[m].Src.Min[d] = MinCase{N: narr[len(narr)-1], Top: tq, Bot: bq}
+				}
+			}
 			if d == DirX {
 				lifts[m].MY = me
 				lifts[m].Src.MYTop, lifts[m].Src.MYBot = tq, bq
@@ -316,24 +393,14 @@ func chooseLoaded(loaded, light [2]float64, m int) int {
 }
 
 // lightBeam returns the beam of direction d at the column (i, j) on level m that the moment
-// arrangement loads lightly, or -1 when the column has a beam on one side only (then that beam
-// is loaded) or none.
-func lightBeam(lv *Level, d Dir, i, j, m int, gG, gQ, gL float64) int {
+// arrangement of set s leaves lightly loaded, or -1 when the column has a beam on one side only
+// (then that beam is loaded) or none.
+func lightBeam(lv *Level, d Dir, i, j, m int, s loadSet) int {
 	left, right := lv.beamsAt(d, i, j)
 	if left < 0 || right < 0 {
 		return -1
 	}
-	var loaded, light [2]float64
-	for s, k := range []int{left, right} {
-		bm := lv.Beams[k]
-		a0, a1 := frame.FixedEnd(bm.L, factored(lv.Loads[k], gG, gQ, true))
-		b0, b1 := frame.FixedEnd(bm.L, factored(lv.Loads[k], gL, 0, false))
-		if s == 0 { // the joint is at the left beam's end
-			loaded[s], light[s] = a1, b1
-		} else {
-			loaded[s], light[s] = a0, b0
-		}
-	}
+	loaded, light, _ := jointFEMs(lv, d, i, j, s)
 	if chooseLoaded(loaded, light, m) == 0 {
 		return right
 	}
