@@ -20,7 +20,7 @@ type Lift struct {
 	MY, MZ model.Ends // first-order end moments about section axes y and z, N·mm (same sign: single curvature)
 	Src    Sources    // the steps that give NEd and the end moments
 	Steps  []trace.Step
-	narr   [2][]trace.Q // the axial force of the moment arrangements about y and z, by load set
+	narr   [2][]trace.Q       // the axial force of the moment arrangements about y and z, by load set
 	alphaN map[string]trace.Q // αn applied to NEd, by category
 }
 
