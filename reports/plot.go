@@ -38,7 +38,7 @@ type curve struct {
 // mark is one marked point of a diagram with its legend text and the tag written beside it.
 type mark struct {
 	Legend string // legend text, e.g. "design point"
-	Tag    string // label beside the point, e.g. "N_Ed, M_Ed,y"
+	Tag    string // label beside the point naming its coordinates in the axes' order, e.g. "M_Ed,y, N_Ed"
 	At     pt
 	Hollow bool // an open circle (a resistance) rather than a filled one (an action)
 	Below  bool // place the tag below the point rather than above
@@ -79,9 +79,10 @@ func diagrams(d design.Design) []diagram {
 			caption: "N–M interaction about " + ax.axis + " of the section with the bars provided, " +
 				"with the design point and the resistance at NEd",
 		}
-		g.Marks = appendMark(g.Marks, mark{Legend: "design point", Tag: "N_Ed, M_Ed," + ax.axis,
+		// Each tag names the point's coordinates in the order of the axes, (M, N).
+		g.Marks = appendMark(g.Marks, mark{Legend: "design point", Tag: "M_Ed," + ax.axis + ", N_Ed",
 			At: pt{ax.a.MEd * fM, d.NEd * fN}})
-		g.Marks = appendMark(g.Marks, mark{Legend: "resistance at N_Ed", Tag: "N_Ed, M_Rd," + ax.axis,
+		g.Marks = appendMark(g.Marks, mark{Legend: "resistance at N_Ed", Tag: "M_Rd," + ax.axis + ", N_Ed",
 			At: pt{ax.a.MRd * fM, d.NEd * fN}, Hollow: true, Below: true})
 		g.fit()
 		out = append(out, g)

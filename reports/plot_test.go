@@ -438,3 +438,45 @@ func BenchmarkDiagramSVG(b *testing.B) {
 		}
 	}
 }
+
+// Each marked point's tag names its coordinates in the order of the axes, so that the tooltip
+// "(tag) = (x, y)" pairs every symbol with its own value and unit (common practice, no source:
+// a point is written (abscissa, ordinate)).
+func TestMarkTagsFollowAxes(t *testing.T) {
+	d := plotDesign()
+	gs := diagrams(d)
+	// The symbol's letter and, where the axis has one, its subscript's last letter (y or z).
+	parts := func(sym string) (string, string) {
+		b, sub := splitSymbol(sym)
+		last := ""
+		if sub != "" {
+			last = sub[len(sub)-1:]
+		}
+		return b, last
+	}
+	for _, g := range gs {
+		xb, xs := parts(g.XSym)
+		yb, ys := parts(g.YSym)
+		for _, m := range g.Marks {
+			syms := strings.Split(m.Tag, ", ")
+			if len(syms) != 2 {
+				t.Fatalf("%s: tag %q does not name two coordinates", g.Name, m.Tag)
+			}
+			ab, as := parts(syms[0])
+			bb, bs := parts(syms[1])
+			if ab != xb || bb != yb || (xs != "" && as != xs) || (ys != "" && bs != ys) {
+				t.Errorf("%s: tag %q does not follow the axes (%s, %s)", g.Name, m.Tag, g.XSym, g.YSym)
+			}
+		}
+	}
+	// The tooltips of the invented design: MEd,y = 100.6 kNm and MRd,y = 262.5 kNm at NEd = 2150 kN.
+	for i, want := range []string{
+		"<title>design point (MEd,y, NEd) = (100.6 kNm, 2150.0 kN)</title>",
+		"<title>resistance at NEd (MRd,z, NEd) = (157.5 kNm, 2150.0 kN)</title>",
+		"<title>design point (MEd,y, MEd,z) = (100.6 kNm, 43.0 kNm)</title>",
+	} {
+		if s := gs[i].SVG(); !strings.Contains(s, want) {
+			t.Errorf("%s lacks %q", gs[i].Name, want)
+		}
+	}
+}
