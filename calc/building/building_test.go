@@ -285,3 +285,81 @@ func TestBeamLoadTraced(t *testing.T) {
 		}
 	}
 }
+
+// Every value the take-down takes from the input is an input step that the steps using it name,
+// so that a revision compare sees a changed façade load or beam size (the trace contract of
+// ../shared/DESIGN.md). The façade and the imposed line load are invented test input; the totals
+// are statics, w·L (common practice).
+func TestTakeDownInputsTraced(t *testing.T) {
+	in := contractBuilding()
+	in.Building.Lines = []model.LineLoad{
+		{Levels: []string{"L1", "L2"}, GridLine: "A", Gk: 9.5},
+		{Levels: []string{"L1"}, GridLine: "1", From: "A", To: "B", Qk: 3, Category: "B"},
+	}
+	d, err := Derive(in, panel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	l := lift(t, d, "A1", "L1")
+	byID := map[string]trace.Step{}
+	for _, s := range l.Steps {
+		byID[s.ID] = s
+	}
+	for _, tc := range []struct {
+		id    string
+		value float64
+	}{
+		{"td/L1/A1–A2/g_line1", 9.5},
+		{"td/L1/A1–B1/q_lineB_2", 3},
+		{"td/L1/A1–A2/L", 7800},
+		{"td/L1/A1–B1/L", 6600},
+		{"td/L1/A1–B1/b", 275},
+		{"td/L1/A1–B1/h", 500},
+	} {
+		s, ok := byID[tc.id]
+		if !ok || s.Kind != trace.KindInput || s.Clause != "input" || !trace.Given(s) {
+			t.Errorf("%s: %+v, want an input step from the input file", tc.id, s)
+			continue
+		}
+		near(t, tc.id, s.Value, tc.value, 1e-12)
+	}
+	near(t, "G_line", stepValue(t, l, "td/L1/A1–A2/G_line"), 9.5*7800, 1e-12)
+	near(t, "Q_lineB", stepValue(t, l, "td/L1/A1–B1/Q_lineB"), 3*6600, 1e-12)
+	// The steps that use them name them; no intensity or beam size enters as a bare number.
+	uses := map[string][]string{
+		"td/L1/A1–A2/G_line":  {"w_1"},
+		"td/L1/A1–B1/Q_lineB": {"w_1"},
+		"td/L1/A1–B1/G_beam":  {"b", "h", "L"},
+	}
+	for id, names := range uses {
+		s := byID[id]
+		for _, name := range names {
+			found := false
+			for _, a := range s.Args {
+				if a.Name == name {
+					found = true
+					if src, ok := byID[a.From]; !ok || !trace.Given(src) || src.Value != a.Value {
+						t.Errorf("%s: argument %s comes from %q, not from an input step", id, name, a.From)
+					}
+				}
+			}
+			if !found {
+				t.Errorf("%s: no argument %s", id, name)
+			}
+		}
+	}
+	for _, s := range l.Steps {
+		if err := trace.Recheck(s, 1e-9); err != nil {
+			t.Error(err)
+		}
+		if !trace.ClauseForm(s.Clause) {
+			t.Errorf("%s: clause %q", s.ID, s.Clause)
+		}
+	}
+	// The lift above the façade's levels carries none of it.
+	for _, s := range lift(t, d, "A1", "R").Steps {
+		if strings.Contains(s.ID, "line") {
+			t.Errorf("roof lift holds %s", s.ID)
+		}
+	}
+}

@@ -10,8 +10,16 @@ type BeamLoad struct {
 	G     []frame.Piece            // permanent: slab, self-weight, line loads
 	Q     map[string][]frame.Piece // imposed, by category
 	Slab  []frame.Piece            // the slab area draining to the beam per unit length (a unit area load), mm
-	LineG []frame.Piece            // the permanent line loads on the beam, N/mm
-	LineQ map[string][]frame.Piece // the imposed line loads on the beam by category, N/mm
+	LineG []LinePiece              // the permanent line loads on the beam
+	LineQ map[string][]LinePiece   // the imposed line loads on the beam by category
+}
+
+// LinePiece is the stretch of one line load of the input that lies on a beam.
+type LinePiece struct {
+	X0, X1 float64 // extent along the beam from its start, mm
+	W      float64 // intensity as given, N/mm
+	Load   int     // index of the line load in the input (model.Building.Lines)
+	Line   string  // the grid line it is given on
 }
 
 // Level holds the beams of one level and their loads.
@@ -89,7 +97,7 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 		lv.Loads = make([]BeamLoad, len(lv.Beams))
 		for k := range lv.Loads {
 			lv.Loads[k].Q = map[string][]frame.Piece{}
-			lv.Loads[k].LineQ = map[string][]frame.Piece{}
+			lv.Loads[k].LineQ = map[string][]LinePiece{}
 		}
 		addQ := func(k int, cat string, ps []frame.Piece) {
 			lv.Loads[k].Q[cat] = append(lv.Loads[k].Q[cat], ps...)
@@ -134,7 +142,7 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 			lv.Loads[k].G = append(lv.Loads[k].G, frame.Uniform(b.Options.Density*bm.Size.B*bm.Size.H, bm.L))
 		}
 		// Line loads on grid lines.
-		for _, ll := range b.Lines {
+		for li, ll := range b.Lines {
 			if !contains(ll.Levels, st.Name) {
 				continue
 			}
@@ -151,13 +159,16 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 					continue
 				}
 				p := frame.Piece{X0: a - bm.Start, X1: c - bm.Start, W0: 1, W1: 1}
+				lp := LinePiece{X0: p.X0, X1: p.X1, Load: li, Line: ll.GridLine}
 				if ll.Gk > 0 {
 					lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(ll.Gk))
-					lv.Loads[k].LineG = append(lv.Loads[k].LineG, p.Scale(ll.Gk))
+					lp.W = ll.Gk
+					lv.Loads[k].LineG = append(lv.Loads[k].LineG, lp)
 				}
 				if ll.Qk > 0 {
 					addQ(k, ll.Category, []frame.Piece{p.Scale(ll.Qk)})
-					lv.Loads[k].LineQ[ll.Category] = append(lv.Loads[k].LineQ[ll.Category], p.Scale(ll.Qk))
+					lp.W = ll.Qk
+					lv.Loads[k].LineQ[ll.Category] = append(lv.Loads[k].LineQ[ll.Category], lp)
 				}
 			}
 		}

@@ -63,7 +63,7 @@ func Reaction(id, title string, f, xbar, l trace.Q, atStart bool) trace.Step {
 }
 
 // PiecesTotal returns the total of linearly varying pieces, Σ (x1 − x0)·(w0 + w1)/2 (statics):
-// with unit pieces the area that drains to a beam, with line loads their resultant.
+// with unit pieces, the slab area that drains to a beam.
 func PiecesTotal(id, title, clause, symbol, unit, wUnit string, ps []frame.Piece) trace.Step {
 	var terms []string
 	var args []trace.Arg
@@ -109,8 +109,45 @@ func LoadOnBeam(id, title, symbol string, w *trace.Q, area trace.Q, others ...tr
 }
 
 // BeamSelfWeight returns the weight of a beam, ρ·b·h·L.
-func BeamSelfWeight(id, name string, rho trace.Q, b, h float64, l trace.Q) trace.Step {
-	return memberWeight(id, "Self-weight of beam "+name, "G_beam,"+name, rho, trace.Const(b, "b_"+name, "mm"), trace.Const(h, "h_"+name, "mm"), "L", l)
+func BeamSelfWeight(id, name string, rho, b, h, l trace.Q) trace.Step {
+	return memberWeight(id, "Self-weight of beam "+name, "G_beam,"+name, rho, b, h, "L", l)
+}
+
+// LineLoad is the stretch of a given line load w that lies on a beam, from x0 to x1 along it.
+type LineLoad struct {
+	X0, X1 float64 // mm from the beam's start
+	W      trace.Q // the line load as given, N/mm
+}
+
+// LineLoadTotal returns the total of uniform line loads on a beam, F = Σ w·(x1 − x0) (statics).
+func LineLoadTotal(id, title, symbol string, ls []LineLoad) trace.Step {
+	var terms []string
+	var args []trace.Arg
+	v := 0.0
+	for k, ll := range ls {
+		n := itoa(k + 1)
+		terms = append(terms, "w_"+n+" * (x1_"+n+" - x0_"+n+")")
+		args = append(args, trace.A("w_"+n, ll.W), trace.A("x0_"+n, trace.Const(ll.X0, "x_0,"+n, "mm")), trace.A("x1_"+n, trace.Const(ll.X1, "x_1,"+n, "mm")))
+		v += ll.W.V * (ll.X1 - ll.X0)
+	}
+	expr := strings.Join(terms, " + ")
+	if expr == "" {
+		expr = "0"
+	}
+	return trace.Formula(id, title, "common practice (statics)", symbol, "N", v, expr, args...).
+		Note("Each line load w runs from x_0 to x_1 along the beam, measured from its start.")
+}
+
+// lineLoads records each line load of the input that lies on a beam as an input step, id followed
+// by the load's number in the input, and returns the stretches with their traced intensities.
+func lineLoads(l *trace.Log, id, what, symbol string, ps []LinePiece) []LineLoad {
+	out := make([]LineLoad, len(ps))
+	for k, p := range ps {
+		n := itoa(p.Load + 1)
+		w := l.Add(trace.Input(id+n, what+" line load "+n+" of the input, on grid line "+p.Line, "input", symbol+","+n, "N/mm", p.W))
+		out[k] = LineLoad{X0: p.X0, X1: p.X1, W: w}
+	}
+	return out
 }
 
 // Sum returns a formula step adding the given quantities, which are named q1, q2, ….
@@ -170,18 +207,22 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 		bm := lv.Beams[e.beam]
 		ld := lv.Loads[e.beam]
 		name := bm.Name()
-		L := trace.Const(bm.L, "L_"+name, "mm")
+		// The beam's span and section as the input gives them (grid and beam sizes).
+		L := l.Add(trace.Input(pre+name+"/L", "Span of beam "+name, "input", "L_"+name, "mm", bm.L))
+		bB := l.Add(trace.Input(pre+name+"/b", "Width of beam "+name, "input", "b_"+name, "mm", bm.Size.B))
+		hB := l.Add(trace.Input(pre+name+"/h", "Depth of beam "+name, "input", "h_"+name, "mm", bm.Size.H))
 		which := "end"
 		if e.start {
 			which = "start"
 		}
 		_, xb := resultant(ld.G, bm.L)
 		aSlab := l.Add(PiecesTotal(pre+name+"/A_slab", "Slab area that drains to beam "+name, "common practice (tributary areas)", "A_slab,"+name, "mm2", "mm", ld.Slab))
-		gBeam := l.Add(BeamSelfWeight(pre+name+"/G_beam", name, rho, bm.Size.B, bm.Size.H, L))
+		gBeam := l.Add(BeamSelfWeight(pre+name+"/G_beam", name, rho, bB, hB, L))
 		var others []trace.Q
 		others = append(others, gBeam)
 		if len(ld.LineG) > 0 {
-			others = append(others, l.Add(PiecesTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "input", "G_line,"+name, "N", "N/mm", ld.LineG)))
+			lls := lineLoads(l, pre+name+"/g_line", "Permanent", "g_line", ld.LineG)
+			others = append(others, l.Add(LineLoadTotal(pre+name+"/G_line", "Permanent line loads on beam "+name, "G_line,"+name, lls)))
 		}
 		F := l.Add(LoadOnBeam(pre+name+"/F_G", "Permanent load on beam "+name, "F_G,"+name, &gkQ, aSlab, others...))
 		X := trace.Const(xb, "x_R,G,"+name, "mm")
@@ -202,7 +243,8 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 			}
 			var others []trace.Q
 			if len(ld.LineQ[cat]) > 0 {
-				others = append(others, l.Add(PiecesTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "input", "Q_line,"+cat+","+name, "N", "N/mm", ld.LineQ[cat])))
+				lls := lineLoads(l, pre+name+"/q_line"+cat+"_", "Imposed (category "+cat+")", "q_line,"+cat, ld.LineQ[cat])
+				others = append(others, l.Add(LineLoadTotal(pre+name+"/Q_line"+cat, "Imposed line loads (category "+cat+") on beam "+name, "Q_line,"+cat+","+name, lls)))
 			}
 			F := l.Add(LoadOnBeam(pre+name+"/F_Q"+cat, "Imposed load (category "+cat+") on beam "+name, "F_Q"+cat+","+name, w, aSlab, others...))
 			X := trace.Const(xb, "x_R,Q"+cat+","+name, "mm")
