@@ -21,7 +21,10 @@ package section
 // real n > 0. A parabolic piece that is short and far from tp (the thin end triangles a few
 // degrees off the axes) would make these antiderivatives cancel; there u^n is analytic over
 // the piece, and a 5-point Gauss–Legendre rule, exact to rounding there, takes their place.
-// The rectangular block is a plateau of depth min(λx, D).
+// The rectangular block is a plateau of depth min(λx, D). Once the neutral axis is inclined
+// the width of the compressed zone decreases towards the most compressed corner, so the
+// block's stress is 0.9·η·fcd there (EN 1992-1-1:2004 3.1.7(3), Note); on the axes, where
+// the width is constant, it is η·fcd in full.
 
 import (
 	"errors"
@@ -38,6 +41,7 @@ type BiaxialState struct {
 	D         float64 // depth of the section perpendicular to the neutral axis, b·|sin β| + h·|cos β|, mm
 	P         float64 // profile parameter as State.P: x/D on pivot B, 1 + εbot/εc2 on pivot C
 	Pivot     string  // "B" (εcu at the most compressed corner) or "C" (whole section compressed)
+	Reduced   bool    // the rectangular block's stress is BlockReduction·η·fcd: the neutral axis is inclined
 	EpsTop    float64 // strain at the most compressed corner
 	EpsBottom float64 // strain at the least compressed corner
 	N         float64 // axial force, compression positive, N
@@ -55,6 +59,49 @@ const (
 	biaxJump     = 1e-2  // largest mismatch accepted where the direction jumps, rad
 )
 
+// BlockReduction is the factor on η·fcd of the rectangular block where the width of the
+// compression zone decreases towards the extreme compression fibre, EN 1992-1-1:2004
+// 3.1.7(3), Note ("η·fcd should be reduced by 10 %").
+const BlockReduction = 0.9
+
+// inclinedTol is the distance of the neutral-axis angle from a multiple of 90° (rad) beyond
+// which the axis counts as inclined, so that the rectangular block's stress is reduced.
+const inclinedTol = 1e-9
+
+// ErrReducedBlock is returned (wrapped) by Biaxial when NEd exceeds the axial resistance of
+// the section at uniform strain with the rectangular block's stress reduced to 0.9·η·fcd
+// (EN 1992-1-1:2004 3.1.7(3), Note): no plane with an inclined neutral axis carries NEd.
+var ErrReducedBlock = errors.New("section: with the rectangular block reduced to 0.9·η·fcd for an inclined neutral axis (EN 1992-1-1:2004 3.1.7(3), Note) no strain plane carries NEd")
+
+// Inclined reports whether the neutral-axis angle beta (rad) lies more than 1e-9 rad from
+// a multiple of 90°, so that the compressed zone narrows towards its most compressed corner.
+func Inclined(beta float64) bool {
+	r := math.Abs(math.Remainder(beta, math.Pi/2))
+	return r > inclinedTol
+}
+
+// reduces reports whether the block's stress is reduced at neutral-axis angle beta: the
+// rectangular block with an inclined axis, EN 1992-1-1:2004 3.1.7(3), Note.
+func (s *Section) reduces(beta float64) bool { return s.Block == Rectangular && Inclined(beta) }
+
+// ReducedStress returns the stress of the rectangular block where the compression zone
+// narrows towards the extreme compression fibre, 0.9·η·fcd (EN 1992-1-1:2004 3.1.7(3),
+// Note), computed as the trace's expression k * eta * f_cd.
+func (s *Section) ReducedStress() float64 {
+	return float64(BlockReduction*s.Concrete.Eta) * s.Fcd
+}
+
+// NRdMaxInclined returns the axial resistance at uniform strain of the section with the
+// stress of an inclined neutral axis: NRdMax for the parabola-rectangle, and with
+// 0.9·η·fcd for the rectangular block (EN 1992-1-1:2004 3.1.7(3), Note), N.
+func (s *Section) NRdMaxInclined() float64 {
+	if s.Block != Rectangular {
+		return s.NRdMax()
+	}
+	as := s.Area()
+	return s.ReducedStress()*(s.B*s.H-as) + as*math.Min(s.Es*s.Concrete.EpsC3, s.Fyd)
+}
+
 // barPt is a bar reduced to what the inclined-axis hot path needs.
 type barPt struct{ t, y, z, a float64 }
 
@@ -66,6 +113,7 @@ type incl struct {
 	tb     [4]float64 // depths of the corners: 0, t1, t2, D
 	w, c   [4]float64 // chord width and midpoint (along the axis) at those depths
 	bars   []barPt
+	red    bool // the rectangular block's stress is reduced (3.1.7(3), Note)
 }
 
 // snapUnit returns sin and cos of beta with values below 1e-15 set to zero, so that the
@@ -89,10 +137,19 @@ func sgn(v float64) float64 {
 	return 1
 }
 
-// incline builds the geometry for angle beta, keeping the bars in buf.
+// incline builds the geometry for angle beta, keeping the bars in buf; the rectangular
+// block's stress is reduced when the axis is inclined (EN 1992-1-1:2004 3.1.7(3), Note).
 func (s *Section) incline(beta float64, buf []barPt) incl {
+	return s.inclineAs(beta, buf, s.reduces(beta))
+}
+
+// inclineAs is incline with the reduction of the rectangular block's stress given.
+func (s *Section) inclineAs(beta float64, buf []barPt, reduce bool) incl {
 	var g incl
 	g.f = s.frame(AxisY, Positive)
+	if reduce && g.f.rect {
+		g.f.fc, g.red = s.ReducedStress(), true
+	}
 	g.ny, g.nz = snapUnit(beta)
 	sy, sz := sgn(g.ny), sgn(g.nz)
 	A, Bz := s.B*math.Abs(g.ny), s.H*math.Abs(g.nz) // depth spans of the b and h sides
@@ -262,7 +319,7 @@ func (g *incl) state(beta, p float64) BiaxialState {
 	pr := g.f.profile(p)
 	n, my, mz := g.resultants(&pr)
 	st := BiaxialState{Theta: math.Atan2(mz, my), Angle: normAngle(beta), Depth: pr.x, D: g.f.d, P: p,
-		Pivot: "B", EpsTop: pr.etop, EpsBottom: pr.ebot, N: n, My: my, Mz: mz,
+		Pivot: "B", Reduced: g.red, EpsTop: pr.etop, EpsBottom: pr.ebot, N: n, My: my, Mz: mz,
 		MRd: math.Sqrt(float64(my*my) + float64(mz*mz))}
 	if pr.pivotC {
 		st.Pivot = "C"
@@ -338,6 +395,11 @@ func (b *biaxSolver) depth(beta float64) (p, mismatch float64, err error) {
 	}
 	if !found {
 		ghi = fn(2)
+		if ghi < 0 && g.red {
+			// Only the reduced block falls short of NEd at uniform strain: NEd is below
+			// NRd,max − ftol here, which the unreduced resultant at p = 2 reproduces.
+			return 0, 0, fmt.Errorf("%w: NEd = %.6g N > %.6g N, its axial resistance at uniform strain", ErrReducedBlock, b.NEd, b.s.NRdMaxInclined())
+		}
 	}
 	p, ok := brent(fn, lo, hi, glo, ghi, 1e-15, b.ftol)
 	if !ok {
@@ -378,6 +440,11 @@ func (s *Section) biaxial(NEd, theta, beta0 float64) (BiaxialState, error) {
 		return BiaxialState{}, fmt.Errorf("section: NEd = %g N and θ = %g rad must be finite numbers", NEd, theta)
 	}
 	theta = normAngle(theta)
+	if !Inclined(theta) {
+		// A direction along an axis starts from the uniaxial plane, whose rectangular block
+		// is not reduced: for a layout symmetric about that axis it is the solution.
+		beta0 = theta
+	}
 	nmax, nmin := s.NRdMax(), s.NRdMin()
 	ftolUni := 1e-9 * math.Max(nmax, 1)
 	switch {
@@ -418,10 +485,11 @@ func (s *Section) offCentre() bool {
 // finite reports whether v is neither NaN nor infinite.
 func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
-// uniform returns the state of uniform strain, with no moment, for direction theta.
+// uniform returns the state of uniform strain, with no moment, for direction theta. With
+// the strain uniform there is no neutral axis to incline, so the block is not reduced.
 func (s *Section) uniform(theta float64) BiaxialState {
 	var buf [maxPoints]barPt
-	g := s.incline(theta, buf[:])
+	g := s.inclineAs(theta, buf[:], false)
 	st := g.state(theta, 2)
 	st.Theta, st.My, st.Mz, st.MRd = theta, 0, 0, 0
 	return st

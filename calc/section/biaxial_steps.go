@@ -9,18 +9,20 @@ import (
 // Clause and method strings of the biaxial trace.
 const (
 	clauseBiax      = "EN 1992-1-1:2004 6.1(2)P, 6.1(5), Fig. 6.1"
+	clauseRectNote  = "EN 1992-1-1:2004 3.1.7(3), note"
 	methodBiaxAngle = "Brent's method (Brent 1973, zeroin) on the neutral-axis angle until the direction of (M_R,y, M_R,z) is within 1e-9 rad of that of (M_Ed,y, M_Ed,z), the depth at each trial angle solved for N = N_Ed"
 	methodBiaxDepth = "Brent's method (Brent 1973, zeroin) on the strain-profile parameter at the angle found, |N − N_Ed| ≤ 1e-11·N_Rd,max"
 )
 
 // BiaxialStep records in log the steps of the exact biaxial resistance st (from Biaxial)
-// against the design moments mEdY and mEdZ at axial force nEd: a solve step for the
+// against the design moments mEdY and mEdZ at axial force nEd: where st.Reduced, the reduced
+// stress of the rectangular block (ReducedStressStep); a solve step for the
 // neutral-axis angle (residual: the sine of the angle between the resisting and the design
 // moment, (M_R,y·M_Ed,z − M_R,z·M_Ed,y)/(M_Rd·M_Ed)), a solve step for its depth (residual
 // N − N_Ed), the formulas for M_Ed = √(M_Ed,y² + M_Ed,z²) and M_Rd = √(M_R,y² + M_R,z²), and
 // the check M_Ed/M_Rd; it returns M_Rd and the ratio. Step IDs are id followed by a short
-// name; every expression reproduces its value.
-func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q, st BiaxialState) (mRd, ratio trace.Q) {
+// name; every expression reproduces its value. refs names the steps of η and fcd.
+func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q, st BiaxialState, refs Refs) (mRd, ratio trace.Q) {
 	my, mz := st.My, st.Mz
 	mey, mez := mEdY.V, mEdZ.V
 	// Values mirror their expressions operation for operation (float64() conversions keep
@@ -33,6 +35,11 @@ func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q
 	mzQ := trace.Q{V: mz, Symbol: "M_R,z", Unit: "Nmm"}
 	nQ := trace.Q{V: st.N, Symbol: "N_R", Unit: "N"}
 	choices := "Concrete: " + s.Block.String() + " block, no tension, integrated in closed form over the compressed polygon; steel: horizontal top branch, no strain limit; concrete displaced by bars in compression deducted."
+	var red trace.Q
+	if st.Reduced {
+		red = log.Add(s.ReducedStressStep(id+"sigma_c", refs))
+		choices += " The block's stress is the reduced stress of step " + red.From + ", over the compressed polygon and for the displaced concrete."
+	}
 	resultants := "N_R, M_R,y = Σ F·z and M_R,z = Σ F·y are the resultants of the concrete and the bars for the strain plane found."
 
 	angle := trace.Solve(id+"beta", "Inclination of the neutral axis for a resisting moment parallel to the design moment",
@@ -71,4 +78,16 @@ func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q
 		"M_Ed / max(M_Rd, 1)", trace.A("M_Ed", med), trace.A("M_Rd", mRd)).
 		Note("An accurate section design for biaxial bending, in place of the simplified criterion of EN 1992-1-1:2004 5.8.9(4), Eq. (5.39)."))
 	return mRd, ratio
+}
+
+// ReducedStressStep returns the stress of the rectangular block where the width of the
+// compression zone decreases towards the extreme compression fibre, as it does whenever the
+// neutral axis is inclined: η·fcd reduced by 10 %, EN 1992-1-1:2004 3.1.7(3), Note.
+func (s *Section) ReducedStressStep(id string, refs Refs) trace.Step {
+	k := trace.Const(BlockReduction, "k", "")
+	eta := trace.Q{V: s.Concrete.Eta, Symbol: "η", Unit: "", From: refs.Eta}
+	fcd := trace.Q{V: s.Fcd, Symbol: "f_cd", Unit: "MPa", From: refs.Fcd}
+	return trace.Formula(id, "Stress of the rectangular block, reduced because the compression zone narrows towards the most compressed corner",
+		clauseRectNote, "σ_c,red", "MPa", s.ReducedStress(), "k * eta * f_cd", trace.A("k", k), trace.A("eta", eta), trace.A("f_cd", fcd)).
+		Note("The neutral axis is inclined, so the width of the compressed zone decreases towards the most compressed corner; on the axes, where the width is constant, the block keeps η·f_cd.")
 }
