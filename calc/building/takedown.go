@@ -187,7 +187,7 @@ func memberWeight(id, title, symbol string, rho, b, h trace.Q, ln string, l trac
 // reactions holds the traced characteristic reactions of one beam at the column.
 type reactions struct {
 	g  trace.Q
-	qs []trace.Q
+	qs map[string]trace.Q // by category
 }
 
 func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q map[string]trace.Q, area float64, byBeam map[int]reactions) {
@@ -231,7 +231,7 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 		s = s.Note("F: slab, self-weight of the beam and line loads on the beam; x_R (the line of action of F) from the beam's " + which + " of span.")
 		rg := l.Add(s)
 		gs = append(gs, rg)
-		re := reactions{g: rg}
+		re := reactions{g: rg, qs: map[string]trace.Q{}}
 		for _, cat := range keys(ld.Q) {
 			f, xb := resultant(ld.Q[cat], bm.L)
 			if f == 0 {
@@ -252,7 +252,7 @@ func levelTakeDown(l *trace.Log, lv *Level, i, j int, rho trace.Q) (g trace.Q, q
 			s.Symbol = "R_Q" + cat + "," + name
 			rq := l.Add(s)
 			qs[cat] = append(qs[cat], rq)
-			re.qs = append(re.qs, rq)
+			re.qs[cat] = rq
 		}
 		byBeam[e.beam] = re
 		// The slab area that drains to this end, for the reduction αA.
