@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 
 	"colsheet/calc/cover"
 	"colsheet/calc/detail"
@@ -105,6 +106,13 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nB)))
 	gh := l.Add(trace.Formula("space/gap_h", "Clear distance between bars along an h-face", "common practice", "s_h", "mm", gapH, gapExpr,
 		trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nH)))
+	// The outer bars' centres from the centroid, which place the rows of bars (detail.Geometry).
+	edgeExpr := "w / 2 - c_nom - phi_t - phi / 2"
+	e := g.Edge(p.Dia)
+	yc := l.Add(trace.Formula("bars/y_c", "Distance of the outer bars' centres from the centroid along y", "common practice", "y_c", "mm",
+		col.B/2-e, edgeExpr, trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
+	zc := l.Add(trace.Formula("bars/z_c", "Distance of the outer bars' centres from the centroid along z", "common practice", "z_c", "mm",
+		col.H/2-e, edgeExpr, trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
 	gapMin := math.Min(gapB, gapH)
 	// Compared as centre distances, (s_min + φ)/(s + φ), so that the ratio stays finite and
 	// meaningful when given bars overlap; it passes exactly when s ≥ s_min.
@@ -154,7 +162,12 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		if ax.Slender {
 			method := c.in.Options.SecondOrder
 			m0e := l.Add(onAxis(n, slender.EquivalentMoment(n+"/M0e", a.m01i, a.m02i)))
-			is := l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", layersOf(pos, k))))
+			// Bending about y: the rows of bars lie along z (n_h rows, n_b bars in each outer one).
+			edge, outer, rows := zc, nB, nH
+			if k == 1 {
+				edge, outer, rows = yc, nH, nB
+			}
+			is := l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", edge, outer, rows)))
 			var mCurv, mStiff trace.Q
 			var m2Curv, m2Stiff float64
 			if method != model.SecondOrderStiffness {
@@ -192,11 +205,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 				km := l.Add(onAxis(n, slender.Magnification(n+"/kM", bt, nb, c.nEd)))
 				resistance(slender.BucklingCheck(n+"/check_NB", c.nEd, nb))
 				mm := l.Add(onAxis(n, slender.MagnifiedMoment(n+"/M_mag", m0e, km)))
-				mStiff = l.Add(slender.DesignMomentStocky(n+"/MEd_stiff", mm, c.nEd, a.e0))
-				if mStiff.V < a.m02i.V {
-					mStiff = l.Add(trace.Formula(n+"/MEd_stiff_end", "Design moment: not less than the end moment", "EN 1992-1-1:2004 5.8.8.2; 6.1(4)", "M_Ed", "Nmm",
-						a.m02i.V, "max(M, M_02)", trace.A("M", mStiff), trace.A("M_02", a.m02i)))
-				}
+				mStiff = l.Add(slender.DesignMomentStiffness(n+"/MEd_stiff", mm, a.m02i, c.nEd, a.e0))
 				m2Stiff = mStiff.V - m0e.V
 			}
 			switch method {
@@ -371,7 +380,12 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 	d.Utilization = 0
 	d.Governing = ""
 	d.Reasons = nil
+	seen := map[string]bool{} // check steps and reasons already counted
 	for _, ch := range checks {
+		if seen[ch.id] {
+			continue
+		}
+		seen[ch.id] = true
 		var s *trace.Step
 		for i := len(l.Steps) - 1; i >= 0; i-- {
 			if l.Steps[i].ID == ch.id {
@@ -382,21 +396,38 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 		if s == nil || !(ch.resistance || s.Verdict == trace.Fail) {
 			continue
 		}
+		title := checkTitle(*s)
 		if s.Value > d.Utilization || d.Governing == "" {
 			d.Utilization = s.Value
-			d.Governing = s.Title + " (" + s.Clause + ")"
+			d.Governing = title + " (" + s.Clause + ")"
 		}
 		if s.Verdict == trace.Fail {
 			d.Status = StatusFail
+			var reason string
 			if len(s.Args) == 0 {
 				// A condition with no ratio to give (unmet).
-				d.Reasons = append(d.Reasons, fmt.Sprintf("%s: not met (%s)", s.Title, s.Clause))
+				reason = fmt.Sprintf("%s: not met (%s)", title, s.Clause)
 			} else {
-				d.Reasons = append(d.Reasons, fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", s.Title, s.Relation, s.Value, s.Clause))
+				reason = fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", title, s.Relation, s.Value, s.Clause)
+			}
+			if !seen["reason "+reason] {
+				seen["reason "+reason] = true
+				d.Reasons = append(d.Reasons, reason)
 			}
 		}
 	}
 	d.Steps = l.Steps
+}
+
+// checkTitle returns the title of a check step, naming its axis ("… about y") where the step
+// belongs to one axis (a part of its ID is "y" or "z") and the title does not say so already.
+func checkTitle(s trace.Step) string {
+	for _, part := range strings.Split(s.ID, "/") {
+		if (part == "y" || part == "z") && !strings.Contains(s.Title, "about "+part) {
+			return s.Title + " about " + part
+		}
+	}
+	return s.Title
 }
 
 // unmet returns the failed check of a condition that has no ratio to give: its value 2 only

@@ -181,7 +181,7 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 				if !ok {
 					return q
 				}
-				mStiff = math.Max(slender.DesignMomentStockyValue(slender.MagnifiedMomentValue(m0e, km), nEd, a.e0.V), m02i)
+				mStiff = slender.DesignMomentStiffnessValue(slender.MagnifiedMomentValue(m0e, km), m02i, nEd, a.e0.V)
 			}
 			q.mEd[ax] = math.Max(mCurv, mStiff)
 		} else {

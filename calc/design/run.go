@@ -6,6 +6,7 @@ import (
 	"colsheet/calc/creep"
 	"colsheet/calc/frame"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -238,7 +239,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		c.lam = l.Add(material.LambdaStep("mat/lambda", conc, c.fck))
 		c.eta = l.Add(material.EtaStep("mat/eta", conc, c.fck))
 		c.epsC2 = l.Add(material.EpsC3Step("mat/eps_c3", conc, c.fck))
-		c.epsCu = l.Add(material.EpsCu2Step("mat/eps_cu3", conc, c.fck))
+		c.epsCu = l.Add(material.EpsCu3Step("mat/eps_cu3", conc, c.fck))
 	} else {
 		c.epsC2 = l.Add(material.EpsC2Step("mat/eps_c2", conc, c.fck))
 		c.epsCu = l.Add(material.EpsCu2Step("mat/eps_cu2", conc, c.fck))
@@ -333,8 +334,21 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 			a.phiGiven = true
 		default:
 			a.factorA = l.Add(onAxis(n, slender.FactorADefault(n+"/A")))
-			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio for Kφ (not given)", "common practice", "φ_ef", "", p.Get("phi_ef_default")).
-				Caution("φef is not given: the default value is used for Kφ. Give phi_ef from 5.8.4 for the actual loading history."))
+			// The default enters Kφ of the nominal curvature method and Kc of the nominal stiffness
+			// method, whichever the design uses; its caution goes on the design as well.
+			uses := "Kφ of 5.8.8.3"
+			switch in.Options.SecondOrder {
+			case model.SecondOrderStiffness:
+				uses = "Kc of 5.8.7.2"
+			case model.SecondOrderBoth:
+				uses = "Kφ of 5.8.8.3 and Kc of 5.8.7.2"
+			}
+			caution := "φef is not given: the default value is used for " + uses + " where the column is slender. Give phi_ef from 5.8.4 for the actual loading history."
+			a.phiEf = l.Add(trace.Input(n+"/phi_ef", "Effective creep ratio for "+uses+" (not given)", "common practice", "φ_ef", "", p.Get("phi_ef_default")).
+				Caution(caution))
+			if !slices.Contains(c.cautions, caution) {
+				c.cautions = append(c.cautions, caution)
+			}
 		}
 		rm := l.Add(onAxis(n, slender.MomentRatio(n+"/rm", a.m01, a.m02)))
 		a.factorC = l.Add(onAxis(n, slender.FactorC(n+"/C", rm)))

@@ -2,6 +2,7 @@ package material
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"colsheet/calc/trace"
@@ -73,6 +74,31 @@ func TestSteps(t *testing.T) {
 			if math.Abs(s.Value-want[i]) > 1e-12*math.Max(1, want[i]) {
 				t.Errorf("%s step %s = %g, want %g", class, s.ID, s.Value, want[i])
 			}
+		}
+	}
+}
+
+// εcu3 is the ultimate strain of the bilinear relation that the rectangular block of 3.1.7(3)
+// uses (Fig. 3.5); Table 3.1 prints it beside εc3, not among the parabola-rectangle strains.
+func TestEpsCu3Step(t *testing.T) {
+	for _, tc := range []struct {
+		class string
+		want  float64 // ‰
+	}{
+		{"C30/37", 3.5}, // EN 1992-1-1:2004 Table 3.1
+		{"C70/85", 2.7}, // EN 1992-1-1:2004 Table 3.1 (printed to 0.1 ‰)
+		{"C90/105", 2.6},
+	} {
+		c, _ := Lookup(tc.class)
+		s := EpsCu3Step("eps_cu3", c, FckStep("fck", c).Q())
+		if err := trace.Recheck(s, 1e-9); err != nil {
+			t.Error(err)
+		}
+		if math.Abs(s.Value*1000-tc.want) > 0.05+1e-9 {
+			t.Errorf("%s: εcu3 = %.4g ‰, Table 3.1 %.4g ‰", tc.class, s.Value*1000, tc.want)
+		}
+		if s.Symbol != "ε_cu3" || strings.Contains(s.Title, "parabola") || !strings.Contains(s.Title, "rectangular") {
+			t.Errorf("%s: step %q, %q does not name εcu3 of the bilinear relation and rectangular block", tc.class, s.Symbol, s.Title)
 		}
 	}
 }

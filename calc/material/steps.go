@@ -55,6 +55,18 @@ func EpsC3Step(id string, c Concrete, fck trace.Q) trace.Step {
 		"(1.75 + 0.55 * (f_ck - 50) / 40) / 1000", trace.A("f_ck", fck))
 }
 
+// EpsCu3Step returns εcu3, the ultimate strain of the bilinear relation, which the rectangular
+// block takes as the strain at the extreme compression fibre (Fig. 3.5), read from Table 3.1 up to
+// C50/60 and from the table's expression above, EN 1992-1-1:2004 Table 3.1.
+func EpsCu3Step(id string, c Concrete, fck trace.Q) trace.Step {
+	const title = "Ultimate compressive strain, bilinear relation and rectangular block"
+	if c.Fck <= 50 {
+		return trace.Table(id, title, ec2+"Table 3.1", c.Class+", εcu3 = 3.5 ‰", "ε_cu3", "", c.EpsCu3)
+	}
+	return trace.Formula(id, title, ec2+"Table 3.1", "ε_cu3", "", c.EpsCu3,
+		"(2.6 + 35 * ((90 - f_ck) / 100) ** 4) / 1000", trace.A("f_ck", fck))
+}
+
 // LambdaStep returns λ, the depth factor of the rectangular block, EN 1992-1-1:2004 3.1.7(3), Eq. (3.19)-(3.20).
 func LambdaStep(id string, c Concrete, fck trace.Q) trace.Step {
 	if c.Fck <= 50 {

@@ -316,26 +316,17 @@ type Layer struct {
 	Count int     // bars in the row
 }
 
-// ReinforcementGyration returns is = √(Σ n·c²/Σ n), the radius of gyration of the total
-// reinforcement of equal bars about the centroid, EN 1992-1-1:2004 5.8.8.3(2).
-func ReinforcementGyration(id string, layers []Layer) trace.Step {
-	expr := "sqrt(("
-	sum := ""
-	args := make([]trace.Arg, 0, 2*len(layers))
-	for i, l := range layers {
-		c, n := "c"+itoa(i+1), "n"+itoa(i+1)
-		if i > 0 {
-			expr += " + "
-			sum += " + "
-		}
-		expr += n + " * " + c + " ** 2"
-		sum += n
-		args = append(args, trace.A(n, trace.Const(float64(l.Count), "n_"+itoa(i+1), "")),
-			trace.A(c, trace.Const(l.Coord, "c_"+itoa(i+1), "mm")))
-	}
-	expr += ") / (" + sum + "))"
+// ReinforcementGyration returns is, the radius of gyration of the total reinforcement about the
+// centroid, EN 1992-1-1:2004 5.8.8.3(2), for equal bars in m rows evenly spaced between the two
+// outer rows at ±c, n_o bars in each outer row and two in each row between:
+// is = c·√((n_o + m(m + 1)/(3(m − 1)) − 2)/(n_o + m − 2)), which is √(Σ n·c²/Σ n) summed in
+// closed form (the mean square of m evenly spaced points on [−1, 1] is (m + 1)/(3(m − 1))).
+func ReinforcementGyration(id string, edge, outer, rows trace.Q) trace.Step {
 	return trace.Formula(id, "Radius of gyration of the reinforcement", ec2+"5.8.8.3(2)", "i_s", "mm",
-		GyrationValue(layers), expr, args...)
+		SymmetricGyrationValue(edge.V, outer.V, rows.V),
+		"c * sqrt((n_o + m * (m + 1) / (3 * (m - 1)) - 2) / (n_o + m - 2))",
+		trace.A("c", edge), trace.A("n_o", outer), trace.A("m", rows)).
+		Note("c: distance of the outer rows of bars from the centroid; n_o: bars in each outer row; m: rows of bars, evenly spaced, two bars in each row between the outer ones.")
 }
 
 func itoa(i int) string {

@@ -99,3 +99,31 @@ func TestClauseFormulas(t *testing.T) {
 		}
 	}
 }
+
+// EN 1992-1-1:2004 5.8.8.3(2): is = √(Σ n·c²/Σ n) over the rows of equal bars. The traced step
+// takes the outer rows' distance and the bar counts from their steps and sums the evenly spaced
+// rows in closed form; it must equal the row-by-row sum for every symmetric pattern.
+func TestReinforcementGyration(t *testing.T) {
+	// Eight bars, three on each face at ±190 mm and two on the axis: is² = 6·190²/8 (by hand).
+	s := ReinforcementGyration("i_s", trace.Step{ID: "bars/z_c", Unit: "mm", Value: 190}.Q(),
+		trace.Step{ID: "bars/nb", Value: 3}.Q(), trace.Step{ID: "bars/nh", Value: 3}.Q())
+	near(t, "is 8 bars", s.Value, math.Sqrt(6*190*190/8.0), 1e-12)
+	if err := trace.Recheck(s, 1e-9); err != nil {
+		t.Error(err)
+	}
+	for _, a := range s.Args {
+		if a.From == "" {
+			t.Errorf("argument %s enters as a bare number", a.Name)
+		}
+	}
+	for m := 2; m <= 9; m++ {
+		for no := 2; no <= 7; no++ {
+			const c = 157.0
+			layers := []Layer{{c, no}, {-c, no}}
+			for i := 1; i < m-1; i++ {
+				layers = append(layers, Layer{-c + 2*c*float64(i)/float64(m-1), 2})
+			}
+			near(t, "is m="+itoa(m)+" n_o="+itoa(no), SymmetricGyrationValue(c, float64(no), float64(m)), GyrationValue(layers), 1e-12)
+		}
+	}
+}

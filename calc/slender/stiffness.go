@@ -174,6 +174,16 @@ func MagnifiedMoment(id string, m0Ed, factor trace.Q) trace.Step {
 	return s
 }
 
+// DesignMomentStiffness returns the design moment of the nominal stiffness method, the magnified
+// moment of (5.28) but not less than the larger end moment with its imperfection nor NEd·e0:
+// MEd = max{M_mag, M0Ed, NEd·e0}, EN 1992-1-1:2004 5.8.7.3(1)-(2); 5.8.8.2(2); 6.1(4).
+func DesignMomentStiffness(id string, mMag, m0Ed, nEd, e0 trace.Q) trace.Step {
+	return trace.Formula(id, "Design moment (nominal stiffness), not less than the end moment nor N_Ed·e_0", ec2+"5.8.7.3(1)-(2); 5.8.8.2(2); 6.1(4)",
+		"M_Ed", "Nmm", DesignMomentStiffnessValue(mMag.V, m0Ed.V, nEd.V, e0.V), "max(M_mag, M_0Ed, N_Ed * e_0)",
+		trace.A("M_mag", mMag), trace.A("M_0Ed", m0Ed), trace.A("N_Ed", nEd), trace.A("e_0", e0)).
+		Note("M_mag: the magnified equivalent moment of (5.28); M_0Ed: the larger end moment with the imperfection, which the second-order moment at mid-height does not reduce.")
+}
+
 // BucklingCheck returns the check NEd < NB with the ratio NEd/NB; it fails when NEd ≥ NB, since the
 // magnification of (5.28) is then unbounded, EN 1992-1-1:2004 5.8.7.3(1), Eq. (5.28).
 func BucklingCheck(id string, nEd, nB trace.Q) trace.Step {
@@ -253,6 +263,11 @@ func MagnificationValue(beta, nB, nEd float64) (float64, bool) {
 
 // MagnifiedMomentValue returns MEd = M0Ed·factor; see MagnifiedMoment.
 func MagnifiedMomentValue(m0Ed, factor float64) float64 { return m0Ed * factor }
+
+// DesignMomentStiffnessValue returns max{M_mag, M0Ed, NEd·e0}; see DesignMomentStiffness.
+func DesignMomentStiffnessValue(mMag, m0Ed, nEd, e0 float64) float64 {
+	return math.Max(math.Max(mMag, m0Ed), nEd*e0)
+}
 
 // BucklingRatioValue returns NEd/NB, or 1 when NB ≤ 0 < NEd and 0 when NB ≤ 0 and NEd ≤ 0; see BucklingCheck.
 func BucklingRatioValue(nEd, nB float64) float64 {

@@ -66,6 +66,13 @@ func TestStiffnessFormulas(t *testing.T) {
 		{"factor tension", Magnification("m", q(1.2337), q(7e6), q(-5e5)), 1},
 		// EN 1992-1-1:2004 5.8.7.3(1), Eq. (5.28): MEd = 100 kNm·1.544681.
 		{"MEd", MagnifiedMoment("m", q(100e6), q(1.544681023)), 154.4681e6},
+		// The design moment of the method: the magnified moment, not less than the end moment with
+		// its imperfection (5.8.8.2(2): M0e stands for the end moments only between the ends) nor
+		// NEd·e0 (6.1(4)). Magnified 154.4681 kNm governs; end moment 160 kNm governs; NEd·e0 =
+		// 2150 kN · 20 mm = 43 kNm governs.
+		{"MEd stiffness mid", DesignMomentStiffness("m", q(154.4681e6), q(120e6), q(2.15e6), q(20)), 154.4681e6},
+		{"MEd stiffness end", DesignMomentStiffness("m", q(154.4681e6), q(160e6), q(2.15e6), q(20)), 160e6},
+		{"MEd stiffness e0", DesignMomentStiffness("m", q(30e6), q(25e6), q(2.15e6), q(20)), 43e6},
 	}
 	for _, c := range cases {
 		near(t, c.name, c.step.Value, c.want, 1e-6)
@@ -148,5 +155,24 @@ func TestStiffnessRange(t *testing.T) {
 	}
 	if len(KcSimplified("k", q(0.009), q(1)).Cautions) == 0 || len(KcSimplified("k", q(0.01), q(1)).Cautions) != 0 {
 		t.Error("simplified Kc caution should mark ρ < 0.01 only")
+	}
+}
+
+// The arguments of the design moment of the nominal stiffness method are named for what they
+// carry: the magnified moment is M_mag, the end moment with its imperfection M_0Ed
+// (EN 1992-1-1:2004 5.8.7.3(1), Eq. (5.28); 5.8.8.2(2)).
+func TestDesignMomentStiffnessArgs(t *testing.T) {
+	mag := trace.Step{ID: "y/M_mag", Symbol: "M_Ed", Unit: "Nmm", Value: 154.4681e6}.Q()
+	end := trace.Step{ID: "y/M02i", Symbol: "M_02,y", Unit: "Nmm", Value: 120e6}.Q()
+	s := DesignMomentStiffness("y/MEd_stiff", mag, end, q(2.15e6), q(20))
+	from := map[string]string{}
+	for _, a := range s.Args {
+		from[a.Name] = a.From
+	}
+	if from["M_mag"] != "y/M_mag" || from["M_0Ed"] != "y/M02i" || len(s.Args) != 4 {
+		t.Errorf("arguments %+v: the magnified moment must be M_mag, the end moment M_0Ed", s.Args)
+	}
+	if !trace.ClauseForm(s.Clause) {
+		t.Errorf("clause %q", s.Clause)
 	}
 }

@@ -83,6 +83,12 @@ func BiaxialRatioValue(mEdY, mRdY, mEdZ, mRdZ, a float64) float64 {
 	return math.Pow(mEdZ/mRdZ, a) + math.Pow(mEdY/mRdY, a)
 }
 
+// SymmetricGyrationValue returns is of m evenly spaced rows, n_o bars in each outer row at ±c and
+// two in each row between; see ReinforcementGyration.
+func SymmetricGyrationValue(c, nOuter, m float64) float64 {
+	return c * math.Sqrt((nOuter+m*(m+1)/(3*(m-1))-2)/(nOuter+m-2))
+}
+
 // GyrationValue returns is = √(Σ n·c²/Σ n) of rows of equal bars; see ReinforcementGyration.
 func GyrationValue(layers []Layer) float64 {
 	num, den := 0.0, 0.0
