@@ -2,6 +2,7 @@ package building
 
 import (
 	"fmt"
+	"strings"
 
 	"colsheet/calc/actions"
 	"colsheet/calc/model"
@@ -253,7 +254,7 @@ func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir
 	out := make([]arrAbove, len(sets))
 	lf.narr[d] = make([]trace.Q, len(sets))
 	for si, s := range sets {
-		pre := "arr/" + d.String() + "/" + s.expr + "/"
+		pre := "arr/" + d.String() + "/" + strings.ReplaceAll(s.expr, ".", "") + "/"
 		l.Group = "Design axial force with the moment arrangement about " + axis + ", " + s.label
 		k := lightBeam(lv, d, lf.I, lf.J, lf.Level, s)
 		var ab arrAbove
