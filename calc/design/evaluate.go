@@ -1,6 +1,7 @@
 package design
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -10,6 +11,7 @@ import (
 	"colsheet/calc/detail"
 	"colsheet/calc/fire"
 	"colsheet/calc/model"
+	"colsheet/calc/section"
 	"colsheet/calc/slender"
 	"colsheet/calc/trace"
 )
@@ -331,23 +333,40 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	}
 
 	// The exact resistance along the resultant design moment, with an inclined neutral axis:
-	// beside (5.39) on every sheet, and the check itself when the input asks for it.
+	// beside (5.39) on every sheet, and the check itself when the input asks for it. With
+	// (5.39) in use it is shown for comparison only; where it gives the larger ratio the
+	// design says so in its cautions, and loudly where it exceeds 1.
 	if (full || exact) && mRd[0].V > 0 && mRd[1].V > 0 {
 		theta := math.Atan2(mEds[1].V, mEds[0].V)
+		// The check in use beside the exact resistance when design.biaxial is "5.39": (5.39)
+		// where (5.38) calls for it, else the separate checks about y and z (5.8.9(3)).
+		use := inUse{name: "(5.39)", ratio: d.Biaxial.Ratio, checked: d.Biaxial.Checked}
+		if !d.Biaxial.Checked {
+			use.name = "the separate checks about y and z"
+			use.ratio = math.Max(mEds[0].V/mRd[0].V, mEds[1].V/mRd[1].V)
+		}
 		if st, err := sec.sec.Biaxial(c.nEd.V, theta); err == nil {
 			l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
 			if full {
-				mr, ratio := sec.sec.BiaxialStep(l, "bi/exact/", c.nEd, mEds[0], mEds[1], st)
+				refs := section.Refs{Fcd: c.fcd.From, Eta: c.eta.From}
+				mr, ratio := sec.sec.BiaxialStep(l, "bi/exact/", c.nEd, mEds[0], mEds[1], st, refs)
 				last := l.Last()
 				d.Exact = &Exact{MRd: mr.V, Ratio: ratio.V, Angle: st.Angle, My: st.My, Mz: st.Mz}
 				switch {
 				case exact:
 					checks = append(checks, checked{last.ID, true})
-					*last = last.Note("The exact resistance is the check in use (design.biaxial: exact); (5.39) gives " + which(d.Biaxial.Ratio, ratio.V) + ".")
+					*last = last.Note("The exact section resistance is the check in use (design.biaxial: exact). " + which(d.Biaxial.Ratio, ratio.V))
 				default:
 					last.Kind, last.Verdict, last.Relation = trace.KindFormula, "", ""
-					last.Title = "Biaxial bending, exact section resistance (for comparison; (5.39) is the check in use)"
-					*last = last.Note("(5.39) gives " + which(d.Biaxial.Ratio, ratio.V) + ".")
+					last.Title = "Biaxial bending, exact section resistance (for comparison; " + use.name + " in use)"
+					note, stepCaution, caution := use.beside(ratio.V)
+					*last = last.Note(note)
+					if stepCaution != "" {
+						*last = last.Caution(stepCaution)
+					}
+					if caution != "" {
+						d.Cautions = append(d.Cautions, caution)
+					}
 				}
 			} else {
 				// A trial: the ratio alone, by the same solution, as a check step.
@@ -358,6 +377,15 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		} else if exact {
 			resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance: no solution", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
 				2, "r", trace.A("r", trace.Const(2, "r", ""))).Caution("The inclined neutral axis could not be found: " + err.Error()))
+		} else if full {
+			// Shown for comparison, and not found: the sheet says so, loudly where no inclined
+			// neutral axis carries NEd with the reduced block.
+			l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
+			l.Add(trace.Input("bi/exact/none", "Biaxial bending, exact section resistance: not found (for comparison; "+use.name+" in use)", "EN 1992-1-1:2004 6.1", "found", "", 0).
+				Caution("The inclined neutral axis could not be found: " + err.Error()))
+			if errors.Is(err, section.ErrReducedBlock) {
+				d.Cautions = append(d.Cautions, fmt.Sprintf("Biaxial bending: the section does NOT resist the design moments along their resultant by strain compatibility: with the rectangular block reduced for an inclined neutral axis (EN 1992-1-1:2004 3.1.7(3), note) no strain plane carries NEd, while %s, the check in use by the input's choice (design.biaxial: 5.39), gives %.3f. Consider design.biaxial: exact.", use.name, use.ratio))
+			}
 		}
 	}
 
@@ -460,15 +488,59 @@ func layersOf(pos [][2]float64, k int) []slender.Layer {
 	return out
 }
 
-// which says whether (5.39) is more or less conservative than the exact resistance.
+// which compares the ratio of (5.39) with that of the exact section resistance, the check in
+// use under design.biaxial: exact.
 func which(rule, exact float64) string {
 	switch {
 	case rule > exact*(1+1e-9):
-		return "a larger ratio than the exact resistance: (5.39) is the more conservative here"
+		return "(5.39), shown for comparison, gives a larger ratio: it would be the more conservative here."
 	case rule < exact*(1-1e-9):
-		return "a smaller ratio than the exact resistance: the exact resistance governs here"
+		return "(5.39), shown for comparison, gives a smaller ratio: the exact section resistance is the more conservative here."
 	}
-	return "the same ratio as the exact resistance"
+	return "(5.39), shown for comparison, gives the same ratio."
+}
+
+// inUse is the biaxial check in use under design.biaxial "5.39": (5.39), or the separate
+// checks about y and z where (5.38a) and (5.38b) both hold.
+type inUse struct {
+	name    string  // "(5.39)" or "the separate checks about y and z"
+	ratio   float64 // its ratio: (5.39), or the larger of MEd/MRd about y and z
+	checked bool    // (5.39) is the check
+}
+
+// beside words the exact section resistance, of ratio exact, shown beside the check in use:
+// the note of its step, a caution for the step (no numbers) and one for the design (with
+// both ratios), each empty where there is nothing to caution. Where (5.39) is in use and the
+// exact resistance gives the larger ratio the design is cautioned; where the exact ratio
+// exceeds 1 while the check in use passes, loudly. (5.39) is the check EN 1992-1-1:2004
+// 5.8.9(4) permits; the separate checks, 5.8.9(3).
+func (u inUse) beside(exact float64) (note, stepCaution, caution string) {
+	const tol = 1e-9
+	larger := exact > u.ratio*(1+tol)
+	byChoice := u.name + " is the check in use by the input's choice (design.biaxial: 5.39)"
+	if !u.checked {
+		byChoice = "(5.38a) and (5.38b) both hold, so " + u.name + " are in use (EN 1992-1-1:2004 5.8.9(3)) by the input's choice (design.biaxial: 5.39)"
+	}
+	switch {
+	case larger:
+		than := u.name
+		if !u.checked {
+			than = "the larger of " + u.name
+		}
+		note = "The exact section resistance gives a larger ratio than " + than + "; " + byChoice + "."
+	case exact < u.ratio*(1-tol):
+		note = "The exact section resistance gives a smaller ratio than " + u.name + ", the check in use: " + u.name + " is the more conservative here."
+	default:
+		note = "The exact section resistance gives the same ratio as " + u.name + ", the check in use."
+	}
+	switch {
+	case exact > 1+tol && u.ratio <= 1+tol:
+		stepCaution = "The exact section resistance is exceeded while " + u.name + " passes: the section does not resist the design moments along their resultant by strain compatibility. Consider design.biaxial: exact."
+		caution = fmt.Sprintf("Biaxial bending: the section does NOT resist the design moments along their resultant by strain compatibility: the exact section resistance gives the ratio %.3f > 1, while %s, the check in use by the input's choice (design.biaxial: 5.39), passes at %.3f. Consider design.biaxial: exact.", exact, u.name, u.ratio)
+	case larger && u.checked:
+		caution = fmt.Sprintf("Biaxial bending: the exact section resistance gives a larger ratio (%.3f) than (5.39) (%.3f); (5.39) is the check in use by the input's choice (design.biaxial: 5.39).", exact, u.ratio)
+	}
+	return note, stepCaution, caution
 }
 
 // durability returns the durability data of the column, its own or the project's, or nil.
