@@ -138,7 +138,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		zr := l.Add(detail.LapZoneReduced("lap/zone", phi))
 		d.Detailing.LapLength, d.Detailing.LapZone = l0.V, zr.V == 1
 		l.Group = "Restraint of bars (EN 1992-1-1 9.5.3(6))"
-		d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p)
+		d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p, detail.Traced{B: c.b, H: c.h, Cover: cnom, Link: phiT, Dia: phi, NB: nB, NH: nH})
 	}
 
 	// Slenderness limit and second order, per axis.

@@ -86,21 +86,39 @@ func (g Geometry) Restraint(p Pattern, limit float64) RestraintPlan {
 	return r
 }
 
+// Traced holds the steps that give the section, the cover, the link and the bars, so that the
+// restraint steps name them instead of repeating their values; a field without a step (From
+// empty) is taken from the geometry and the pattern as a number.
+type Traced struct {
+	B, H, Cover, Link, Dia trace.Q // mm
+	NB, NH                 trace.Q // bars along each b-face and each h-face, corners included
+}
+
+// or returns q when a step gives it, else the number v.
+func or(q trace.Q, v float64, symbol, unit string) trace.Q {
+	if q.From != "" {
+		return q
+	}
+	return trace.Const(v, symbol, unit)
+}
+
 // RestraintSteps records the restraint of the pattern's bars for the limit of 9.5.3(6) face by face
 // (bars, spacing, reach, the bars held by extra ties, the farthest bar and its check) and returns
 // the number of extra ties.
-func RestraintSteps(l *trace.Log, prefix string, g Geometry, p Pattern) int {
+func RestraintSteps(l *trace.Log, prefix string, g Geometry, p Pattern, in Traced) int {
 	plan := g.Restraint(p, RestraintLimit)
 	lim := l.Add(trace.Input(prefix+"limit", "Greatest distance of a bar in a compression zone from a restrained bar",
 		ec2+"9.5.3(6)", "s_lim", "mm", RestraintLimit).
 		Note("Measured between bar centres along the face; every face of the column is taken as in compression."))
-	b := trace.Const(g.B, "b", "mm")
-	h := trace.Const(g.H, "h", "mm")
-	cnom := trace.Const(g.Cover, "c_nom", "mm")
-	phiT := trace.Const(g.Link, "φ_t", "mm")
-	phi := trace.Const(p.Dia, "φ", "mm")
-	kB := faceSteps(l, prefix+"b/", "b", "each b-face", plan.AlongB, b, cnom, phiT, phi, lim)
-	kH := faceSteps(l, prefix+"h/", "h", "each h-face", plan.AlongH, h, cnom, phiT, phi, lim)
+	b := or(in.B, g.B, "b", "mm")
+	h := or(in.H, g.H, "h", "mm")
+	cnom := or(in.Cover, g.Cover, "c_nom", "mm")
+	phiT := or(in.Link, g.Link, "φ_t", "mm")
+	phi := or(in.Dia, p.Dia, "φ", "mm")
+	nB := or(in.NB, float64(p.NB), "n_b", "")
+	nH := or(in.NH, float64(p.NH), "n_h", "")
+	kB := faceSteps(l, prefix+"b/", "b", "each b-face", plan.AlongB, b, cnom, phiT, phi, nB, lim)
+	kH := faceSteps(l, prefix+"h/", "h", "each h-face", plan.AlongH, h, cnom, phiT, phi, nH, lim)
 	l.Add(trace.Formula(prefix+"ties", "Extra ties, each across the section between a pair of opposite bars",
 		ec2+"9.5.3(6)", "n_ties", "", float64(plan.Ties), "k_b + k_h", trace.A("k_b", kB), trace.A("k_h", kH)).
 		Note("The perimeter link holds every corner bar; each extra tie holds two opposite intermediate bars."))
@@ -109,8 +127,7 @@ func RestraintSteps(l *trace.Log, prefix string, g Geometry, p Pattern) int {
 
 // faceSteps records the restraint of the bars along one pair of faces and returns the number of
 // intermediate bars held by extra ties on each face.
-func faceSteps(l *trace.Log, prefix, side, faces string, f FaceRestraint, width, cnom, phiT, phi, lim trace.Q) trace.Q {
-	n := l.Add(trace.Input(prefix+"n", "Bars along "+faces+", corners included", "input", "n_"+side, "", float64(f.Bars)))
+func faceSteps(l *trace.Log, prefix, side, faces string, f FaceRestraint, width, cnom, phiT, phi, n, lim trace.Q) trace.Q {
 	s := l.Add(trace.Formula(prefix+"s", "Centre distance between the bars along "+faces, "common practice", "s_"+side, "mm",
 		f.Spacing, "(w - 2 * (c_nom + phi_t + phi / 2)) / (n - 1)",
 		trace.A("w", width), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", n)))

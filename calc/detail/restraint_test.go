@@ -65,7 +65,7 @@ func TestRestraintByHand(t *testing.T) {
 		}
 
 		l := &trace.Log{Prefix: "K1/L1/"}
-		if n := RestraintSteps(l, "restraint/", c.g, c.p); n != c.ties {
+		if n := RestraintSteps(l, "restraint/", c.g, c.p, Traced{}); n != c.ties {
 			t.Errorf("%s: RestraintSteps gives %d ties, want %d", c.name, n, c.ties)
 		}
 		ties := 0

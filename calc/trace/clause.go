@@ -31,6 +31,12 @@ func Given(s Step) bool {
 	return (s.Kind == KindInput || s.Kind == KindTable) && !strings.HasPrefix(s.Clause, ClauseChosen) && s.Clause != ClauseAbove
 }
 
+// Chosen reports whether s records a value the design chose among candidates or took over from
+// another design (an input or table step marked so): a result of the calculation, not an input.
+func Chosen(s Step) bool {
+	return (s.Kind == KindInput || s.Kind == KindTable) && (strings.HasPrefix(s.Clause, ClauseChosen) || s.Clause == ClauseAbove)
+}
+
 // ClauseForm reports whether c is a clause reference in the one form the sheets use.
 func ClauseForm(c string) bool {
 	switch {

@@ -56,3 +56,24 @@ func TestClauseForm(t *testing.T) {
 		}
 	}
 }
+
+// A value given to the calculation (an input or a standard's table value) and a value the design
+// chose or took over from another design are told apart by the clause (DESIGN.md, the trace
+// contract): the revision compare lists the first as inputs and the second as results.
+func TestGivenAndChosen(t *testing.T) {
+	for _, c := range []struct {
+		s             Step
+		given, chosen bool
+	}{
+		{Input("g", "Façade line load", "input", "g", "N/mm", 9.5), true, false},
+		{Table("f", "fck", "EN 1992-1-1:2004 Table 3.1", "C30/37", "f_ck", "MPa", 30), true, false},
+		{Input("n", "Number of bars", ClauseChosen+"the least steel that passes every check", "n", "", 8), false, true},
+		{Input("a", "Bars of the lift above", ClauseAbove, "A_s", "mm2", 1257), false, true},
+		{Formula("F", "Load", "common practice", "F", "N", 1, "w", A("w", Const(1, "w", ""))), false, false},
+		{Check("c", "Check", "EN 1992-1-1:2004 6.1", "a ≤ b", 0.5, "a", A("a", Const(0.5, "a", ""))), false, false},
+	} {
+		if Given(c.s) != c.given || Chosen(c.s) != c.chosen {
+			t.Errorf("%s (%s, %q): Given %v, Chosen %v; want %v, %v", c.s.ID, c.s.Kind, c.s.Clause, Given(c.s), Chosen(c.s), c.given, c.chosen)
+		}
+	}
+}

@@ -67,6 +67,7 @@ func Compare(oldDir, newDir string) (*Changes, error) {
 		}
 		c.inputs(o, n)
 		c.results(o, n)
+		c.choices(o, n)
 	}
 	for i := range oldRes.Designs {
 		o := &oldRes.Designs[i]
@@ -114,25 +115,34 @@ func outcome(d *resultsCase) string {
 	return "status " + d.Status + ", utilization " + number(d.Utilization, 4)
 }
 
-// inputs adds a row for every input or table step of o and n whose value differs, matched by step ID.
-func (c *Changes) inputs(o, n *resultsCase) {
+// inputs adds a row for every input or table step of o and n whose value differs, matched by step
+// ID: the values given to the calculation (trace.Given).
+func (c *Changes) inputs(o, n *resultsCase) { c.steps(o, n, "input", trace.Given) }
+
+// choices adds a row for every value the design chose or took over from another design
+// (trace.Chosen) that differs: results of the calculation, never listed as inputs.
+func (c *Changes) choices(o, n *resultsCase) { c.steps(o, n, "result", trace.Chosen) }
+
+// steps adds a row, labelled with kind, for every step of o and n that keep selects and whose
+// value or unit differs, or that only one of them holds, matched by step ID.
+func (c *Changes) steps(o, n *resultsCase, kind string, keep func(trace.Step) bool) {
 	prefix := n.Column + "/" + n.Lift + "/"
 	olds := map[string]trace.Step{}
 	for _, s := range o.Trace {
-		if trace.Given(s) {
+		if keep(s) {
 			olds[s.ID] = s
 		}
 	}
 	news := map[string]bool{}
 	item := func(s trace.Step) string {
-		label := "input " + code(strings.TrimPrefix(s.ID, prefix)) + ": " + escape(s.Title)
+		label := kind + " " + code(strings.TrimPrefix(s.ID, prefix)) + ": " + escape(s.Title)
 		if s.Symbol != "" {
 			label += ", " + escape(s.Symbol)
 		}
 		return label
 	}
 	for _, s := range n.Trace {
-		if !trace.Given(s) {
+		if !keep(s) {
 			continue
 		}
 		news[s.ID] = true
@@ -146,7 +156,7 @@ func (c *Changes) inputs(o, n *resultsCase) {
 		}
 	}
 	for _, s := range o.Trace {
-		if trace.Given(s) && !news[s.ID] {
+		if keep(s) && !news[s.ID] {
 			c.add(n, item(s), quantity(s.Value, s.Unit), none)
 		}
 	}

@@ -5,6 +5,10 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"colsheet/calc/design"
+	yamlinput "colsheet/calc/input"
+	"colsheet/reports"
 )
 
 // Compare lists the changed input and results of exactly the design whose load changed, and the input hashes.
@@ -107,5 +111,137 @@ func TestPairFormats(t *testing.T) {
 	}
 	if got := escape("a|b_c*d"); got != `a\|b\_c\*d` {
 		t.Errorf("escape = %q", got)
+	}
+}
+
+// compareBuilding is a small building form with a façade load on grid line A at level L1; every
+// number is invented test input.
+const compareBuilding = `project: {title: Compare test, job: C-1, revision: A, designer: A. Berg, checker: C. Dahl}
+materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}
+design: {bar_diameters: [BARS]}
+building:
+  storeys:
+    - {name: L1, height: 3.5 m}
+    - {name: R, height: 3.2 m}
+  grid: {x: [6.0 m, 6.0 m], y: [5.0 m]}
+  columns: {b: 300 mm, h: 300 mm, cover: 35 mm}
+  beams: {b: 300 mm, h: 500 mm}
+  floors:
+    - {levels: [L1], gk: 6.0 kN/m2, qk: 2.5 kN/m2, category: B, spans: y}
+    - {levels: [R], gk: 4.0 kN/m2, qk: 0.6 kN/m2, category: H, spans: y}
+  line_loads:
+    - {levels: [L1], line: A, gk: FACADE}
+  base: fixed
+`
+
+// designBundle designs the building with the given façade load and bar diameters and writes
+// its results.json to a new folder (a package written by design, without a manifest).
+func designBundle(t *testing.T, facade, bars string) string {
+	t.Helper()
+	src := strings.NewReplacer("FACADE", facade, "BARS", bars).Replace(compareBuilding)
+	in, err := yamlinput.Parse("compare.yaml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := design.Run(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := reports.JSON(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := filepath.Join(t.TempDir(), "bundle")
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, ResultsName), b, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return dir
+}
+
+// A changed façade load is a changed input of exactly the lifts whose beams carry it (the beam
+// A1–A2 on line A at level L1 bears on A1 and A2), and the designs it changes show it in their
+// results; values chosen by the design are never listed as inputs (DESIGN.md, the trace contract).
+func TestCompareFacadeLoad(t *testing.T) {
+	c, err := Compare(designBundle(t, "9.5 kN/m", "16, 20"), designBundle(t, "14 kN/m", "16, 20"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := map[string]Change{}
+	for _, r := range c.Rows {
+		if strings.HasPrefix(r.Item, "input ") {
+			if _, dup := got[r.Column+"/"+r.Lift]; dup {
+				t.Errorf("%s/%s: more than one changed input: %+v", r.Column, r.Lift, r)
+			}
+			got[r.Column+"/"+r.Lift] = r
+		}
+	}
+	for _, key := range []string{"A1/L1", "A2/L1"} {
+		r, ok := got[key]
+		want := "input `td/L1/A1–A2/g_line1`: Permanent line load 1 of the input, on grid line A, g\\_line,1"
+		if !ok || r.Item != want || r.Old != "9.5 kN/m" || r.New != "14 kN/m" {
+			t.Errorf("%s: changed input %+v, want %q 9.5 kN/m → 14 kN/m", key, r, want)
+		}
+	}
+	if len(got) != 2 {
+		t.Errorf("changed inputs on %d lifts, want 2 (A1/L1, A2/L1): %+v", len(got), got)
+	}
+	// The heavier façade raises NEd of the lifts below it.
+	for _, key := range []string{"A1/L1", "A2/L1"} {
+		found := false
+		for _, r := range c.Rows {
+			found = found || (r.Column+"/"+r.Lift == key && r.Item == "result N\\_Ed")
+		}
+		if !found {
+			t.Errorf("%s: NEd not listed as a changed result", key)
+		}
+	}
+}
+
+// Bars designed from another list of diameters change what the design chose (the bars, their
+// arrangement, the links and what follows from them), never an input: the rows are results.
+func TestCompareDesignedValues(t *testing.T) {
+	c, err := Compare(designBundle(t, "9.5 kN/m", "12, 16, 20"), designBundle(t, "9.5 kN/m", "20, 25"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	chosen := 0
+	for _, r := range c.Rows {
+		if strings.HasPrefix(r.Item, "input ") {
+			t.Errorf("%s/%s: a designed value listed as a changed input: %+v", r.Column, r.Lift, r)
+		}
+		if strings.HasPrefix(r.Item, "result `bars/") || strings.HasPrefix(r.Item, "result `links/") {
+			chosen++
+		}
+	}
+	if chosen == 0 {
+		t.Errorf("no changed choice of the design listed as a result:\n%s", c.Markdown())
+	}
+}
+
+// A value the design chose (clause "chosen: …") that differs between two packages is a result.
+func TestCompareChosenIsResult(t *testing.T) {
+	small := readTree(t, filepath.Join("testdata", "small"))
+	a, b := writeBundle(t, small), writeBundle(t, small)
+	for _, dir := range []string{a, b} {
+		count := 8.0
+		if dir == b {
+			count = 12
+		}
+		editResults(t, dir, func(d []any) {
+			tr := d[0].(map[string]any)["trace"].([]any)
+			d[0].(map[string]any)["trace"] = append(tr, map[string]any{"id": "K1/L2/bars/count", "title": "Number of bars",
+				"clause": "chosen: the least steel that passes every check", "kind": "input", "symbol": "n_bars", "value": count})
+		})
+	}
+	c, err := Compare(a, b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := Change{"K1", "L2", "result `bars/count`: Number of bars, n\\_bars", "8", "12"}
+	if len(c.Rows) != 1 || c.Rows[0] != want {
+		t.Errorf("rows %+v, want %+v", c.Rows, want)
 	}
 }
