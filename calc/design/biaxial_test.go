@@ -168,7 +168,7 @@ func TestExactBesideSeparateChecks(t *testing.T) {
 		t.Fatalf("test case lost: exact %.4f, separate %.4f, utilisation %.4f", d.Exact.Ratio, sep, d.Utilization)
 	}
 	if s.Kind != trace.KindFormula || !strings.Contains(s.Title, "for comparison; the separate checks about y and z in use") ||
-		!hasText(s.Notes, "The exact section resistance gives a larger ratio than the larger of the separate checks about y and z; (5.38a) and (5.38b) both hold, so the separate checks about y and z are in use (EN 1992-1-1:2004 5.8.9(3))") ||
+		!hasText(s.Notes, "The exact section resistance gives a larger ratio than the larger of the separate checks about y and z; (5.38a) and (5.38b) both hold, so with design.biaxial: 5.39, the input's choice, the separate checks about y and z are in use (EN 1992-1-1:2004 5.8.9(3)).") ||
 		biaxialCautions(d) != 0 {
 		t.Errorf("exact step %q, notes %q, cautions %q", s.Title, s.Notes, d.Cautions)
 	}

@@ -519,7 +519,7 @@ func (u inUse) beside(exact float64) (note, stepCaution, caution string) {
 	larger := exact > u.ratio*(1+tol)
 	byChoice := u.name + " is the check in use by the input's choice (design.biaxial: 5.39)"
 	if !u.checked {
-		byChoice = "(5.38a) and (5.38b) both hold, so " + u.name + " are in use (EN 1992-1-1:2004 5.8.9(3)) by the input's choice (design.biaxial: 5.39)"
+		byChoice = "(5.38a) and (5.38b) both hold, so with design.biaxial: 5.39, the input's choice, " + u.name + " are in use (EN 1992-1-1:2004 5.8.9(3))"
 	}
 	switch {
 	case larger:

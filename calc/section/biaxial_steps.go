@@ -76,7 +76,7 @@ func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q
 	ratioV := medV / math.Max(mrdV, 1)
 	ratio = log.Add(trace.Check(id+"check", "Biaxial bending, exact section resistance", clauseBiax, "M_Ed ≤ M_Rd", ratioV,
 		"M_Ed / max(M_Rd, 1)", trace.A("M_Ed", med), trace.A("M_Rd", mRd)).
-		Note("An accurate section design for biaxial bending, in place of the simplified criterion of EN 1992-1-1:2004 5.8.9(4), Eq. (5.39)."))
+		Note("An accurate section design for biaxial bending; EN 1992-1-1:2004 5.8.9(4) offers the simplified criterion, Eq. (5.39), as the alternative."))
 	return mRd, ratio
 }
 
