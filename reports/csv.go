@@ -69,7 +69,7 @@ func cell(s string) string {
 
 // ScheduleHeader names the columns of the column schedule.
 var ScheduleHeader = []string{"column", "lift", "b_mm", "h_mm", "bars", "As_prov_mm2", "link_dia_mm", "link_spacing_mm",
-	"link_spacing_reduced_mm", "reduced_zone_mm", "reduced_over_laps", "lap_length_mm", "extra_ties", "cover_mm",
+	"link_spacing_reduced_mm", "reduced_zone_mm", "reduced_over_laps", "lap_length_mm", "lap_links", "lap_link_spacing_mm", "extra_ties", "cover_mm",
 	"cover_required_mm", "fire_rating", "fire", "utilization", "status", "governing"}
 
 // Schedule returns the column schedule, one row per column and lift, for the drawing office.
@@ -94,12 +94,20 @@ func scheduleRow(d design.Design, esc func(string) string) []string {
 			fire = "passes"
 		}
 	}
+	// The links within the lap length at their spacing; none where they were not detailed.
+	optInt := func(k int, spacing float64) string {
+		if spacing <= 0 {
+			return "–"
+		}
+		return strconv.Itoa(k)
+	}
 	laps := "no"
 	if d.Detailing.LapZone {
 		laps = "yes"
 	}
 	return []string{esc(d.Column), esc(d.Storey), n(d.B), n(d.H), fmt.Sprintf("%d × %s mm", d.Bars.Count, n(d.Bars.Dia)), n(math.Round(d.AsProv)),
 		n(d.Links.Dia), n(d.Links.Spacing), n(d.Links.SpacingReduced), n(d.Detailing.ZoneLength), laps, opt(d.Detailing.LapLength),
+		optInt(d.Detailing.LapLinks, d.Detailing.LapLinkSpacing), opt(d.Detailing.LapLinkSpacing),
 		strconv.Itoa(d.Detailing.ExtraTies), n(d.Cover), opt(d.Detailing.CoverRequired), rating, fire,
 		fmtNum(d.Utilization).plain(), d.Status, esc(d.Governing)}
 }

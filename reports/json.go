@@ -85,6 +85,8 @@ type jsonLinks struct {
 	Dia            float64 `json:"dia_mm"`
 	Spacing        float64 `json:"spacing_mm"`
 	SpacingReduced float64 `json:"spacing_reduced_mm"`
+	SpacingLap     float64 `json:"spacing_lap_mm"` // over the laps, 8.7.4 and 9.5.3(4); 0 where not detailed
+	LapCount       int     `json:"lap_count"`      // links within the lap length; one more lies beyond each end
 }
 
 type jsonDesign struct {
@@ -199,8 +201,9 @@ func JSON(r *design.Result) ([]byte, error) {
 			Axes:    jsonAxes{Y: axisJSON(d.Y), Z: axisJSON(d.Z)},
 			Biaxial: jsonBiaxial{Checked: d.Biaxial.Checked, A: d.Biaxial.A, Ratio: d.Biaxial.Ratio},
 			AsReq:   d.AsReq, AsMin: d.AsMin, AsMax: d.AsMax, AsProv: d.AsProv,
-			Bars:        jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
-			Links:       jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced},
+			Bars: jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
+			Links: jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
+				SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks},
 			Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
 			NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
 		})
@@ -253,7 +256,7 @@ func finiteResult(r *design.Result) error {
 		id := d.Column + "/" + d.Storey
 		if err := check("design "+id, d.B, d.H, d.Cover, d.Fck, d.Fyk, d.NEd, d.AsReq, d.AsMin, d.AsMax,
 			d.AsProv, d.NRdMax, d.Utilization, d.Biaxial.A, d.Biaxial.Ratio, d.Bars.Dia, d.Links.Dia,
-			d.Links.Spacing, d.Links.SpacingReduced); err != nil {
+			d.Links.Spacing, d.Links.SpacingReduced, d.Detailing.LapLinkSpacing); err != nil {
 			return err
 		}
 		for k, a := range []design.Axis{d.Y, d.Z} {

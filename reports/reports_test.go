@@ -305,7 +305,7 @@ func TestJSONContract(t *testing.T) {
 		{"axis z", d0["axes"].(map[string]any)["z"], axis},
 		{"biaxial", d0["biaxial"], []string{"a", "checked", "ratio"}},
 		{"bars", d0["bars"], []string{"count", "dia_mm", "positions_mm"}},
-		{"links", d0["links"], []string{"dia_mm", "spacing_mm", "spacing_reduced_mm"}},
+		{"links", d0["links"], []string{"dia_mm", "spacing_mm", "spacing_reduced_mm", "spacing_lap_mm", "lap_count"}},
 	}
 	for _, tc := range tests {
 		m, ok := tc.obj.(map[string]any)

@@ -334,7 +334,7 @@ func assembleMoments(lifts []Lift, ends [][2]endQ) {
 			// joint below may bend it in single curvature, which the design checks too.
 			if alt := ends[m][d].botAlt; alt.From != "" && tq.V*bq.V < 0 && tq.V*alt.V < 0 {
 				lifts[m].Src.BotAlt[d] = l.Add(trace.Formula("mom/"+axis+"/bot_alt", "Moment at the bottom of the lift about "+axis+", the other side loaded at the joint below (single curvature)",
-					"common practice; EN 1992-1-1:2004 5.1.3", "M_bot,"+axis+",alt", "Nmm", -alt.V, "-M_i", trace.A("M_i", alt)).
+					"EN 1992-1-1:2004 5.1.3(1)P", "M_bot,"+axis+",alt", "Nmm", -alt.V, "-M_i", trace.A("M_i", alt)).
 					Note("With this arrangement the lift bends in single curvature; the design is checked for it as well."))
 			}
 			// The arrangement's axial force under the same expression as its moments, and the

@@ -130,13 +130,28 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		d.Detailing.CoverRequired = cl.V
 	}
 	// Laps of the bars, EN 1992-1-1:2004 8.4, 8.7; all bars lapped at one section above the floor.
+	// The lap checks are cheap arithmetic: trials make them too (their check steps alone are kept).
+	l.Group = "Laps (EN 1992-1-1 8.4, 8.7)"
+	fctm := l.Add(trace.Table("lap/fctm", "Mean axial tensile strength of concrete", "EN 1992-1-1:2004 Table 3.1",
+		c.in.Materials.Concrete.Class+", fctm", "f_ctm", "MPa", c.in.Materials.Concrete.Fctm))
+	l0, rho1 := detail.Lap(l, "lap/", phi, fctm, param(prm, "gamma_c", ""), c.fyd, true, 100)
+	l.Group = "Arrangement of the laps (EN 1992-1-1 8.7.2)"
+	for _, id := range detail.LapArrangement(l, "lap/", phi, gb, gh, sMin) {
+		checks = append(checks, checked{id, false})
+	}
+	l.Group = "Links at the laps (EN 1992-1-1 8.7.4, 9.5.3(4))"
+	lk := detail.LapLinks(l, "lap/", detail.LapLinkInput{Phi: phi, PhiT: phiT, L0: l0, Rho1: rho1, S: s1, SRed: s2, Step: step,
+		SMinT: func() trace.Q {
+			st := detail.MinClearSpacing("lap/s_min_t", phiT, dg, param(prm, "spacing_k1", ""), param(prm, "spacing_k2", "mm"), param(prm, "spacing_min", "mm"))
+			st.Title = "Minimum clear distance between links, as between bars"
+			return l.Add(st)
+		}})
+	for _, id := range lk.Checks {
+		checks = append(checks, checked{id, false})
+	}
+	d.Detailing.LapLength, d.Detailing.LapZone = l0.V, lk.Reduced
+	d.Detailing.LapLinks, d.Detailing.LapLinkSpacing = lk.Count, lk.Spacing
 	if full {
-		l.Group = "Laps (EN 1992-1-1 8.4, 8.7)"
-		fctm := l.Add(trace.Table("lap/fctm", "Mean axial tensile strength of concrete", "EN 1992-1-1:2004 Table 3.1",
-			c.in.Materials.Concrete.Class+", fctm", "f_ctm", "MPa", c.in.Materials.Concrete.Fctm))
-		l0 := detail.Lap(l, "lap/", phi, fctm, param(prm, "gamma_c", ""), c.fyd, true, 100)
-		zr := l.Add(detail.LapZoneReduced("lap/zone", phi))
-		d.Detailing.LapLength, d.Detailing.LapZone = l0.V, zr.V == 1
 		l.Group = "Restraint of bars (EN 1992-1-1 9.5.3(6))"
 		d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p, detail.Traced{B: c.b, H: c.h, Cover: cnom, Link: phiT, Dia: phi, NB: nB, NH: nH})
 	}

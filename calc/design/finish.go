@@ -76,10 +76,10 @@ func (c *common) noArrangement() Design {
 			c.asMin.V/c.asMax.V, "As_min / As_max", trace.A("As_min", c.asMin), trace.A("As_max", c.asMax))).V
 		d.Reasons = append(d.Reasons, fmt.Sprintf("As,min = %.0f mm² exceeds As,max = %.0f mm²: the section is too small for the axial force.", c.asMin.V, c.asMax.V))
 	} else {
-		d.Utilization = l.Add(unmet("bars/none", "A symmetric bar pattern of the listed diameters that fits the section", "EN 1992-1-1:2004 8.2(2); 9.5.2(2), (3)",
+		d.Utilization = l.Add(unmet("bars/none", "A symmetric bar pattern of the listed diameters that fits the section", "EN 1992-1-1:2004 8.2(2); 8.7.2(3); 9.5.2(2), (3)",
 			"a pattern fits", "No pattern fits: the value 2 only marks the failure.")).V
 	}
-	d.Reasons = append(d.Reasons, "No symmetric pattern of the listed bar diameters between As,min and As,max fits the section with the clear spacing of 8.2(2); enlarge the section or widen the list of diameters.")
+	d.Reasons = append(d.Reasons, "No symmetric pattern of the listed bar diameters between As,min and As,max fits the section with the clear spacing of 8.2(2) and, beside the lapped pairs, of 8.7.2(3); enlarge the section or widen the list of diameters.")
 	d.Steps = l.Steps
 	return d
 }

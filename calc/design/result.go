@@ -126,13 +126,15 @@ type Bars struct {
 
 // Detailing holds what the column schedule gives beside bars and links.
 type Detailing struct {
-	ZoneLength    float64 // mm, length of the zones with the reduced link spacing above and below beams and slabs, 9.5.3(4)
-	LapLength     float64 // mm, lap length of the bars, 8.7.3; 0 when not computed
-	LapZone       bool    // the reduced spacing also applies over the laps (φ > 14 mm), 9.5.3(4)
-	ExtraTies     int     // ties needed besides the perimeter link so that no bar is more than 150 mm from a restrained one, 9.5.3(6)
-	CoverRequired float64 // mm, nominal cover to the links required for durability and bond, 4.4.1; 0 when not computed
-	FireRating    int     // minutes; 0 when no fire check
-	FireOK        bool    // the fire check passes
+	ZoneLength     float64 // mm, length of the zones with the reduced link spacing above and below beams and slabs, 9.5.3(4)
+	LapLength      float64 // mm, lap length of the bars, 8.7.3; 0 when not computed
+	LapZone        bool    // the reduced spacing also applies over the laps (φ > 14 mm), 9.5.3(4)
+	LapLinks       int     // links within the lap length at LapLinkSpacing (one more beyond each end, 8.7.4.2(1)); 0 when not computed
+	LapLinkSpacing float64 // mm, link spacing over the laps, 9.5.3(4) and 8.7.4.1(3), (4); 0 when not computed
+	ExtraTies      int     // ties needed besides the perimeter link so that no bar is more than 150 mm from a restrained one, 9.5.3(6)
+	CoverRequired  float64 // mm, nominal cover to the links required for durability and bond, 4.4.1; 0 when not computed
+	FireRating     int     // minutes; 0 when no fire check
+	FireOK         bool    // the fire check passes
 }
 
 // Links is the transverse reinforcement provided.

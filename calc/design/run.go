@@ -109,6 +109,7 @@ func methods(in *model.Input) []Method {
 		{"Biaxial bending", "criteria (5.38a/b), then (5.39) with a from NEd/NRd", "EN 1992-1-1:2004 5.8.9"},
 		{"Bars", "symmetric patterns with a bar in each corner; the least steel that passes every check", "EN 1992-1-1:2004 9.5.2, 8.2"},
 		{"Links", "diameter, spacing and reduced spacing", "EN 1992-1-1:2004 9.5.3"},
+		{"Laps", "all bars lapped at one section above the floor, each bar of the lift above beside its bar below; the clear distance beside each lapped pair; links over the lap at the reduced spacing, for bars of 20 mm and over with ΣAst ≥ As of one bar in the outer thirds, one more beyond each end", "EN 1992-1-1:2004 8.7.2(3), (4); 8.7.4; 9.5.3(4)"},
 		{"Scope", "isolated columns of braced frames under the given actions; tension columns excluded", "common practice"},
 	}
 	if b := in.Building; b != nil {
@@ -398,7 +399,7 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 	if dv != nil && dv.AsAbove > asLo {
 		asLo = dv.AsAbove
 	}
-	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.sMinFor, asLo, c.asMax.V)
+	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.lappedFit, asLo, c.asMax.V)
 	var best Design
 	found, seen := false, false
 	var lastP detail.Pattern
@@ -528,8 +529,13 @@ func candidatesFor(c *common) []detail.Pattern {
 	if c.col.Bars != nil {
 		return []detail.Pattern{c.givenPattern()}
 	}
-	return detail.Candidates(c.col.B, c.col.H, c.col.Cover, c.in.Options.BarDiameters, c.linkFor, c.sMinFor, c.asMin.V, c.asMax.V)
+	return detail.Candidates(c.col.B, c.col.H, c.col.Cover, c.in.Options.BarDiameters, c.linkFor, c.lappedFit, c.asMin.V, c.asMax.V)
 }
+
+// lappedFit returns the least clear distance between the bars of diameter dia, away from the laps, that
+// leaves the clear distance of EN 1992-1-1:2004 8.2(2) and 8.7.2(3) beside each lapped pair: a pattern
+// whose lapped bars do not fit is not a candidate.
+func (c *common) lappedFit(dia float64) float64 { return detail.LappedFitValue(dia, c.sMinFor(dia)) }
 
 // onAxis returns the step with its symbol marked for bending about axis n ("y" or "z").
 func onAxis(n string, s trace.Step) trace.Step {

@@ -163,7 +163,11 @@ func TestLapConvenience(t *testing.T) {
 	} {
 		l := &trace.Log{Prefix: "K1/L1/"}
 		phi := trace.Const(c.phi, "φ", "mm")
-		got := Lap(l, "lap/", phi, fctm, gc, fyd, c.good, c.rho)
+		got, rho := Lap(l, "lap/", phi, fctm, gc, fyd, c.good, c.rho)
+		near(t, "Lap ρ1", rho.V, c.rho, 0)
+		if rho.From != "K1/L1/lap/rho1" {
+			t.Errorf("ρ1 from %q", rho.From)
+		}
 		near(t, "Lap l0", got.V, c.want, 0.01)
 		near(t, "LapValue", LapValue(c.phi, 2.9, 1.5, 500/1.15, c.good, c.rho), got.V, 1e-9*got.V)
 		if len(l.Steps) != 11 {
@@ -183,38 +187,166 @@ func TestLapConvenience(t *testing.T) {
 
 func TestLapLinks(t *testing.T) {
 	mm := func(v float64) trace.Q { return trace.Const(v, "x", "mm") }
+	sMinT := func() trace.Q { return mm(25) } // EN 1992-1-1:2004 8.2(2) for φt 8, dg 20: max(1 × 8, 20 + 5, 20) = 25 mm
+	type want struct {
+		reduced, transverse float64
+		nReq, sMax, s       float64 // links needed per outer third (0: not computed), greatest and provided spacing
+		links, third        float64 // links in the lap, in each outer third (0: not computed)
+		ratioAst            float64 // As/ΣAst (0: not computed)
+		checks              []string
+		verdict             string // of every check
+	}
 	cases := []struct {
-		name               string
-		phi, l0, s, sRed   float64
-		reach, reduced, sl float64
-		links              float64
-		verdict            string
+		name                        string
+		phi, phiT, l0, rho, s, sRed float64
+		step                        float64
+		w                           want
 	}{
-		// EN 1992-1-1:2004 8.7.4.2(1): one link within 4φ outside each lap end, 4 × 20 = 80 mm.
-		// 9.5.3(4): φ 20 > 14 mm, spacing reduced to 0.6 × 300 = 180 mm at the lap;
-		// floor(1071 / 180) = 5 links ≥ 3 (by hand).
-		{"φ20", 20, 1071, 300, 180, 80, 1, 180, 5, trace.Pass},
-		// φ 12 ≤ 14 mm: no reduction, spacing 240 mm; a 200 mm lap holds floor(200/240) = 0 links < 3.
-		{"φ12 short lap", 12, 200, 240, 144, 48, 0, 240, 0, trace.Fail},
-		// φ 14 is not above 14 mm: no reduction; floor(720/240) = 3 links, just enough.
-		{"φ14", 14, 720, 240, 144, 56, 0, 240, 3, trace.Pass},
+		// EN 1992-1-1:2004 9.5.3(4): φ20 > 14 mm, the spacing is reduced (0.6 × 300 = 180 mm). 8.7.4.1(3):
+		// φ ≥ 20 mm, all bars lapped: ΣAst ≥ As = π·20²/4 = 314.16 mm²; one leg of φ8 (50.27 mm²) per link
+		// parallel to the layer; 8.7.4.1(4), Fig. 8.9: ΣAst/2 in each outer third, 157.08/50.27 = 3.125 → 4
+		// links. l0 = 1070.895 mm (C30/37, TestAnchorageAndLap): s ≤ 1070.895/12 = 89.24 mm, below 150 mm and
+		// 180 mm; rounded down to 5 mm: 85 mm. floor(1070.895/85) = 12 links in the lap ≥ 3;
+		// floor(356.965/85) = 4 per third, ΣAst = 8 × 50.27 = 402.12 mm², As/ΣAst = 400/512 = 0.78125 (by hand).
+		{"φ20, links φ8", 20, 8, 1070.895, 100, 300, 180, 5,
+			want{1, 1, 4, 1070.895 / 12, 85, 12, 4, 0.78125, []string{"links_check", "check_s_t", "check_Ast"}, trace.Pass}},
+		// φ20 with links φ10 (78.54 mm²): 157.08/78.54 = 2 links per third exactly; l0/6 = 178.5 mm, so the
+		// 150 mm of Fig. 8.9 governs (from memory of the figure). floor(1070.895/150) = 7 in the lap,
+		// floor(356.965/150) = 2 per third: ΣAst = 4 × 78.54 = 314.16 mm² = As, ratio 1 (by hand).
+		{"φ20, links φ10", 20, 10, 1070.895, 100, 300, 240, 1,
+			want{1, 1, 2, 150, 150, 7, 2, 1, []string{"links_check", "check_s_t", "check_Ast"}, trace.Pass}},
+		// EN 1992-1-1:2004 8.7.4.1(2): fewer than 25 % of the bars lapped at one section, the links for
+		// other reasons suffice; 9.5.3(4) still reduces the spacing: min(180, 1070.895/3) = 180 mm, 5 links.
+		{"φ20, 20 % lapped", 20, 8, 1070.895, 20, 300, 180, 1,
+			want{1, 0, 0, 180, 180, 5, 0, 0, []string{"links_check"}, trace.Pass}},
+		// φ16: 8.7.4.1(2), φ < 20 mm; 9.5.3(4) reduced spacing 192 mm (test input), a 500 mm lap (test input)
+		// needs three links: min(192, 500/3 = 166.7) rounded down to 5 mm = 165 mm, floor(500/165) = 3.
+		{"φ16 short lap", 16, 6, 500, 100, 320, 192, 5,
+			want{1, 0, 0, 500.0 / 3, 165, 3, 0, 0, []string{"links_check"}, trace.Pass}},
+		// φ12 ≤ 14 mm: 9.5.3(4) neither reduces the spacing nor asks for three links; floor(616/240) = 2.
+		{"φ12", 12, 6, 616, 100, 240, 144, 1,
+			want{0, 0, 0, 240, 240, 2, 0, 0, nil, trace.Pass}},
+		// The step of the spacings (100 mm, test input) leaves no spacing below 89.24 mm: the links cannot be
+		// detailed and the design fails loudly (common practice, no source).
+		{"step too coarse", 20, 8, 1070.895, 100, 300, 180, 100,
+			want{1, 1, 4, 1070.895 / 12, 0, 0, 0, 0, []string{"check_s"}, trace.Fail}},
 	}
 	for _, c := range cases {
 		l := &trace.Log{}
-		sl := LapLinks(l, "lap/", mm(c.phi), mm(c.l0), mm(c.s), mm(c.sRed))
-		for _, s := range l.Steps {
-			recheck(t, s)
-		}
+		plan := LapLinks(l, "lap/", LapLinkInput{Phi: mm(c.phi), PhiT: mm(c.phiT), L0: mm(c.l0), Rho1: trace.Const(c.rho, "ρ_1", ""),
+			S: mm(c.s), SRed: mm(c.sRed), Step: mm(c.step), SMinT: sMinT})
 		byID := map[string]trace.Step{}
 		for _, s := range l.Steps {
+			recheck(t, s)
+			if !trace.ClauseForm(s.Clause) {
+				t.Errorf("%s: clause %q", s.ID, s.Clause)
+			}
 			byID[s.ID] = s
 		}
-		near(t, c.name+" end link reach", byID["lap/end_link"].Value, c.reach, 1e-12)
-		near(t, c.name+" reduced", byID["lap/reduced"].Value, c.reduced, 0)
-		near(t, c.name+" spacing at laps", sl.V, c.sl, 0)
-		near(t, c.name+" links in lap", byID["lap/n_links"].Value, c.links, 0)
-		if v := byID["lap/links_check"].Verdict; v != c.verdict {
-			t.Errorf("%s: verdict %s, want %s", c.name, v, c.verdict)
+		val := func(id string) float64 { return byID["lap/"+id].Value }
+		w := c.w
+		near(t, c.name+" reduced", val("zone"), w.reduced, 0)
+		near(t, c.name+" transverse", val("transverse"), w.transverse, 0)
+		near(t, c.name+" links needed per third", val("n_third_req"), w.nReq, 0)
+		near(t, c.name+" greatest spacing", val("s_max"), w.sMax, 1e-9)
+		near(t, c.name+" spacing", val("s"), w.s, 0)
+		near(t, c.name+" plan spacing", plan.Spacing, w.s, 0)
+		near(t, c.name+" links in lap", val("n_links"), w.links, 0)
+		near(t, c.name+" plan count", float64(plan.Count), w.links, 0)
+		near(t, c.name+" links per third", val("n_third"), w.third, 0)
+		near(t, c.name+" As/ΣAst", val("check_Ast"), w.ratioAst, 1e-9)
+		if w.s > 0 {
+			// EN 1992-1-1:2004 8.7.4.2(1): one link within 4φ beyond each end of a compression lap.
+			near(t, c.name+" end link reach", val("end_link"), 4*c.phi, 1e-12)
 		}
+		if plan.Reduced != (w.reduced == 1) || plan.Transverse != (w.transverse == 1) {
+			t.Errorf("%s: plan %+v", c.name, plan)
+		}
+		if len(plan.Checks) != len(w.checks) {
+			t.Errorf("%s: checks %v, want %v", c.name, plan.Checks, w.checks)
+			continue
+		}
+		for i, id := range plan.Checks {
+			if id != "lap/"+w.checks[i] {
+				t.Errorf("%s: check %s, want lap/%s", c.name, id, w.checks[i])
+			}
+			if v := byID[id].Verdict; v != w.verdict {
+				t.Errorf("%s: %s verdict %s, want %s", c.name, id, v, w.verdict)
+			}
+		}
+	}
+	// EN 1992-1-1:2004 8.7.4.1(3): the area of one lapped bar governs the links; ceil(As/2/Ast) by hand for
+	// φ25 with φ8 links, 245.44/50.27 = 4.88 → 5, and φ32 with φ8, 402.12/50.27 = 8 exactly.
+	near(t, "links per third φ25/φ8", LapLinksPerThirdValue(math.Pi*625/4, math.Pi*64/4, 1), 5, 0)
+	near(t, "links per third φ32/φ8", LapLinksPerThirdValue(math.Pi*1024/4, math.Pi*64/4, 1), 8, 0)
+}
+
+func TestLapArrangement(t *testing.T) {
+	mm := func(v float64) trace.Q { return trace.Const(v, "x", "mm") }
+	cases := []struct {
+		name              string
+		b, cover, link    float64
+		phi, n, sMin      float64
+		gap, gapMin       float64
+		verdict, verdict0 string // with the lap, and by 8.2(2) alone
+	}{
+		// 350 wide, cover 40, links φ8, three φ20 along the face: clear (350 − 2 × 58)/2 − 20 = 97 mm; the
+		// lapped pair leaves 97 − 20 = 77 mm ≥ max(25, 2 × 20, 20) = 40 mm (EN 1992-1-1:2004 8.2(2),
+		// 8.7.2(3), by hand).
+		{"φ20 in 350", 350, 40, 8, 20, 3, 25, 77, 40, trace.Pass, trace.Pass},
+		// 300 wide, three φ32: clear (300 − 2 × 64)/2 − 32 = 54 mm ≥ 32 mm of 8.2(2) (k1·φ), but the pair leaves
+		// 54 − 32 = 22 mm < max(32, 64, 20) = 64 mm of 8.7.2(3): the pattern cannot be lapped (by hand).
+		{"φ32 in 300", 300, 40, 8, 32, 3, 32, 22, 64, trace.Fail, trace.Pass},
+	}
+	for _, c := range cases {
+		g := Geometry{B: c.b, H: c.b, Cover: c.cover, Link: c.link}
+		p := Pattern{Dia: c.phi, NB: int(c.n), NH: int(c.n)}
+		gb, gh := g.ClearGaps(p)
+		if g.Fits(p, c.sMin) != (c.verdict0 == trace.Pass) {
+			t.Errorf("%s: fits by 8.2(2) alone %v", c.name, g.Fits(p, c.sMin))
+		}
+		if g.Fits(p, LappedFitValue(c.phi, c.sMin)) != (c.verdict == trace.Pass) {
+			t.Errorf("%s: fits with the laps %v", c.name, g.Fits(p, LappedFitValue(c.phi, c.sMin)))
+		}
+		l := &trace.Log{}
+		checks := LapArrangement(l, "lap/", mm(c.phi), mm(gb), mm(gh), mm(c.sMin))
+		byID := map[string]trace.Step{}
+		for _, s := range l.Steps {
+			recheck(t, s)
+			if !trace.ClauseForm(s.Clause) {
+				t.Errorf("%s: clause %q", s.ID, s.Clause)
+			}
+			byID[s.ID] = s
+		}
+		near(t, c.name+" gap at the lap", byID["lap/gap"].Value, c.gap, 1e-9)
+		near(t, c.name+" least gap at the lap", byID["lap/gap_min"].Value, c.gapMin, 1e-12)
+		if len(checks) != 2 || checks[0] != "lap/check_pair" || checks[1] != "lap/check_gap" {
+			t.Fatalf("%s: checks %v", c.name, checks)
+		}
+		// EN 1992-1-1:2004 8.7.2(3): the bars of a pair touch (8.2(4)), 0 ≤ min(4φ, 50 mm).
+		near(t, c.name+" pair", byID["lap/check_pair"].Value, 0, 0)
+		if v := byID["lap/check_gap"].Verdict; v != c.verdict {
+			t.Errorf("%s: gap verdict %s, want %s", c.name, v, c.verdict)
+		}
+	}
+	// The candidate patterns leave out those that cannot be lapped: 300 × 300, cover 40, links φ8, φ32 with
+	// sMin = 32 mm (8.2(2)); 6 and 8 bars (three along a face) fit by 8.2(2) but not with the laps (by
+	// hand above); 4 bars leave
+	// 300 − 128 − 32 = 140 mm, and 140 − 32 = 108 ≥ 64 mm.
+	link := func(float64) float64 { return 8 }
+	plain := Candidates(300, 300, 40, []float64{32}, link, func(d float64) float64 { return math.Max(d, 25) }, 0, 1e9)
+	lapped := Candidates(300, 300, 40, []float64{32}, link, func(d float64) float64 { return LappedFitValue(d, math.Max(d, 25)) }, 0, 1e9)
+	counts := func(ps []Pattern) []int {
+		var out []int
+		for _, p := range ps {
+			out = append(out, p.Count())
+		}
+		return out
+	}
+	if got := counts(plain); len(got) != 4 || got[0] != 4 || got[3] != 8 {
+		t.Errorf("patterns by 8.2(2): %v, want [4 6 6 8]", got)
+	}
+	if got := counts(lapped); len(got) != 1 || got[0] != 4 {
+		t.Errorf("patterns with the laps: %v, want [4]", got)
 	}
 }
