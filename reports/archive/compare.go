@@ -116,16 +116,27 @@ func outcome(d *resultsCase) string {
 }
 
 // inputs adds a row for every input or table step of o and n whose value differs, matched by step
-// ID: the values given to the calculation (trace.Given).
-func (c *Changes) inputs(o, n *resultsCase) { c.steps(o, n, "input", trace.Given) }
+// ID: the values given to the calculation (trace.Given). A step that only one of them holds is
+// listed when it comes from the input file (clause "input"); a value of a standard that the
+// other package does not record (a factor of a check that its design did not need) follows from
+// the design, not from a changed input.
+func (c *Changes) inputs(o, n *resultsCase) {
+	c.steps(o, n, "input", trace.Given, func(s trace.Step) bool { return s.Clause == "input" })
+}
 
 // choices adds a row for every value the design chose or took over from another design
-// (trace.Chosen) that differs: results of the calculation, never listed as inputs.
-func (c *Changes) choices(o, n *resultsCase) { c.steps(o, n, "result", trace.Chosen) }
+// (trace.Chosen) that differs or that only one of them holds: results of the calculation, never
+// listed as inputs. The bar diameter and count and the link diameter have their rows already
+// (results "bars" and "links").
+func (c *Changes) choices(o, n *resultsCase) {
+	prefix := n.Column + "/" + n.Lift + "/"
+	shown := map[string]bool{prefix + "bars/phi": true, prefix + "bars/count": true, prefix + "links/phi_t": true}
+	c.steps(o, n, "result", func(s trace.Step) bool { return trace.Chosen(s) && !shown[s.ID] }, func(trace.Step) bool { return true })
+}
 
 // steps adds a row, labelled with kind, for every step of o and n that keep selects and whose
-// value or unit differs, or that only one of them holds, matched by step ID.
-func (c *Changes) steps(o, n *resultsCase, kind string, keep func(trace.Step) bool) {
+// value or unit differs, or that only one of them holds and alone accepts, matched by step ID.
+func (c *Changes) steps(o, n *resultsCase, kind string, keep, alone func(trace.Step) bool) {
 	prefix := n.Column + "/" + n.Lift + "/"
 	olds := map[string]trace.Step{}
 	for _, s := range o.Trace {
@@ -149,14 +160,16 @@ func (c *Changes) steps(o, n *resultsCase, kind string, keep func(trace.Step) bo
 		p, ok := olds[s.ID]
 		switch {
 		case !ok:
-			c.add(n, item(s), none, quantity(s.Value, s.Unit))
+			if alone(s) {
+				c.add(n, item(s), none, quantity(s.Value, s.Unit))
+			}
 		case !near(p.Value, s.Value) || p.Unit != s.Unit:
 			ov, nv := pair(p.Value, s.Value, p.Unit, s.Unit)
 			c.add(n, item(s), ov, nv)
 		}
 	}
 	for _, s := range o.Trace {
-		if keep(s) && !news[s.ID] {
+		if keep(s) && !news[s.ID] && alone(s) {
 			c.add(n, item(s), quantity(s.Value, s.Unit), none)
 		}
 	}

@@ -221,26 +221,53 @@ func TestCompareDesignedValues(t *testing.T) {
 	}
 }
 
-// A value the design chose (clause "chosen: …") that differs between two packages is a result.
+// A value the design chose (clause "chosen: …") that differs between two packages is a result;
+// the bar count, which the row "bars" shows, has no row of its own.
 func TestCompareChosenIsResult(t *testing.T) {
 	small := readTree(t, filepath.Join("testdata", "small"))
 	a, b := writeBundle(t, small), writeBundle(t, small)
 	for _, dir := range []string{a, b} {
-		count := 8.0
+		nb, count := 3.0, 8.0
 		if dir == b {
-			count = 12
+			nb, count = 4, 12
 		}
 		editResults(t, dir, func(d []any) {
+			const chosen = "chosen: the least steel that passes every check"
 			tr := d[0].(map[string]any)["trace"].([]any)
-			d[0].(map[string]any)["trace"] = append(tr, map[string]any{"id": "K1/L2/bars/count", "title": "Number of bars",
-				"clause": "chosen: the least steel that passes every check", "kind": "input", "symbol": "n_bars", "value": count})
+			d[0].(map[string]any)["trace"] = append(tr,
+				map[string]any{"id": "K1/L2/bars/nb", "title": "Bars along each b-face, corners included", "clause": chosen, "kind": "input", "symbol": "n_b", "value": nb},
+				map[string]any{"id": "K1/L2/bars/count", "title": "Number of bars", "clause": chosen, "kind": "input", "symbol": "n_bars", "value": count})
 		})
 	}
 	c, err := Compare(a, b)
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := Change{"K1", "L2", "result `bars/count`: Number of bars, n\\_bars", "8", "12"}
+	want := Change{"K1", "L2", "result `bars/nb`: Bars along each b-face, corners included, n\\_b", "3", "4"}
+	if len(c.Rows) != 1 || c.Rows[0] != want {
+		t.Errorf("rows %+v, want %+v", c.Rows, want)
+	}
+}
+
+// A step that only the new package records is a changed input when it comes from the input file
+// (a façade load added), and no row at all when it is a value of a standard that the other design
+// did not need (Ks = 1 of EN 1992-1-1:2004 5.8.7.2(2), recorded only where the column is slender).
+func TestCompareOneSided(t *testing.T) {
+	small := readTree(t, filepath.Join("testdata", "small"))
+	a, b := writeBundle(t, small), writeBundle(t, small)
+	editResults(t, b, func(d []any) {
+		tr := d[0].(map[string]any)["trace"].([]any)
+		d[0].(map[string]any)["trace"] = append(tr,
+			map[string]any{"id": "K1/L2/td/L2/A1–A2/g_line1", "title": "Permanent line load 1 of the input, on grid line A",
+				"clause": "input", "kind": "input", "symbol": "g_line,1", "unit": "N/mm", "value": 9.5},
+			map[string]any{"id": "K1/L2/y/Ks", "title": "Factor for the contribution of the reinforcement",
+				"clause": "EN 1992-1-1:2004 5.8.7.2(2), Eq. (5.22)", "kind": "table", "symbol": "K_s", "value": 1})
+	})
+	c, err := Compare(a, b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := Change{"K1", "L2", "input `td/L2/A1–A2/g_line1`: Permanent line load 1 of the input, on grid line A, g\\_line,1", "—", "9.5 kN/m"}
 	if len(c.Rows) != 1 || c.Rows[0] != want {
 		t.Errorf("rows %+v, want %+v", c.Rows, want)
 	}
