@@ -125,12 +125,27 @@ func BarCover(id string, cover, linkDia trace.Q) trace.Step {
 		"c + phi_t", trace.A("c", cover), trace.A("phi_t", linkDia))
 }
 
-// DeviationInput returns the allowance in design for deviation Δcdev (0 in d = the recommended
-// 10 mm), EN 1992-1-1:2004 4.4.1.3(1)P.
+// DeviationInput returns the allowance in design for deviation Δcdev: the given value as given,
+// or the recommended 10 mm where none is given, EN 1992-1-1:2004 4.4.1.3(1)P. A given value
+// below 10 mm rests on the quality control of 4.4.1.3(3), which the step states.
 func DeviationInput(id string, d model.Durability) trace.Step {
-	s := trace.Input(id, "Allowance in design for deviation", ec2+"4.4.1.3(1)P", "Δc_dev", "mm", deviation(d))
-	if d.DeltaCdev == 0 {
-		s = s.Note("Recommended value.")
+	title := "Allowance in design for deviation"
+	if d.DeltaCdev == nil {
+		return trace.Input(id, title, ec2+"4.4.1.3(1)P", "Δc_dev", "mm", DeltaCdev).Note("Recommended value.")
+	}
+	v := *d.DeltaCdev
+	s := trace.Input(id, title, "input", "Δc_dev", "mm", v)
+	switch {
+	case v < DeltaCdevQA:
+		s = s.Note("A reduced allowance is permitted by EN 1992-1-1 4.4.1.3(3): down to 0 mm where a very accurate measuring device is used for monitoring and non-conforming members are rejected (e.g. precast elements).").
+			Caution("Δcdev below 5 mm relies on a very accurate measurement of the cover and the rejection of non-conforming members (EN 1992-1-1 4.4.1.3(3)): the specification must require both.")
+	case v < DeltaCdev:
+		s = s.Note("A reduced allowance is permitted by EN 1992-1-1 4.4.1.3(3) where the fabrication is subject to a quality assurance system whose monitoring includes measurement of the cover (recommended range 5 mm to 10 mm).").
+			Caution("Δcdev below 10 mm relies on the quality assurance of EN 1992-1-1 4.4.1.3(3), with the cover measured: the specification must require it.")
+	case v == DeltaCdev:
+		s = s.Note("Given; equal to the recommended value of 4.4.1.3(1)P.")
+	default:
+		s = s.Note("Given; above the recommended value of 4.4.1.3(1)P, as a National Annex may set.")
 	}
 	return s
 }

@@ -178,12 +178,55 @@ func TestNominal(t *testing.T) {
 	near(t, "value bar", vb, bar.V, 0)
 
 	// Large bars, large aggregate, X0 and a given Δcdev: the bond cover governs for the bars.
-	d = model.Durability{Exposure: []string{"X0"}, DeltaCdev: 5}
+	d = model.Durability{Exposure: []string{"X0"}, DeltaCdev: mmPtr(5)}
 	l = trace.Log{}
 	link, bar = Nominal(&l, "", d, trace.Const(30, "f_ck", "MPa"), q(32, "φ"), q(10, "φ_t"), q(40, "d_g"), q(35, "c"))
 	near(t, "cnom link X0", link.V, 20, 0) // max(10 + 5, 10, 10) + 5
 	near(t, "cnom bar X0", bar.V, 42, 0)   // max(32 + 5, 10, 10) + 5
 	for _, s := range l.Steps {
 		recheck(t, s)
+	}
+}
+
+func mmPtr(v float64) *float64 { return &v }
+
+// Δcdev as given, or the recommended 10 mm where none is given (EN 1992-1-1:2004 4.4.1.3(1)P);
+// 4.4.1.3(3) allows a reduced Δcdev, 10 mm ≥ Δcdev ≥ 5 mm under a quality assurance system that
+// measures the cover, 10 mm ≥ Δcdev ≥ 0 with a very accurate measuring device and rejection of
+// non-conforming members (from memory). XC1 at S4, C30/37: Table 4.3N gives S3 (C30/37 for XC1),
+// Table 4.4N S3/XC1 10 mm (from memory); H8 links: cmin = max(8, 10, 10) = 10 mm, cnom = 10 + Δcdev.
+// A given 0 was once taken as "not given" and became 10 mm.
+func TestDeviationGiven(t *testing.T) {
+	cases := []struct {
+		name      string
+		dev       *float64
+		want      float64
+		clause    string
+		cautioned bool
+	}{
+		{"not given: recommended 10 mm", nil, 10, ec2 + "4.4.1.3(1)P", false}, // EN 1992-1-1:2004 4.4.1.3(1)P
+		{"given 0 (precast, measured)", mmPtr(0), 0, "input", true},           // EN 1992-1-1:2004 4.4.1.3(3)
+		{"given 5 (quality assurance)", mmPtr(5), 5, "input", true},           // EN 1992-1-1:2004 4.4.1.3(3)
+		{"given 10", mmPtr(10), 10, "input", false},                           // EN 1992-1-1:2004 4.4.1.3(1)P
+		{"given 15 (a national value)", mmPtr(15), 15, "input", false},        // test input
+	}
+	for _, c := range cases {
+		d := model.Durability{Exposure: []string{"XC1"}, DeltaCdev: c.dev}
+		s := DeviationInput("dev", d)
+		near(t, c.name, s.Value, c.want, 0)
+		if s.Clause != c.clause || (len(s.Cautions) > 0) != c.cautioned || len(s.Notes) == 0 {
+			t.Errorf("%s: clause %q, notes %q, cautions %q", c.name, s.Clause, s.Notes, s.Cautions)
+		}
+		if c.dev != nil && *c.dev < 10 && !strings.Contains(strings.Join(s.Notes, " "), "4.4.1.3(3)") {
+			t.Errorf("%s: the note does not name 4.4.1.3(3): %q", c.name, s.Notes)
+		}
+		var l trace.Log
+		link, _ := Nominal(&l, "", d, trace.Const(30, "f_ck", "MPa"), q(16, "φ"), q(8, "φ_t"), q(20, "d_g"), q(40, "c"))
+		near(t, c.name+": cnom link", link.V, 10+c.want, 0)
+		vl, _ := NominalValue(d, 30, 16, 8, 20)
+		near(t, c.name+": value function", vl, 10+c.want, 0)
+		for _, st := range l.Steps {
+			recheck(t, st)
+		}
 	}
 }

@@ -9,14 +9,15 @@ import (
 
 // Recommended values of EN 1992-1-1:2004 4.4.1, cited at the steps that use them.
 const (
-	BaseClass  = 4    // structural class for a 50-year design working life, Table 4.3N
-	DeltaCdev  = 10.0 // allowance in design for deviation Δcdev, mm, 4.4.1.3(1)P
-	CminFloor  = 10.0 // lower bound of cmin, mm, Eq. (4.2)
-	AggLimit   = 32.0 // nominal maximum aggregate size above which cmin,b grows, mm, Table 4.2
-	AggExtra   = 5.0  // increase of cmin,b for the larger aggregate, mm, Table 4.2
-	LongLife   = 50.0 // design working life, years, beyond which the class rises by 2 (Table 4.3N, 100 years)
-	ClassFloor = 1    // least structural class, S1
-	ClassCeil  = 6    // greatest structural class, S6
+	BaseClass   = 4    // structural class for a 50-year design working life, Table 4.3N
+	DeltaCdev   = 10.0 // allowance in design for deviation Δcdev, mm, 4.4.1.3(1)P
+	DeltaCdevQA = 5.0  // least Δcdev under a quality assurance system that measures the cover, mm, 4.4.1.3(3)
+	CminFloor   = 10.0 // lower bound of cmin, mm, Eq. (4.2)
+	AggLimit    = 32.0 // nominal maximum aggregate size above which cmin,b grows, mm, Table 4.2
+	AggExtra    = 5.0  // increase of cmin,b for the larger aggregate, mm, Table 4.2
+	LongLife    = 50.0 // design working life, years, beyond which the class rises by 2 (Table 4.3N, 100 years)
+	ClassFloor  = 1    // least structural class, S1
+	ClassCeil   = 6    // greatest structural class, S6
 )
 
 // tableColumns are the exposure columns of Table 4.4N, in order of increasing cover.
@@ -156,9 +157,10 @@ func NominalValue(d model.Durability, fck, dia, linkDia, dg float64) (cnomLink, 
 	return cnomLink, cnomBar
 }
 
+// deviation returns Δcdev: the given value, or the recommended 10 mm where none is given; see DeviationInput.
 func deviation(d model.Durability) float64 {
-	if d.DeltaCdev == 0 {
+	if d.DeltaCdev == nil {
 		return DeltaCdev
 	}
-	return d.DeltaCdev
+	return *d.DeltaCdev
 }

@@ -377,7 +377,7 @@ func TestCoverInDesign(t *testing.T) {
 		pass  bool
 	}{{35, true}, {30, false}} {
 		col := model.Column{ID: "CV", B: 400, H: 400, Cover: c.cover, Bars: &model.BarSpec{Count: 8, Dia: 16},
-			Durability: &model.Durability{Exposure: []string{"XC3"}, StructuralClass: 4, DesignLife: 50, DeltaCdev: 10},
+			Durability: &model.Durability{Exposure: []string{"XC3"}, StructuralClass: 4, DesignLife: 50},
 			Storeys:    []model.Storey{lift(3000, 3000, 1500, 40, -20, 10, 5)}}
 		d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 		near(t, "cnom", d.Detailing.CoverRequired, 35, 1e-12)

@@ -37,7 +37,7 @@ func TestBuildingVariants(t *testing.T) {
 			in.Building.Options.Creep = &model.Creep{RH: 60, T0: 14, Cement: "R"}
 			in.Building.Options.L0FromFrame = true
 			in.Options.Fire = &model.Fire{Rating: 60}
-			in.Options.Durability = &model.Durability{Exposure: []string{"XC2"}, StructuralClass: 4, DesignLife: 50, DeltaCdev: 10}
+			in.Options.Durability = &model.Durability{Exposure: []string{"XC2"}, StructuralClass: 4, DesignLife: 50}
 		}},
 		{"omitted point, line loads, both methods", func(in *model.Input) {
 			in.Building.GridX = []float64{6000, 6000, 6000}

@@ -22,7 +22,6 @@ const (
 	DefaultDesignLife      = 50  // design working life, years
 	DesignLifeMin          = 10  // shortest accepted design working life, years
 	DesignLifeMax          = 200 // longest accepted design working life, years
-	DefaultDeltaCdev       = 10  // allowance for deviation Δcdev, mm, EN 1992-1-1 4.4.1.3(1)P
 	DeltaCoverMax          = 20  // largest accepted Δcdev and Δcdur,γ, mm
 	EtaFiMin               = 0.3 // smallest accepted reduction factor ηfi
 	EtaFiMax               = 1.0 // largest accepted reduction factor ηfi
@@ -50,7 +49,7 @@ const (
 // exposure is required). The result is not nil; where it holds faults they are reported, and
 // Parse then returns no input.
 func (r *reader) durability(n *yaml.Node, path string, base *model.Durability) *model.Durability {
-	d := &model.Durability{StructuralClass: DefaultStructuralClass, DesignLife: DefaultDesignLife, DeltaCdev: DefaultDeltaCdev}
+	d := &model.Durability{StructuralClass: DefaultStructuralClass, DesignLife: DefaultDesignLife}
 	if base != nil {
 		*d = *base
 		d.Exposure = append([]string(nil), base.Exposure...)
@@ -82,7 +81,7 @@ func (r *reader) durability(n *yaml.Node, path string, base *model.Durability) *
 	if e, ok := f["delta_cdev"]; ok {
 		if v, ok := r.lengthWithin(e.val, join(path, "delta_cdev"), 0, DeltaCoverMax,
 			"the allowance for deviation Δcdev (EN 1992-1-1 4.4.1.3(1)P)"); ok {
-			d.DeltaCdev = v
+			d.DeltaCdev = &v // used as given, 0 included (4.4.1.3(3)); not given, the engine takes 10 mm
 		}
 	}
 	if e, ok := f["delta_cdur_gamma"]; ok {

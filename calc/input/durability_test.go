@@ -10,12 +10,15 @@ import (
 
 // durable returns the default durability data with the exposure classes ex.
 func durable(ex ...string) *model.Durability {
-	return &model.Durability{Exposure: ex, StructuralClass: 4, DesignLife: 50, DeltaCdev: 10}
+	return &model.Durability{Exposure: ex, StructuralClass: 4, DesignLife: 50}
 }
 
+func mmPtr(v float64) *float64 { return &v }
+
 // The durability data parse into the model with the defaults of EN 1992-1-1 4.4.1 (structural
-// class S4 for 50 years, Table 4.3N; Δcdev = 10 mm, 4.4.1.3(1)P; Δcdur,γ = 0, 4.4.1.2(6)); a
-// column's entry overrides design.durability key by key.
+// class S4 for 50 years, Table 4.3N; Δcdur,γ = 0, 4.4.1.2(6)); Δcdev stays unset when not given
+// (the engine takes the recommended 10 mm, 4.4.1.3(1)P) and a given value, 0 included, is kept
+// as given (4.4.1.3(3) allows 0 to 10 mm); a column's entry overrides design.durability key by key.
 func TestParseDurability(t *testing.T) {
 	with := func(d *model.Durability, edit func(*model.Durability)) *model.Durability {
 		edit(d)
@@ -30,14 +33,14 @@ func TestParseDurability(t *testing.T) {
 		{"not given", "", nil, nil, true, false},
 		{"one class", "design: {durability: {exposure: XC3}}\n", durable("XC3"), nil, true, false},
 		{"all keys", "design:\n  durability: {exposure: [XC3, XD1], structural_class: 4, design_life: 50, special_qc: false, delta_cdev: 10 mm, delta_cdur_gamma: 0 mm}\n",
-			durable("XC3", "XD1"), nil, true, false},
+			with(durable("XC3", "XD1"), func(d *model.Durability) { d.DeltaCdev = mmPtr(10) }), nil, true, false},
 		{"other values, lower case, units", "design:\n  durability: {exposure: [xs1, xf3], structural_class: S5, design_life: 100 years, special_qc: true, delta_cdev: 0.5 cm, delta_cdur_gamma: 5}\n",
 			with(durable("XS1", "XF3"), func(d *model.Durability) {
-				d.StructuralClass, d.DesignLife, d.SpecialQC, d.DeltaCdev, d.DeltaCdurGamma = 5, 100, true, 5, 5
+				d.StructuralClass, d.DesignLife, d.SpecialQC, d.DeltaCdev, d.DeltaCdurGamma = 5, 100, true, mmPtr(5), 5
 			}), nil, true, false},
 		{"limits", "design:\n  durability: {exposure: X0, structural_class: 1, design_life: 10, delta_cdev: 0, delta_cdur_gamma: 20 mm}\n",
 			with(durable("X0"), func(d *model.Durability) {
-				d.StructuralClass, d.DesignLife, d.DeltaCdev, d.DeltaCdurGamma = 1, 10, 0, 20
+				d.StructuralClass, d.DesignLife, d.DeltaCdev, d.DeltaCdurGamma = 1, 10, mmPtr(0), 20
 			}), nil, true, false},
 		{"design life over the vars", "vars: {life: 60}\ndesign: {durability: {exposure: XC1, design_life: \"life + 40\"}}\n",
 			with(durable("XC1"), func(d *model.Durability) { d.DesignLife = 100 }), nil, true, false},
@@ -46,8 +49,8 @@ func TestParseDurability(t *testing.T) {
 		{"column alone", "    durability: {exposure: XC4, design_life: 75 yr}\n", nil,
 			with(durable("XC4"), func(d *model.Durability) { d.DesignLife = 75 }), false, true},
 		{"column over design, key by key", "    durability: {exposure: [XD3], structural_class: 3}\ndesign:\n  durability: {exposure: XC1, special_qc: true, delta_cdev: 5 mm}\n",
-			with(durable("XC1"), func(d *model.Durability) { d.SpecialQC, d.DeltaCdev = true, 5 }),
-			with(durable("XD3"), func(d *model.Durability) { d.SpecialQC, d.DeltaCdev, d.StructuralClass = true, 5, 3 }), false, true},
+			with(durable("XC1"), func(d *model.Durability) { d.SpecialQC, d.DeltaCdev = true, mmPtr(5) }),
+			with(durable("XD3"), func(d *model.Durability) { d.SpecialQC, d.DeltaCdev, d.StructuralClass = true, mmPtr(5), 3 }), false, true},
 		{"column without exposure inherits it", "    durability: {delta_cdur_gamma: 5 mm}\ndesign:\n  durability: {exposure: [XC3, XD1]}\n",
 			durable("XC3", "XD1"), with(durable("XC3", "XD1"), func(d *model.Durability) { d.DeltaCdurGamma = 5 }), false, true},
 	}

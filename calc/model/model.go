@@ -138,7 +138,7 @@ type Durability struct {
 	DesignLife      float64  // years; 100 raises the structural class by 2 (Table 4.3N); 0 = 50
 	SpecialQC       bool     // special quality control of concrete production: class reduced by 1 (Table 4.3N)
 	SlabGeometry    bool     // member with slab geometry: class reduced by 1 (Table 4.3N); never for columns, kept for completeness
-	DeltaCdev       float64  // allowance for deviation Δcdev, mm (4.4.1.3(1)P); 0 = 10
+	DeltaCdev       *float64 // allowance for deviation Δcdev, mm, as given (4.4.1.3(3) allows 0 to 10 mm); nil when not given: the recommended 10 mm of 4.4.1.3(1)P
 	DeltaCdurGamma  float64  // additive safety element Δcdur,γ, mm (4.4.1.2(6)); recommended 0
 }
 
