@@ -274,43 +274,34 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	}
 	d.Y.MRd, d.Z.MRd = mRd[0].V, mRd[1].V
 
-	// Fire resistance, EN 1992-1-2:2004 5.3.2, Method A (Table 5.2a).
+	// Fire resistance, EN 1992-1-2:2004 5.3.2, Method A (Table 5.2a, or Eq. (5.7)), or a rating
+	// verified elsewhere and recorded as such.
 	if f := c.fire(); f != nil && f.Rating > 0 {
-		l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (EN 1992-1-2 5.3.2, Method A)"
-		mu := fire.Utilisation(l, "fire/", *f, c.nEd, nRdMax)
-		l0fi := l.Add(trace.Formula("fire/l0_fi", "Effective length in fire, taken as at normal temperature", "EN 1992-1-2:2004 5.3.2(2)", "l_0,fi", "mm",
-			math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
-		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, L0Fi: l0fi, NEd: c.nEd,
-			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", "")}
-		// Table 5.2a first; where it cannot show the rating, Eq. (5.7) of the same method.
-		route := func(prefix string, method func(*trace.Log, string, int, trace.Q, fire.Column) (bool, trace.Q)) (bool, []string) {
-			start := len(l.Steps)
-			ok, _ := method(l, prefix, f.Rating, mu, fc)
-			var ids []string
-			for k := start; k < len(l.Steps); k++ {
-				if l.Steps[k].Kind == trace.KindCheck {
-					ids = append(ids, l.Steps[k].ID)
-				}
+		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Fck: c.fck, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, NEd: c.nEd,
+			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", ""),
+			MuFixed: !f.UseMuFi}
+		if f.Method == model.FireElsewhere {
+			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (verified elsewhere)"
+			d.Detailing.SurfaceMesh = fire.Elsewhere(l, "fire/", f.Rating, f.Note, fc)
+			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, true, "verified elsewhere"
+			d.Cautions = append(d.Cautions, fmt.Sprintf("Fire resistance R%d verified elsewhere, outside this calculation (no check of EN 1992-1-2 Method A here): %s", f.Rating, f.Note))
+		} else {
+			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (EN 1992-1-2 5.3.2, Method A)"
+			fc.L0Fi = l.Add(trace.Formula("fire/l0_fi", "Effective length in fire, taken as at normal temperature", "EN 1992-1-2:2004 5.3.2(2)", "l_0,fi", "mm",
+				math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
+			fc.EY, fc.EZ = fire.Eccentricities(l, "fire/", fc)
+			mu := c.fireUtilisation(l, f, p, nRdMax, fc.EY, fc.EZ)
+			out := fire.Assess(l, "fire/", f.Rating, mu, fc)
+			for _, v := range out.Checks {
+				checks = append(checks, checked{v.ID, false})
+				d.failure(v.ID, v.Reason, v.Fixed)
 			}
-			return ok, ids
+			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, out.OK, out.Route
+			d.Detailing.SurfaceMesh = out.Mesh
 		}
-		ok, ids := route("fire/", fire.MethodA)
-		if !ok {
-			if ok57, ids57 := route("fire57/", fire.MethodAEq57); ok57 {
-				ok, ids = true, ids57
-				l.Add(trace.Input("fire/route", "Fire resistance shown by Eq. (5.7), which the standard offers beside Table 5.2a", "EN 1992-1-2:2004 5.3.2(2)", "route", "", 57).
-					Note("The checks of Table 5.2a above are for information; those of Eq. (5.7) govern."))
-			}
+		if d.Detailing.SurfaceMesh {
+			d.Cautions = append(d.Cautions, "Surface reinforcement against falling off of concrete in fire (EN 1992-1-2 4.5.2(2)): the axis distance of the main bars is 70 mm or more, so a mesh is required in the cover (spacing not above 100 mm, bars not below 4 mm) unless tests show that the concrete does not fall off.")
 		}
-		for _, id := range ids {
-			checks = append(checks, checked{id, false})
-		}
-		if !ok {
-			// A condition of the method not met, or a case neither route covers: the rating is not shown.
-			check(unmet("fire/method", "Fire resistance by Method A: its conditions hold and the table or Eq. (5.7) covers the case", "EN 1992-1-2:2004 5.3.2",
-				"Method A applies", "Method A cannot show the rating for this column (see the cautions above): verify the fire resistance another way."))
-		}
-		d.Detailing.FireRating, d.Detailing.FireOK = f.Rating, ok
 	} else {
 		// No rating asked of this lift: the sheet says so, so that no lift is silent on fire.
 		l.Group = "Fire resistance: none required"
@@ -453,6 +444,9 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 			} else {
 				reason = fmt.Sprintf("%s: %s does not hold (ratio %.3f, %s)", title, s.Relation, s.Value, s.Clause)
 			}
+			if r := d.reasons[ch.id]; r != "" {
+				reason = r // the check's own words with its values (the scope of the fire method)
+			}
 			if !seen["reason "+reason] {
 				seen["reason "+reason] = true
 				d.Reasons = append(d.Reasons, reason)
@@ -581,4 +575,62 @@ func (c *common) fire() *model.Fire {
 		}
 	}
 	return c.in.Options.Fire
+}
+
+// fireUtilisation records ηfi and μfi of EN 1992-1-2:2004 5.3.2(3) for the bar pattern p. With
+// mu_fi: computed, NRd is the resistance of the column at normal temperature at the eccentricity
+// of NEd (fire.NRdAtEccentricity): at each trial axial force the first-order end moments (and so
+// the imperfection's) grow in proportion, and quickResist applies the design checks of the
+// column, second order and the biaxial check included, by the same formulas as the trace.
+func (c *common) fireUtilisation(l *trace.Log, f *model.Fire, p detail.Pattern, nRdMax, eY, eZ trace.Q) trace.Q {
+	var nRd trace.Q
+	if f.UseMuFi && c.nEd.V > 0 {
+		at := func(n float64) fire.Ratios {
+			at := *c
+			for k := range at.ax {
+				at.ax[k].m01.V *= n / c.nEd.V
+				at.ax[k].m02.V *= n / c.nEd.V
+			}
+			q := at.quickResist(p, n)
+			return fire.Ratios{N: n, NRdMax: q.nRdMax, MEdY: q.mEd[0], MRdY: q.mRd[0], MEdZ: q.mEd[1], MRdZ: q.mRd[1], Biaxial: q.ratioB, OK: q.ok}
+		}
+		nRd = l.Add(fire.NRdAtEccentricity("fire/N_Rd", nRdMax, eY, eZ, at))
+	}
+	return fire.Utilisation(l, "fire/", *f, c.nEd, nRd)
+}
+
+// failure records, for the check step id, the reason to give where it fails (empty: settle's
+// usual words) and whether no bar pattern can make it hold (fixed).
+func (d *Design) failure(id, reason string, fixed bool) {
+	if reason != "" {
+		if d.reasons == nil {
+			d.reasons = map[string]string{}
+		}
+		d.reasons[id] = reason
+	}
+	if fixed {
+		if d.fixed == nil {
+			d.fixed = map[string]bool{}
+		}
+		d.fixed[id] = true
+	}
+}
+
+// failsOnlyOnFixed reports whether d fails and every check that fails is one that no bar pattern
+// can make hold (the scope of the fire method): trying more or other bars would not help.
+func (d *Design) failsOnlyOnFixed() bool {
+	if d.Status == StatusPass || len(d.fixed) == 0 {
+		return false
+	}
+	for _, ch := range d.checks {
+		for i := len(d.Steps) - 1; i >= 0; i-- {
+			if s := &d.Steps[i]; s.ID == ch.id {
+				if s.Verdict == trace.Fail && !d.fixed[ch.id] {
+					return false
+				}
+				break
+			}
+		}
+	}
+	return true
 }

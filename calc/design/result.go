@@ -75,9 +75,11 @@ type Design struct {
 
 	Interaction *Interaction // curves for plotting, once AddInteraction has run
 
-	pattern detail.Pattern   // bar pattern evaluated
-	sec     *section.Section // the section with the bars provided
-	checks  []checked        // its check steps
+	pattern detail.Pattern    // bar pattern evaluated
+	sec     *section.Section  // the section with the bars provided
+	checks  []checked         // its check steps
+	reasons map[string]string // by check step ID, the reason to give where it fails, in its own words (the fire method\'s scope)
+	fixed   map[string]bool   // check step IDs that no bar pattern can make hold (the fire method\'s scope)
 }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.
@@ -134,7 +136,9 @@ type Detailing struct {
 	ExtraTies      int     // ties needed besides the perimeter link so that no bar is more than 150 mm from a restrained one, 9.5.3(6)
 	CoverRequired  float64 // mm, nominal cover to the links required for durability and bond, 4.4.1; 0 when not computed
 	FireRating     int     // minutes; 0 when no fire check
-	FireOK         bool    // the fire check passes
+	FireOK         bool    // the fire check passes (or the rating is verified elsewhere)
+	FireMethod     string  // how the rating is shown: "Method A, Table 5.2a", "Method A, Eq. (5.7)" or "verified elsewhere"; empty when not shown
+	SurfaceMesh    bool    // a surface reinforcement mesh is required against falling off of concrete in fire (a ≥ 70 mm), EN 1992-1-2 4.5.2(2)
 }
 
 // Links is the transverse reinforcement provided.

@@ -420,13 +420,15 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 			continue
 		}
 		// The first pattern that survives usually passes, so it is traced in full at once;
-		// later ones are tried without their trace and traced only when they pass.
+		// later ones are tried without their trace and traced only when they pass. A pattern
+		// that fails only where no bar pattern can help (the fire method does not apply to the
+		// column) ends the search as well: it is the design, and it fails.
 		d := c.evaluate(p, false, !found)
-		if d.Status == StatusPass {
+		if d.Status == StatusPass || d.failsOnlyOnFixed() {
 			if found {
 				d = c.evaluate(p, false, true)
 			}
-			if c.withArrangements(&d, dv); d.Status == StatusPass {
+			if c.withArrangements(&d, dv); d.Status == StatusPass || d.failsOnlyOnFixed() {
 				return c.finish(d)
 			}
 		}

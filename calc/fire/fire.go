@@ -9,6 +9,7 @@ package fire
 
 import (
 	"fmt"
+	"math"
 
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
@@ -17,6 +18,9 @@ import (
 const en2 = "EN 1992-1-2:2004 "
 
 const notApply = "Method A does not apply."
+
+// scopeNote is the note of every check of the scope of Method A.
+const scopeNote = "A condition of the scope of the method, not a resistance: where it does not hold, Method A does not apply."
 
 // EtaFi returns the reduction factor ηfi for the design load in fire, the given value or the
 // recommended 0.7, EN 1992-1-2:2004 2.4.2(3).
@@ -38,7 +42,79 @@ func NEdFi(id string, etaFi, nEd trace.Q) trace.Step {
 func MuFi(id string, nEdFi, nRd trace.Q) trace.Step {
 	return trace.Formula(id, "Degree of utilisation in fire", en2+"5.3.2(3)", "μ_fi", "", nEdFi.V/nRd.V,
 		"N_Ed_fi / N_Rd", trace.A("N_Ed_fi", nEdFi), trace.A("N_Rd", nRd)).
-		Note("NRd is the design resistance of the column at normal temperature (EN 1992-1-1), second-order effects and imperfections included.")
+		Note("NRd is the design resistance of the column at normal temperature (EN 1992-1-1) at the eccentricity of NEd, second-order effects and imperfections included (see its step).")
+}
+
+// Ratios are the resistance checks of a column at normal temperature under a trial axial force
+// N whose first-order and imperfection eccentricities are those of NEd: what NRdAtEccentricity
+// asks of the column at each trial.
+type Ratios struct {
+	N, NRdMax              float64 // the trial axial force and the resistance to pure compression, N
+	MEdY, MRdY, MEdZ, MRdZ float64 // design moments (second order included) and resistances at N, N·mm
+	Biaxial                float64 // ratio of the biaxial check where EN 1992-1-1 5.8.9 asks for it, else 0
+	OK                     bool    // the section has a moment resistance about both axes at N
+}
+
+// Ratio returns the largest ratio of action to resistance of the checks; +Inf where the section
+// has no moment resistance at N.
+func (r Ratios) Ratio() float64 {
+	if !r.OK || !(r.MRdY > 0) || !(r.MRdZ > 0) || !(r.NRdMax > 0) {
+		return math.Inf(1)
+	}
+	return math.Max(math.Max(r.N/r.NRdMax, r.Biaxial), math.Max(r.MEdY/r.MRdY, r.MEdZ/r.MRdZ))
+}
+
+// Scan steps and tolerance of NRdAtEccentricity.
+const (
+	nRdScan = 16   // steps of the scan from 0 to NRd,max for the first failing force
+	nRdTol  = 1e-7 // bracket width at which the bisection stops, relative to NRd,max
+)
+
+// NRdAtEccentricity returns the design resistance of the column at normal temperature NRd of
+// μfi, with second-order effects and an initial eccentricity equal to that of NEd,fi (that of
+// NEd), EN 1992-1-2:2004 5.3.2(3): the largest axial force N at which every resistance check of
+// the column holds (at returns them at N, the first-order moments and the imperfection scaled
+// with N so that their eccentricities eY and eZ are held), found by a scan and bisection on N
+// between 0 and NRd,max. The value lies on the safe side of the root (the ratio at it is not
+// above 1, the residual ratio − 1 not above 0).
+func NRdAtEccentricity(id string, nRdMax, eY, eZ trace.Q, at func(n float64) Ratios) trace.Step {
+	const title = "Resistance of the column at normal temperature at the eccentricity of N_Ed"
+	method := fmt.Sprintf("scan of N from 0 to N_Rd,max in %d steps for the first force that fails a check, then bisection to %g·N_Rd,max; "+
+		"at each N the checks about y and z (second order at N) and the biaxial check where 5.8.9 asks for it, the first-order and imperfection eccentricities held", nRdScan, nRdTol)
+	lo, hi := 0.0, nRdMax.V
+	var rlo Ratios
+	for i := 1; i <= nRdScan; i++ {
+		n := nRdMax.V * float64(i) / nRdScan
+		if r := at(n); r.Ratio() > 1 {
+			hi = n
+			break
+		} else {
+			lo, rlo = n, r
+		}
+	}
+	for hi-lo > nRdTol*nRdMax.V {
+		mid := (lo + hi) / 2
+		if r := at(mid); r.Ratio() <= 1 {
+			lo, rlo = mid, r
+		} else {
+			hi = mid
+		}
+	}
+	ecc := []trace.Arg{trace.A("e_y", eY), trace.A("e_z", eZ)}
+	if lo == 0 {
+		return trace.Solve(id, title, en2+"5.3.2(3)", "N_Rd", "N", 0, method, "N_Rd", 0,
+			append([]trace.Arg{trace.A("N_Rd", trace.Const(0, "N_Rd", "N")), trace.A("N_Rd_max", nRdMax)}, ecc...)...).
+			Caution("No axial force at the eccentricity of NEd passes the resistance checks of the column at normal temperature.")
+	}
+	q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
+	args := append([]trace.Arg{trace.A("N_Rd", q(lo, "N_Rd", "N")), trace.A("N_Rd_max", nRdMax),
+		trace.A("M_Ed_y", q(rlo.MEdY, "M_Ed,y(N_Rd)", "Nmm")), trace.A("M_Rd_y", q(rlo.MRdY, "M_Rd,y(N_Rd)", "Nmm")),
+		trace.A("M_Ed_z", q(rlo.MEdZ, "M_Ed,z(N_Rd)", "Nmm")), trace.A("M_Rd_z", q(rlo.MRdZ, "M_Rd,z(N_Rd)", "Nmm")),
+		trace.A("r_b", q(rlo.Biaxial, "biaxial ratio(N_Rd)", ""))}, ecc...)
+	return trace.Solve(id, title, en2+"5.3.2(3)", "N_Rd", "N", lo, method,
+		"max(N_Rd / N_Rd_max, M_Ed_y / M_Rd_y, M_Ed_z / M_Rd_z, r_b) - 1", rlo.Ratio()-1, args...).
+		Note("NRd of μfi is the design resistance of the column at normal temperature by EN 1992-1-1, with second-order effects and an initial eccentricity equal to that of NEd,fi, taken as that of NEd (5.3.2(3)): at each trial N the first-order end moments and the imperfection grow with N (e_y and e_z held), the minimum eccentricity and second-order effects are those at N.").
+		Note("Both axes and the biaxial check are applied together, so NRd is the smaller of the resistances about y and z, and not above that of the biaxial check: the conservative choice, which gives the larger μfi.")
 }
 
 // MuFiFromEta returns μfi = ηfi, the simplification that assumes full utilisation at normal
@@ -49,20 +125,87 @@ func MuFiFromEta(id string, etaFi trace.Q) trace.Step {
 		Note("μfi = ηfi assumes full utilisation at normal temperature and is on the safe side.")
 }
 
-// condition returns a step worth 1 when the condition of the method holds and 0 otherwise,
-// with a caution that the method does not apply when it does not.
-func condition(id, title, clause, symbol, expr string, met bool, args ...trace.Arg) trace.Step {
-	s := trace.Formula(id, title+" (1 = met, 0 = not met)", clause, symbol, "", boolNum(met), expr, args...)
-	if !met {
+// condition returns the check of a condition of the scope of Method A with its ratio, noting
+// that it is a condition of the method and cautioning that the method does not apply where it
+// does not hold.
+func condition(id, title, clause, relation string, ratio float64, expr string, args ...trace.Arg) trace.Step {
+	s := trace.Check(id, title, clause, relation, ratio, expr, args...).Note(scopeNote)
+	if s.Verdict == trace.Fail {
 		s = s.Caution("Condition not met: " + notApply)
 	}
 	return s
 }
 
-// LengthCondition returns 1 when the effective length in fire l0,fi ≤ 3 m, EN 1992-1-2:2004 5.3.2(2).
+// LengthCondition returns the check of the effective length in fire l0,fi ≤ 3 m of Table 5.2a,
+// ratio l0,fi/3 m, EN 1992-1-2:2004 5.3.2(2).
 func LengthCondition(id string, l0fi trace.Q) trace.Step {
-	return condition(id, "Condition of Table 5.2a: l0,fi ≤ 3 m", en2+"5.3.2(2)", "cond_l0",
-		"l0_fi <= 3000 ? 1 : 0", l0fi.V <= L0FiMax, trace.A("l0_fi", l0fi))
+	return condition(id, "Scope of Table 5.2a: effective length in fire", en2+"5.3.2(2)", "l_0,fi ≤ 3 m",
+		l0fi.V/L0FiMax, "l0_fi / 3000", trace.A("l0_fi", l0fi))
+}
+
+// ConcreteScope returns the check that the concrete is not a high-strength class, fck ≤ 50 MPa,
+// ratio fck/50 MPa: for C55/67 and above EN 1992-1-2:2004 Section 6 applies, whose increases of
+// the section and axis distance for the tabulated data are not applied here, so Method A is
+// refused for them.
+func ConcreteScope(id string, fck trace.Q) trace.Step {
+	s := condition(id, "Scope of the tabulated data of Section 5: concrete class not above C50/60", en2+"6", "f_ck ≤ 50 MPa",
+		fck.V/FckMax, "f_ck / 50", trace.A("f_ck", fck))
+	if s.Verdict == trace.Fail {
+		s = s.Caution("EN 1992-1-2 Section 6 applies to C55/67 and above: the tabulated Method A is not applied here without the increases of the section and the axis distance that Section 6 asks for; verify the fire resistance another way.").
+			Caution("High-strength concrete: EN 1992-1-2 6.2 sets rules against explosive spalling (for the highest classes, measures such as a mesh, a protective layer or polypropylene fibres); state them in the specification.")
+	}
+	return s
+}
+
+// L0FiCondition57 returns the check of the effective length in fire l0,fi ≤ 6 m of Eq. (5.7),
+// ratio l0,fi/6 m, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func L0FiCondition57(id string, l0fi trace.Q) trace.Step {
+	return condition(id, "Limit of Eq. (5.7): effective length in fire", en2+"5.3.2, Eq. (5.7)", "l_0,fi ≤ 6 m",
+		l0fi.V/L0FiMax57, "l0_fi / 6000", trace.A("l0_fi", l0fi))
+}
+
+// AxisCondition57 returns the check of the axis distance a ≥ 25 mm of Eq. (5.7), ratio 25 mm/a,
+// EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func AxisCondition57(id string, a trace.Q) trace.Step {
+	return condition(id, "Limit of Eq. (5.7): axis distance", en2+"5.3.2, Eq. (5.7)", "25 mm ≤ a",
+		AxisMin57/math.Max(a.V, 1e-3), "25 / max(a, 0.001)", trace.A("a", a))
+}
+
+// WidthCondition57 returns the check of the equivalent width b′ ≥ 200 mm of Eq. (5.7), ratio
+// 200 mm/b′, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
+func WidthCondition57(id string, bEq trace.Q) trace.Step {
+	return condition(id, "Limit of Eq. (5.7): equivalent width", en2+"5.3.2, Eq. (5.7)", "200 mm ≤ b'",
+		WidthMin57/math.Max(bEq.V, 1e-3), "200 / max(b_eq, 0.001)", trace.A("b_eq", bEq))
+}
+
+// TableScope returns the check that Table 5.2a gives values at the rating and μfi: μfi not above
+// the last column of the rating's row (0.7; 0.5 at R240, beyond which the table asks for a width
+// above 600 mm and a particular assessment of buckling), ratio μfi/μfi,max; a rating above R240
+// has ratio R/240. EN 1992-1-2:2004 5.3.2, Table 5.2a.
+func TableScope(id string, rating int, muFi trace.Q) trace.Step {
+	if rating > ratings[len(ratings)-1] {
+		r := trace.Const(float64(rating), "R_req", "min")
+		return condition(id, "Scope of Table 5.2a: rating within the table", en2+"5.3.2, Table 5.2a", "R_req ≤ R240",
+			r.V/float64(ratings[len(ratings)-1]), "R_req / 240", trace.A("R_req", r))
+	}
+	mx := MuMaxValue(rating)
+	s := condition(id, "Scope of Table 5.2a: degree of utilisation within the table", en2+"5.3.2, Table 5.2a", "μ_fi ≤ μ_fi,max",
+		muFi.V/mx, "mu_fi / mu_max", trace.A("mu_fi", muFi), trace.A("mu_max", trace.Const(mx, "μ_fi,max", "")))
+	s.Row = fmt.Sprintf("R%d (exposed on more than one side)", ratings[locate(rating, 0).row])
+	return s
+}
+
+// SurfaceMesh returns 1 where the axis distance a is 70 mm or more, so that a surface
+// reinforcement is required against falling off of concrete, and 0 otherwise,
+// EN 1992-1-2:2004 4.5.2(2).
+func SurfaceMesh(id string, a trace.Q) trace.Step {
+	need := a.V >= MeshAxis
+	s := trace.Formula(id, "Surface reinforcement against falling off of concrete (1 = required)", en2+"4.5.2(2)", "mesh", "",
+		boolNum(need), "a >= 70 ? 1 : 0", trace.A("a", a))
+	if need {
+		s = s.Note("Axis distance 70 mm or more: a surface reinforcement mesh is required in the cover, with a spacing not above 100 mm and bars not below 4 mm, unless tests show that the concrete does not fall off. A detailing requirement for the drawings.")
+	}
+	return s
 }
 
 // EMax returns the greatest first-order eccentricity of the method emax = k·h (or b), k = 0.15
@@ -79,16 +222,18 @@ func Eccentricity(id string, m, n trace.Q) trace.Step {
 		EccentricityValue(m.V, n.V), "abs(M) / max(N, 1)", trace.A("M", m), trace.A("N", n))
 }
 
-// EccentricityCondition returns 1 when e ≤ emax, EN 1992-1-2:2004 5.3.2(2).
-func EccentricityCondition(id string, e, eMax trace.Q) trace.Step {
-	return condition(id, "Condition of Table 5.2a: e ≤ e_max", en2+"5.3.2(2)", "cond_e",
-		"e <= e_max ? 1 : 0", e.V <= eMax.V, trace.A("e", e), trace.A("e_max", eMax))
+// EccentricityCondition returns the check of the first-order eccentricity in fire e ≤ emax
+// about axis n, ratio e/emax, EN 1992-1-2:2004 5.3.2(2).
+func EccentricityCondition(id, n string, e, eMax trace.Q) trace.Step {
+	return condition(id, "Scope of Method A: first-order eccentricity about "+n, en2+"5.3.2(2)", "e ≤ e_max",
+		e.V/math.Max(eMax.V, 1e-3), "e / max(e_max, 0.001)", trace.A("e", e), trace.A("e_max", eMax))
 }
 
-// SteelCondition returns 1 when As < 0.04·Ac, EN 1992-1-2:2004 5.3.2(2).
+// SteelCondition returns the check of the steel As < 0.04·Ac, ratio As/(0.04·Ac),
+// EN 1992-1-2:2004 5.3.2(2).
 func SteelCondition(id string, as, ac trace.Q) trace.Step {
-	return condition(id, "Condition of Table 5.2a: A_s < 0.04·A_c", en2+"5.3.2(2)", "cond_As",
-		"A_s < 0.04 * A_c ? 1 : 0", as.V < SteelMax*ac.V, trace.A("A_s", as), trace.A("A_c", ac))
+	return condition(id, "Scope of Method A: amount of reinforcement", en2+"5.3.2(2)", "A_s < 0.04·A_c",
+		as.V/(SteelMax*ac.V), "A_s / (0.04 * A_c)", trace.A("A_s", as), trace.A("A_c", ac))
 }
 
 // LeastWidth returns the least dimension of the section, the width b of Table 5.2a, EN 1992-1-2:2004 5.3.2, Table 5.2a.
@@ -213,15 +358,13 @@ func REta(id string, muFi, omega, alphaCc trace.Q) trace.Step {
 		trace.A("mu_fi", muFi), trace.A("omega", omega), trace.A("alpha_cc", alphaCc))
 }
 
-// limits adds to a term of Eq. (5.7) a caution where its variable v lies outside [lo, hi] on the
-// side where the equation does not apply, and a note where the limit is used on the safe side.
+// limits adds to a term of Eq. (5.7) a note where its variable v lies beyond the limit that is
+// used on the safe side (above hi, or below lo when safeBelow); the other limit is a condition of
+// the equation, checked on its own (L0FiCondition57, AxisCondition57, WidthCondition57).
 func limits(s trace.Step, v, lo, hi float64, safeBelow bool, what string) trace.Step {
-	out, safe := v < lo, v > hi
+	safe := v > hi
 	if safeBelow {
-		out, safe = v > hi, v < lo
-	}
-	if out {
-		s = s.Caution("The " + what + " is outside the limits of Eq. (5.7): " + notApply)
+		safe = v < lo
 	}
 	if safe {
 		s = s.Note("The " + what + " is outside the limits of Eq. (5.7): the limit is used, on the safe side.")
@@ -263,11 +406,11 @@ func RN(id string, n trace.Q) trace.Step {
 		RNValue(n.V), "n > 4 ? 12 : 0", trace.A("n", n))
 }
 
-// AspectCondition returns 1 when the longer side is at most 1.5 times the shorter, the limit of
-// Eq. (5.7), EN 1992-1-2:2004 5.3.2.
+// AspectCondition returns the check that the longer side is at most 1.5 times the shorter, the
+// limit h ≤ 1.5·b of Eq. (5.7), ratio max(b, h)/(1.5·min(b, h)), EN 1992-1-2:2004 5.3.2, Eq. (5.7).
 func AspectCondition(id string, b, h trace.Q) trace.Step {
-	return condition(id, "Limit of Eq. (5.7): h ≤ 1.5·b", en2+"5.3.2, Eq. (5.7)", "cond_h",
-		"max(b, h) <= 1.5 * min(b, h) ? 1 : 0", max(b.V, h.V) <= Aspect57*min(b.V, h.V), trace.A("b", b), trace.A("h", h))
+	return condition(id, "Limit of Eq. (5.7): proportion of the section", en2+"5.3.2, Eq. (5.7)", "h ≤ 1.5·b",
+		max(b.V, h.V)/(Aspect57*min(b.V, h.V)), "max(b, h) / (1.5 * min(b, h))", trace.A("b", b), trace.A("h", h))
 }
 
 // Eq57 returns the fire resistance R = 120·((Rηfi + Ra + Rl + Rb + Rn)/120)^1.8 in minutes,

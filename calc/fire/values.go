@@ -12,6 +12,8 @@ const (
 	EMaxFactor   = 0.15   // emax/h (or b), 5.3.2(2), note
 	L0FiMax      = 3000.0 // greatest effective length in fire of Table 5.2a, mm, 5.3.2(2)
 	SteelMax     = 0.04   // As/Ac below which Table 5.2a applies, 5.3.2(2)
+	FckMax       = 50.0   // fck of C50/60, the highest class of Section 5; Section 6 applies above, MPa
+	MeshAxis     = 70.0   // axis distance from which a surface reinforcement is required, mm, 4.5.2(2)
 )
 
 // Limits of Eq. (5.7) of EN 1992-1-2:2004 5.3.2.
@@ -44,6 +46,15 @@ func UtilisationValue(f model.Fire, nEd, nRd float64) float64 {
 		return eta * nEd / nRd
 	}
 	return eta
+}
+
+// MuMaxValue returns the largest μfi for which Table 5.2a gives values at the rating: 0.7, or
+// 0.5 where the row's last column asks for a width above 600 mm (R240); see TableScope.
+func MuMaxValue(rating int) float64 {
+	if table52a[locate(rating, 0).row][2] == nil {
+		return muColumns[1]
+	}
+	return muColumns[2]
 }
 
 // AxisDistanceValue returns a = c + φt + φ/2; see AxisDistance.

@@ -36,7 +36,7 @@ var fireRatings = []int{30, 60, 90, 120, 180, 240}
 
 var durabilityKeys = []string{"exposure", "structural_class", "design_life", "special_qc", "delta_cdev", "delta_cdur_gamma"}
 
-var fireKeys = []string{"rating", "eta_fi", "mu_fi"}
+var fireKeys = []string{"rating", "eta_fi", "mu_fi", "method", "note"}
 
 // Choices of mu_fi: how the load level in fire μfi is taken.
 const (
@@ -191,7 +191,15 @@ func (r *reader) fire(n *yaml.Node, path string, base *model.Fire) *model.Fire {
 	return &fi
 }
 
-// fireFrom reads rating, eta_fi and mu_fi from the fields f of the mapping at n over base.
+// Choices of method: how the fire resistance is verified.
+var fireMethods = map[string]string{
+	"a": model.FireMethodA, "method a": model.FireMethodA, // EN 1992-1-2 5.3.2, Method A, the default
+	"elsewhere": model.FireElsewhere, // verified by another method, recorded with a note
+}
+
+// fireFrom reads rating, eta_fi, mu_fi, method and note from the fields f of the mapping at n
+// over base. A note goes with method: elsewhere, which needs one; an inherited note is dropped
+// where the entry switches the method back to Method A.
 func (r *reader) fireFrom(f map[string]pair, n *yaml.Node, path string, base *model.Fire) model.Fire {
 	var fi model.Fire
 	if base != nil {
@@ -216,6 +224,35 @@ func (r *reader) fireFrom(f map[string]pair, n *yaml.Node, path string, base *mo
 		if v, ok := r.oneOf(e.val, join(path, "mu_fi"), muFiComputed, muFiEtaFi); ok {
 			fi.UseMuFi = v == muFiComputed
 		}
+	}
+	if e, ok := f["method"]; ok {
+		if s, ok := r.str(e.val, join(path, "method")); ok {
+			if m, known := fireMethods[strings.ToLower(strings.TrimSpace(s))]; known {
+				fi.Method = m
+			} else {
+				r.fail(e.val, join(path, "method"), "%q is not a method of verifying the fire resistance (A: EN 1992-1-2 5.3.2 Method A, checked here, the default; elsewhere: verified by another method, recorded with a note)", s)
+			}
+		}
+	}
+	e, noteGiven := f["note"]
+	noteRead := false // a note given and read as text
+	if noteGiven {
+		if s, ok := r.str(e.val, join(path, "note")); ok {
+			noteRead = true
+			if s = strings.TrimSpace(s); s == "" {
+				r.fail(e.val, join(path, "note"), "is empty; say how and where the fire resistance was verified")
+			} else {
+				fi.Note = s
+			}
+		}
+	}
+	switch {
+	case fi.Method == model.FireElsewhere && fi.Note == "" && !noteGiven:
+		r.fail(n, join(path, "note"), "is required with method: elsewhere (how and where the fire resistance was verified, e.g. note: \"zone method, calc F-7\")")
+	case fi.Method != model.FireElsewhere && noteRead:
+		r.fail(e.val, join(path, "note"), "goes with method: elsewhere only (Method A, the default, is checked here)")
+	case fi.Method != model.FireElsewhere:
+		fi.Note = ""
 	}
 	return fi
 }

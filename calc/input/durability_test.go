@@ -97,6 +97,12 @@ func TestParseFire(t *testing.T) {
 			&model.Fire{Rating: 90, EtaFi: 0.6, UseMuFi: true}, &model.Fire{Rating: 30, EtaFi: 0.6, UseMuFi: true}},
 		{"column switches mu_fi back", "    fire: {mu_fi: eta_fi}\ndesign: {fire: {rating: R90, mu_fi: computed}}\n",
 			&model.Fire{Rating: 90, UseMuFi: true}, &model.Fire{Rating: 90}},
+		{"verified elsewhere", "design: {fire: {rating: R120, method: elsewhere, note: \" zone method, calc F-7 \"}}\n",
+			&model.Fire{Rating: 120, Method: model.FireElsewhere, Note: "zone method, calc F-7"}, nil},
+		{"column elsewhere over Method A", "    fire: {method: Elsewhere, note: tested}\ndesign: {fire: {rating: R90, method: method A}}\n",
+			&model.Fire{Rating: 90, Method: model.FireMethodA}, &model.Fire{Rating: 90, Method: model.FireElsewhere, Note: "tested"}},
+		{"column back to Method A drops the note", "    fire: {method: a}\ndesign: {fire: {rating: R90, method: elsewhere, note: tested}}\n",
+			&model.Fire{Rating: 90, Method: model.FireElsewhere, Note: "tested"}, &model.Fire{Rating: 90, Method: model.FireMethodA}},
 	}
 	for _, c := range cases {
 		text := lift + c.extra
@@ -211,7 +217,18 @@ func TestDurabilityFireErrors(t *testing.T) {
 			fire + `.mu_fi: "true" is not one of computed, eta_fi`,
 			`in.yaml:12: columns[0].fire.mu_fi: "eta" is not one of computed, eta_fi`}},
 		{"fire unknown key", lift + "    fire: {rating: R60, exposure: 3}\n", []string{
-			"in.yaml:11: columns[0].fire.exposure: unknown key (known here: rating, eta_fi, mu_fi)"}},
+			"in.yaml:11: columns[0].fire.exposure: unknown key (known here: rating, eta_fi, mu_fi, method, note)"}},
+		{"method unknown", "design: {fire: {rating: R90, method: B}}\n" + lift, []string{
+			fire + `.method: "B" is not a method of verifying the fire resistance (A: EN 1992-1-2 5.3.2 Method A, checked here, the default; elsewhere: verified by another method, recorded with a note)`}},
+		{"elsewhere without a note", "design: {fire: {rating: R90, method: elsewhere}}\n" + lift, []string{
+			fire + `.note: is required with method: elsewhere (how and where the fire resistance was verified, e.g. note: "zone method, calc F-7")`}},
+		{"note empty", "design: {fire: {rating: R90, method: elsewhere, note: \" \"}}\n" + lift, []string{
+			fire + ".note: is empty; say how and where the fire resistance was verified"}},
+		{"note with Method A", "design: {fire: {rating: R90, note: tested}}\n" + lift + "    fire: {method: A, note: [x]}\n", []string{
+			fire + ".note: goes with method: elsewhere only (Method A, the default, is checked here)",
+			"in.yaml:12: columns[0].fire.note: expected a text, found a list"}},
+		{"elsewhere in a fire level without a note", building3 + "  fire_levels:\n    - {levels: L1, rating: R60, method: elsewhere}\n", []string{
+			fl + `[0].note: is required with method: elsewhere (how and where the fire resistance was verified, e.g. note: "zone method, calc F-7")`}},
 		{"unknown level", building3 + "  fire_levels:\n    - {levels: [L1, L3], rating: R60}\n", []string{
 			fl + `[0].levels[1]: "L3" is not a storey level (levels: L1, L2, R)`}},
 		{"level in two entries", building3 + "  fire_levels:\n    - {levels: [L1, L2], rating: R60}\n    - {levels: [L2], rating: R90}\n    - {levels: [R, L1], rating: R30}\n", []string{
@@ -220,7 +237,7 @@ func TestDurabilityFireErrors(t *testing.T) {
 		{"level twice in an entry", building3 + "  fire_levels:\n    - {levels: [L1, L1], rating: R60}\n", []string{
 			fl + "[0].levels[1]: level L1 is listed twice"}},
 		{"fire level faults", building3 + "  fire_levels:\n    - {rating: R75, eta_fi: 2, mu_fi: computed, storeys: [L1]}\n", []string{
-			fl + "[0].storeys: unknown key (known here: levels, rating, eta_fi, mu_fi)",
+			fl + "[0].storeys: unknown key (known here: levels, rating, eta_fi, mu_fi, method, note)",
 			fl + "[0].levels: is required but missing (the levels of this rating, e.g. levels: [L1, L2]; design.fire serves the others)",
 			fl + `[0].rating: "R75" is not a standard fire resistance of EN 1992-1-2 Table 5.2a ` + ratings,
 			fl + "[0].eta_fi: the reduction factor ηfi (EN 1992-1-2 2.4.2) must lie between 0.3 and 1, found 2"}},

@@ -25,7 +25,9 @@
 //	            structural_class: 4 (1 to 6 or S1 to S6), design_life: 50 (10 to 200 years),
 //	            special_qc: false, delta_cdev: 10 mm (0 to 20), delta_cdur_gamma: 0 mm (0 to 20)}
 //	fire:      {rating: R30, R60, R90, R120, R180 or R240 (or the minutes; none for no check),
-//	            required; eta_fi: 0 (the engine's 0.7; else 0.3 to 1), mu_fi: eta_fi (or computed)}
+//	            required; eta_fi: 0 (the engine's 0.7; else 0.3 to 1), mu_fi: eta_fi (or computed),
+//	            method: A (EN 1992-1-2 5.3.2, checked here) or elsewhere (verified by another
+//	            method: recorded, not checked), note: text, required with method: elsewhere only}
 //	columns:   list of {id, b, h, cover, bars: {count, dia}, link_dia, durability, fire, storeys};
 //	            a column's durability and fire override design.durability and design.fire key
 //	            by key, so that what the column leaves out (the exposure, the rating) is inherited
@@ -41,7 +43,7 @@
 //	            imposed_reduction: none, density: code density_rc or 25 kN/m3, l0_factor: 1,
 //	            effective_length: factor (l0_factor × height; or frame, Eq. (5.15) without
 //	            l0_factor), creep: {rh, t0, cement} (the ratio is derived), bars, fire_levels}
-//	fire_levels: list of {levels, rating, eta_fi, mu_fi} over design.fire, key by key; levels
+//	fire_levels: list of {levels, rating, eta_fi, mu_fi, method, note} over design.fire, key by key; levels
 //	           required, no level in two entries. The durability is design.durability.
 //	storeys:   list of {name, height}, lowest first, names unique
 //	grid:      {x: [bay widths], y: [bay widths]}; lettered lines A, B, ..., Z, AA, ... at the x

@@ -147,4 +147,12 @@ type Fire struct {
 	Rating  int     // standard fire resistance R in minutes: 30, 60, 90, 120, 180, 240; 0 = no fire check
 	EtaFi   float64 // reduction factor ηfi for μfi = ηfi when NEd,fi/NRd is not computed; 0 = 0.7 (2.4.2(3))
 	UseMuFi bool    // μfi = NEd,fi/NRd with NEd,fi = ηfi·NEd (5.3.2(3)); otherwise μfi = ηfi, conservative
+	Method  string  // FireMethodA (or "": the default) or FireElsewhere
+	Note    string  // with FireElsewhere: how and where the rating was verified
 }
+
+// Methods of verifying the fire resistance of a column.
+const (
+	FireMethodA   = "A"         // EN 1992-1-2 5.3.2, Method A: Table 5.2a, or Eq. (5.7)
+	FireElsewhere = "elsewhere" // verified by another method outside this calculation, recorded as such
+)
