@@ -78,8 +78,8 @@ type Design struct {
 	pattern detail.Pattern    // bar pattern evaluated
 	sec     *section.Section  // the section with the bars provided
 	checks  []checked         // its check steps
-	reasons map[string]string // by check step ID, the reason to give where it fails, in its own words (the fire method\'s scope)
-	fixed   map[string]bool   // check step IDs that no bar pattern can make hold (the fire method\'s scope)
+	reasons map[string]string // by check step ID, the reason to give where it fails, in its own words (the fire method's scope)
+	fixed   map[string]bool   // check step IDs that no bar pattern can make hold (the fire method's scope)
 }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.
