@@ -222,13 +222,14 @@ func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q 
 	for _, s := range steps {
 		nEd = l.Add(s)
 	}
+	if last := l.Last(); last != nil {
+		last.Symbol = "N_Ed"
+	}
+	nEd.Symbol = "N_Ed"
 	lf.NEd = nEd.V
 	lf.Src.NEd = nEd
 	if b.Options.Creep != nil {
 		lf.quasiPermanent(l, q, g)
-	}
-	if last := l.Last(); last != nil {
-		last.Symbol = "N_Ed"
 	}
 }
 

@@ -32,7 +32,7 @@ var Catalogue = []Param{
 	{"theta_0", "θ_0", "EN 1992-1-1:2004 5.2(5)", "Basic value of the inclination imperfection", 1.0 / 200, 0, 0.05},
 	{"lambda_lim_k", "k_λ", "EN 1992-1-1:2004 5.8.3.1(1)", "Constant of the slenderness limit λlim = k·A·B·C/√n", 20, 5, 50},
 	{"c_curv", "c", "EN 1992-1-1:2004 5.8.8.2(4)", "Factor of the curvature distribution in e2 = (1/r)·l0²/c", 10, 8, 12},
-	{"phi_ef_default", "φ_ef", "common practice", "Effective creep ratio used in Kφ where the input gives none", 2.0, 0, 5},
+	{"phi_ef_default", "φ_ef", "common practice", "Effective creep ratio used in Kφ (5.8.8.3) and Kc (5.8.7.2) where the input gives none", 2.0, 0, 5},
 	{"As_min_N", "k_N", "EN 1992-1-1:2004 9.5.2(2)", "As,min as a fraction of NEd/fyd", 0.10, 0, 1},
 	{"As_min_Ac", "k_A", "EN 1992-1-1:2004 9.5.2(2)", "As,min as a fraction of Ac", 0.002, 0, 0.04},
 	{"As_max_Ac", "k_max", "EN 1992-1-1:2004 9.5.2(3)", "As,max outside lap locations as a fraction of Ac", 0.04, 0.01, 0.08},
