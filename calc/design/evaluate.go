@@ -17,7 +17,7 @@ import (
 )
 
 // stepsPerPattern is the room left for the bar-dependent steps of a full evaluation.
-const stepsPerPattern = 240
+const stepsPerPattern = 256
 
 // evaluate runs every bar-dependent step for one bar pattern and returns the design it gives.
 // With full false the equilibrium of the section is recorded as one step per axis instead of
@@ -519,9 +519,9 @@ type inUse struct {
 
 // beside words the exact section resistance, of ratio exact, shown beside the check in use:
 // the note of its step, a caution for the step (no numbers) and one for the design (with
-// both ratios), each empty where there is nothing to caution. Where (5.39) is in use and the
-// exact resistance gives the larger ratio the design is cautioned; where the exact ratio
-// exceeds 1 while the check in use passes, loudly. (5.39) is the check EN 1992-1-1:2004
+// both ratios), each empty where there is nothing to caution: the design is cautioned, loudly,
+// only where the exact ratio exceeds 1 while the check in use passes (a larger ratio below 1
+// is said in the step's note, not in the design's cautions, which a checker reads first). (5.39) is the check EN 1992-1-1:2004
 // 5.8.9(4) permits; the separate checks, 5.8.9(3).
 func (u inUse) beside(exact float64) (note, stepCaution, caution string) {
 	const tol = 1e-9
@@ -546,8 +546,6 @@ func (u inUse) beside(exact float64) (note, stepCaution, caution string) {
 	case exact > 1+tol && u.ratio <= 1+tol:
 		stepCaution = "The exact section resistance is exceeded while " + u.name + " passes: the section does not resist the design moments along their resultant by strain compatibility. Consider design.biaxial: exact."
 		caution = fmt.Sprintf("Biaxial bending: the section does NOT resist the design moments along their resultant by strain compatibility: the exact section resistance gives the ratio %.3f > 1, while %s, the check in use by the input's choice (design.biaxial: 5.39), passes at %.3f. Consider design.biaxial: exact.", exact, u.name, u.ratio)
-	case larger && u.checked:
-		caution = fmt.Sprintf("Biaxial bending: the exact section resistance gives a larger ratio (%.3f) than (5.39) (%.3f); (5.39) is the check in use by the input's choice (design.biaxial: 5.39).", exact, u.ratio)
 	}
 	return note, stepCaution, caution
 }

@@ -48,7 +48,7 @@ func Run(in *model.Input) (*Result, error) {
 			}
 			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
 				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
-			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt,
+			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt, Min: lf.Src.Min,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			if k+1 < len(d.Lifts) && d.Lifts[k+1].Column == lf.Column {
 				above := &r.Designs[k+1]
@@ -75,14 +75,17 @@ func Run(in *model.Input) (*Result, error) {
 // Derivation is the traced origin of a lift's actions when they come from the building form:
 // the steps of the take-down and the moments, and the quantities the design takes from them.
 type Derivation struct {
-	Steps       []trace.Step
-	RatioQP     trace.Q    // NEd,qp/NEd from the take-down, standing for M0Eqp/M0Ed in (5.19); zero when not derived
-	BottomAlt   [2]trace.Q // bottom moments about y and z of an arrangement with single curvature; zero when none
-	AsAbove     float64    // mm², the bars of the lift above (0 at the top); the lift takes no less
-	AcAbove     float64    // mm², the section of the lift above, for the lap
-	NameAbove   string     // the lift above
-	NEd         trace.Q
-	NArr        [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
+	Steps     []trace.Step
+	RatioQP   trace.Q    // NEd,qp/NEd from the take-down, standing for M0Eqp/M0Ed in (5.19); zero when not derived
+	BottomAlt [2]trace.Q // bottom moments about y and z of an arrangement with single curvature; zero when none
+	AsAbove   float64    // mm², the bars of the lift above (0 at the top); the lift takes no less
+	AcAbove   float64    // mm², the section of the lift above, for the lap
+	NameAbove string     // the lift above
+	NEd       trace.Q
+	NArr      [2]trace.Q // NEd that accompanies the moment arrangements about y and about z
+	// Min holds, about y and z, the least axial force of the moment arrangement (permanent
+	// actions favourable, γG,inf) with its end moments; zero N.From when not derived.
+	Min         [2]building.MinCase
 	L0          [2]trace.Q // effective lengths about y and z, when derived
 	Top, Bottom [2]trace.Q // end moments about y and z
 }
@@ -115,11 +118,11 @@ func methods(in *model.Input) []Method {
 	if b := in.Building; b != nil {
 		analysis := Method{"Column moments", "simplified subframe at each level: the columns above and below with far ends fixed, the beams either side at " + b.Options.BeamStiffness + " stiffness with far ends fixed; the unbalanced beam moment shared by stiffness; a fixed base takes half the moment of the lift above it", "common practice"}
 		if b.Analysis == model.AnalysisFrame {
-			analysis = Method{"Column moments", "each frame line solved whole, braced (joint rotations only), under all spans loaded and the two checkerboard patterns; at each column end the largest moment", "common practice; EN 1992-1-1:2004 5.1.3"}
+			analysis = Method{"Column moments", "each frame line solved whole, braced (joint rotations only); at each column end the envelope of every arrangement of loaded (γG·Gk + γQ·Qk) and lightly loaded (γG,light·Gk) spans, by superposition of single-span load cases, with the spans that give it named on the sheet", "common practice; EN 1992-1-1:2004 5.1.3(1)P"}
 		}
 		comb := "Eq. (6.10)"
 		if b.Options.Combination == model.Comb610ab {
-			comb = "the less favourable of Eq. (6.10a) and (6.10b)"
+			comb = "the less favourable of Eq. (6.10a) and (6.10b); the moment arrangements with the factors of the one that gives the larger moment, and their NEd by the same expression"
 		}
 		red := "none"
 		switch b.Options.Reduction {
@@ -130,11 +133,11 @@ func methods(in *model.Input) []Method {
 		}
 		out = append(out,
 			Method{"Take-down", "slabs to beams one way or by 45° lines (two way), beams to columns as simply supported; self-weight of beams (b·h) and columns from their sizes; NEd at the bottom of each lift", "common practice; EN 1991-1-1:2002 Annex A"},
-			Method{"Combination", comb + ", each imposed-load category leading in turn, the others with ψ0", "EN 1990:2002 6.4.3.2, Table A1.1, Table A1.2(B)"},
+			Method{"Combination", comb + ", each imposed-load category leading in turn, the others with ψ0; each moment arrangement is checked also with its least axial force, the permanent load favourable on every span (γG,inf)", "EN 1990:2002 6.4.3.2, Table A1.1, Table A1.2(B)"},
 			Method{"Imposed-load reduction", red, "EN 1991-1-1:2002 6.3.1.2"},
-			Method{"Load arrangements", "for the column moments, at each joint one side γG·Gk + γQ·Qk and the other γG,light·Gk, the side that gives the larger unbalanced moment (ties: the sense that bends the lifts in single curvature); all spans loaded for NEd", "EN 1992-1-1:2004 5.1.3"},
+			Method{"Load arrangements", "for the column moments, at each joint one side loaded (γG·Gk + γQ·Qk under Eq. (6.10)) and the other lightly loaded (γG,light·Gk), the side that gives the larger unbalanced moment (ties: the sense that bends the lifts in single curvature); all spans loaded for NEd", "EN 1992-1-1:2004 5.1.3"},
 			analysis,
-			Method{"Design cases", "the largest NEd (all spans loaded) with the largest end moments of the arrangements about both axes; checked again with the smaller NEd of each moment arrangement, and with the arrangement that bends a lift in single curvature where the governing one gives double curvature", "common practice; EN 1992-1-1:2004 5.1.3"},
+			Method{"Design cases", "the largest NEd (all spans loaded) with the largest end moments of the arrangements about both axes; checked again with the smaller NEd of each moment arrangement (by the same expression as its span loads), with the least axial force of the arrangement (γG,inf on every span) and its own end moments, and with the arrangement that bends a lift in single curvature where the governing one gives double curvature", "common practice; EN 1992-1-1:2004 5.1.3"},
 			effectiveLength(in),
 		)
 	}
@@ -507,6 +510,34 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		s := trace.Check("arr/"+n+"/single", "Resistance with the arrangement that bends the lift in single curvature about "+n, "EN 1992-1-1:2004 5.1.3; 5.8.8; 6.1; 5.8.9",
 			"η ≤ 1 in single curvature about "+n, ratio, "max(0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness with C from the new end moments, second order, resistance, biaxial) evaluated again by the same formulas with this bottom moment.")
+		d.checks = append(d.checks, checked{l.Add(s).From, true})
+		added = true
+	}
+	// The least axial force with the moments of the same arrangement (γG,inf on every span):
+	// below the balance point a smaller NEd lowers the moment resistance.
+	for k := 0; k < 2; k++ {
+		mc := dv.Min[k]
+		if mc.N.From == "" {
+			continue
+		}
+		top, bottom := dv.Top, dv.Bottom
+		top[k], bottom[k] = mc.Top, mc.Bot
+		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP})
+		qr := c2.quickResist(d.pattern, mc.N.V)
+		n := []string{"y", "z"}[k]
+		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
+		args := []trace.Arg{trace.A("N", mc.N), trace.A("M_top", mc.Top), trace.A("M_bot", mc.Bot), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
+			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
+			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
+			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
+		ratio := math.Max(math.Max(mc.N.V/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
+		if !qr.ok {
+			ratio = math.Max(ratio, 2)
+		}
+		s := trace.Check("arr/"+n+"/min", "Resistance with the least axial force of the moment arrangement about "+n+" (permanent load favourable)",
+			"EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
+			"η ≤ 1 at N_Ed,inf,"+n, ratio, "max(0 * M_top + 0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
+			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas with this NEd and these end moments about " + n + "; the moments about the other axis as in the main case (conservative). Permanent actions favourable: γG,inf, EN 1990:2002 Table A1.2(B).")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
 		added = true
 	}
