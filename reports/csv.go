@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"colsheet/calc/design"
+	"colsheet/calc/fire"
 )
 
 // CSVHeader names the columns of the CSV summary.
@@ -86,12 +87,15 @@ func scheduleRow(d design.Design, esc func(string) string) []string {
 		}
 		return n(v)
 	}
-	fire, rating := "not required", "none"
+	status, rating := "not required", "none"
 	if d.Detailing.FireRating > 0 {
 		rating = "R" + strconv.Itoa(d.Detailing.FireRating)
-		fire = "fails"
+		status = "fails"
 		if d.Detailing.FireOK {
-			fire = "passes"
+			status = "passes"
+			if d.Detailing.FireMethod == fire.RouteElsewhere {
+				status = fire.RouteElsewhere
+			}
 		}
 	}
 	// The links within the lap length at their spacing; none where they were not detailed.
@@ -108,6 +112,6 @@ func scheduleRow(d design.Design, esc func(string) string) []string {
 	return []string{esc(d.Column), esc(d.Storey), n(d.B), n(d.H), fmt.Sprintf("%d × %s mm", d.Bars.Count, n(d.Bars.Dia)), n(math.Round(d.AsProv)),
 		n(d.Links.Dia), n(d.Links.Spacing), n(d.Links.SpacingReduced), n(d.Detailing.ZoneLength), laps, opt(d.Detailing.LapLength),
 		optInt(d.Detailing.LapLinks, d.Detailing.LapLinkSpacing), opt(d.Detailing.LapLinkSpacing),
-		strconv.Itoa(d.Detailing.ExtraTies), n(d.Cover), opt(d.Detailing.CoverRequired), rating, fire,
+		strconv.Itoa(d.Detailing.ExtraTies), n(d.Cover), opt(d.Detailing.CoverRequired), rating, status,
 		fmtNum(d.Utilization).plain(), d.Status, esc(d.Governing)}
 }

@@ -17,6 +17,7 @@ import (
 
 	"colsheet/calc/code"
 	"colsheet/calc/design"
+	"colsheet/calc/fire"
 	"colsheet/calc/material"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
@@ -543,4 +544,33 @@ func tail(b []byte) string {
 		b = b[len(b)-3000:]
 	}
 	return string(b)
+}
+
+// The schedule says how a fire rating is shown: a rating verified by another method reads as
+// such, never as a pass of this calculation (common practice, no source).
+func TestScheduleFireStatus(t *testing.T) {
+	for _, c := range []struct {
+		rating int
+		ok     bool
+		method string
+		want   string
+	}{
+		{0, false, "", "not required"},
+		{90, true, fire.RouteTable, "passes"},
+		{90, false, "", "fails"},
+		{60, true, fire.RouteElsewhere, "verified elsewhere"},
+	} {
+		var d design.Design
+		d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = c.rating, c.ok, c.method
+		row := scheduleRow(d, func(s string) string { return s })
+		found := false
+		for _, cell := range row {
+			if cell == c.want {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("R%d %v %q: row %q lacks %q", c.rating, c.ok, c.method, row, c.want)
+		}
+	}
 }

@@ -283,7 +283,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		if f.Method == model.FireElsewhere {
 			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (verified elsewhere)"
 			d.Detailing.SurfaceMesh = fire.Elsewhere(l, "fire/", f.Rating, f.Note, fc)
-			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, true, "verified elsewhere"
+			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, true, fire.RouteElsewhere
 			d.Cautions = append(d.Cautions, fmt.Sprintf("Fire resistance R%d verified elsewhere, outside this calculation (no check of EN 1992-1-2 Method A here): %s", f.Rating, f.Note))
 		} else {
 			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (EN 1992-1-2 5.3.2, Method A)"

@@ -55,6 +55,8 @@ func Eccentricities(l *trace.Log, prefix string, c Column) (eY, eZ trace.Q) {
 const (
 	RouteTable = "Method A, Table 5.2a"
 	RouteEq57  = "Method A, Eq. (5.7)"
+	// RouteElsewhere is a rating that the input says was verified by another method.
+	RouteElsewhere = "verified elsewhere"
 )
 
 // Verdict names one check step that settles the fire verdict.
@@ -267,7 +269,17 @@ func Assess(l *trace.Log, prefix string, rating int, muFi trace.Q, c Column) Out
 		eq.passed = eq.governing() <= 1+1e-9
 	}
 	if eq.passed {
-		l.Add(trace.Input(p57+"route", "Fire resistance shown by Eq. (5.7), which the standard offers beside Table 5.2a", en2+"5.3.2(2)", "route", "", 57).
+		// The table's checks that fell short stay on the sheet for information, without a verdict.
+		for _, q := range tab.checks {
+			for i := len(l.Steps) - 1; i >= 0; i-- {
+				if s := &l.Steps[i]; s.ID == q.From {
+					s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
+					s.Title += " (for information: Eq. (5.7) shows the rating)"
+					break
+				}
+			}
+		}
+		l.Add(trace.Input(p57+"route", "Fire resistance shown by Eq. (5.7), which the standard offers beside Table 5.2a (5.3.2(2))", trace.ClauseChosen+"Eq. (5.7) where Table 5.2a does not show the rating", "route", "", 57).
 			Note("The steps of Table 5.2a above are for information; those of Eq. (5.7) govern."))
 		out.OK, out.Route, out.Checks = true, RouteEq57, append(verdictsOf(common), eq.verdicts(false)...)
 		return out
