@@ -10,18 +10,6 @@ import (
 	"colsheet/calc/trace"
 )
 
-// lapStep returns the design's step with the given ID, failing the test when there is none.
-func lapStep(t *testing.T, d Design, id string) trace.Step {
-	t.Helper()
-	for _, s := range d.Steps {
-		if s.ID == id {
-			return s
-		}
-	}
-	t.Fatalf("%s/%s: no step %s", d.Column, d.Storey, id)
-	return trace.Step{}
-}
-
 // The laps of a column whose bars are all lapped at one section, EN 1992-1-1:2004 8.7.2(3): the bar of
 // the lift above beside each bar leaves min(sb, sh) − φ clear to the next bar, which must be at least
 // max(8.2(2), 2φ, 20 mm). 400 × 400, cover 35, links φ6 (the least listed size not below
@@ -34,14 +22,14 @@ func TestLapsInDesign(t *testing.T) {
 		Storeys: []model.Storey{lift(3500, 3500, 2000, 60, -30, 20, -10)}}
 	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 	checkTrace(t, d)
-	near(t, "gap at the lap", lapStep(t, d, "lap/gap").Value, 34.5, 1e-12)
-	near(t, "least gap at the lap", lapStep(t, d, "lap/gap_min").Value, 40, 1e-12)
-	gap := lapStep(t, d, "lap/check_gap")
+	near(t, "gap at the lap", stepByID(t, d, "lap/gap").Value, 34.5, 1e-12)
+	near(t, "least gap at the lap", stepByID(t, d, "lap/gap_min").Value, 40, 1e-12)
+	gap := stepByID(t, d, "lap/check_gap")
 	near(t, "lap gap ratio", gap.Value, 60/54.5, 1e-12)
 	if gap.Verdict != trace.Fail || d.Status != StatusFail || !strings.Contains(strings.Join(d.Reasons, " "), "lapped pair") {
 		t.Errorf("16 φ20 in 400 × 400: verdict %s, status %s, reasons %v", gap.Verdict, d.Status, d.Reasons)
 	}
-	if lapStep(t, d, "space/check").Verdict != trace.Pass {
+	if stepByID(t, d, "space/check").Verdict != trace.Pass {
 		t.Error("the clear spacing of 8.2(2) alone should pass")
 	}
 
@@ -83,16 +71,16 @@ func TestLapsInDesign(t *testing.T) {
 	// links in the lap, floor(357.4/59) = 6 per third, ΣAst = 12 × 28.27 = 339.3 mm², As/ΣAst =
 	// 400/432 = 0.9259; one more link beyond each end within 4 × 20 = 80 mm (8.7.4.2(1)); by hand.
 	near(t, "l0", d.Detailing.LapLength, 1072.2, 1e-4)
-	near(t, "links per third needed", lapStep(t, d, "lap/n_third_req").Value, 6, 0)
+	near(t, "links per third needed", stepByID(t, d, "lap/n_third_req").Value, 6, 0)
 	near(t, "lap link spacing", d.Detailing.LapLinkSpacing, 59, 0)
 	near(t, "lap links", float64(d.Detailing.LapLinks), 18, 0)
-	near(t, "As/ΣAst", lapStep(t, d, "lap/check_Ast").Value, 400.0/432, 1e-12)
-	near(t, "end link reach", lapStep(t, d, "lap/end_link").Value, 80, 1e-12)
+	near(t, "As/ΣAst", stepByID(t, d, "lap/check_Ast").Value, 400.0/432, 1e-12)
+	near(t, "end link reach", stepByID(t, d, "lap/end_link").Value, 80, 1e-12)
 	if !d.Detailing.LapZone || d.Links.SpacingReduced != 240 {
 		t.Errorf("reduced spacing %g, over laps %v", d.Links.SpacingReduced, d.Detailing.LapZone)
 	}
 	for _, id := range []string{"lap/check_pair", "lap/check_gap", "lap/links_check", "lap/check_s_t", "lap/check_Ast"} {
-		if s := lapStep(t, d, id); s.Verdict != trace.Pass {
+		if s := stepByID(t, d, id); s.Verdict != trace.Pass {
 			t.Errorf("%s: %s", id, s.Verdict)
 		}
 	}
@@ -116,7 +104,7 @@ func TestLapsBelow20mm(t *testing.T) {
 		Storeys: []model.Storey{lift(3000, 3000, 1500, 40, -20, 10, 5)}}
 	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 	checkTrace(t, d)
-	tr := lapStep(t, d, "lap/transverse")
+	tr := stepByID(t, d, "lap/transverse")
 	if tr.Value != 0 || len(tr.Notes) == 0 || !strings.Contains(tr.Notes[0], "8.7.4.1(2)") {
 		t.Errorf("φ16: transverse %g, notes %v", tr.Value, tr.Notes)
 	}
