@@ -9,8 +9,10 @@ package actions
 
 import (
 	"strconv"
+	"strings"
 
 	"colsheet/calc/code"
+	"colsheet/calc/quantity"
 	"colsheet/calc/trace"
 )
 
@@ -21,14 +23,35 @@ const (
 )
 
 // ParamStep returns an input step recording the catalogue parameter name in force in p,
-// with a caution when the input overrode its EN recommended value.
+// with a caution when the input overrode its EN recommended value. The step's title is the
+// catalogue's description without the unit it ends with ("…, N/mm³"): the sheets show the
+// value in their own unit (kN/m³), and the title must not name another.
 func ParamStep(id string, p code.Params, name, unit string) trace.Step {
 	c, _ := code.Lookup(name)
-	s := trace.Input(id, c.What, c.Clause, c.Symbol, unit, p.Get(name))
+	title, catUnit := splitUnit(c.What)
+	s := trace.Input(id, title, c.Clause, c.Symbol, unit, p.Get(name))
 	if p.IsOverridden(name) {
-		s = s.Caution("Overridden in the input: the EN recommended value is " + strconv.FormatFloat(c.Default, 'g', -1, 64) + ".")
+		def := strconv.FormatFloat(c.Default, 'g', -1, 64)
+		if catUnit != "" {
+			def += " " + catUnit
+		}
+		s = s.Caution("Overridden in the input: the EN recommended value is " + def + ".")
 	}
 	return s
+}
+
+// splitUnit splits a catalogue description "Weight density of reinforced concrete, N/mm³" into
+// the words and the unit it ends with; the unit is "" where the description names none.
+func splitUnit(what string) (title, unit string) {
+	i := strings.LastIndex(what, ", ")
+	if i < 0 {
+		return what, ""
+	}
+	u := what[i+2:]
+	if q, ok := quantity.LookupUnit(u); ok && q.Dim != quantity.Number {
+		return what[:i], u
+	}
+	return what, ""
 }
 
 // SelfWeight returns the self-weight per unit length ρ·b·h of a member of section b × h,

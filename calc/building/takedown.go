@@ -63,16 +63,39 @@ func Reaction(id, title string, f, xbar, l trace.Q, atStart bool) trace.Step {
 }
 
 // PiecesTotal returns the total of linearly varying pieces, Σ (x1 − x0)·(w0 + w1)/2 (statics):
-// with unit pieces, the slab area that drains to a beam.
+// with unit pieces, the slab area that drains to a beam. Each piece's term is written in its
+// simplest form: x1 for a piece from 0, w0 for a uniform piece, w/2 for a triangle.
 func PiecesTotal(id, title, clause, symbol, unit, wUnit string, ps []frame.Piece) trace.Step {
 	var terms []string
 	var args []trace.Arg
 	v := 0.0
 	for k, p := range ps {
 		n := itoa(k + 1)
-		terms = append(terms, "(x1_"+n+" - x0_"+n+") * (w0_"+n+" + w1_"+n+") / 2")
-		args = append(args, trace.A("x0_"+n, trace.Const(p.X0, "x_0,"+n, "mm")), trace.A("x1_"+n, trace.Const(p.X1, "x_1,"+n, "mm")),
-			trace.A("w0_"+n, trace.Const(p.W0, "w_0,"+n, wUnit)), trace.A("w1_"+n, trace.Const(p.W1, "w_1,"+n, wUnit)))
+		x0 := trace.A("x0_"+n, trace.Const(p.X0, "x_0,"+n, "mm"))
+		x1 := trace.A("x1_"+n, trace.Const(p.X1, "x_1,"+n, "mm"))
+		w0 := trace.A("w0_"+n, trace.Const(p.W0, "w_0,"+n, wUnit))
+		w1 := trace.A("w1_"+n, trace.Const(p.W1, "w_1,"+n, wUnit))
+		length, width := "(x1_"+n+" - x0_"+n+")", "(w0_"+n+" + w1_"+n+") / 2"
+		if p.X0 == 0 {
+			length = "x1_" + n
+		} else {
+			args = append(args, x0)
+		}
+		args = append(args, x1)
+		switch {
+		case p.W0 == p.W1:
+			width = "w0_" + n
+			args = append(args, w0)
+		case p.W0 == 0:
+			width = "w1_" + n + " / 2"
+			args = append(args, w1)
+		case p.W1 == 0:
+			width = "w0_" + n + " / 2"
+			args = append(args, w0)
+		default:
+			args = append(args, w0, w1)
+		}
+		terms = append(terms, length+" * "+width)
 		v += (p.X1 - p.X0) * (p.W0 + p.W1) / 2
 	}
 	expr := strings.Join(terms, " + ")

@@ -59,10 +59,14 @@ func PhiRH(id string, rh, h0, fcm, alpha1, alpha2 trace.Q) trace.Step {
 	if fcm.V > 35 {
 		clause = annexB + "Eq. (B.3b)"
 	}
-	return trace.Formula(id, "Factor for the relative humidity", clause, "φ_RH", "",
+	s := trace.Formula(id, "Factor for the relative humidity", clause, "φ_RH", "",
 		PhiRHValue(rh.V, h0.V, fcm.V, alpha1.V, alpha2.V),
 		"f_cm <= 35 ? 1 + (1 - RH / 100) / (0.1 * h_0 ** (1 / 3)) : (1 + (1 - RH / 100) / (0.1 * h_0 ** (1 / 3)) * alpha_1) * alpha_2",
 		trace.A("RH", rh), trace.A("h_0", h0), trace.A("f_cm", fcm), trace.A("alpha_1", alpha1), trace.A("alpha_2", alpha2))
+	if fcm.V > 35 {
+		return s.Shown("(1 + (1 - RH / 100) / (0.1 * h_0 ** (1 / 3)) * alpha_1) * alpha_2")
+	}
+	return s.Shown("1 + (1 - RH / 100) / (0.1 * h_0 ** (1 / 3))")
 }
 
 // BetaFcm returns the factor for the concrete strength β(fcm) = 16.8/√fcm, EN 1992-1-1:2004 Annex B, Eq. (B.4).
@@ -114,17 +118,25 @@ func BetaH(id string, rh, h0, fcm, alpha3 trace.Q) trace.Step {
 	if fcm.V > 35 {
 		clause = annexB + "Eq. (B.8b)"
 	}
-	return trace.Formula(id, "Coefficient for the development of creep with time", clause, "β_H", "",
+	s := trace.Formula(id, "Coefficient for the development of creep with time", clause, "β_H", "",
 		BetaHValue(rh.V, h0.V, fcm.V, alpha3.V),
 		"f_cm <= 35 ? min(1.5 * (1 + (0.012 * RH) ** 18) * h_0 + 250, 1500) : min(1.5 * (1 + (0.012 * RH) ** 18) * h_0 + 250 * alpha_3, 1500 * alpha_3)",
 		trace.A("RH", rh), trace.A("h_0", h0), trace.A("f_cm", fcm), trace.A("alpha_3", alpha3))
+	if fcm.V > 35 {
+		return s.Shown("min(1.5 * (1 + (0.012 * RH) ** 18) * h_0 + 250 * alpha_3, 1500 * alpha_3)")
+	}
+	return s.Shown("min(1.5 * (1 + (0.012 * RH) ** 18) * h_0 + 250, 1500)")
 }
 
 // BetaC returns βc(t, t0) = [(t − t0)/(βH + t − t0)]^0.3, 0 before loading, EN 1992-1-1:2004 Annex B, Eq. (B.7).
 func BetaC(id string, t, t0, betaH trace.Q) trace.Step {
-	return trace.Formula(id, "Development of creep with time after loading", annexB+"Eq. (B.7)", "β_c(t,t0)", "",
+	s := trace.Formula(id, "Development of creep with time after loading", annexB+"Eq. (B.7)", "β_c(t,t0)", "",
 		BetaCValue(t.V, t0.V, betaH.V), "t > t_0 ? ((t - t_0) / (beta_H + t - t_0)) ** 0.3 : 0",
 		trace.A("t", t), trace.A("t_0", t0), trace.A("beta_H", betaH))
+	if t.V > t0.V {
+		return s.Shown("((t - t_0) / (beta_H + t - t_0)) ** 0.3")
+	}
+	return s.Shown("0").Note("Not yet loaded at the time t: no creep.")
 }
 
 // AtTime returns φ(t, t0) = φ0·βc(t, t0), EN 1992-1-1:2004 Annex B, Eq. (B.1).
@@ -160,9 +172,14 @@ func MayIgnoreStep(id string, phiInf, lambda, m0Ed, nEd, h trace.Q) trace.Step {
 	if MayIgnore(phiInf.V, lambda.V, m0Ed.V, nEd.V, h.V) {
 		v = 1
 	}
-	s := trace.Formula(id, "Creep may be ignored (1 = yes, 0 = no)", "EN 1992-1-1:2004 5.8.4(4)", "c_φ", "", v,
+	s := trace.Formula(id, "Creep may be ignored", "EN 1992-1-1:2004 5.8.4(4)", "c_φ", "", v,
 		"phi_inf <= 2 && lambda <= 75 && M_0Ed >= h * N_Ed ? 1 : 0",
 		trace.A("phi_inf", phiInf), trace.A("lambda", lambda), trace.A("M_0Ed", m0Ed), trace.A("N_Ed", nEd), trace.A("h", h))
+	if nEd.V > 0 {
+		s = s.Condition("phi_inf <= 2 && lambda <= 75 && M_0Ed / N_Ed >= h")
+	} else {
+		s = s.Condition("phi_inf <= 2 && lambda <= 75 && M_0Ed >= h * N_Ed")
+	}
 	if v == 1 {
 		return s.Note("φ(∞, t0) ≤ 2, λ ≤ 75 and M0Ed/NEd ≥ h: the effects of creep may be ignored, φef = 0.")
 	}

@@ -55,7 +55,8 @@ func ReducedLinkSpacing(id string, s, k trace.Q) trace.Step {
 // RoundDown returns the spacing s rounded down to a multiple of step, common practice.
 func RoundDown(id, title, symbol string, s, step trace.Q) trace.Step {
 	return trace.Formula(id, title, "common practice", symbol, "mm", math.Floor(s.V/step.V+1e-9)*step.V,
-		"floor(s / step + 0.000000001) * step", trace.A("s", s), trace.A("step", step))
+		"floor(s / step + 0.000000001) * step", trace.A("s", s), trace.A("step", step)).
+		Shown("rounddown(s, step)")
 }
 
 // Pattern is a symmetric arrangement of equal bars on the four faces of a rectangle:

@@ -132,10 +132,12 @@ func faceSteps(l *trace.Log, prefix, side, faces string, f FaceRestraint, width,
 		f.Spacing, "(w - 2 * (c_nom + phi_t + phi / 2)) / (n - 1)",
 		trace.A("w", width), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", n)))
 	m := l.Add(trace.Formula(prefix+"reach", "Neighbours within reach of a restrained bar each way along "+faces,
-		ec2+"9.5.3(6)", "m_"+side, "", float64(f.Reach), "floor(s_lim / s + 0.000000001)", trace.A("s_lim", lim), trace.A("s", s)))
+		ec2+"9.5.3(6)", "m_"+side, "", float64(f.Reach), "floor(s_lim / s + 0.000000001)", trace.A("s_lim", lim), trace.A("s", s)).
+		Shown("floor(s_lim / s)"))
 	k := l.Add(trace.Formula(prefix+"extra", "Intermediate bars held by extra ties on "+faces+" (fewest)",
 		ec2+"9.5.3(6)", "k_"+side, "", float64(f.Extra), "floor((n - 1 + 2 * m) / (2 * m + 1)) - 1",
 		trace.A("n", n), trace.A("m", m)).
+		Shown("ceil((n - 1) / (2 * m + 1)) - 1").
 		Note("Between two restrained bars at most 2·m bars may lie; the restrained bars are spread as evenly as the bars allow."))
 	for j, i := range f.Restrained[1 : len(f.Restrained)-1] {
 		idx := trace.Const(float64(i), "i", "")
@@ -144,7 +146,8 @@ func faceSteps(l *trace.Log, prefix, side, faces string, f FaceRestraint, width,
 	}
 	d := l.Add(trace.Formula(prefix+"d_max", "Greatest distance of a bar from a restrained bar along "+faces,
 		ec2+"9.5.3(6)", "d_max,"+side, "mm", f.Farthest, "floor(floor((n - 1 + k) / (k + 1)) / 2) * s",
-		trace.A("n", n), trace.A("k", k), trace.A("s", s)))
+		trace.A("n", n), trace.A("k", k), trace.A("s", s)).
+		Shown("floor(ceil((n - 1) / (k + 1)) / 2) * s"))
 	l.Add(trace.Check(prefix+"check", "Every bar along "+faces+" near enough to a restrained bar", ec2+"9.5.3(6)",
 		"d_max ≤ s_lim", f.Farthest/lim.V, "d_max / s_lim", trace.A("d_max", d), trace.A("s_lim", lim)))
 	return k

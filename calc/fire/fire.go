@@ -167,15 +167,23 @@ func L0FiCondition57(id string, l0fi trace.Q) trace.Step {
 // AxisCondition57 returns the check of the axis distance a ≥ 25 mm of Eq. (5.7), ratio 25 mm/a,
 // EN 1992-1-2:2004 5.3.2, Eq. (5.7).
 func AxisCondition57(id string, a trace.Q) trace.Step {
-	return condition(id, "Limit of Eq. (5.7): axis distance", en2+"5.3.2, Eq. (5.7)", "25 mm ≤ a",
+	s := condition(id, "Limit of Eq. (5.7): axis distance", en2+"5.3.2, Eq. (5.7)", "25 mm ≤ a",
 		AxisMin57/math.Max(a.V, 1e-3), "25 / max(a, 0.001)", trace.A("a", a))
+	if a.V >= 1e-3 {
+		return s.Shown("25 / a")
+	}
+	return s
 }
 
 // WidthCondition57 returns the check of the equivalent width b′ ≥ 200 mm of Eq. (5.7), ratio
 // 200 mm/b′, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
 func WidthCondition57(id string, bEq trace.Q) trace.Step {
-	return condition(id, "Limit of Eq. (5.7): equivalent width", en2+"5.3.2, Eq. (5.7)", "200 mm ≤ b'",
+	s := condition(id, "Limit of Eq. (5.7): equivalent width", en2+"5.3.2, Eq. (5.7)", "200 mm ≤ b'",
 		WidthMin57/math.Max(bEq.V, 1e-3), "200 / max(b_eq, 0.001)", trace.A("b_eq", bEq))
+	if bEq.V >= 1e-3 {
+		return s.Shown("200 / b_eq")
+	}
+	return s
 }
 
 // TableScope returns the check that Table 5.2a gives values at the rating and μfi: μfi not above
@@ -200,8 +208,8 @@ func TableScope(id string, rating int, muFi trace.Q) trace.Step {
 // EN 1992-1-2:2004 4.5.2(2).
 func SurfaceMesh(id string, a trace.Q) trace.Step {
 	need := a.V >= MeshAxis
-	s := trace.Formula(id, "Surface reinforcement against falling off of concrete (1 = required)", en2+"4.5.2(2)", "mesh", "",
-		boolNum(need), "a >= 70 ? 1 : 0", trace.A("a", a))
+	s := trace.Formula(id, "Surface reinforcement against falling off of concrete required", en2+"4.5.2(2)", "mesh", "",
+		boolNum(need), "a >= 70 ? 1 : 0", trace.A("a", a)).Condition("a >= 70")
 	if need {
 		s = s.Note("Axis distance 70 mm or more: a surface reinforcement mesh is required in the cover, with a spacing not above 100 mm and bars not below 4 mm, unless tests show that the concrete does not fall off. A detailing requirement for the drawings.")
 	}
@@ -218,15 +226,23 @@ func EMax(id string, k, dim trace.Q) trace.Step {
 // Eccentricity returns the first-order eccentricity e = M0Ed/NEd, equal in fire and at normal
 // temperature since Efi,d = ηfi·Ed scales both alike, EN 1992-1-2:2004 5.3.2(2) and 2.4.2.
 func Eccentricity(id string, m, n trace.Q) trace.Step {
-	return trace.Formula(id, "First-order eccentricity in fire", en2+"5.3.2(2); 2.4.2", "e", "mm",
+	s := trace.Formula(id, "First-order eccentricity in fire", en2+"5.3.2(2); 2.4.2", "e", "mm",
 		EccentricityValue(m.V, n.V), "abs(M) / max(N, 1)", trace.A("M", m), trace.A("N", n))
+	if n.V >= 1 {
+		return s.Shown("abs(M) / N")
+	}
+	return s.Shown("abs(M) / 1").Note("No axial compression: N is taken as 1 N so that the eccentricity is finite; it exceeds any limit of the method.")
 }
 
 // EccentricityCondition returns the check of the first-order eccentricity in fire e ≤ emax
 // about axis n, ratio e/emax, EN 1992-1-2:2004 5.3.2(2).
 func EccentricityCondition(id, n string, e, eMax trace.Q) trace.Step {
-	return condition(id, "Scope of Method A: first-order eccentricity about "+n, en2+"5.3.2(2)", "e ≤ e_max",
+	s := condition(id, "Scope of Method A: first-order eccentricity about "+n, en2+"5.3.2(2)", "e ≤ e_max",
 		e.V/math.Max(eMax.V, 1e-3), "e / max(e_max, 0.001)", trace.A("e", e), trace.A("e_max", eMax))
+	if eMax.V >= 1e-3 {
+		return s.Shown("e / e_max")
+	}
+	return s
 }
 
 // SteelCondition returns the check of the steel As < 0.04·Ac, ratio As/(0.04·Ac),
@@ -280,8 +296,14 @@ func alternative(id, title, symbol string, rating, i int, muFi trace.Q, v float6
 		trace.A("mu_1", trace.Const(mu1, "μ_fi,1", "")),
 		trace.A("mu_2", trace.Const(mu2, "μ_fi,2", "")))
 	s.Row = fmt.Sprintf("R%d, columns μfi = %g and %g (exposed on more than one side)", ratings[lk.row], mu1, mu2)
-	if lk.t > 0 && lk.t < 1 {
-		s = s.Note("Linear interpolation between the μfi columns, as 5.3.2 permits.")
+	switch {
+	case lk.t <= 0:
+		s = s.Shown("x_1")
+	case lk.t >= 1:
+		s = s.Shown("x_2")
+	default:
+		s = s.Shown("x_1 + (x_2 - x_1) * (mu - mu_1) / (mu_2 - mu_1)").
+			Note("Linear interpolation between the μfi columns, as 5.3.2 permits.")
 	}
 	if lk.belowMin {
 		s = s.Note("μfi is below the first column of the table: that column is used.")
@@ -316,10 +338,13 @@ func RequiredAxis(id string, b, b1, a1, b2, a2 trace.Q) trace.Step {
 		RequiredAxisValue(b.V, b1.V, a1.V, b2.V, a2.V),
 		"a_1 + (a_2 - a_1) * min(max((b - b_1) / max(b_2 - b_1, 0.001), 0), 1)",
 		trace.A("b", b), trace.A("b_1", b1), trace.A("a_1", a1), trace.A("b_2", b2), trace.A("a_2", a2))
-	if b.V > b1.V && b.V < b2.V {
-		s = s.Note("Linear interpolation between the alternatives of the row.")
+	switch {
+	case b.V <= b1.V:
+		return s.Shown("a_1")
+	case b.V >= b2.V:
+		return s.Shown("a_2")
 	}
-	return s
+	return s.Shown("a_1 + (a_2 - a_1) * (b - b_1) / (b_2 - b_1)").Note("Linear interpolation between the alternatives of the row.")
 }
 
 // WidthCheck returns the check b ≥ bmin, ratio bmin/b, EN 1992-1-2:2004 5.3.2, Table 5.2a.
@@ -416,13 +441,21 @@ func AspectCondition(id string, b, h trace.Q) trace.Step {
 // Eq57 returns the fire resistance R = 120·((Rηfi + Ra + Rl + Rb + Rn)/120)^1.8 in minutes,
 // a negative sum taken as 0, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
 func Eq57(id string, rEta, ra, rl, rb, rn trace.Q) trace.Step {
-	return trace.Formula(id, "Fire resistance of the column", en2+"5.3.2, Eq. (5.7)", "R", "min",
+	s := trace.Formula(id, "Fire resistance of the column", en2+"5.3.2, Eq. (5.7)", "R", "min",
 		Eq57Value(rEta.V, ra.V, rl.V, rb.V, rn.V), "120 * (max(R_eta + R_a + R_l + R_b + R_n, 0) / 120) ** 1.8",
 		trace.A("R_eta", rEta), trace.A("R_a", ra), trace.A("R_l", rl), trace.A("R_b", rb), trace.A("R_n", rn))
+	if rEta.V+ra.V+rl.V+rb.V+rn.V < 0 {
+		return s.Shown("0").Note("The sum of the terms is negative: no fire resistance by Eq. (5.7).")
+	}
+	return s.Shown("120 * ((R_eta + R_a + R_l + R_b + R_n) / 120) ** 1.8")
 }
 
 // RatingCheck returns the check R ≥ R_req, ratio R_req/R, EN 1992-1-2:2004 5.3.2, Eq. (5.7).
 func RatingCheck(id string, required, r trace.Q) trace.Step {
-	return trace.Check(id, "Fire resistance", en2+"5.3.2, Eq. (5.7)", "R_req ≤ R",
+	s := trace.Check(id, "Fire resistance", en2+"5.3.2, Eq. (5.7)", "R_req ≤ R",
 		required.V/max(r.V, 1e-3), "R_req / max(R, 0.001)", trace.A("R_req", required), trace.A("R", r))
+	if r.V >= 1e-3 {
+		return s.Shown("R_req / R")
+	}
+	return s
 }

@@ -2,6 +2,7 @@ package frame
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 
@@ -40,34 +41,24 @@ func FEMTrapezoidStep(id, title string, w, l, a trace.Q) trace.Step {
 }
 
 // FEMStep records the fixed-end moment at one end of a member of length l under the line
-// loads, clockwise positive, as the sum over the pieces of the exact integral of the linear
-// load against the fixed-end influence x·(L−x)²/L² (start) or x²·(L−x)/L² (end): Simpson's
-// rule over the piece plus the closed-form correction ∓(x1 − x0)⁴·(w1 − w0)/120 of its error
-// on the quartic term, which makes it exact. Parts of pieces outside [0, l] are left out, as
-// in FixedEnd.
+// loads, clockwise positive, by the simplest formula that fits the load: w·L²/12 for one
+// uniform load over the whole span; L²/12·[w_e + (w − w_e)·(1 − 2(a/L)² + (a/L)³)] for a load
+// symmetric about mid-span that rises linearly from w_e at each end to w over the length a
+// (a triangle when a = L/2, with w_e = 0 a pure trapezoid); otherwise the sum over the pieces
+// of the exact integral of the linear load against the fixed-end influence x·(L−x)²/L² (start)
+// or x²·(L−x)/L² (end): Simpson's rule over the piece plus the closed-form correction
+// ∓(x1 − x0)⁴·(w1 − w0)/120 of its error on the quartic term, which makes it exact, with the
+// terms that vanish for the piece (at x = 0 or L, or the correction of a uniform piece) left
+// out. Parts of pieces outside [0, l] are left out, as in FixedEnd.
 func FEMStep(id, title string, side Side, l trace.Q, loads []Piece) trace.Step {
-	args := make([]trace.Arg, 1, 1+4*len(loads))
-	args[0] = trace.A("L", l)
-	var expr strings.Builder
+	var ps []Piece
 	v := 0.0
-	n := 0
 	for _, p := range loads {
 		p, ok := clip(p, l.V)
 		if !ok {
 			continue
 		}
-		n++
-		k := strconv.Itoa(n)
-		x0, x1, w0, w1 := "x0_"+k, "x1_"+k, "w0_"+k, "w1_"+k
-		args = append(args,
-			trace.A(x0, trace.Const(p.X0, "x_0,"+k, "mm")),
-			trace.A(x1, trace.Const(p.X1, "x_1,"+k, "mm")),
-			trace.A(w0, trace.Const(p.W0, "w_0,"+k, "N/mm")),
-			trace.A(w1, trace.Const(p.W1, "w_1,"+k, "N/mm")))
-		if n > 1 {
-			expr.WriteString(" + ")
-		}
-		writeFEMTerm(&expr, side, x0, x1, w0, w1)
+		ps = append(ps, p)
 		if side == AtEnd {
 			v += exact(p, func(x float64) float64 { return x * x * (l.V - x) }, -1)
 		} else {
@@ -75,38 +66,124 @@ func FEMStep(id, title string, side Side, l trace.Q, loads []Piece) trace.Step {
 		}
 	}
 	v /= l.V * l.V
-	text := "0 * L"
-	if n > 0 {
-		text = "(" + expr.String() + ") / L ** 2"
-	}
+	sign := ""
 	if side == AtStart {
-		v, text = -v, "-"+text
+		v, sign = -v, "-"
 	}
-	return trace.Formula(id, title, femClause, "M_F", "Nmm", v, text, args...)
+	if len(ps) == 0 {
+		return trace.Formula(id, title, femClause, "M_F", "Nmm", v, "0 * L", trace.A("L", l))
+	}
+	if we, w, a, ok := symmetric(ps, l.V); ok {
+		args := []trace.Arg{trace.A("L", l), trace.A("w", trace.Const(w, "w", "N/mm"))}
+		shape := " * (1 - 2 * (a / L) ** 2 + (a / L) ** 3)"
+		if a > 0 {
+			args = append(args, trace.A("a", trace.Const(a, "a", "mm")))
+		} else {
+			shape = ""
+		}
+		if we == 0 {
+			return trace.Formula(id, title, femClause, "M_F", "Nmm", v, sign+"w * L ** 2 / 12"+shape, args...)
+		}
+		args = append(args, trace.A("w_e", trace.Const(we, "w_e", "N/mm")))
+		return trace.Formula(id, title, femClause, "M_F", "Nmm", v,
+			sign+"(w_e + (w - w_e)"+shape+") * L ** 2 / 12", args...)
+	}
+	args := make([]trace.Arg, 1, 1+4*len(ps))
+	args[0] = trace.A("L", l)
+	var expr strings.Builder
+	for n, p := range ps {
+		k := strconv.Itoa(n + 1)
+		x0, x1, w0, w1 := "x0_"+k, "x1_"+k, "w0_"+k, "w1_"+k
+		args = append(args,
+			trace.A(x0, trace.Const(p.X0, "x_0,"+k, "mm")),
+			trace.A(x1, trace.Const(p.X1, "x_1,"+k, "mm")),
+			trace.A(w0, trace.Const(p.W0, "w_0,"+k, "N/mm")),
+			trace.A(w1, trace.Const(p.W1, "w_1,"+k, "N/mm")))
+		if n > 0 {
+			expr.WriteString(" + ")
+		}
+		writeFEMTerm(&expr, side, p, l.V, x0, x1, w0, w1)
+	}
+	return trace.Formula(id, title, femClause, "M_F", "Nmm", v, sign+"("+expr.String()+") / L ** 2", args...)
 }
 
-// writeFEMTerm writes one piece's term of FEMStep's expression: Simpson's rule on the
-// influence x·(L−x)² (start) or x²·(L−x) (end) with the correction of exact.
-func writeFEMTerm(b *strings.Builder, side Side, x0, x1, w0, w1 string) {
-	g := func(x string) {
-		if side == AtEnd {
-			b.WriteString(x + " ** 2 * (L - " + x + ")")
-		} else {
-			b.WriteString(x + " * (L - " + x + ") ** 2")
+// symmetric reports whether the pieces, in order along the member of length l, make a load
+// symmetric about mid-span that rises linearly from we at each end to w over the length a and
+// stays at w between (a = 0: uniform; a = l/2: a triangle on we), and returns we, w and a.
+// Intensities agree within 1e-9 of the largest, positions within 1e-9·l; we is returned as 0
+// where it is nil within that.
+func symmetric(ps []Piece, l float64) (we, w, a float64, ok bool) {
+	big := 0.0
+	for _, p := range ps {
+		big = math.Max(big, math.Max(math.Abs(p.W0), math.Abs(p.W1)))
+	}
+	sameW := func(x, y float64) bool { return math.Abs(x-y) <= 1e-9*big }
+	sameX := func(x, y float64) bool { return math.Abs(x-y) <= 1e-9*l }
+	first, last := ps[0], ps[len(ps)-1]
+	if !sameX(first.X0, 0) || !sameX(last.X1, l) {
+		return 0, 0, 0, false
+	}
+	for k := 1; k < len(ps); k++ {
+		if !sameX(ps[k].X0, ps[k-1].X1) || !sameW(ps[k].W0, ps[k-1].W1) {
+			return 0, 0, 0, false
 		}
 	}
-	xm := "((" + x0 + " + " + x1 + ") / 2)"
-	b.WriteString("(" + x1 + " - " + x0 + ") / 6 * (" + w0 + " * ")
-	g(x0)
-	b.WriteString(" + 2 * (" + w0 + " + " + w1 + ") * ")
-	g(xm)
-	b.WriteString(" + " + w1 + " * ")
-	g(x1)
-	corr := " - "
-	if side == AtEnd {
-		corr = " + "
+	switch len(ps) {
+	case 1: // uniform over the span
+		if !sameW(first.W0, first.W1) {
+			return 0, 0, 0, false
+		}
+		we, w = first.W0, first.W0
+	case 2: // a triangle on a uniform load, peak at mid-span
+		if !sameX(first.X1, l/2) || !sameW(first.W0, last.W1) {
+			return 0, 0, 0, false
+		}
+		we, w, a = first.W0, first.W1, l/2
+	case 3: // a trapezoid on a uniform load
+		mid := ps[1]
+		if !sameW(mid.W0, mid.W1) || !sameX(first.X1, l-mid.X1) || !sameW(first.W0, last.W1) {
+			return 0, 0, 0, false
+		}
+		we, w, a = first.W0, mid.W0, first.X1
+	default:
+		return 0, 0, 0, false
 	}
-	b.WriteString(")" + corr + "(" + x1 + " - " + x0 + ") ** 4 * (" + w1 + " - " + w0 + ") / 120")
+	if sameW(we, 0) {
+		we = 0
+	}
+	if len(ps) == 1 {
+		we = 0
+	}
+	return we, w, a, true
+}
+
+// writeFEMTerm writes one piece's term of FEMStep's general expression: Simpson's rule on the
+// influence x·(L−x)² (start) or x²·(L−x) (end), which vanishes at x = 0 and x = L, with the
+// correction of exact, which vanishes for a uniform piece; vanishing terms are left out.
+func writeFEMTerm(b *strings.Builder, side Side, p Piece, l float64, x0, x1, w0, w1 string) {
+	g := func(x string) string {
+		if side == AtEnd {
+			return x + " ** 2 * (L - " + x + ")"
+		}
+		return x + " * (L - " + x + ") ** 2"
+	}
+	xm := "((" + x0 + " + " + x1 + ") / 2)"
+	var terms []string
+	if p.X0 != 0 && p.X0 != l {
+		terms = append(terms, w0+" * "+g(x0))
+	}
+	terms = append(terms, "2 * ("+w0+" + "+w1+") * "+g(xm))
+	if p.X1 != 0 && p.X1 != l {
+		terms = append(terms, w1+" * "+g(x1))
+	}
+	b.WriteString("(" + x1 + " - " + x0 + ") / 6 * (" + strings.Join(terms, " + ") + ")")
+	if p.W1 != p.W0 {
+		corr := " - "
+		if side == AtEnd {
+			corr = " + "
+		}
+		b.WriteString(corr + "(" + x1 + " - " + x0 + ") ** 4 * (" + w1 + " - " + w0 + ") / 120")
+	}
 }
 
 // StiffnessStep records the stiffness k·4·E·I/L of a member end (slope-deflection equations,

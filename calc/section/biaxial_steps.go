@@ -74,9 +74,13 @@ func (s *Section) BiaxialStep(log *trace.Log, id string, nEd, mEdY, mEdZ trace.Q
 		"sqrt(M_Ry ** 2 + M_Rz ** 2)", trace.A("M_Ry", myQ), trace.A("M_Rz", mzQ)).
 		Note("M_R,y and M_R,z are the resultants at the neutral axis of step " + angleQ.From + " (and its depth), integrated over the section."))
 	ratioV := medV / math.Max(mrdV, 1)
-	ratio = log.Add(trace.Check(id+"check", "Biaxial bending, exact section resistance", clauseBiax, "M_Ed ≤ M_Rd", ratioV,
+	check := trace.Check(id+"check", "Biaxial bending, exact section resistance", clauseBiax, "M_Ed ≤ M_Rd", ratioV,
 		"M_Ed / max(M_Rd, 1)", trace.A("M_Ed", med), trace.A("M_Rd", mRd)).
-		Note("An accurate section design for biaxial bending; EN 1992-1-1:2004 5.8.9(4) offers the simplified criterion, Eq. (5.39), as the alternative."))
+		Note("An accurate section design for biaxial bending; EN 1992-1-1:2004 5.8.9(4) offers the simplified criterion, Eq. (5.39), as the alternative.")
+	if mrdV >= 1 {
+		check = check.Shown("M_Ed / M_Rd")
+	}
+	ratio = log.Add(check)
 	return mRd, ratio
 }
 

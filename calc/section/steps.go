@@ -284,8 +284,18 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 				"eps_top - (eps_top - eps_bot) * "+depthExpr+" / "+dn, trace.A("eps_top", etq), trace.A("eps_bot", ebq), trace.A(dn, dq), trace.A("z", zq))
 		}
 		eQ := log.Add(eStep)
-		sQ := log.Add(trace.Formula(id+li("sigma_s", i), "Steel stress in layer "+strconv.Itoa(i+1)+", Es·ε limited to ±f_yd", clauseSteel, li("σ_s", i), "MPa", v.ss,
-			"max(-fyd, min(fyd, Es * eps))", trace.A("fyd", fyd), trace.A("Es", es), trace.A("eps", eQ)))
+		sStep := trace.Formula(id+li("sigma_s", i), "Steel stress in layer "+strconv.Itoa(i+1)+", Es·ε limited to ±f_yd", clauseSteel, li("σ_s", i), "MPa", v.ss,
+			"max(-fyd, min(fyd, Es * eps))", trace.A("fyd", fyd), trace.A("Es", es), trace.A("eps", eQ))
+		// Shown as the branch of the stress-strain line that applies: elastic, or yielded at ±f_yd.
+		switch {
+		case v.ss == fyd.V && es.V*v.eps >= fyd.V:
+			sStep = sStep.Shown("fyd")
+		case v.ss == -fyd.V && es.V*v.eps <= -fyd.V:
+			sStep = sStep.Shown("-fyd")
+		default:
+			sStep = sStep.Shown("Es * eps")
+		}
+		sQ := log.Add(sStep)
 		var cStep trace.Step
 		ctitle := "Stress of the concrete displaced by layer " + strconv.Itoa(i+1)
 		if f.rect {
@@ -304,6 +314,15 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 			cStep = trace.Formula(id+li("sigma_c", i), ctitle, clausePR, li("σ_c", i), "MPa", v.sc,
 				"fcd * (1 - (1 - min(max(eps, 0), "+pkn+") / "+pkn+") ** n)",
 				trace.A("fcd", fcd), trace.A("eps", eQ), trace.A(pkn, epk), trace.A("n", nq))
+			// Shown as the branch of the parabola-rectangle diagram that applies.
+			switch {
+			case v.eps <= 0:
+				cStep = cStep.Shown("0").Note("The layer is not compressed: the concrete it displaces carries no stress.")
+			case v.eps >= epk.V:
+				cStep = cStep.Shown("fcd")
+			default:
+				cStep = cStep.Shown("fcd * (1 - (1 - eps / " + pkn + ") ** n)")
+			}
 		}
 		cQ := log.Add(cStep)
 		fQ := log.Add(trace.Formula(id+li("F_s", i), "Force in layer "+strconv.Itoa(i+1)+", displaced concrete deducted", clauseCommon, li("F_s", i), "N", v.force,

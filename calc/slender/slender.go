@@ -71,9 +71,13 @@ func M01(id string, top, bottom, m02 trace.Q) trace.Step {
 	if m02.V > 0 {
 		v = top.V * bottom.V / m02.V
 	}
-	return trace.Formula(id, "Smaller first-order end moment (negative in double curvature)", ec2+"5.8.8.2(2)",
+	s := trace.Formula(id, "Smaller first-order end moment (negative in double curvature)", ec2+"5.8.8.2(2)",
 		"M_01", "Nmm", v, "M_02 > 0 ? M_top * M_bot / M_02 : 0",
 		trace.A("M_top", top), trace.A("M_bot", bottom), trace.A("M_02", m02))
+	if m02.V > 0 {
+		return s.Shown("M_top * M_bot / M_02")
+	}
+	return s.Shown("0")
 }
 
 // WithImperfection returns an end moment increased by the imperfection, M + NEd·ei,
@@ -137,9 +141,9 @@ func MomentRatio(id string, m01, m02 trace.Q) trace.Step {
 	s := trace.Formula(id, "Moment ratio", ec2+"5.8.3.1(1)", "r_m", "", v,
 		"M_02 > 0 ? M_01 / M_02 : 1", trace.A("M_01", m01), trace.A("M_02", m02))
 	if m02.V <= 0 {
-		s = s.Note("No first-order end moments: rm = 1 as for moments from imperfections only.")
+		return s.Shown("1").Note("No first-order end moments: rm = 1 as for moments from imperfections only.")
 	}
-	return s
+	return s.Shown("M_01 / M_02")
 }
 
 // FactorC returns C = 1.7 − rm, EN 1992-1-1:2004 5.8.3.1(1).
@@ -159,9 +163,9 @@ func LambdaLim(id string, k, a, b, c, n trace.Q) trace.Step {
 		"k * A * B * C / sqrt(max(n, 0.0001))", trace.A("k", k), trace.A("A", a), trace.A("B", b),
 		trace.A("C", c), trace.A("n", n))
 	if n.V < nFloor {
-		s = s.Note("n is taken as 0.0001 at least, so that the limit is finite without axial force.")
+		return s.Shown("k * A * B * C / sqrt(0.0001)").Note("n is taken as 0.0001 at least, so that the limit is finite without axial force.")
 	}
-	return s
+	return s.Shown("k * A * B * C / sqrt(n)")
 }
 
 // IsSlender returns 1 when λ > λlim (second-order effects to be considered) and 0 otherwise,
@@ -171,8 +175,9 @@ func IsSlender(id string, lambda, lambdaLim trace.Q) trace.Step {
 	if lambda.V > lambdaLim.V {
 		v = 1
 	}
-	s := trace.Formula(id, "Second-order effects to be considered (1 = yes, 0 = no)", ec2+"5.8.3.1(1)", "slender", "", v,
-		"lambda > lambda_lim ? 1 : 0", trace.A("lambda", lambda), trace.A("lambda_lim", lambdaLim))
+	s := trace.Formula(id, "Second-order effects to be considered", ec2+"5.8.3.1(1)", "slender", "", v,
+		"lambda > lambda_lim ? 1 : 0", trace.A("lambda", lambda), trace.A("lambda_lim", lambdaLim)).
+		Condition("lambda > lambda_lim")
 	if v == 0 {
 		return s.Note("λ ≤ λlim: second-order effects may be ignored, M2 = 0.")
 	}
@@ -203,8 +208,12 @@ func BaseCurvature(id string, epsYd, d trace.Q) trace.Step {
 // means NEd is beyond the section's capacity, which the resistance checks report.
 func Kr(id string, n, omega trace.Q) trace.Step {
 	v := KrValue(n.V, omega.V)
-	return trace.Formula(id, "Correction factor for axial load", ec2+"5.8.8.3(3), Eq. (5.36)", "K_r", "", v,
+	s := trace.Formula(id, "Correction factor for axial load", ec2+"5.8.8.3(3), Eq. (5.36)", "K_r", "", v,
 		"max(min((1 + omega - n) / (1 + omega - 0.4), 1), 0)", trace.A("n", n), trace.A("omega", omega))
+	if v > 0 {
+		return s.Shown("min((1 + omega - n) / (1 + omega - 0.4), 1)")
+	}
+	return s.Shown("0").Note("n exceeds nu = 1 + ω: Kr is kept at 0; the resistance checks report the axial force.")
 }
 
 // Beta returns β = 0.35 + fck/200 − λ/150, EN 1992-1-1:2004 5.8.8.3(4).
@@ -267,8 +276,9 @@ func SlendernessRatiosClose(id string, lambdaY, lambdaZ trace.Q) trace.Step {
 	if SlendernessRatiosCloseValue(lambdaY.V, lambdaZ.V) {
 		v = 1
 	}
-	return trace.Formula(id, "Slenderness ratios within a factor 2 (1 = yes)", ec2+"5.8.9(3), Eq. (5.38a)", "c_a", "", v,
-		"lambda_y <= 2 * lambda_z && lambda_z <= 2 * lambda_y ? 1 : 0", trace.A("lambda_y", lambdaY), trace.A("lambda_z", lambdaZ))
+	return trace.Formula(id, "Slenderness ratios within a factor 2", ec2+"5.8.9(3), Eq. (5.38a)", "c_a", "", v,
+		"lambda_y <= 2 * lambda_z && lambda_z <= 2 * lambda_y ? 1 : 0", trace.A("lambda_y", lambdaY), trace.A("lambda_z", lambdaZ)).
+		Condition("lambda_y / lambda_z <= 2 && lambda_z / lambda_y <= 2")
 }
 
 // EccentricitiesApart returns 1 when one relative eccentricity is at most 0.2 times the other,
@@ -279,9 +289,13 @@ func EccentricitiesApart(id string, mEdY, mEdZ, b, h trace.Q) trace.Step {
 	if EccentricitiesApartValue(mEdY.V, mEdZ.V, b.V, h.V) {
 		v = 1
 	}
-	return trace.Formula(id, "Relative eccentricities apart by a factor 5 (1 = yes)", ec2+"5.8.9(3), Eq. (5.38b)", "c_b", "", v,
+	s := trace.Formula(id, "Relative eccentricities apart by a factor 5", ec2+"5.8.9(3), Eq. (5.38b)", "c_b", "", v,
 		"min(M_Edz / b, M_Edy / h) <= 0.2 * max(M_Edz / b, M_Edy / h) ? 1 : 0",
 		trace.A("M_Edy", mEdY), trace.A("M_Edz", mEdZ), trace.A("b", b), trace.A("h", h))
+	if mEdY.V > 0 && mEdZ.V > 0 {
+		return s.Condition("(M_Edz / b) / (M_Edy / h) <= 0.2 || (M_Edy / h) / (M_Edz / b) <= 0.2")
+	}
+	return s.Condition("min(M_Edz / b, M_Edy / h) <= 0.2 * max(M_Edz / b, M_Edy / h)")
 }
 
 // NRdBiaxial returns NRd = Ac·fcd + As·fyd for the exponent of (5.39), EN 1992-1-1:2004 5.8.9(4).
@@ -295,9 +309,19 @@ func NRdBiaxial(id string, ac, fcd, as, fyd trace.Q) trace.Step {
 // a = 1.0, 1.5 and 2.0, EN 1992-1-1:2004 5.8.9(4).
 func ExponentA(id string, nEd, nRd trace.Q) trace.Step {
 	v := ExponentAValue(nEd.V, nRd.V)
-	return trace.Formula(id, "Exponent for the biaxial check", ec2+"5.8.9(4)", "a", "", v,
+	s := trace.Formula(id, "Exponent for the biaxial check", ec2+"5.8.9(4)", "a", "", v,
 		"min(max(N_Ed / N_Rd <= 0.7 ? 1 + (N_Ed / N_Rd - 0.1) * 0.5 / 0.6 : 1.5 + (N_Ed / N_Rd - 0.7) * 0.5 / 0.3, 1), 2)",
 		trace.A("N_Ed", nEd), trace.A("N_Rd", nRd))
+	// The line of the interpolation that applies, or the end value where N_Ed/N_Rd lies outside.
+	switch r := nEd.V / nRd.V; {
+	case r <= 0.1:
+		return s.Shown("1").Note("N_Ed/N_Rd ≤ 0.1: a = 1.")
+	case r <= 0.7:
+		return s.Shown("1 + (N_Ed / N_Rd - 0.1) / 0.6 * 0.5")
+	case r < 1:
+		return s.Shown("1.5 + (N_Ed / N_Rd - 0.7) / 0.3 * 0.5")
+	}
+	return s.Shown("2").Note("N_Ed/N_Rd ≥ 1: a = 2.")
 }
 
 // BiaxialRatio returns (MEdz/MRdz)^a + (MEdy/MRdy)^a, EN 1992-1-1:2004 5.8.9(4), Eq. (5.39).

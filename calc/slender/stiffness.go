@@ -158,9 +158,12 @@ func Magnification(id string, beta, nB, nEd trace.Q) trace.Step {
 		"N_Ed <= 0 ? 1 : (N_Ed < N_B ? 1 + beta * N_Ed / (N_B - N_Ed) : 0)",
 		trace.A("beta", beta), trace.A("N_B", nB), trace.A("N_Ed", nEd))
 	if !ok {
-		return s.Caution("NEd ≥ NB: the column buckles and no second-order design moment exists; the factor is recorded as 0. Enlarge the section or its reinforcement.")
+		return s.Shown("0").Caution("NEd ≥ NB: the column buckles and no second-order design moment exists; the factor is recorded as 0. Enlarge the section or its reinforcement.")
 	}
-	return s
+	if nEd.V <= 0 {
+		return s.Shown("1").Note("No axial compression: nothing to magnify.")
+	}
+	return s.Shown("1 + beta / (N_B / N_Ed - 1)")
 }
 
 // MagnifiedMoment returns the design moment MEd = M0Ed·[1 + β/(NB/NEd − 1)] from the magnification
@@ -193,6 +196,9 @@ func BucklingCheck(id string, nEd, nB trace.Q) trace.Step {
 	if Buckles(nEd.V, nB.V) {
 		s.Verdict = trace.Fail
 		s = s.Caution("NEd ≥ NB: the column buckles.")
+	}
+	if nB.V > 0 {
+		return s.Shown("N_Ed / N_B")
 	}
 	return s
 }

@@ -51,9 +51,52 @@ func fold(f func(a, b float64) float64) govaluate.ExpressionFunction {
 	}
 }
 
+// wholeTol is the tolerance within which the display functions take a quotient for the whole
+// number it is meant to be, as the evaluation expressions do with their "+ 0.000000001".
+const wholeTol = 1e-9
+
+// ShowFunctions are the functions of the display syntax (Display.Expr): those of Functions,
+// with floor and ceil taking a value within 1e-9 of a whole number for that number, and
+// rounddown(x, step), x rounded down to a multiple of step.
+var ShowFunctions = func() map[string]govaluate.ExpressionFunction {
+	m := make(map[string]govaluate.ExpressionFunction, len(Functions)+3)
+	for k, f := range Functions {
+		m[k] = f
+	}
+	m["floor"] = unary(func(x float64) float64 { return math.Floor(x + wholeTol) })
+	m["ceil"] = unary(func(x float64) float64 { return math.Ceil(x - wholeTol) })
+	m["rounddown"] = func(args ...interface{}) (interface{}, error) {
+		if len(args) != 2 {
+			return nil, errors.New("takes two arguments")
+		}
+		x, ok1 := args[0].(float64)
+		step, ok2 := args[1].(float64)
+		if !ok1 || !ok2 {
+			return nil, errors.New("argument is not a number")
+		}
+		return math.Floor(x/step+wholeTol) * step, nil
+	}
+	return m
+}()
+
+// EvalShow evaluates the display form of step s (Show.Expr) over its args, with pi for π,
+// and returns the number it gives (1 or 0 for a condition). The sheets never evaluate it;
+// tests hold the display form to the step's value with it.
+func EvalShow(s Step) (float64, error) {
+	if s.Show == nil || s.Show.Expr == "" {
+		return 0, fmt.Errorf("step %s: no display expression", s.ID)
+	}
+	args := append([]Arg{{Name: "pi", Value: math.Pi}}, s.Args...)
+	return eval(s.Show.Expr, args, ShowFunctions)
+}
+
 // Eval evaluates expr over the named args and returns the number it gives.
 func Eval(expr string, args []Arg) (float64, error) {
-	e, err := govaluate.NewEvaluableExpressionWithFunctions(expr, Functions)
+	return eval(expr, args, Functions)
+}
+
+func eval(expr string, args []Arg, functions map[string]govaluate.ExpressionFunction) (float64, error) {
+	e, err := govaluate.NewEvaluableExpressionWithFunctions(expr, functions)
 	if err != nil {
 		return 0, fmt.Errorf("expression %q: %v", expr, err)
 	}
@@ -123,4 +166,41 @@ func Recheck(s Step, tol float64) error {
 func close(a, b, tol float64) bool {
 	d := math.Abs(a - b)
 	return d <= tol*math.Max(math.Abs(a), math.Abs(b)) || d <= 1e-300
+}
+
+// RecheckShow reports an error when the display form of step s does not agree with its
+// recorded value: Show.Expr must reproduce the value to relative tol, and a result in words
+// must match it ("yes" for 1, "no" for 0, "not met" on a failed check). A step without a
+// display form passes.
+func RecheckShow(s Step, tol float64) error {
+	if s.Show == nil {
+		return nil
+	}
+	switch s.Show.Result {
+	case "":
+	case "yes", "no":
+		if want := map[string]float64{"yes": 1, "no": 0}[s.Show.Result]; s.Value != want {
+			return fmt.Errorf("step %s: shown as %q with the value %g", s.ID, s.Show.Result, s.Value)
+		}
+	case "not met":
+		if s.Kind != KindCheck || s.Verdict != Fail {
+			return fmt.Errorf("step %s: shown as not met but is no failed check", s.ID)
+		}
+	default:
+		return fmt.Errorf("step %s: result %q is not one of yes, no, not met", s.ID, s.Show.Result)
+	}
+	if s.Show.Expr == "" {
+		if s.Show.Result == "" {
+			return fmt.Errorf("step %s: display form with neither formula nor result", s.ID)
+		}
+		return nil
+	}
+	got, err := EvalShow(s)
+	if err != nil {
+		return fmt.Errorf("step %s: display form: %v", s.ID, err)
+	}
+	if !close(got, s.Value, tol) {
+		return fmt.Errorf("step %s: display form %s gives %.12g, recorded %.12g", s.ID, s.Show.Expr, got, s.Value)
+	}
+	return nil
 }

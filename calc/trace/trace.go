@@ -72,6 +72,51 @@ type Step struct {
 	Verdict  string   `json:"verdict,omitempty"`  // pass or fail, for a check step
 	Notes    []string `json:"notes,omitempty"`    // remarks for the reader
 	Cautions []string `json:"cautions,omitempty"` // warnings the sheet must show
+	Show     *Display `json:"show,omitempty"`     // how the sheets show the step, where Expr is written for the evaluator
+}
+
+// Display is how a step reads on a sheet where its evaluation expression carries what the
+// clause does not write: a guard on a divisor, a tolerance on a rounding, a 1 or 0 for a
+// condition, a number that only marks a failure. The evaluation expression stays as it is
+// (recheck re-evaluates Expr); the sheets show Display instead.
+type Display struct {
+	// Expr is the formula as a hand calculation writes it, in the display syntax: govaluate
+	// over the step's Args with the functions of ShowFunctions (ceil, floor and rounddown
+	// besides those of Functions) and the name pi for π. A condition is written as the
+	// comparison itself, without "? 1 : 0". Empty: no formula is shown.
+	Expr string `json:"expr,omitempty"`
+	// Result is the result in words where a number would mislead: "yes" or "no" for a
+	// condition, "not met" for a failed check without a ratio. Empty: the value is shown.
+	Result string `json:"result,omitempty"`
+}
+
+// Shown returns a copy of the step shown on the sheets as expr, the formula as the clause
+// writes it (display syntax, see Display), instead of its evaluation expression.
+func (s Step) Shown(expr string) Step {
+	d := Display{Expr: expr}
+	if s.Show != nil {
+		d.Result = s.Show.Result
+	}
+	s.Show = &d
+	return s
+}
+
+// Condition returns a copy of a yes/no step (value 1 for yes, 0 for no) shown on the sheets as
+// the condition cond (display syntax, see Display) with the result "yes" or "no".
+func (s Step) Condition(cond string) Step {
+	r := "no"
+	if s.Value != 0 {
+		r = "yes"
+	}
+	s.Show = &Display{Expr: cond, Result: r}
+	return s
+}
+
+// Unmet returns a copy of a failed check that has no ratio to give (its value only marks the
+// failure), shown on the sheets as "not met" without a formula.
+func (s Step) Unmet() Step {
+	s.Show = &Display{Result: "not met"}
+	return s
 }
 
 // Q returns the step's result as a quantity for use in later steps.
