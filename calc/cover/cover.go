@@ -54,10 +54,21 @@ func StructuralClass(id string, base int, life float64, fck trace.Q, exposure []
 		s = s.Note("Special quality control of the concrete production: class reduced by 1.")
 	}
 	s = s.Note("No reduction for slab geometry: a column is not a member with slab geometry.")
-	if rawClass(base, life, fck.V, r, specialQC) != v {
-		s = s.Note("The class is kept within S1 to S6.")
+	// Shown with the modifications of Table 4.3N that apply, each named by a note above.
+	show := "S_0"
+	if life > LongLife {
+		show += " + 2"
 	}
-	return s
+	if fck.V >= r.fck {
+		show += " - 1"
+	}
+	if specialQC {
+		show += " - q"
+	}
+	if rawClass(base, life, fck.V, r, specialQC) != v {
+		return s.Shown("min(max(" + show + ", 1), 6)").Note("The class is kept within S1 to S6.")
+	}
+	return s.Shown(show)
 }
 
 // CminDur returns the minimum cover for durability of reinforcing steel for the structural class,
@@ -92,9 +103,9 @@ func CminB(id string, dia, dg trace.Q) trace.Step {
 	s := trace.Formula(id, "Minimum cover for bond", ec2+"4.4.1.2(3), Table 4.2", "c_min,b", "mm",
 		CminBValue(dia.V, dg.V), "phi + (d_g > 32 ? 5 : 0)", trace.A("phi", dia), trace.A("d_g", dg))
 	if dg.V > AggLimit {
-		s = s.Note("Nominal maximum aggregate size above 32 mm: cmin,b increased by 5 mm.")
+		return s.Shown("phi + 5").Note("Nominal maximum aggregate size above 32 mm: cmin,b increased by 5 mm.")
 	}
-	return s
+	return s.Shown("phi")
 }
 
 // Cmin returns cmin = max{cmin,b; cmin,dur + Δcdur,γ − Δcdur,st − Δcdur,add; 10 mm} with the
@@ -115,8 +126,12 @@ func Cnom(id string, cmin, dev trace.Q) trace.Step {
 // CoverCheck returns the check that the given cover is not less than the required nominal cover,
 // ratio required/given, EN 1992-1-1:2004 4.4.1.1(2)P.
 func CoverCheck(id string, given, required trace.Q) trace.Step {
-	return trace.Check(id, "Cover", ec2+"4.4.1.1(2)P", "c_nom ≤ c", required.V/max(given.V, 1e-3),
+	s := trace.Check(id, "Cover", ec2+"4.4.1.1(2)P", "c_nom ≤ c", required.V/max(given.V, 1e-3),
 		"c_nom / max(c, 0.001)", trace.A("c_nom", required), trace.A("c", given))
+	if given.V >= 1e-3 {
+		return s.Shown("c_nom / c")
+	}
+	return s
 }
 
 // BarCover returns the cover to the main bars, the cover to the links plus the link diameter (common practice).

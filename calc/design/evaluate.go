@@ -54,7 +54,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	nB := l.Add(trace.Input("bars/nb", "Bars along each b-face, corners included", src, "n_b", "", float64(p.NB)))
 	nH := l.Add(trace.Input("bars/nh", "Bars along each h-face, corners included", src, "n_h", "", float64(p.NH)))
 	as := l.Add(trace.Formula("bars/As", "Area of longitudinal reinforcement provided", "common practice", "A_s,prov", "mm2",
-		p.Area(), "n * 3.141592653589793 * phi ** 2 / 4", trace.A("n", nb), trace.A("phi", phi)))
+		p.Area(), "n * 3.141592653589793 * phi ** 2 / 4", trace.A("n", nb), trace.A("phi", phi)).Shown("n * pi * phi ** 2 / 4"))
 	d.AsProv, d.AsMin, d.AsMax = as.V, c.asMin.V, c.asMax.V
 	check(trace.Check("bars/check_As_min", "Minimum reinforcement", "EN 1992-1-1:2004 9.5.2(2)", "A_s,min ≤ A_s,prov",
 		c.asMin.V/as.V, "A_s_min / A_s", trace.A("A_s_min", c.asMin), trace.A("A_s", as)))
@@ -118,9 +118,13 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	gapMin := math.Min(gapB, gapH)
 	// Compared as centre distances, (s_min + φ)/(s + φ), so that the ratio stays finite and
 	// meaningful when given bars overlap; it passes exactly when s ≥ s_min.
-	check(trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
+	spacing := trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
 		(sMin.V+p.Dia)/math.Max(gapMin+p.Dia, 1e-3), "(s_min + phi) / max(min(s_b, s_h) + phi, 0.001)",
-		trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_b", gb), trace.A("s_h", gh)))
+		trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_b", gb), trace.A("s_h", gh))
+	if gapMin+p.Dia >= 1e-3 {
+		spacing = spacing.Shown("(s_min + phi) / (min(s_b, s_h) + phi)")
+	}
+	check(spacing)
 
 	// Cover for durability and bond, EN 1992-1-1:2004 4.4.1.
 	if dur := c.durability(); dur != nil {
@@ -269,8 +273,8 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		}
 		mRd[k] = q
 		mEd := mEds[k]
-		resistance(trace.Check(n+"/check_M", "Bending about "+n, "EN 1992-1-1:2004 6.1", "M_Ed,"+n+" ≤ M_Rd,"+n,
-			mEd.V/math.Max(mRd[k].V, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", mEd), trace.A("M_Rd", mRd[k])))
+		resistance(shownRatio(trace.Check(n+"/check_M", "Bending about "+n, "EN 1992-1-1:2004 6.1", "M_Ed,"+n+" ≤ M_Rd,"+n,
+			mEd.V/math.Max(mRd[k].V, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", mEd), trace.A("M_Rd", mRd[k])), mRd[k].V))
 	}
 	d.Y.MRd, d.Z.MRd = mRd[0].V, mRd[1].V
 
@@ -377,12 +381,12 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 			} else {
 				// A trial: the ratio alone, by the same solution, as a check step.
 				med := math.Hypot(mEds[0].V, mEds[1].V)
-				resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
-					med/math.Max(st.MRd, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", trace.Const(med, "M_Ed", "Nmm")), trace.A("M_Rd", trace.Const(st.MRd, "M_Rd", "Nmm"))))
+				resistance(shownRatio(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
+					med/math.Max(st.MRd, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", trace.Const(med, "M_Ed", "Nmm")), trace.A("M_Rd", trace.Const(st.MRd, "M_Rd", "Nmm"))), st.MRd))
 			}
 		} else if exact {
 			resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance: no solution", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
-				2, "r", trace.A("r", trace.Const(2, "r", ""))).Caution("The inclined neutral axis could not be found: " + err.Error()))
+				2, "r", trace.A("r", trace.Const(2, "r", ""))).Unmet().Caution("The inclined neutral axis could not be found: " + err.Error()))
 		} else if full {
 			// Shown for comparison, and not found: the sheet says so, loudly where no inclined
 			// neutral axis carries NEd with the reduced block.
@@ -468,9 +472,18 @@ func checkTitle(s trace.Step) string {
 }
 
 // unmet returns the failed check of a condition that has no ratio to give: its value 2 only
-// marks the failure, and settle words its reason as "not met".
+// marks the failure, and settle words its reason as "not met"; the sheets show it as "not met".
 func unmet(id, title, clause, relation, caution string) trace.Step {
-	return trace.Check(id, title, clause, relation, 2, "2").Caution(caution)
+	return trace.Check(id, title, clause, relation, 2, "2").Unmet().Caution(caution)
+}
+
+// shownRatio returns the check M_Ed / max(M_Rd, 1) shown as M_Ed / M_Rd where the resistance
+// mRd is not below the guard of 1 N·mm.
+func shownRatio(s trace.Step, mRd float64) trace.Step {
+	if mRd >= 1 {
+		return s.Shown("M_Ed / M_Rd")
+	}
+	return s
 }
 
 // layersOf groups bar positions into rows along the lever arm of axis k (0: coordinate z, 1: coordinate y).

@@ -105,7 +105,8 @@ func Alpha6Value(rho1 float64) float64 {
 // bars lapped within 0.65·l0 of the lap centre, EN 1992-1-1:2004 8.7.3(1), Table 8.3.
 func Alpha6(id string, rho1 trace.Q) trace.Step {
 	return trace.Formula(id, "Coefficient for the share of bars lapped at one section", ec2+"8.7.3(1), Table 8.3", "α_6", "",
-		Alpha6Value(rho1.V), "min(max(sqrt(max(rho_1, 0) / 25), 1), 1.5)", trace.A("rho_1", rho1))
+		Alpha6Value(rho1.V), "min(max(sqrt(max(rho_1, 0) / 25), 1), 1.5)", trace.A("rho_1", rho1)).
+		Shown("min(max(sqrt(rho_1 / 25), 1), 1.5)")
 }
 
 // LapMinValue returns l0,min = max(0.3·α6·lb,rqd, 15·φ, 200 mm); see LapMin.
@@ -220,9 +221,13 @@ func LappedFitValue(phi, sMin float64) float64 { return LappedGapMinValue(phi, s
 // LappedGapCheck checks the clear distance between a lapped pair and the next bar, EN 1992-1-1:2004 8.7.2(3).
 // The ratio compares centre distances, (s_lap,min + φ)/(s_lap + φ), so that it stays finite when bars overlap.
 func LappedGapCheck(id string, gap, gapMin, phi trace.Q) trace.Step {
-	return trace.Check(id, "Clear distance between a lapped pair and the next bar", ec2+"8.2(2); 8.7.2(3)", "s_lap,min ≤ s_lap",
+	s := trace.Check(id, "Clear distance between a lapped pair and the next bar", ec2+"8.2(2); 8.7.2(3)", "s_lap,min ≤ s_lap",
 		(gapMin.V+phi.V)/math.Max(gap.V+phi.V, 1e-3), "(s_lap_min + phi) / max(s_lap + phi, 0.001)",
 		trace.A("s_lap_min", gapMin), trace.A("s_lap", gap), trace.A("phi", phi))
+	if gap.V+phi.V >= 1e-3 {
+		return s.Shown("(s_lap_min + phi) / (s_lap + phi)")
+	}
+	return s
 }
 
 // LapArrangement records the arrangement of the lapped bars of a column whose bars are all lapped at one
@@ -257,8 +262,8 @@ func LapZoneReducedValue(phi float64) float64 {
 // LapZoneReduced returns 1 when the link spacing is reduced by the factor 0.6 at laps, that is when the
 // largest longitudinal bar exceeds 14 mm, and 0 otherwise, EN 1992-1-1:2004 9.5.3(4)(ii).
 func LapZoneReduced(id string, phi trace.Q) trace.Step {
-	s := trace.Formula(id, "Link spacing reduced at laps (1 yes, 0 no)", ec2+"9.5.3(4)", "r_lap", "",
-		LapZoneReducedValue(phi.V), "phi > 14 ? 1 : 0", trace.A("phi", phi))
+	s := trace.Formula(id, "Link spacing reduced at laps", ec2+"9.5.3(4)", "r_lap", "",
+		LapZoneReducedValue(phi.V), "phi > 14 ? 1 : 0", trace.A("phi", phi)).Condition("phi > 14")
 	if phi.V > 14 {
 		return s.Note("The largest longitudinal bar exceeds 14 mm: the link spacing is reduced by 0.6 at laps, with at least three links evenly placed in the lap length.")
 	}
@@ -278,8 +283,9 @@ func LapTransverseValue(phi, rho1 float64) float64 {
 // less than the area of one lapped bar (φ ≥ 20 mm and 25 % or more of the bars lapped at one section),
 // and 0 when the links provided for other reasons suffice, EN 1992-1-1:2004 8.7.4.1(2), (3).
 func LapTransverse(id string, phi, rho1 trace.Q) trace.Step {
-	s := trace.Formula(id, "Transverse reinforcement at the laps to be shown (1 yes, 0 no)", ec2+"8.7.4.1(2), (3)", "t_lap", "",
-		LapTransverseValue(phi.V, rho1.V), "phi >= 20 && rho_1 >= 25 ? 1 : 0", trace.A("phi", phi), trace.A("rho_1", rho1))
+	s := trace.Formula(id, "Transverse reinforcement at the laps to be shown", ec2+"8.7.4.1(2), (3)", "t_lap", "",
+		LapTransverseValue(phi.V, rho1.V), "phi >= 20 && rho_1 >= 25 ? 1 : 0", trace.A("phi", phi), trace.A("rho_1", rho1)).
+		Condition("phi >= 20 && rho_1 >= 25")
 	switch {
 	case phi.V < 20:
 		return s.Note("The lapped bars are smaller than 20 mm: the links provided for other reasons suffice for the transverse tension at the laps (8.7.4.1(2)).")
@@ -293,13 +299,13 @@ func LapTransverse(id string, phi, rho1 trace.Q) trace.Step {
 // LapBarArea returns the area π·φ²/4 of one lapped bar, EN 1992-1-1:2004 8.7.4.1(3).
 func LapBarArea(id string, phi trace.Q) trace.Step {
 	return trace.Formula(id, "Area of one lapped bar", ec2+"8.7.4.1(3)", "A_s", "mm2",
-		math.Pi*phi.V*phi.V/4, "3.141592653589793 * phi ** 2 / 4", trace.A("phi", phi))
+		math.Pi*phi.V*phi.V/4, "3.141592653589793 * phi ** 2 / 4", trace.A("phi", phi)).Shown("pi * phi ** 2 / 4")
 }
 
 // LinkLegArea returns the area π·φt²/4 of one link leg, common practice.
 func LinkLegArea(id string, phiT trace.Q) trace.Step {
 	return trace.Formula(id, "Area of one link leg", "common practice", "A_st", "mm2",
-		math.Pi*phiT.V*phiT.V/4, "3.141592653589793 * phi_t ** 2 / 4", trace.A("phi_t", phiT))
+		math.Pi*phiT.V*phiT.V/4, "3.141592653589793 * phi_t ** 2 / 4", trace.A("phi_t", phiT)).Shown("pi * phi_t ** 2 / 4")
 }
 
 // LapLegs is the number of link legs at each link that lie parallel to the layer of a lapped pair: the one
@@ -317,6 +323,7 @@ func LapLinksPerThird(id string, as, ast, legs trace.Q) trace.Step {
 	return trace.Formula(id, "Links needed within each outer third of the lap length", ec2+"8.7.4.1(3), (4), Fig. 8.9", "n_t,3,req", "",
 		LapLinksPerThirdValue(as.V, ast.V, legs.V), "-floor(-A_s / 2 / (n_legs * A_st) + 0.000000001)",
 		trace.A("A_s", as), trace.A("n_legs", legs), trace.A("A_st", ast)).
+		Shown("ceil(A_s / 2 / (n_legs * A_st))").
 		Note("ΣAst counts the legs parallel to the layer of the lapped bars: at each link the one leg of the perimeter link along the face where the pair lies. Extra ties cross the section at right angles to the layer and are not counted.")
 }
 
@@ -367,28 +374,38 @@ func LinksInLapValue(l0, s float64) float64 { return math.Floor(l0/s + 1e-9) }
 func LinksInLap(id string, l0, s trace.Q) trace.Step {
 	return trace.Formula(id, "Links within the lap length", ec2+"9.5.3(4)", "n_t,lap", "",
 		LinksInLapValue(l0.V, s.V), "floor(l_0 / s + 0.000000001)", trace.A("l_0", l0), trace.A("s", s)).
+		Shown("floor(l_0 / s)").
 		Note("Counted as whole spacings within the lap, so that the count holds wherever the links fall; one more link lies beyond each end of the lap (8.7.4.2(1)).")
 }
 
 // LapLinksCheck checks that at least 3 links lie evenly in the lap length, EN 1992-1-1:2004 9.5.3(4).
 func LapLinksCheck(id string, n trace.Q) trace.Step {
-	return trace.Check(id, "At least three links in the lap length", ec2+"9.5.3(4)", "3 ≤ n_t,lap",
+	s := trace.Check(id, "At least three links in the lap length", ec2+"9.5.3(4)", "3 ≤ n_t,lap",
 		3/math.Max(n.V, 1), "3 / max(n, 1)", trace.A("n", n))
+	if n.V >= 1 {
+		return s.Shown("3 / n")
+	}
+	return s.Unmet()
 }
 
 // LinkClearCheck checks that the links over the lap leave the clear distance sMinT between them,
 // s − φt ≥ sMinT, compared as centre distances (sMinT + φt)/s, EN 1992-1-1:2004 8.2(2).
 func LinkClearCheck(id string, s, phiT, sMinT trace.Q) trace.Step {
-	return trace.Check(id, "Clear distance between the links over the laps", ec2+"8.2(2)", "s_min,t ≤ s_t,lap − φ_t",
+	c := trace.Check(id, "Clear distance between the links over the laps", ec2+"8.2(2)", "s_min,t ≤ s_t,lap − φ_t",
 		(sMinT.V+phiT.V)/math.Max(s.V, 1e-3), "(s_min_t + phi_t) / max(s, 0.001)",
 		trace.A("s_min_t", sMinT), trace.A("phi_t", phiT), trace.A("s", s))
+	if s.V >= 1e-3 {
+		return c.Shown("(s_min_t + phi_t) / s")
+	}
+	return c
 }
 
 // LinksInThird returns the links within each outer third of the lap at spacing s, floor(l0/(3·s)),
 // wherever they fall, EN 1992-1-1:2004 8.7.4.1(4), Fig. 8.9.
 func LinksInThird(id string, l0, s trace.Q) trace.Step {
 	return trace.Formula(id, "Links within each outer third of the lap length", ec2+"8.7.4.1(4), Fig. 8.9", "n_t,3", "",
-		math.Floor(l0.V/(3*s.V)+1e-9), "floor(l_0 / (3 * s) + 0.000000001)", trace.A("l_0", l0), trace.A("s", s))
+		math.Floor(l0.V/(3*s.V)+1e-9), "floor(l_0 / (3 * s) + 0.000000001)", trace.A("l_0", l0), trace.A("s", s)).
+		Shown("floor(l_0 / (3 * s))")
 }
 
 // LapTransverseArea returns ΣAst = 2·n·nlegs·Ast, the legs parallel to the layer of the lapped bars within
@@ -400,8 +417,12 @@ func LapTransverseArea(id string, n, legs, ast trace.Q) trace.Step {
 
 // LapTransverseCheck checks ΣAst ≥ As of one lapped bar, EN 1992-1-1:2004 8.7.4.1(3).
 func LapTransverseCheck(id string, as, sum trace.Q) trace.Step {
-	return trace.Check(id, "Transverse reinforcement at the laps", ec2+"8.7.4.1(3)", "A_s ≤ ΣA_st",
+	s := trace.Check(id, "Transverse reinforcement at the laps", ec2+"8.7.4.1(3)", "A_s ≤ ΣA_st",
 		as.V/math.Max(sum.V, 1e-3), "A_s / max(sum, 0.001)", trace.A("A_s", as), trace.A("sum", sum))
+	if sum.V >= 1e-3 {
+		return s.Shown("A_s / sum")
+	}
+	return s
 }
 
 // LapLinkInput is what the links over the laps of a column need.
@@ -445,9 +466,13 @@ func LapLinks(l *trace.Log, prefix string, in LapLinkInput) LapLinkPlan {
 	s := l.Add(RoundDown(prefix+"s", "Link spacing provided over the laps", "s_t,lap", sMax, in.Step))
 	if !(s.V > 0) {
 		// The step of the link spacings leaves no spacing below the greatest: the links cannot be detailed.
-		c := l.Add(trace.Check(prefix+"check_s", "Link spacing over the laps on the step of the link spacings", "common practice",
+		cs := trace.Check(prefix+"check_s", "Link spacing over the laps on the step of the link spacings", "common practice",
 			"Δs ≤ s_t,lap,max", in.Step.V/math.Max(sMax.V, 1e-3), "step / max(s_max, 0.001)",
-			trace.A("step", in.Step), trace.A("s_max", sMax)))
+			trace.A("step", in.Step), trace.A("s_max", sMax))
+		if sMax.V >= 1e-3 {
+			cs = cs.Shown("step / s_max")
+		}
+		c := l.Add(cs)
 		plan.Checks = append(plan.Checks, c.From)
 		return plan
 	}
