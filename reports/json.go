@@ -5,7 +5,9 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
+	"strings"
 
 	"colsheet/calc/code"
 	"colsheet/calc/design"
@@ -90,32 +92,32 @@ type jsonLinks struct {
 }
 
 type jsonDesign struct {
-	Column      string       `json:"column"`
-	Storey      string       `json:"storey"`
-	B           float64      `json:"b_mm"`
-	H           float64      `json:"h_mm"`
-	Cover       float64      `json:"cover_mm"`
-	Fck         float64      `json:"fck_MPa"`
-	Fyk         float64      `json:"fyk_MPa"`
-	NEd         float64      `json:"NEd_kN"`
-	Axes        jsonAxes     `json:"axes"`
-	Biaxial     jsonBiaxial  `json:"biaxial"`
-	AsReq       float64      `json:"As_req_mm2"`
-	AsMin       float64      `json:"As_min_mm2"`
-	AsMax       float64      `json:"As_max_mm2"`
-	AsProv      float64      `json:"As_prov_mm2"`
-	Bars        jsonBars     `json:"bars"`
-	Links       jsonLinks    `json:"links"`
-	Utilization float64      `json:"utilization"`
-	Status      string       `json:"status"`
-	Governing   string       `json:"governing"`
-	Steps       int          `json:"steps"`
-	NRdMax      float64      `json:"NRd_max_kN"`
-	Exact       *jsonExact   `json:"biaxial_exact,omitempty"`
-	Interaction *jsonCurves  `json:"interaction,omitempty"`
-	Reasons     []string     `json:"reasons"`
-	Cautions    []string     `json:"cautions"`
-	Trace       []trace.Step `json:"trace"`
+	Column      string      `json:"column"`
+	Storey      string      `json:"storey"`
+	B           float64     `json:"b_mm"`
+	H           float64     `json:"h_mm"`
+	Cover       float64     `json:"cover_mm"`
+	Fck         float64     `json:"fck_MPa"`
+	Fyk         float64     `json:"fyk_MPa"`
+	NEd         float64     `json:"NEd_kN"`
+	Axes        jsonAxes    `json:"axes"`
+	Biaxial     jsonBiaxial `json:"biaxial"`
+	AsReq       float64     `json:"As_req_mm2"`
+	AsMin       float64     `json:"As_min_mm2"`
+	AsMax       float64     `json:"As_max_mm2"`
+	AsProv      float64     `json:"As_prov_mm2"`
+	Bars        jsonBars    `json:"bars"`
+	Links       jsonLinks   `json:"links"`
+	Utilization float64     `json:"utilization"`
+	Status      string      `json:"status"`
+	Governing   string      `json:"governing"`
+	Steps       int         `json:"steps"`
+	NRdMax      float64     `json:"NRd_max_kN"`
+	Exact       *jsonExact  `json:"biaxial_exact,omitempty"`
+	Interaction *jsonCurves `json:"interaction,omitempty"`
+	Reasons     []string    `json:"reasons"`
+	Cautions    []string    `json:"cautions"`
+	Trace       []jsonStep  `json:"trace"`
 }
 
 // jsonExact is the exact biaxial resistance along the resultant design moment.
@@ -136,11 +138,13 @@ type jsonCurves struct {
 }
 
 type jsonResult struct {
-	Tool        jsonTool     `json:"tool"`
-	InputSHA256 string       `json:"input_sha256"`
-	Code        jsonCode     `json:"code"`
-	Designs     []jsonDesign `json:"designs"`
-	Sizes       []jsonSize   `json:"size_search,omitempty"`
+	Tool        jsonTool          `json:"tool"`
+	InputSHA256 string            `json:"input_sha256"`
+	Code        jsonCode          `json:"code"`
+	Forms       []json.RawMessage `json:"forms"`
+	Basis       []jsonStep        `json:"basis"`
+	Designs     []jsonDesign      `json:"designs"`
+	Sizes       []jsonSize        `json:"size_search,omitempty"`
 }
 
 // jsonSize is one column's result of the section-size finder.
@@ -170,8 +174,10 @@ func nonNil(s []string) []string {
 	return s
 }
 
-// JSON returns results.json: the contract of DESIGN.md plus, per design, NRd_max_kN,
-// reasons, cautions and the full trace. It fails when any recorded number is not finite.
+// JSON returns results.json, compact: the contract of DESIGN.md plus, per design, NRd_max_kN,
+// reasons, cautions and the full trace, and the project basis (Result.Basis) once. The steps are
+// packed (see packer): each names its form in the top-level "forms" list and carries its own ID
+// and numbers; ReadSteps reads them back whole. It fails when any recorded number is not finite.
 func JSON(r *design.Result) ([]byte, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
@@ -186,14 +192,37 @@ func JSON(r *design.Result) ([]byte, error) {
 		Code:        jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()},
 		Designs:     []jsonDesign{},
 	}
+	pk := newPacker()
+	out.Basis = make([]jsonStep, len(r.Basis))
+	for i, s := range r.Basis {
+		// A basis step names other basis steps by their whole ID: from the root in its form.
+		if len(s.Args) > 0 {
+			s.Args = slices.Clone(s.Args)
+			for j := range s.Args {
+				if f := s.Args[j].From; f != "" && !strings.HasPrefix(f, "/") {
+					s.Args[j].From = "/" + f
+				}
+			}
+		}
+		st, err := pk.pack(s, s.ID)
+		if err != nil {
+			return nil, err
+		}
+		out.Basis[i] = st
+	}
 	for _, d := range r.Designs {
 		pos := d.Bars.Positions
 		if pos == nil {
 			pos = [][2]float64{}
 		}
-		steps := d.Trace()
-		if steps == nil {
-			steps = []trace.Step{}
+		prefix := d.Column + "/" + d.Storey + "/"
+		steps := make([]jsonStep, len(d.Steps))
+		for i, s := range d.Steps {
+			st, err := pk.pack(s, prefix+s.ID)
+			if err != nil {
+				return nil, err
+			}
+			steps[i] = st
 		}
 		out.Designs = append(out.Designs, jsonDesign{
 			Column: d.Column, Storey: d.Storey, B: d.B, H: d.H, Cover: d.Cover, Fck: d.Fck, Fyk: d.Fyk,
@@ -230,11 +259,19 @@ func JSON(r *design.Result) ([]byte, error) {
 		out.Sizes = append(out.Sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
 			GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
 	}
-	b, err := json.MarshalIndent(out, "", "  ")
+	forms, err := pk.forms()
 	if err != nil {
 		return nil, err
 	}
-	return append(b, '\n'), nil
+	out.Forms = forms
+	// Compact, one line ending in a newline; "<", ">" and "&" as they are (not for HTML).
+	var b bytes.Buffer
+	enc := json.NewEncoder(&b)
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(out); err != nil {
+		return nil, err
+	}
+	return b.Bytes(), nil
 }
 
 // finiteResult reports the first number of r that is NaN or infinite, naming where it is.
@@ -250,6 +287,16 @@ func finiteResult(r *design.Result) error {
 	for _, o := range input(r).Code.Overrides() {
 		if err := check("code override "+o.Name, o.Value); err != nil {
 			return err
+		}
+	}
+	for _, s := range r.Basis {
+		if err := check("step "+s.ID, s.Value, s.Residual); err != nil {
+			return err
+		}
+		for _, a := range s.Args {
+			if err := check("step "+s.ID+" argument "+a.Name, a.Value); err != nil {
+				return err
+			}
 		}
 	}
 	for _, d := range r.Designs {
@@ -299,4 +346,217 @@ func finiteResult(r *design.Result) error {
 		}
 	}
 	return nil
+}
+
+// The steps of results.json are packed. What a step's clause fixes (its title, clause, kind,
+// symbol, unit, expression, the names, symbols, units and sources of its arguments, its sheet
+// section, notes and cautions, every field of trace.Step but the following) is its form, stored
+// once in the top-level list "forms"; the step itself holds
+//
+//	{"id": whole ID, "form": index into forms, "value": v, "args": [the arguments' values in the
+//	 order of the form's args], "residual": r (solve steps), "verdict": "pass" or "fail" (checks)}
+//
+// A source ("from") in a form is written as the design's own steps record it: an ID relative to
+// the design of the step ("geo/b" in the design K1/L2 names K1/L2/geo/b), or, starting with "/",
+// a whole ID from the root ("/K1/L3/td/G_cum", "/basis/code/gamma_c"). A trace entry without
+// "form" is a whole step as trace.Step writes it (results.json of earlier versions).
+
+// jsonStep is one packed step.
+type jsonStep struct {
+	ID       string    `json:"id"`
+	Form     *int      `json:"form,omitempty"`
+	Value    float64   `json:"value"`
+	Args     []float64 `json:"args,omitempty"`
+	Residual float64   `json:"residual,omitempty"`
+	Verdict  string    `json:"verdict,omitempty"`
+}
+
+// packer collects the distinct forms of the steps it packs, in the order of first use.
+type packer struct {
+	index map[string]int
+	keys  []string
+}
+
+func newPacker() *packer { return &packer{index: map[string]int{}} }
+
+// pack returns step s, whose references are as its design records them, packed under the
+// whole ID id.
+func (p *packer) pack(s trace.Step, id string) (jsonStep, error) {
+	out := jsonStep{ID: id, Value: s.Value, Residual: s.Residual, Verdict: s.Verdict}
+	if len(s.Args) > 0 {
+		out.Args = make([]float64, len(s.Args))
+		args := make([]trace.Arg, len(s.Args))
+		for i, a := range s.Args {
+			out.Args[i] = a.Value
+			a.Value = 0
+			args[i] = a
+		}
+		s.Args = args
+	}
+	s.ID, s.Value, s.Residual, s.Verdict = "", 0, 0, ""
+	key, err := json.Marshal(s)
+	if err != nil {
+		return jsonStep{}, err
+	}
+	k, ok := p.index[string(key)]
+	if !ok {
+		k = len(p.keys)
+		p.index[string(key)] = k
+		p.keys = append(p.keys, string(key))
+	}
+	out.Form = &k
+	return out, nil
+}
+
+// forms returns the forms collected: each step's JSON without its ID, value, residual and
+// verdict and without the values of its arguments.
+func (p *packer) forms() ([]json.RawMessage, error) {
+	out := make([]json.RawMessage, len(p.keys))
+	for i, key := range p.keys {
+		var m map[string]json.RawMessage
+		if err := json.Unmarshal([]byte(key), &m); err != nil {
+			return nil, err
+		}
+		for _, k := range []string{"id", "value", "residual", "verdict"} {
+			delete(m, k)
+		}
+		if raw, ok := m["args"]; ok {
+			var args []map[string]json.RawMessage
+			if err := json.Unmarshal(raw, &args); err != nil {
+				return nil, err
+			}
+			for _, a := range args {
+				delete(a, "value")
+			}
+			b, err := json.Marshal(args)
+			if err != nil {
+				return nil, err
+			}
+			m["args"] = b
+		}
+		b, err := json.Marshal(m)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = b
+	}
+	return out, nil
+}
+
+// Unpacker reads the packed steps of results.json back into whole steps.
+type Unpacker struct {
+	forms []trace.Step
+}
+
+// NewUnpacker returns an unpacker for the top-level "forms" list of results.json.
+func NewUnpacker(forms []json.RawMessage) (*Unpacker, error) {
+	u := &Unpacker{forms: make([]trace.Step, len(forms))}
+	for i, raw := range forms {
+		if err := json.Unmarshal(raw, &u.forms[i]); err != nil {
+			return nil, fmt.Errorf("forms[%d]: %v", i, err)
+		}
+	}
+	return u, nil
+}
+
+// Steps returns the trace entries raw whole: IDs and sources as whole IDs, column/lift/part/name
+// or basis/part/name. prefix is the "COLUMN/LIFT/" of the design that holds them ("" for the basis).
+func (u *Unpacker) Steps(raw []json.RawMessage, prefix string) ([]trace.Step, error) {
+	out := make([]trace.Step, len(raw))
+	for i, r := range raw {
+		var p struct {
+			jsonStep
+			Args json.RawMessage `json:"args"`
+		}
+		if err := json.Unmarshal(r, &p); err != nil {
+			return nil, fmt.Errorf("step %d: %v", i, err)
+		}
+		if p.Form == nil {
+			// A whole step, as earlier versions wrote every step.
+			if err := json.Unmarshal(r, &out[i]); err != nil {
+				return nil, fmt.Errorf("step %d: %v", i, err)
+			}
+			continue
+		}
+		var vals []float64
+		if len(p.Args) > 0 {
+			if err := json.Unmarshal(p.Args, &vals); err != nil {
+				return nil, fmt.Errorf("step %s: args: %v", p.ID, err)
+			}
+		}
+		k := *p.Form
+		if k < 0 || k >= len(u.forms) {
+			return nil, fmt.Errorf("step %s: form %d is not in forms", p.ID, k)
+		}
+		s := u.forms[k]
+		if len(vals) != len(s.Args) {
+			return nil, fmt.Errorf("step %s: %d argument values for the %d arguments of form %d", p.ID, len(vals), len(s.Args), k)
+		}
+		s.ID, s.Value, s.Residual, s.Verdict = p.ID, p.Value, p.Residual, p.Verdict
+		s.Notes, s.Cautions = slices.Clip(s.Notes), slices.Clip(s.Cautions)
+		if s.Show != nil {
+			show := *s.Show
+			s.Show = &show
+		}
+		if len(s.Args) > 0 {
+			s.Args = slices.Clone(s.Args)
+			for j := range s.Args {
+				s.Args[j].Value = vals[j]
+				switch f := s.Args[j].From; {
+				case f == "":
+				case strings.HasPrefix(f, "/"):
+					s.Args[j].From = f[1:]
+				default:
+					s.Args[j].From = prefix + f
+				}
+			}
+		}
+		out[i] = s
+	}
+	return out, nil
+}
+
+// Steps is the trace of results.json read back whole: the project basis and each design's steps.
+type Steps struct {
+	Basis   []trace.Step
+	Designs []DesignSteps
+}
+
+// DesignSteps is the trace of one design of results.json.
+type DesignSteps struct {
+	Column, Storey string
+	Steps          []trace.Step
+}
+
+// ReadSteps reads the steps of results.json (data) back whole, with IDs and sources as whole IDs,
+// as design.Design.Trace and design.Result.Basis give them.
+func ReadSteps(data []byte) (*Steps, error) {
+	var f struct {
+		Forms   []json.RawMessage `json:"forms"`
+		Basis   []json.RawMessage `json:"basis"`
+		Designs []struct {
+			Column string            `json:"column"`
+			Storey string            `json:"storey"`
+			Trace  []json.RawMessage `json:"trace"`
+		} `json:"designs"`
+	}
+	if err := json.Unmarshal(data, &f); err != nil {
+		return nil, err
+	}
+	u, err := NewUnpacker(f.Forms)
+	if err != nil {
+		return nil, err
+	}
+	out := &Steps{}
+	if out.Basis, err = u.Steps(f.Basis, ""); err != nil {
+		return nil, fmt.Errorf("basis: %v", err)
+	}
+	for _, d := range f.Designs {
+		steps, err := u.Steps(d.Trace, d.Column+"/"+d.Storey+"/")
+		if err != nil {
+			return nil, fmt.Errorf("design %s/%s: %v", d.Column, d.Storey, err)
+		}
+		out.Designs = append(out.Designs, DesignSteps{Column: d.Column, Storey: d.Storey, Steps: steps})
+	}
+	return out, nil
 }

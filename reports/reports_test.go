@@ -275,8 +275,8 @@ func TestJSONContract(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !bytes.HasSuffix(b, []byte("}\n")) || !bytes.HasPrefix(b, []byte("{\n  \"tool\"")) {
-		t.Error("results.json is not indented by 2 spaces with a trailing newline")
+	if !bytes.HasSuffix(b, []byte("}\n")) || !bytes.HasPrefix(b, []byte(`{"tool":`)) || bytes.Count(b, []byte("\n")) != 1 {
+		t.Error("results.json is not compact on one line with a trailing newline")
 	}
 	for _, bad := range []string{"NaN", "Inf", "null"} {
 		if bytes.Contains(b, []byte(bad)) {
@@ -294,7 +294,7 @@ func TestJSONContract(t *testing.T) {
 		obj  any
 		want []string
 	}{
-		{"top", doc, []string{"code", "designs", "input_sha256", "tool"}},
+		{"top", doc, []string{"basis", "code", "designs", "forms", "input_sha256", "tool"}},
 		{"tool", doc["tool"], []string{"name", "version"}},
 		{"code", doc["code"], []string{"annex", "overrides", "standard"}},
 		{"overrides", doc["code"].(map[string]any)["overrides"], []string{"alpha_cc"}},

@@ -179,14 +179,32 @@ func SafetyInput(id string, d model.Durability) trace.Step {
 // links, under IDs prefix+"class", "c_min_dur", "dc_dur_gamma", "dc_dev", "link/…", "bar/…",
 // "c_bar", "check_link" and "check_bar", and returns the two nominal covers.
 func Nominal(l *trace.Log, prefix string, d model.Durability, fck, dia, linkDia, dg, givenCover trace.Q) (cnomLink, cnomBar trace.Q) {
+	return NominalFor(l, prefix, Exposure(l, prefix, d, fck), dia, linkDia, dg, givenCover)
+}
+
+// Allowances holds what the nominal cover takes from one set of durability data, the same for
+// every member with that data: the structural class, cmin,dur, Δcdur,γ and Δcdev.
+type Allowances struct {
+	Class, Dur, Gamma, Dev trace.Q
+}
+
+// Exposure records the structural class, the minimum cover for durability and the allowances
+// Δcdur,γ and Δcdev of the durability data d under IDs prefix+"class", "c_min_dur",
+// "dc_dur_gamma" and "dc_dev", and returns them.
+func Exposure(l *trace.Log, prefix string, d model.Durability, fck trace.Q) Allowances {
 	cs := StructuralClass(prefix+"class", d.StructuralClass, d.DesignLife, fck, d.Exposure, d.SpecialQC)
 	if d.SlabGeometry {
 		cs = cs.Caution("The reduction for slab geometry is asked for but does not apply to a column.")
 	}
 	class := l.Add(cs)
-	dur := l.Add(CminDur(prefix+"c_min_dur", int(class.V), d.Exposure))
-	gamma := l.Add(SafetyInput(prefix+"dc_dur_gamma", d))
-	dev := l.Add(DeviationInput(prefix+"dc_dev", d))
+	return Allowances{Class: class, Dur: l.Add(CminDur(prefix+"c_min_dur", int(class.V), d.Exposure)),
+		Gamma: l.Add(SafetyInput(prefix+"dc_dur_gamma", d)), Dev: l.Add(DeviationInput(prefix+"dc_dev", d))}
+}
+
+// NominalFor records what Nominal records after the allowances a: the covers for bond and the
+// nominal covers of the link and of the main bars, the cover to the bars and both checks.
+func NominalFor(l *trace.Log, prefix string, a Allowances, dia, linkDia, dg, givenCover trace.Q) (cnomLink, cnomBar trace.Q) {
+	dur, gamma, dev := a.Dur, a.Gamma, a.Dev
 	chain := func(part, what string, phi trace.Q) trace.Q {
 		b := CminB(prefix+part+"/c_min_b", phi, dg)
 		b.Title += " of the " + what

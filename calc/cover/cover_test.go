@@ -230,3 +230,28 @@ func TestDeviationGiven(t *testing.T) {
 		}
 	}
 }
+
+// The allowances of one set of durability data, recorded once (the project basis), give every
+// member the nominal covers of Nominal: XC3 and XD1, C32/40, links φ8 and bars φ20 as in
+// TestNominal (cnom 45 mm each, EN 1992-1-1:2004 4.4.1, Tables 4.3N and 4.4N from memory, by hand),
+// and bars φ40: cmin = max(40, 35, 10) = 40, cnom = 50 mm.
+func TestExposureOnce(t *testing.T) {
+	d := model.Durability{Exposure: []string{"XC3", "XD1"}}
+	var l trace.Log
+	a := Exposure(&l, "basis/cover/XC3-XD1/", d, trace.Const(32, "f_ck", "MPa"))
+	if len(l.Steps) != 4 || a.Class.V != 4 || a.Dur.V != 35 || a.Dev.V != 10 {
+		t.Fatalf("allowances: %d steps, %+v", len(l.Steps), a)
+	}
+	for _, c := range []struct{ phi, link, bar float64 }{{20, 45, 45}, {40, 45, 50}} {
+		var m trace.Log
+		link, bar := NominalFor(&m, "cover/", a, q(c.phi, "φ"), q(8, "φ_t"), q(20, "d_g"), q(40, "c"))
+		near(t, "cnom link", link.V, c.link, 0)
+		near(t, "cnom bar", bar.V, c.bar, 0)
+		for _, s := range m.Steps {
+			recheck(t, s)
+			if strings.HasSuffix(s.ID, "class") || strings.HasSuffix(s.ID, "c_min_dur") {
+				t.Errorf("step %s recorded again beside the allowances", s.ID)
+			}
+		}
+	}
+}

@@ -62,6 +62,16 @@ func checkTrace(t *testing.T, d Design) {
 	}
 	for _, s := range d.Steps {
 		for _, a := range s.Args {
+			// A reference to the project basis names one of its steps, whose value and unit it carries.
+			if strings.HasPrefix(a.From, "/"+BasisPrefix) {
+				src, ok := d.bs.find(a.From)
+				switch {
+				case !ok:
+					t.Errorf("step %s: argument %s refers to %s, which is not in the basis", s.ID, a.Name, a.From)
+				case math.Abs(src.Value-a.Value) > 1e-9*math.Max(1, math.Abs(src.Value)) || src.Unit != a.Unit:
+					t.Errorf("step %s: argument %s = %g %s, but its basis step %s records %g %s", s.ID, a.Name, a.Value, a.Unit, a.From, src.Value, src.Unit)
+				}
+			}
 			// A reference from the root ("/column/lift/…") names another lift's sheet; the command's
 			// tests resolve those across results.json.
 			if a.From != "" && !strings.HasPrefix(a.From, "/") && !seen[a.From] {
@@ -234,7 +244,7 @@ func TestLeastSteel(t *testing.T) {
 			t.Errorf("case %d should pass: %v", k, d.Reasons)
 			continue
 		}
-		c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+		c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
 		for _, p := range candidatesFor(c) {
 			if p.Area() >= d.AsProv-1e-6 {
 				break
@@ -304,7 +314,7 @@ func TestQuickMatchesTrace(t *testing.T) {
 				in := newInput(class, model.ParabolaRectangle, model.ImperfInclination, col)
 				in.Options.SecondOrder = method
 				d := mustRun(t, in).Designs[0]
-				c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+				c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
 				q := c.quickResist(d.pattern, st.NEd)
 				for _, v := range [][2]float64{{q.mEd[0], d.Y.MEd}, {q.mEd[1], d.Z.MEd}, {q.mRd[0], d.Y.MRd}, {q.mRd[1], d.Z.MRd}, {q.nRdMax, d.NRdMax}} {
 					near(t, class+" quick vs traced", v[0], v[1], 1e-9)
@@ -341,7 +351,7 @@ func TestSizeFinder(t *testing.T) {
 			c := in.Columns[0]
 			c.B, c.H = sz.B, sz.H
 			st := st
-			d := design(in, &c, &st, nil)
+			d := design(in, &c, &st, nil, newBasis(in))
 			if d.Status == StatusPass && d.AsProv <= 0.02*sz.B*sz.H {
 				continue
 			}

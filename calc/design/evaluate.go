@@ -99,7 +99,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 
 	// Clear spacing of bars, EN 1992-1-1:2004 8.2(2).
 	l.Group = "Bar spacing"
-	dg := l.Add(trace.Input("space/dg", "Maximum aggregate size", "input", "d_g", "mm", c.in.Materials.Aggregate))
+	dg := c.bs.dg
 	sMin := l.Add(detail.MinClearSpacing("space/s_min", phi, dg, param(prm, "spacing_k1", ""), param(prm, "spacing_k2", "mm"), param(prm, "spacing_min", "mm")))
 	cnom := l.Add(trace.Input("space/c_nom", "Nominal cover to the links", "input", "c_nom", "mm", col.Cover))
 	gapB, gapH := g.ClearGaps(p)
@@ -129,16 +129,14 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	// Cover for durability and bond, EN 1992-1-1:2004 4.4.1.
 	if dur := c.durability(); dur != nil {
 		l.Group = "Cover (EN 1992-1-1 4.4.1)"
-		cl, _ := cover.Nominal(l, "cover/", *dur, c.fck, phi, phiT, dg, cnom)
+		cl, _ := cover.NominalFor(l, "cover/", c.bs.allowances(l, dur), phi, phiT, dg, cnom)
 		checks = append(checks, checked{"cover/check_link", false}, checked{"cover/check_bar", false})
 		d.Detailing.CoverRequired = cl.V
 	}
 	// Laps of the bars, EN 1992-1-1:2004 8.4, 8.7; all bars lapped at one section above the floor.
 	// The lap checks are cheap arithmetic: trials make them too (their check steps alone are kept).
 	l.Group = "Laps (EN 1992-1-1 8.4, 8.7)"
-	fctm := l.Add(trace.Table("lap/fctm", "Mean axial tensile strength of concrete", "EN 1992-1-1:2004 Table 3.1",
-		c.in.Materials.Concrete.Class+", fctm", "f_ctm", "MPa", c.in.Materials.Concrete.Fctm))
-	l0, rho1 := detail.Lap(l, "lap/", phi, fctm, param(prm, "gamma_c", ""), c.fyd, true, 100)
+	l0, rho1 := c.bs.lap(l, phi, c.fyd) // the project basis's lap length of the diameter
 	l.Group = "Arrangement of the laps (EN 1992-1-1 8.7.2)"
 	for _, id := range detail.LapArrangement(l, "lap/", phi, gb, gh, sMin) {
 		checks = append(checks, checked{id, false})

@@ -14,6 +14,7 @@ const areaBound = 0.2
 
 // finish adds the steel area that the chosen bar pattern needs to resist the design actions.
 func (c *common) finish(d Design) Design {
+	d.bs = c.bs
 	if d.pattern.Count() > 0 {
 		d.sec = &c.section(d.Bars.Positions, d.pattern.BarArea()).sec
 	}
@@ -63,7 +64,7 @@ func (c *common) biaxial(as, mEdY, mRdY, mEdZ, mRdZ float64) float64 {
 func (c *common) noArrangement() Design {
 	d := Design{Column: c.col.ID, Storey: c.st.Name, B: c.col.B, H: c.col.H, Cover: c.col.Cover,
 		Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: c.st.NEd, AsMin: c.asMin.V, AsMax: c.asMax.V,
-		Status: StatusFail, Governing: "no bar arrangement fits"}
+		Status: StatusFail, Governing: "no bar arrangement fits", bs: c.bs}
 	axes := [2]*Axis{&d.Y, &d.Z}
 	for k, a := range c.ax {
 		axes[k].L0, axes[k].Lambda, axes[k].M01, axes[k].M02 = a.l0.V, a.lambda.V, a.m01.V, a.m02.V

@@ -41,7 +41,7 @@ func TestLapsInDesign(t *testing.T) {
 	in.Options.BarDiameters = []float64{16, 20, 25}
 	d = mustRun(t, in).Designs[0]
 	checkTrace(t, d)
-	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
 	ten := detail.Pattern{Dia: 20, NB: 5, NH: 2}
 	trial := c.evaluate(ten, false, false)
 	for _, s := range trial.Steps {

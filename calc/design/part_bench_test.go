@@ -15,13 +15,13 @@ func benchInput() *model.Input {
 func BenchmarkPartCommon(b *testing.B) {
 	in := benchInput()
 	for i := 0; i < b.N; i++ {
-		newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+		newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
 	}
 }
 
 func BenchmarkPartEvaluate(b *testing.B) {
 	in := benchInput()
-	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
 	p := candidatesFor(c)[0]
 	for i := 0; i < b.N; i++ {
 		c.evaluate(p, true, true)
@@ -30,7 +30,7 @@ func BenchmarkPartEvaluate(b *testing.B) {
 
 func BenchmarkPartFinish(b *testing.B) {
 	in := benchInput()
-	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil)
+	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
 	p := candidatesFor(c)[0]
 	d := c.evaluate(p, true, true)
 	steps := d.Steps

@@ -28,8 +28,14 @@ type Result struct {
 	Methods     []Method          // the methods and assumptions of the calculation, for the design basis
 	Building    *building.Derived // what was derived from the building form; nil for the actions form
 	Sizes       []SizeResult      // the section-size finder, when asked for
+	// Basis holds the steps that hold for the whole project, each once, with IDs of the form
+	// basis/<part>/<name> (BasisPrefix): the code parameters, ψ factors, materials, cover
+	// allowances, lap lengths by bar diameter and creep data. The designs' steps refer to them
+	// (Design.Trace names them by these IDs).
+	Basis []trace.Step
 
-	cases []liftCase // the column and lift of each design, for the size finder
+	cases []liftCase    // the column and lift of each design, for the size finder
+	bs    *projectBasis // the basis with the quantities the designs take from it
 }
 
 // Method is one method or assumption of the calculation with the clause behind it.
@@ -75,6 +81,7 @@ type Design struct {
 
 	Interaction *Interaction // curves for plotting, once AddInteraction has run
 
+	bs      *projectBasis     // the project basis its steps refer to
 	pattern detail.Pattern    // bar pattern evaluated
 	sec     *section.Section  // the section with the bars provided
 	checks  []checked         // its check steps
@@ -150,8 +157,9 @@ type Links struct {
 
 // Trace returns the design's steps with their IDs and references made whole,
 // column/lift/part/name, as results.json and the sheets print them. A reference that
-// starts with "/" already names a step of another design from the root (the take-down
-// refers to the lift above) and only loses its slash.
+// starts with "/" already names a step from the root, of another design (the take-down
+// refers to the lift above) or of the project basis (basis/…, Result.Basis), and only
+// loses its slash.
 func (d *Design) Trace() []trace.Step {
 	prefix := d.Column + "/" + d.Storey + "/"
 	out := make([]trace.Step, len(d.Steps))

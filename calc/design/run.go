@@ -12,7 +12,6 @@ import (
 
 	"colsheet/calc/code"
 	"colsheet/calc/detail"
-	"colsheet/calc/material"
 	"colsheet/calc/model"
 	"colsheet/calc/slender"
 	"colsheet/calc/trace"
@@ -25,7 +24,7 @@ const Version = "0.1.0"
 // For the building form it first derives the actions of every column and lift; an error
 // then names a fault of the building that the input reader could not see.
 func Run(in *model.Input) (*Result, error) {
-	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in)}
+	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in)}
 	if in.Building != nil {
 		d, err := building.Derive(in, func(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
 			return actions.PanelLoads(lx, ly, 1, spans)
@@ -54,14 +53,14 @@ func Run(in *model.Input) (*Result, error) {
 				above := &r.Designs[k+1]
 				dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.B*above.H, above.Storey
 			}
-			r.Designs[k] = design(in, col, &col.Storeys[0], dv)
+			r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
 			r.cases[k] = liftCase{col, &col.Storeys[0]}
 		}
 	} else {
 		for ci := range in.Columns {
 			col := &in.Columns[ci]
 			for si := range col.Storeys {
-				r.Designs = append(r.Designs, One(in, col, &col.Storeys[si]))
+				r.Designs = append(r.Designs, design(in, col, &col.Storeys[si], nil, r.bs))
 				r.cases = append(r.cases, liftCase{col, &col.Storeys[si]})
 			}
 		}
@@ -69,6 +68,8 @@ func Run(in *model.Input) (*Result, error) {
 	if in.Options.Sizes != nil {
 		r.Sizes = findSizes(in, r)
 	}
+	r.bs.hoist(r.Designs)
+	r.Basis = r.bs.public()
 	return r, nil
 }
 
@@ -179,6 +180,7 @@ type common struct {
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
 	ecm          trace.Q // for the nominal stiffness method
+	bs           *projectBasis
 	phiInf       trace.Q // φ(∞, t0) by Annex B, when the lift has creep data
 	dv           *Derivation
 	epsC2, epsCu trace.Q
@@ -209,18 +211,14 @@ type axisCommon struct {
 	phiGiven bool
 }
 
+// param returns the code parameter name in force, as its step of the project basis records it.
 func param(p code.Params, name, unit string) trace.Q {
 	cat, _ := code.Lookup(name)
-	return trace.Const(p.Get(name), cat.Symbol, unit)
+	return trace.Q{V: p.Get(name), Symbol: cat.Symbol, Unit: unit, From: "/" + BasisPrefix + "code/" + name}
 }
 
-// paramStep records a code parameter as an input step so that the sheet shows where it comes from.
-func paramStep(l *trace.Log, p code.Params, name, unit string) trace.Q {
-	return l.Add(actions.ParamStep("code/"+name, p, name, unit))
-}
-
-func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) *common {
-	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv}
+func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) *common {
+	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv, bs: bs}
 	// Room for every step of the design, so that evaluate and finish append in place; a
 	// derivation without steps serves a trial only (withArrangements), which keeps no trace.
 	room := 96 + stepsPerPattern
@@ -232,30 +230,11 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+room), dv.Steps...)
 	}
 	p := in.Code
-	conc := in.Materials.Concrete
 
-	l.Group = "Materials"
-	c.fck = l.Add(material.FckStep("mat/fck", conc))
-	alphaCC := paramStep(l, p, "alpha_cc", "")
-	gammaC := paramStep(l, p, "gamma_c", "")
-	c.fcd = l.Add(material.Fcd("mat/fcd", alphaCC, c.fck, gammaC))
-	if in.Options.StressBlock == model.Rectangular {
-		c.lam = l.Add(material.LambdaStep("mat/lambda", conc, c.fck))
-		c.eta = l.Add(material.EtaStep("mat/eta", conc, c.fck))
-		c.epsC2 = l.Add(material.EpsC3Step("mat/eps_c3", conc, c.fck))
-		c.epsCu = l.Add(material.EpsCu3Step("mat/eps_cu3", conc, c.fck))
-	} else {
-		c.epsC2 = l.Add(material.EpsC2Step("mat/eps_c2", conc, c.fck))
-		c.epsCu = l.Add(material.EpsCu2Step("mat/eps_cu2", conc, c.fck))
-		c.nExp = l.Add(material.NStep("mat/n", conc, c.fck))
-	}
-	fyk := l.Add(trace.Input("mat/fyk", "Characteristic yield strength of reinforcement", "EN 1992-1-1:2004 3.2.2(3)P", "f_yk", "MPa", in.Materials.Fyk))
-	gammaS := paramStep(l, p, "gamma_s", "")
-	c.fyd = l.Add(material.Fyd("mat/fyd", fyk, gammaS))
-	c.es = paramStep(l, p, "Es", "MPa")
-	if so := in.Options.SecondOrder; so == model.SecondOrderStiffness || so == model.SecondOrderBoth {
-		c.ecm = l.Add(material.Ecm("mat/Ecm", c.fck))
-	}
+	// The materials and the code parameters are the project basis's.
+	c.fck, c.fcd, c.lam, c.eta = bs.fck, bs.fcd, bs.lam, bs.eta
+	c.epsC2, c.epsCu, c.nExp = bs.epsC2, bs.epsCu, bs.nExp
+	c.fyd, c.es, c.ecm = bs.fyd, bs.es, bs.ecm
 
 	l.Group = "Section and actions"
 	c.b = l.Add(trace.Input("geo/b", "Section width (along y)", "input", "b", "mm", col.B))
@@ -270,11 +249,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	c.nRel = l.Add(slender.RelativeForce("act/n", c.nEd, c.ac, c.fcd))
 	phiCreep, hasCreep := c.creepRatio(l, dv)
 
-	var theta0 trace.Q
-	if in.Options.Imperfection != model.ImperfL0Over400 {
-		l.Group = "Imperfection"
-		theta0 = paramStep(l, p, "theta_0", "")
-	}
+	theta0 := bs.param["theta_0"]
 	ends := [2]model.Ends{st.MY, st.MZ}
 	l0s := [2]float64{st.L0Y, st.L0Z}
 	depths := [2]trace.Q{c.h, c.b}
@@ -309,9 +284,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 					Note("The member length is not given; l = l0 is used for αh, which is conservative for braced members (l0 ≤ l)."))
 			}
 			ah := l.Add(slender.AlphaH(n+"/alpha_h", lq))
-			m := l.Add(trace.Input(n+"/m", "Number of vertical members contributing", "EN 1992-1-1:2004 5.2(5)", "m", "", in.Options.Members))
-			am := l.Add(slender.AlphaM(n+"/alpha_m", m))
-			th := l.Add(slender.ThetaI(n+"/theta_i", theta0, ah, am))
+			th := l.Add(slender.ThetaI(n+"/theta_i", theta0, ah, bs.alphaM))
 			a.ei = l.Add(onAxis(n, slender.EccentricityFromInclination(n+"/ei", th, a.l0)))
 		}
 		a.m02i = l.Add(slender.WithImperfection(n+"/M02i", "Larger end moment with imperfection (M0Ed)", "M_02,"+n, a.m02, c.nEd, a.ei))
@@ -385,14 +358,15 @@ func (c *common) linkFor(dia float64) float64 {
 	return sizes[len(sizes)-1]
 }
 
-// One designs or checks one column over one lift.
+// One designs or checks one column over one lift. Its steps refer to the project basis of
+// the input (Result.Basis of Run), which it does not return.
 func One(in *model.Input, col *model.Column, st *model.Storey) Design {
-	return design(in, col, st, nil)
+	return design(in, col, st, nil, newBasis(in))
 }
 
 // design designs or checks one column over one lift whose actions may come from a derivation.
-func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation) Design {
-	c := newCommon(in, col, st, dv)
+func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) Design {
+	c := newCommon(in, col, st, dv, bs)
 	if col.Bars != nil {
 		d := c.evaluate(c.givenPattern(), true, true)
 		c.withArrangements(&d, dv)
@@ -495,7 +469,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		}
 		bottom := dv.Bottom
 		bottom[k] = alt
-		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP})
+		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP}, c.bs)
 		qr := c2.quickResist(d.pattern, c.nEd.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
@@ -522,7 +496,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		}
 		top, bottom := dv.Top, dv.Bottom
 		top[k], bottom[k] = mc.Top, mc.Bot
-		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP})
+		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP}, c.bs)
 		qr := c2.quickResist(d.pattern, mc.N.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
@@ -588,21 +562,8 @@ func (c *common) creepRatio(l *trace.Log, dv *Derivation) (trace.Q, bool) {
 		return trace.Q{}, false
 	}
 	l.Group = "Creep (EN 1992-1-1 Annex B)"
-	fcm := l.Add(trace.Formula("creep/fcm", "Mean compressive strength of concrete", "EN 1992-1-1:2004 Table 3.1", "f_cm", "MPa",
-		c.fck.V+8, "f_ck + 8", trace.A("f_ck", c.fck)))
-	rh := l.Add(trace.Input("creep/RH", "Relative humidity of the ambient environment", "input", "RH", "%", cr.RH))
+	fcm, rh, t0, alpha := c.bs.creepOf(l, cr)
 	h0 := l.Add(creep.NotionalSizeRect("creep/h0", c.b, c.h))
-	t0 := l.Add(trace.Input("creep/t0T", "Age of the concrete at loading", "input", "t_0,T", "d", cr.T0))
-	cls := cr.Cement
-	if cls == "" {
-		cls = "N"
-	}
-	as, ok := creep.CementExponentStep("creep/alpha", cls)
-	if !ok {
-		as, _ = creep.CementExponentStep("creep/alpha", "N")
-		as = as.Caution("Cement class " + cls + " is not S, N or R: class N is used.")
-	}
-	alpha := l.Add(as)
 	phiInf := creep.Coefficient(l, "creep/", fcm, rh, h0, t0, alpha)
 	var ratio trace.Q
 	switch {

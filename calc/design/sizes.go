@@ -91,7 +91,7 @@ func findSizes(in *model.Input, r *Result) []SizeResult {
 					ok = false
 					break
 				}
-				d := design(in, &col, &col.Storeys[0], nil)
+				d := design(in, &col, &col.Storeys[0], nil, r.bs)
 				if d.Status != StatusPass || d.AsProv > rhoMax*sz.B*sz.H*(1+1e-9) {
 					ok = false
 					break

@@ -62,6 +62,7 @@ func TestBuildingVariants(t *testing.T) {
 			for _, d := range r.Designs {
 				checkTrace(t, d)
 			}
+			checkBasis(t, r)
 		}
 	}
 }

@@ -153,28 +153,59 @@ func LapValue(phi, fctm, gammaC, sigmaSd float64, goodBond bool, lappedPercent f
 // a column whose bars are all lapped together) and α1 = α2 = α3 = α5 = 1, and returns l0 and the
 // percentage ρ1 as recorded.
 func Lap(l *trace.Log, prefix string, phi, fctm, gammaC, fyd trace.Q, goodBond bool, lappedPercent float64) (l0, rho1 trace.Q) {
-	sigma := l.Add(trace.Formula(prefix+"sigma_sd", "Design stress of the bar at the lap: its full design strength",
-		ec2+"8.4.3(2)", "σ_sd", "MPa", fyd.V, "f_yd", trace.A("f_yd", fyd)))
+	sigma := l.Add(FullStress(prefix+"sigma_sd", fyd))
 	return LapAtStress(l, prefix, phi, fctm, gammaC, sigma, goodBond, lappedPercent)
+}
+
+// FullStress returns the design stress of a bar at a lap taken as its full design strength,
+// σsd = fyd, EN 1992-1-1:2004 8.4.3(2).
+func FullStress(id string, fyd trace.Q) trace.Step {
+	return trace.Formula(id, "Design stress of the bar at the lap: its full design strength",
+		ec2+"8.4.3(2)", "σ_sd", "MPa", fyd.V, "f_yd", trace.A("f_yd", fyd))
 }
 
 // LapAtStress records the lap length of compression bars at the design stress sigmaSd and returns l0
 // and ρ1; see Lap.
 func LapAtStress(l *trace.Log, prefix string, phi, fctm, gammaC, sigmaSd trace.Q, goodBond bool, lappedPercent float64) (l0, rho1 trace.Q) {
+	b := LapBondSteps(l, prefix, fctm, gammaC, sigmaSd, goodBond, lappedPercent)
+	return LapFor(l, prefix, phi, b), b.Rho1
+}
+
+// LapBond holds the quantities of a lap length that do not depend on the bar diameter: the same
+// for every bar of a project, so that the project basis records them once.
+type LapBond struct {
+	SigmaSd trace.Q // design stress of the bar at the lap
+	Fctd    trace.Q // design tensile strength of concrete
+	Eta1    trace.Q // bond-condition coefficient
+	Rho1    trace.Q // per cent of bars lapped at one section
+	Alpha6  trace.Q // lap coefficient of Table 8.3
+}
+
+// LapBondSteps records fctk,0.05, fctd, η1, ρ1 and α6 under IDs prefix+"fctk005", "fctd", "eta1",
+// "rho1" and "alpha6" (see Lap for goodBond and lappedPercent) and returns them with sigmaSd.
+func LapBondSteps(l *trace.Log, prefix string, fctm, gammaC, sigmaSd trace.Q, goodBond bool, lappedPercent float64) LapBond {
 	fctk := l.Add(Fctk005(prefix+"fctk005", fctm))
 	alphaCt := trace.Const(AlphaCt, "α_ct", "")
-	fctd := l.Add(Fctd(prefix+"fctd", alphaCt, fctk, gammaC).Note("αct = 1.0, the recommended value (3.1.6(2)P)."))
-	eta1 := l.Add(Eta1(prefix+"eta1", goodBond))
-	eta2 := l.Add(Eta2(prefix+"eta2", phi))
-	fbd := l.Add(Fbd(prefix+"fbd", eta1, eta2, fctd))
-	lb := l.Add(LbRqd(prefix+"lb_rqd", phi, sigmaSd, fbd))
-	rho := l.Add(trace.Input(prefix+"rho1", "Percentage of bars lapped within 0.65·l0 of the lap centre",
+	b := LapBond{SigmaSd: sigmaSd}
+	b.Fctd = l.Add(Fctd(prefix+"fctd", alphaCt, fctk, gammaC).Note("αct = 1.0, the recommended value (3.1.6(2)P)."))
+	b.Eta1 = l.Add(Eta1(prefix+"eta1", goodBond))
+	b.Rho1 = l.Add(trace.Input(prefix+"rho1", "Percentage of bars lapped within 0.65·l0 of the lap centre",
 		ec2+"8.7.3(1), Fig. 8.8", "ρ_1", "", math.Max(lappedPercent, 0)))
-	a6 := l.Add(Alpha6(prefix+"alpha6", rho))
-	l0min := l.Add(LapMin(prefix+"l0_min", a6, lb, phi))
+	b.Alpha6 = l.Add(Alpha6(prefix+"alpha6", b.Rho1))
+	return b
+}
+
+// LapFor records η2, fbd, lb,rqd, l0,min and l0 of bars of diameter phi under IDs prefix+"eta2",
+// "fbd", "lb_rqd", "l0_min" and "l0", with α1 = α2 = α3 = α5 = 1 (bars in compression), and
+// returns l0.
+func LapFor(l *trace.Log, prefix string, phi trace.Q, b LapBond) trace.Q {
+	eta2 := l.Add(Eta2(prefix+"eta2", phi))
+	fbd := l.Add(Fbd(prefix+"fbd", b.Eta1, eta2, b.Fctd))
+	lb := l.Add(LbRqd(prefix+"lb_rqd", phi, b.SigmaSd, fbd))
+	l0min := l.Add(LapMin(prefix+"l0_min", b.Alpha6, lb, phi))
 	one := func(sym string) trace.Q { return trace.Const(1, sym, "") }
-	return l.Add(LapLength(prefix+"l0", one("α_1"), one("α_2"), one("α_3"), one("α_5"), a6, lb, l0min).
-		Note("Bars in compression: α1 = α2 = α3 = α5 = 1 (Table 8.2).")), rho
+	return l.Add(LapLength(prefix+"l0", one("α_1"), one("α_2"), one("α_3"), one("α_5"), b.Alpha6, lb, l0min).
+		Note("Bars in compression: α1 = α2 = α3 = α5 = 1 (Table 8.2)."))
 }
 
 // The arrangement of the laps of a column, EN 1992-1-1:2004 8.7.2(3) and Fig. 8.7: all bars are

@@ -2,6 +2,7 @@ package detail
 
 import (
 	"math"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -182,6 +183,36 @@ func TestLapConvenience(t *testing.T) {
 		if l.Last().ID != "K1/L1/lap/l0" || got.From != "K1/L1/lap/l0" {
 			t.Errorf("l0 from %q, last step %q", got.From, l.Last().ID)
 		}
+	}
+}
+
+// The bond quantities recorded once serve the lap length of every diameter (the project basis):
+// the same l0 as Lap, by hand as in TestLapConvenience (EN 1992-1-1:2004 8.4.2(2), 8.4.3(2),
+// 8.7.3(1)): φ20 1070.89 mm, φ40 2328.03 mm, good bond, all bars lapped.
+func TestLapBondOnce(t *testing.T) {
+	gc := trace.Const(1.5, "γ_c", "")
+	fctm := trace.Const(2.9, "f_ctm", "MPa") // EN 1992-1-1:2004 Table 3.1, C30/37
+	fyd := trace.Const(500/1.15, "f_yd", "MPa")
+	l := &trace.Log{Prefix: "basis/"}
+	sigma := l.Add(FullStress("lap/sigma_sd", fyd))
+	b := LapBondSteps(l, "lap/", fctm, gc, sigma, true, 100)
+	if len(l.Steps) != 6 || b.Rho1.V != 100 || b.Alpha6.V != 1.5 || b.Eta1.V != 1 {
+		t.Fatalf("bond: %d steps, ρ1 %g, α6 %g, η1 %g", len(l.Steps), b.Rho1.V, b.Alpha6.V, b.Eta1.V)
+	}
+	for _, c := range []struct{ phi, want float64 }{{20, 1070.89}, {40, 2328.03}} {
+		n := len(l.Steps)
+		pre := "lap/phi" + strconv.FormatFloat(c.phi, 'g', -1, 64) + "/"
+		phi := trace.Const(c.phi, "φ", "mm")
+		got := LapFor(l, pre, phi, b)
+		near(t, "LapFor l0", got.V, c.want, 0.01)
+		again, _ := Lap(&trace.Log{}, "lap/", phi, fctm, gc, fyd, true, 100)
+		near(t, "LapFor against Lap", got.V, again.V, 1e-12*again.V)
+		if len(l.Steps)-n != 5 {
+			t.Errorf("φ%g: LapFor recorded %d steps, want 5", c.phi, len(l.Steps)-n)
+		}
+	}
+	for _, s := range l.Steps {
+		recheck(t, s)
 	}
 }
 

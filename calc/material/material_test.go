@@ -102,3 +102,24 @@ func TestEpsCu3Step(t *testing.T) {
 		}
 	}
 }
+
+// fctm as a table step: the row of Table 3.1 for each class, printed to 0.1 MPa.
+func TestFctmStep(t *testing.T) {
+	for _, tc := range []struct {
+		class string
+		want  float64 // MPa
+	}{
+		{"C30/37", 2.9}, // EN 1992-1-1:2004 Table 3.1
+		{"C50/60", 4.1}, // EN 1992-1-1:2004 Table 3.1
+		{"C70/85", 4.6}, // EN 1992-1-1:2004 Table 3.1
+	} {
+		c, _ := Lookup(tc.class)
+		s := FctmStep("fctm", c)
+		if s.Kind != trace.KindTable || s.Unit != "MPa" || s.Symbol != "f_ctm" || !strings.HasPrefix(s.Row, tc.class) {
+			t.Errorf("%s: step %+v is not the fctm row of Table 3.1", tc.class, s)
+		}
+		if math.Abs(s.Value-tc.want) > 0.05+1e-9 {
+			t.Errorf("%s: fctm = %.4g MPa, Table 3.1 %.4g MPa", tc.class, s.Value, tc.want)
+		}
+	}
+}

@@ -103,3 +103,9 @@ func Ecm(id string, fck trace.Q) trace.Step {
 	return trace.Formula(id, "Secant modulus of elasticity of concrete", ec2+"Table 3.1", "E_cm", "MPa",
 		22000*math.Pow((fck.V+8)/10, 0.3), "22000 * ((f_ck + 8) / 10) ** 0.3", trace.A("f_ck", fck))
 }
+
+// FctmStep returns the mean axial tensile strength fctm read from Table 3.1 up to C50/60 and from
+// the table's expression above, EN 1992-1-1:2004 Table 3.1.
+func FctmStep(id string, c Concrete) trace.Step {
+	return trace.Table(id, "Mean axial tensile strength of concrete", ec2+"Table 3.1", c.Class+", fctm", "f_ctm", "MPa", c.Fctm)
+}

@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"encoding/json"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -11,6 +10,7 @@ import (
 	"testing"
 
 	"colsheet/calc/trace"
+	"colsheet/reports"
 	"colsheet/reports/archive"
 )
 
@@ -36,23 +36,21 @@ func tamperStep(t *testing.T, dir string) string {
 	if err != nil {
 		t.Fatal(err)
 	}
-	var res struct {
-		Designs []struct{ Trace []trace.Step }
-	}
-	if err := json.Unmarshal(b, &res); err != nil || len(res.Designs) < 2 {
+	res, err := reports.ReadSteps(b)
+	if err != nil || len(res.Designs) < 2 {
 		t.Fatalf("results.json: %v", err)
 	}
-	for _, s := range res.Designs[1].Trace {
+	for _, s := range res.Designs[1].Steps {
 		if s.Kind != trace.KindFormula {
 			continue
 		}
-		at := bytes.Index(b, []byte(`"id": "`+s.ID+`"`))
-		v := bytes.Index(b[at:], []byte("\n          \"value\": "))
+		at := bytes.Index(b, []byte(`"id":"`+s.ID+`"`))
+		v := bytes.Index(b[at:], []byte(`"value":`))
 		if at < 0 || v < 0 {
 			t.Fatalf("step %s not found in the text", s.ID)
 		}
-		v += at + len("\n          \"value\": ")
-		end := v + bytes.IndexAny(b[v:], ",\n")
+		v += at + len(`"value":`)
+		end := v + bytes.IndexAny(b[v:], ",}")
 		out := append(append(append([]byte{}, b[:v]...), strconv.FormatFloat(s.Value*1.001, 'g', -1, 64)...), b[end:]...)
 		if err := os.WriteFile(name, out, 0o644); err != nil {
 			t.Fatal(err)

@@ -10,6 +10,7 @@ import (
 	"testing"
 
 	"colsheet/calc/trace"
+	"colsheet/reports"
 )
 
 func runCLI(args ...string) (int, string, string) {
@@ -63,7 +64,11 @@ func TestDemo(t *testing.T) {
 	if len(designs) != 4 {
 		t.Fatalf("%d designs, want 4", len(designs))
 	}
-	for _, x := range designs {
+	back, err := reports.ReadSteps(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, x := range designs {
 		d := x.(map[string]any)
 		hasAll(t, "design", d, "column", "storey", "b_mm", "h_mm", "cover_mm", "fck_MPa", "fyk_MPa", "NEd_kN",
 			"axes", "biaxial", "As_req_mm2", "As_min_mm2", "As_max_mm2", "As_prov_mm2", "bars", "links",
@@ -77,11 +82,7 @@ func TestDemo(t *testing.T) {
 		hasAll(t, "bars", d["bars"].(map[string]any), "count", "dia_mm", "positions_mm")
 		hasAll(t, "links", d["links"].(map[string]any), "dia_mm", "spacing_mm", "spacing_reduced_mm")
 		// The trace read back from results.json reproduces every step (the archive's recheck).
-		raw, _ := json.Marshal(d["trace"])
-		var steps []trace.Step
-		if err := json.Unmarshal(raw, &steps); err != nil {
-			t.Fatal(err)
-		}
+		steps := back.Designs[k].Steps
 		if n := int(d["steps"].(float64)); n != len(steps) || n == 0 {
 			t.Errorf("steps = %d, trace has %d", n, len(steps))
 		}
@@ -131,7 +132,7 @@ func TestFailingDesignExitsOne(t *testing.T) {
 		t.Errorf("stderr does not name the failure: %s", stderr)
 	}
 	b, err := os.ReadFile(filepath.Join(dir, "results.json"))
-	if err != nil || !bytes.Contains(b, []byte(`"status": "fail"`)) {
+	if err != nil || !bytes.Contains(b, []byte(`"status":"fail"`)) {
 		t.Errorf("results.json missing or without the failure: %v", err)
 	}
 	md, _ := os.ReadFile(filepath.Join(dir, "md", "F1-L1.md"))
@@ -204,13 +205,13 @@ func TestBuildingDemo(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	var res struct {
-		Designs []struct {
-			Column, Storey string
-			Trace          []trace.Step
-		}
+	// results.json of the demo, compact with the project basis and the forms stored once, at most
+	// 15 MB (issue 11).
+	if len(data) > 15e6 {
+		t.Errorf("results.json of the demo holds %d bytes, more than 15 MB", len(data))
 	}
-	if err := json.Unmarshal(data, &res); err != nil {
+	res, err := reports.ReadSteps(data)
+	if err != nil {
 		t.Fatal(err)
 	}
 	// 5 × 5 grid points less the void at C3, six lifts each.
@@ -218,16 +219,19 @@ func TestBuildingDemo(t *testing.T) {
 		t.Fatalf("%d designs, want 144", len(res.Designs))
 	}
 	ids := map[string]bool{}
+	for _, s := range res.Basis {
+		ids[s.ID] = true
+	}
 	for _, d := range res.Designs {
-		for _, s := range d.Trace {
+		for _, s := range d.Steps {
 			ids[s.ID] = true
 		}
 	}
-	for _, d := range res.Designs {
+	for _, d := range append([]reports.DesignSteps{{Column: "basis", Steps: res.Basis}}, res.Designs...) {
 		if d.Column == "C3" {
 			t.Fatal("the void C3 has a design")
 		}
-		for _, s := range d.Trace {
+		for _, s := range d.Steps {
 			if err := trace.Recheck(s, 1e-9); err != nil {
 				t.Error(err)
 			}

@@ -39,7 +39,8 @@ func (c *Changes) Empty() bool { return len(c.Rows) == 0 }
 const none = "—"
 
 // Compare reads the packages in oldDir and newDir (results.json and, where present, manifest.json)
-// and lists the designs added and removed and, per column and lift, the changed inputs and results.
+// and lists the changed values of the project basis (column ProjectColumn), then the designs added
+// and removed and, per column and lift, the changed inputs and results.
 func Compare(oldDir, newDir string) (*Changes, error) {
 	oldRes, oldSide, err := readSide(oldDir)
 	if err != nil {
@@ -50,6 +51,7 @@ func Compare(oldDir, newDir string) (*Changes, error) {
 		return nil, err
 	}
 	c := &Changes{Old: oldSide, New: newSide}
+	c.project(oldRes, newRes)
 	olds := map[string]*resultsCase{}
 	for i := range oldRes.Designs {
 		d := &oldRes.Designs[i]
@@ -104,6 +106,19 @@ func readSide(dir string) (*results, Side, error) {
 		return nil, Side{}, err
 	}
 	return res, side, nil
+}
+
+// ProjectColumn is the column of a row that concerns the whole project: a value of the project
+// basis (results.json "basis"), listed once however many designs use it.
+const ProjectColumn = "project"
+
+// project adds a row for every input or table value of the project basis that differs between
+// the packages, or that only one of them holds and that comes from the input file (a bar
+// diameter added to the list), each once for the project.
+func (c *Changes) project(o, n *results) {
+	ob := &resultsCase{Column: ProjectColumn, Lift: none, Trace: o.Basis}
+	nb := &resultsCase{Column: ProjectColumn, Lift: none, Trace: n.Basis}
+	c.inputs(ob, nb)
 }
 
 func (c *Changes) add(d *resultsCase, item, old, new string) {

@@ -201,14 +201,20 @@ func TestCompareFacadeLoad(t *testing.T) {
 }
 
 // Bars designed from another list of diameters change what the design chose (the bars, their
-// arrangement, the links and what follows from them), never an input: the rows are results.
+// arrangement, the links and what follows from them), never an input of a design: the rows are
+// results. The list itself is an input of the project: its diameters are rows of the basis's
+// lap lengths, listed once for the project, each added or removed.
 func TestCompareDesignedValues(t *testing.T) {
 	c, err := Compare(designBundle(t, "9.5 kN/m", "12, 16, 20"), designBundle(t, "9.5 kN/m", "20, 25"))
 	if err != nil {
 		t.Fatal(err)
 	}
-	chosen := 0
+	chosen, listed := 0, map[string]string{}
 	for _, r := range c.Rows {
+		if r.Column == ProjectColumn && strings.HasPrefix(r.Item, "input `basis/lap/phi") {
+			listed[r.Old] = r.New
+			continue
+		}
 		if strings.HasPrefix(r.Item, "input ") {
 			t.Errorf("%s/%s: a designed value listed as a changed input: %+v", r.Column, r.Lift, r)
 		}
@@ -218,6 +224,9 @@ func TestCompareDesignedValues(t *testing.T) {
 	}
 	if chosen == 0 {
 		t.Errorf("no changed choice of the design listed as a result:\n%s", c.Markdown())
+	}
+	if len(listed) != 3 || listed["12 mm"] != "—" || listed["16 mm"] != "—" || listed["—"] != "25 mm" {
+		t.Errorf("the listed diameters 12, 16, 20 → 20, 25: rows %v", listed)
 	}
 }
 

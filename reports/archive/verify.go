@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"colsheet/calc/trace"
+	"colsheet/reports"
 )
 
 // ResultsName is the name of the results file at the top of a package.
@@ -79,9 +80,12 @@ func (r *Report) WriteText(w io.Writer) error {
 
 // results is the part of results.json that the archive reads.
 type results struct {
-	Tool        Tool          `json:"tool"`
-	InputSHA256 string        `json:"input_sha256"`
-	Designs     []resultsCase `json:"designs"`
+	Tool        Tool              `json:"tool"`
+	InputSHA256 string            `json:"input_sha256"`
+	Forms       []json.RawMessage `json:"forms"`
+	RawBasis    []json.RawMessage `json:"basis"`
+	Designs     []resultsCase     `json:"designs"`
+	Basis       []trace.Step      `json:"-"` // the project basis, read back whole
 }
 
 // resultsCase is one design of results.json: the contract values and the trace.
@@ -102,10 +106,11 @@ type resultsCase struct {
 		Dia     float64 `json:"dia_mm"`
 		Spacing float64 `json:"spacing_mm"`
 	} `json:"links"`
-	Utilization float64      `json:"utilization"`
-	Status      string       `json:"status"`
-	Governing   string       `json:"governing"`
-	Trace       []trace.Step `json:"trace"`
+	Utilization float64           `json:"utilization"`
+	Status      string            `json:"status"`
+	Governing   string            `json:"governing"`
+	RawTrace    []json.RawMessage `json:"trace"`
+	Trace       []trace.Step      `json:"-"` // read back whole (reports.Unpacker)
 }
 
 // resultsAxis holds the design and resisting moments about one axis.
@@ -130,6 +135,19 @@ func readResults(name string) (*results, error) {
 	for i, d := range r.Designs {
 		if d.Column == "" || d.Lift == "" {
 			return nil, fmt.Errorf("%s: designs[%d]: column or storey missing", name, i)
+		}
+	}
+	u, err := reports.NewUnpacker(r.Forms)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %v", name, err)
+	}
+	if r.Basis, err = u.Steps(r.RawBasis, ""); err != nil {
+		return nil, fmt.Errorf("%s: basis: %v", name, err)
+	}
+	for i := range r.Designs {
+		d := &r.Designs[i]
+		if d.Trace, err = u.Steps(d.RawTrace, d.Column+"/"+d.Lift+"/"); err != nil {
+			return nil, fmt.Errorf("%s: designs[%d]: %v", name, i, err)
 		}
 	}
 	return &r, nil
@@ -229,9 +247,18 @@ func (r *Report) checkFiles(dir string, m Manifest) {
 	}
 }
 
-// checkSteps re-evaluates every step of res and checks every argument against the step it names as its source.
+// checkSteps re-evaluates every step of res, its project basis and every design's, and checks
+// every argument against the step it names as its source.
 func (r *Report) checkSteps(res *results) {
 	ids := map[string]trace.Step{}
+	basis := resultsCase{Column: "(project basis)", Lift: "—", Trace: res.Basis}
+	for _, s := range basis.Trace {
+		if _, dup := ids[s.ID]; dup {
+			r.stepProblem(basis, s, "the step ID is used twice", false, 0, 0)
+			continue
+		}
+		ids[s.ID] = s
+	}
 	for _, d := range res.Designs {
 		for _, s := range d.Trace {
 			if _, dup := ids[s.ID]; dup {
@@ -241,7 +268,7 @@ func (r *Report) checkSteps(res *results) {
 			ids[s.ID] = s
 		}
 	}
-	for _, d := range res.Designs {
+	for _, d := range append([]resultsCase{basis}, res.Designs...) {
 		prefix := d.Column + "/" + d.Lift + "/"
 		for _, s := range d.Trace {
 			r.Steps++

@@ -1,0 +1,167 @@
+package reports
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"reflect"
+	"strings"
+	"testing"
+
+	"colsheet/calc/design"
+	yamlinput "colsheet/calc/input"
+	"colsheet/calc/trace"
+)
+
+// packBuilding is a small building form with two imposed-load categories, creep data, a façade
+// and fire; every number is invented test input.
+const packBuilding = `project: {title: Packing test, job: P-1, revision: A, designer: A. Berg, checker: C. Dahl}
+materials: {concrete: C32/40, fyk: 500 MPa, aggregate: 20 mm}
+design: {durability: {exposure: [XC1]}, fire: {rating: R60}}
+building:
+  storeys:
+    - {name: L1, height: 3.6 m}
+    - {name: L2, height: 3.3 m}
+    - {name: R, height: 3.3 m}
+  grid: {x: [6.0 m, 5.0 m], y: [5.5 m]}
+  columns: {b: 300 mm, h: 350 mm, cover: 35 mm}
+  beams: {b: 300 mm, h: 500 mm}
+  floors:
+    - {levels: [L1, L2], gk: 5.5 kN/m2, qk: 3 kN/m2, category: C, spans: y}
+    - {levels: [R], gk: 4 kN/m2, qk: 0.6 kN/m2, category: H, spans: y}
+  line_loads:
+    - {levels: [L1, L2], line: A, gk: 8 kN/m}
+  creep: {rh: 50, t0: 28}
+  base: fixed
+`
+
+// runFile designs the input file name, or the text src when name is empty.
+func runFile(t testing.TB, name, src string) *design.Result {
+	t.Helper()
+	data := []byte(src)
+	if name != "" {
+		var err error
+		if data, err = os.ReadFile(name); err != nil {
+			t.Fatal(err)
+		}
+	} else {
+		name = "pack.yaml"
+	}
+	in, err := yamlinput.Parse(name, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := design.Run(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
+// results.json read back gives every step of the basis and of every design as the engine
+// recorded it: the same ID, title, clause, kind, symbol, expression, arguments (name, value,
+// unit, source), value, unit, notes, cautions and every other field (common practice, no
+// source: a lossless store). The file is compact, and each form is stored once.
+func TestJSONRoundTrip(t *testing.T) {
+	for _, tc := range []struct{ name, file, src string }{
+		{"actions form", "../testdata/columns.yaml", ""},
+		{"building form", "", packBuilding},
+	} {
+		r := runFile(t, tc.file, tc.src)
+		b, err := JSON(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if bytes.Contains(b, []byte("\n ")) || !bytes.HasSuffix(b, []byte("}\n")) || bytes.Count(b, []byte("\n")) != 1 {
+			t.Errorf("%s: results.json is not compact on one line", tc.name)
+		}
+		got, err := ReadSteps(b)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(r.Basis) == 0 || !reflect.DeepEqual(got.Basis, r.Basis) {
+			t.Errorf("%s: the basis read back differs (%d steps, %d recorded)", tc.name, len(got.Basis), len(r.Basis))
+		}
+		if len(got.Designs) != len(r.Designs) {
+			t.Fatalf("%s: %d designs read back, %d designed", tc.name, len(got.Designs), len(r.Designs))
+		}
+		steps := 0
+		for k, d := range r.Designs {
+			want, back := d.Trace(), got.Designs[k]
+			steps += len(want)
+			if back.Column != d.Column || back.Storey != d.Storey || len(back.Steps) != len(want) {
+				t.Fatalf("%s: design %d read back as %s/%s with %d steps, want %s/%s with %d", tc.name, k, back.Column, back.Storey, len(back.Steps), d.Column, d.Storey, len(want))
+			}
+			for i := range want {
+				if !reflect.DeepEqual(back.Steps[i], want[i]) {
+					t.Errorf("%s: step read back\n%+v\nwant\n%+v", tc.name, back.Steps[i], want[i])
+				}
+			}
+		}
+		var doc struct {
+			Forms []json.RawMessage `json:"forms"`
+		}
+		if err := json.Unmarshal(b, &doc); err != nil {
+			t.Fatal(err)
+		}
+		seen := map[string]bool{}
+		for _, f := range doc.Forms {
+			if seen[string(f)] {
+				t.Errorf("%s: form stored twice: %s", tc.name, f)
+			}
+			seen[string(f)] = true
+			for _, k := range []string{`"id"`, `"value"`, `"verdict"`, `"residual"`} {
+				if bytes.Contains(f, []byte(k+":")) {
+					t.Errorf("%s: form holds %s: %s", tc.name, k, f)
+				}
+			}
+		}
+		if len(doc.Forms) == 0 || len(doc.Forms) >= steps+len(r.Basis) {
+			t.Errorf("%s: %d forms for %d steps", tc.name, len(doc.Forms), steps+len(r.Basis))
+		}
+	}
+}
+
+// A trace entry without a form is a whole step, as earlier versions wrote them: read as it is.
+// A form's source relative to the design names the design's own step; one from the root, any.
+func TestReadStepsWhole(t *testing.T) {
+	data := []byte(`{"forms": [{"title": "Gross concrete area", "clause": "common practice", "kind": "formula", "symbol": "A_c",
+	  "expr": "b * h", "unit": "mm2", "args": [{"name": "b", "symbol": "b", "unit": "mm", "from": "geo/b"}, {"name": "h", "symbol": "h", "from": "/basis/x/h"}]}],
+	  "basis": [{"id": "basis/x/h", "title": "Depth", "clause": "input", "kind": "input", "symbol": "h", "value": 500, "unit": "mm"}],
+	  "designs": [{"column": "K1", "storey": "L1", "trace": [
+	    {"id": "K1/L1/geo/b", "title": "Width", "clause": "input", "kind": "input", "symbol": "b", "value": 300, "unit": "mm"},
+	    {"id": "K1/L1/geo/Ac", "form": 0, "value": 150000, "args": [300, 500]}]}]}`)
+	got, err := ReadSteps(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ac := got.Designs[0].Steps[1]
+	want := trace.Formula("K1/L1/geo/Ac", "Gross concrete area", "common practice", "A_c", "mm2", 150000, "b * h",
+		trace.Arg{Name: "b", Symbol: "b", Value: 300, Unit: "mm", From: "K1/L1/geo/b"}, trace.Arg{Name: "h", Symbol: "h", Value: 500, From: "basis/x/h"})
+	if !reflect.DeepEqual(ac, want) || got.Designs[0].Steps[0].Value != 300 || got.Basis[0].ID != "basis/x/h" {
+		t.Errorf("read back %+v, want %+v", ac, want)
+	}
+	for _, bad := range []string{`"form": 1, "value": 1, "args": [300, 500]`, `"form": 0, "value": 1, "args": [300]`} {
+		b := bytes.Replace(data, []byte(`"form": 0, "value": 150000, "args": [300, 500]`), []byte(bad), 1)
+		if _, err := ReadSteps(b); err == nil || !strings.Contains(err.Error(), "K1/L1/geo/Ac") {
+			t.Errorf("%s: error %v does not name the step", bad, err)
+		}
+	}
+}
+
+// BenchmarkJSONDemo measures results.json of the shipped demo building (target: at most 15 MB,
+// issue 11); the size is reported as the metric "bytes".
+func BenchmarkJSONDemo(b *testing.B) {
+	r := runFile(b, "../testdata/demo.yaml", "")
+	design.AddInteraction(r)
+	b.ResetTimer()
+	var n int
+	for i := 0; i < b.N; i++ {
+		js, err := JSON(r)
+		if err != nil {
+			b.Fatal(err)
+		}
+		n = len(js)
+	}
+	b.ReportMetric(float64(n), "bytes")
+}
