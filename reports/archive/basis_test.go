@@ -205,3 +205,49 @@ func TestCompareBasisOnce(t *testing.T) {
 		t.Errorf("Markdown lacks the project row:\n%s", md)
 	}
 }
+
+// A value that one package records on a lift and the other once in its project basis (a package
+// written before the basis existed) moved, and is no change; with another value it is listed,
+// on both sides.
+func TestCompareMovedToBasis(t *testing.T) {
+	small := readTree(t, filepath.Join("testdata", "small"))
+	dg := func(v float64) map[string]any {
+		return map[string]any{"title": "Maximum aggregate size", "clause": "input", "kind": "input", "symbol": "d_g", "unit": "mm", "value": v}
+	}
+	for _, tc := range []struct {
+		basis float64
+		rows  int
+	}{{20, 0}, {25, 2}} {
+		a, b := writeBundle(t, small), writeBundle(t, small)
+		editResults(t, a, func(d []any) {
+			s := dg(20)
+			s["id"] = "K1/L2/space/dg"
+			d[0].(map[string]any)["trace"] = append(d[0].(map[string]any)["trace"].([]any), s)
+		})
+		name := filepath.Join(b, ResultsName)
+		raw, err := os.ReadFile(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var res map[string]any
+		if err := json.Unmarshal(raw, &res); err != nil {
+			t.Fatal(err)
+		}
+		s := dg(tc.basis)
+		s["id"] = "basis/mat/d_g"
+		res["basis"] = []any{s}
+		if raw, err = json.Marshal(res); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(name, raw, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		c, err := Compare(a, b)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(c.Rows) != tc.rows {
+			t.Errorf("d_g 20 mm on the lift, %g mm in the basis: rows %+v, want %d", tc.basis, c.Rows, tc.rows)
+		}
+	}
+}

@@ -52,6 +52,7 @@ func Compare(oldDir, newDir string) (*Changes, error) {
 	}
 	c := &Changes{Old: oldSide, New: newSide}
 	c.project(oldRes, newRes)
+	oldBasis, newBasis := givenValues(oldRes.Basis), givenValues(newRes.Basis)
 	olds := map[string]*resultsCase{}
 	for i := range oldRes.Designs {
 		d := &oldRes.Designs[i]
@@ -67,7 +68,7 @@ func Compare(oldDir, newDir string) (*Changes, error) {
 			c.add(n, "design added", none, outcome(n))
 			continue
 		}
-		c.inputs(o, n)
+		c.inputs(o, n, oldBasis, newBasis)
 		c.results(o, n)
 		c.choices(o, n)
 	}
@@ -115,10 +116,36 @@ const ProjectColumn = "project"
 // project adds a row for every input or table value of the project basis that differs between
 // the packages, or that only one of them holds and that comes from the input file (a bar
 // diameter added to the list), each once for the project.
+//
+// A value that only one package records in its basis while the other records the same value in
+// its designs (a package written before the basis existed) moved, and is no change.
 func (c *Changes) project(o, n *results) {
+	var od, nd []trace.Step
+	for _, d := range o.Designs {
+		od = append(od, d.Trace...)
+	}
+	for _, d := range n.Designs {
+		nd = append(nd, d.Trace...)
+	}
 	ob := &resultsCase{Column: ProjectColumn, Lift: none, Trace: o.Basis}
 	nb := &resultsCase{Column: ProjectColumn, Lift: none, Trace: n.Basis}
-	c.inputs(ob, nb)
+	c.inputs(ob, nb, givenValues(od), givenValues(nd))
+}
+
+// givenValues returns the given values (trace.Given) of steps, each named by what it is and
+// what it holds whatever its ID: title, symbol, unit and value.
+func givenValues(steps []trace.Step) map[string]bool {
+	out := map[string]bool{}
+	for _, s := range steps {
+		if trace.Given(s) {
+			out[givenValue(s)] = true
+		}
+	}
+	return out
+}
+
+func givenValue(s trace.Step) string {
+	return s.Title + "\x00" + s.Symbol + "\x00" + s.Unit + "\x00" + strconv.FormatFloat(s.Value, 'g', -1, 64)
 }
 
 func (c *Changes) add(d *resultsCase, item, old, new string) {
@@ -132,11 +159,14 @@ func outcome(d *resultsCase) string {
 
 // inputs adds a row for every input or table step of o and n whose value differs, matched by step
 // ID: the values given to the calculation (trace.Given). A step that only one of them holds is
-// listed when it comes from the input file (clause "input"); a value of a standard that the
-// other package does not record (a factor of a check that its design did not need) follows from
-// the design, not from a changed input.
-func (c *Changes) inputs(o, n *resultsCase) {
-	c.steps(o, n, "input", trace.Given, func(s trace.Step) bool { return s.Clause == "input" })
+// listed when it comes from the input file (clause "input"), unless the other package holds the
+// same value elsewhere (oldElse, newElse: the same value moved to or from the project basis); a
+// value of a standard that the other package does not record (a factor of a check that its design
+// did not need) follows from the design, not from a changed input.
+func (c *Changes) inputs(o, n *resultsCase, oldElse, newElse map[string]bool) {
+	c.steps(o, n, "input", trace.Given,
+		func(s trace.Step) bool { return s.Clause == "input" && !newElse[givenValue(s)] },
+		func(s trace.Step) bool { return s.Clause == "input" && !oldElse[givenValue(s)] })
 }
 
 // choices adds a row for every value the design chose or took over from another design
@@ -146,12 +176,14 @@ func (c *Changes) inputs(o, n *resultsCase) {
 func (c *Changes) choices(o, n *resultsCase) {
 	prefix := n.Column + "/" + n.Lift + "/"
 	shown := map[string]bool{prefix + "bars/phi": true, prefix + "bars/count": true, prefix + "links/phi_t": true}
-	c.steps(o, n, "result", func(s trace.Step) bool { return trace.Chosen(s) && !shown[s.ID] }, func(trace.Step) bool { return true })
+	all := func(trace.Step) bool { return true }
+	c.steps(o, n, "result", func(s trace.Step) bool { return trace.Chosen(s) && !shown[s.ID] }, all, all)
 }
 
 // steps adds a row, labelled with kind, for every step of o and n that keep selects and whose
-// value or unit differs, or that only one of them holds and alone accepts, matched by step ID.
-func (c *Changes) steps(o, n *resultsCase, kind string, keep, alone func(trace.Step) bool) {
+// value or unit differs, or that only one of them holds and aloneOld (a step of o) or aloneNew
+// (a step of n) accepts, matched by step ID.
+func (c *Changes) steps(o, n *resultsCase, kind string, keep, aloneOld, aloneNew func(trace.Step) bool) {
 	prefix := n.Column + "/" + n.Lift + "/"
 	olds := map[string]trace.Step{}
 	for _, s := range o.Trace {
@@ -175,7 +207,7 @@ func (c *Changes) steps(o, n *resultsCase, kind string, keep, alone func(trace.S
 		p, ok := olds[s.ID]
 		switch {
 		case !ok:
-			if alone(s) {
+			if aloneNew(s) {
 				c.add(n, item(s), none, quantity(s.Value, s.Unit))
 			}
 		case !near(p.Value, s.Value) || p.Unit != s.Unit:
@@ -184,7 +216,7 @@ func (c *Changes) steps(o, n *resultsCase, kind string, keep, alone func(trace.S
 		}
 	}
 	for _, s := range o.Trace {
-		if keep(s) && !news[s.ID] && alone(s) {
+		if keep(s) && !news[s.ID] && aloneOld(s) {
 			c.add(n, item(s), quantity(s.Value, s.Unit), none)
 		}
 	}
