@@ -16,21 +16,19 @@ import (
 var CSVHeader = []string{"column", "storey", "b_mm", "h_mm", "NEd_kN", "MEd_y_kNm", "MRd_y_kNm",
 	"MEd_z_kNm", "MRd_z_kNm", "bars", "links", "utilization", "status", "governing"}
 
-// CSV returns a summary table with one row per design, numbers in display units.
+// CSV returns a summary table with one row per design, numbers in display units rounded as
+// on the sheets (fmtNum: 4 significant figures), so that a value reads the same in both.
 func CSV(r *design.Result) ([]byte, error) {
-	f := func(v float64, dec int) string {
-		s := strconv.FormatFloat(v, 'f', dec, 64)
-		if strings.Trim(s, "-0.") == "" {
-			s = strings.TrimPrefix(s, "-")
-		}
-		return s
+	f := func(v float64, engine string) string {
+		s, _ := DisplayUnit(engine)
+		return fmtNum(v * s).plain()
 	}
 	return table(r, CSVHeader, func(d design.Design) []string {
-		return []string{cell(d.Column), cell(d.Storey), f(d.B, 0), f(d.H, 0), f(d.NEd/1e3, 1),
-			f(d.Y.MEd/1e6, 1), f(d.Y.MRd/1e6, 1), f(d.Z.MEd/1e6, 1), f(d.Z.MRd/1e6, 1),
+		return []string{cell(d.Column), cell(d.Storey), f(d.B, "mm"), f(d.H, "mm"), f(d.NEd, "N"),
+			f(d.Y.MEd, "Nmm"), f(d.Y.MRd, "Nmm"), f(d.Z.MEd, "Nmm"), f(d.Z.MRd, "Nmm"),
 			fmt.Sprintf("%d x %s mm", d.Bars.Count, fmtNum(d.Bars.Dia).plain()),
 			fmt.Sprintf("%s mm @ %s mm", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain()),
-			f(d.Utilization, 3), d.Status, cell(d.Governing)}
+			f(d.Utilization, ""), d.Status, cell(d.Governing)}
 	})
 }
 

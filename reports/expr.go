@@ -11,17 +11,22 @@ import (
 type pieceKind int
 
 const (
-	pSym       pieceKind = iota // a display symbol such as "f_cd"
-	pText                       // an identifier left as written
-	pNum                        // a number, with an optional display unit
-	pOp                         // an operator or punctuation, canonical form
-	pFunc                       // a function name followed by "("
-	pSupOpen                    // start of an exponent
-	pSupClose                   // end of an exponent
-	pSqrtOpen                   // start of a square root's argument
-	pSqrtClose                  // end of a square root's argument
-	pAbsOpen                    // start of an absolute value
-	pAbsClose                   // end of an absolute value
+	pSym        pieceKind = iota // a display symbol such as "f_cd"
+	pText                        // an identifier left as written
+	pNum                         // a number, with an optional display unit
+	pOp                          // an operator or punctuation, canonical form
+	pFunc                        // a function name followed by "("
+	pSupOpen                     // start of an exponent
+	pSupClose                    // end of an exponent
+	pSqrtOpen                    // start of a square root's argument
+	pSqrtClose                   // end of a square root's argument
+	pAbsOpen                     // start of an absolute value
+	pAbsClose                    // end of an absolute value
+	pWord                        // words within a formula: "if", ", otherwise", "rounded down to a", "yes"
+	pFloorOpen                   // start of a rounding down to a whole number, ⌊
+	pFloorClose                  // end of it, ⌋
+	pCeilOpen                    // start of a rounding up to a whole number, ⌈
+	pCeilClose                   // end of it, ⌉
 )
 
 // piece is one element of a formula laid out for display.
@@ -44,6 +49,7 @@ const (
 	tNum
 	tOp
 	tStr
+	tWord // words put in by the layout (a ternary read out), never from the expression
 )
 
 var errExpr = errors.New("expression not understood")
@@ -135,12 +141,15 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 	if err != nil {
 		return nil, err
 	}
+	if toks, err = ternaries(toks); err != nil {
+		return nil, err
+	}
 	byName := make(map[string]trace.Arg, len(args))
 	for _, a := range args {
 		byName[a.Name] = a
 	}
 	type group struct {
-		kind     pieceKind // pOp for plain parentheses, pSqrtOpen, pAbsOpen
+		kind     pieceKind // pOp for plain parentheses, pSqrtOpen, pAbsOpen, pFloorOpen, pCeilOpen, pWord (rounddown)
 		drop     bool      // parentheses not shown (exponent group)
 		closeSup bool      // the group ends an exponent
 	}
@@ -163,7 +172,7 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		}
 		p := out[len(out)-1]
 		switch p.kind {
-		case pSym, pText, pNum, pSupClose, pSqrtClose, pAbsClose:
+		case pSym, pText, pNum, pSupClose, pSqrtClose, pAbsClose, pFloorClose, pCeilClose:
 			return true
 		case pOp:
 			return p.text == ")"
@@ -197,6 +206,16 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 				case "abs":
 					out = append(out, piece{kind: pAbsOpen})
 					stack = append(stack, group{kind: pAbsOpen, closeSup: opened})
+				case "floor":
+					out = append(out, piece{kind: pFloorOpen})
+					stack = append(stack, group{kind: pFloorOpen, closeSup: opened})
+				case "ceil":
+					out = append(out, piece{kind: pCeilOpen})
+					stack = append(stack, group{kind: pCeilOpen, closeSup: opened})
+				case "rounddown":
+					// rounddown(x, step): "x rounded down to a step of step", or with values
+					// "240 mm rounded down to a 25 mm step".
+					stack = append(stack, group{kind: pWord, closeSup: opened})
 				default:
 					out = append(out, piece{kind: pFunc, text: t.text})
 					stack = append(stack, group{kind: pOp, closeSup: opened})
@@ -206,12 +225,14 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 			opened := operandStart()
 			a, ok := byName[t.text]
 			switch {
+			case !ok && t.text == "pi":
+				out = append(out, piece{kind: pSym, text: "π"})
 			case !ok:
 				out = append(out, piece{kind: pText, text: t.text})
-			case !values:
+			case !values || a.Symbol == "π":
 				out = append(out, piece{kind: pSym, text: a.Symbol})
 			default:
-				n, u := quantity(a.Value, a.Unit)
+				n, u := quantityOf(a.Value, a.Unit, a.Symbol)
 				wrap := !opened && (strings.HasPrefix(n.m, "-") && afterOperator() || (u != "" || n.e != 0) && next() == "**")
 				if wrap {
 					out = append(out, piece{kind: pOp, text: "("})
@@ -224,6 +245,11 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 			if opened {
 				out = append(out, piece{kind: pSupClose})
 			}
+		case tWord:
+			if sup {
+				return nil, errExpr
+			}
+			out = append(out, piece{kind: pWord, text: t.text})
 		case tNum, tStr:
 			opened := operandStart()
 			if t.kind == tNum {
@@ -261,12 +287,33 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 					out = append(out, piece{kind: pSqrtClose})
 				case g.kind == pAbsOpen:
 					out = append(out, piece{kind: pAbsClose})
+				case g.kind == pFloorOpen:
+					out = append(out, piece{kind: pFloorClose})
+				case g.kind == pCeilOpen:
+					out = append(out, piece{kind: pCeilClose})
+				case g.kind == pWord:
+					if values {
+						out = append(out, piece{kind: pWord, text: "step"})
+					}
 				case !g.drop:
 					out = append(out, piece{kind: pOp, text: ")"})
 				}
 				if g.closeSup {
 					out = append(out, piece{kind: pSupClose})
 				}
+			case ",":
+				if len(stack) > 0 && stack[len(stack)-1].kind == pWord {
+					if sup {
+						return nil, errExpr
+					}
+					if values {
+						out = append(out, piece{kind: pWord, text: "rounded down to a"})
+					} else {
+						out = append(out, piece{kind: pWord, text: "rounded down to a step of"})
+					}
+					continue
+				}
+				fallthrough
 			default:
 				if sup {
 					return nil, errExpr // a signed exponent is shown as written
@@ -284,4 +331,162 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		return nil, errExpr
 	}
 	return out, nil
+}
+
+// ternaries reads out every "c ? a : b" of the tokens as "a if c, otherwise b", the way a hand
+// calculation states a case distinction. The ternary binds loosest in govaluate, so within a
+// group (the whole expression, a pair of parentheses or one argument of a function) everything
+// before its '?' is the condition; a ':' closes the innermost open '?'.
+func ternaries(ts []token) ([]token, error) {
+	isOp := func(t token, op string) bool { return t.kind == tOp && t.text == op }
+	// matching returns the index of the ')' that closes the '(' at i.
+	matching := func(ts []token, i int) (int, error) {
+		depth := 0
+		for j := i; j < len(ts); j++ {
+			switch {
+			case isOp(ts[j], "("):
+				depth++
+			case isOp(ts[j], ")"):
+				depth--
+				if depth == 0 {
+					return j, nil
+				}
+			}
+		}
+		return 0, errExpr
+	}
+	var segment func(ts []token) ([]token, error)
+	segment = func(ts []token) ([]token, error) {
+		// The first '?' outside parentheses, and the ':' that answers it.
+		q, c, nest := -1, -1, 0
+		for i := 0; i < len(ts) && c < 0; i++ {
+			switch {
+			case isOp(ts[i], "("):
+				j, err := matching(ts, i)
+				if err != nil {
+					return nil, err
+				}
+				i = j
+			case isOp(ts[i], "?"):
+				if q < 0 {
+					q = i
+				} else {
+					nest++
+				}
+			case isOp(ts[i], ":") && q >= 0:
+				if nest == 0 {
+					c = i
+				} else {
+					nest--
+				}
+			}
+		}
+		if q >= 0 {
+			if c < 0 || q == 0 || c == q+1 || c == len(ts)-1 {
+				return nil, errExpr
+			}
+			cond, err := segment(ts[:q])
+			if err != nil {
+				return nil, err
+			}
+			a, err := segment(ts[q+1 : c])
+			if err != nil {
+				return nil, err
+			}
+			b, err := segment(ts[c+1:])
+			if err != nil {
+				return nil, err
+			}
+			out := append(append([]token{}, a...), token{tWord, "if"})
+			out = append(append(out, cond...), token{tWord, ", otherwise"})
+			return append(out, b...), nil
+		}
+		// No ternary at this level: read out those within each parenthesised group, argument
+		// by argument.
+		var out []token
+		for i := 0; i < len(ts); i++ {
+			if !isOp(ts[i], "(") {
+				out = append(out, ts[i])
+				continue
+			}
+			j, err := matching(ts, i)
+			if err != nil {
+				return nil, err
+			}
+			out = append(out, ts[i])
+			start, depth := i+1, 0
+			for k := i + 1; k <= j; k++ {
+				switch {
+				case isOp(ts[k], "("):
+					depth++
+				case isOp(ts[k], ")") && depth > 0:
+					depth--
+				case depth == 0 && (isOp(ts[k], ",") || k == j):
+					part, err := segment(ts[start:k])
+					if err != nil {
+						return nil, err
+					}
+					out = append(append(out, part...), ts[k])
+					start = k + 1
+				}
+			}
+			i = j
+		}
+		return out, nil
+	}
+	return segment(ts)
+}
+
+// shown is a step's formula laid out for display.
+type shown struct {
+	Formula []piece // the formula by symbols, led by the result's symbol ("f_cd = α_cc·f_ck/γ_c"); nil when none is shown
+	Values  []piece // the formula with the arguments' values ("1·32 MPa/1.5"), ending "→ yes" for a condition; nil when none is shown
+	Result  []piece // the result: "f_cd = 21.33 MPa", "c_a = yes", or "not met" for a failed check without a ratio
+	Text    string  // the formula as written, where it could not be laid out (shown as text); "" otherwise
+}
+
+// showStep lays out the formula of step s for the sheets: its display form (Step.Show) where
+// the engine gave one, else its evaluation expression; input and table steps show no formula.
+// Values are shown in the display unit of each quantity (DisplayQuantity).
+func showStep(s trace.Step) shown {
+	var out shown
+	symbol := s.Symbol
+	if s.Kind == trace.KindCheck && symbol == "" {
+		symbol = "η"
+	}
+	lead := func() []piece {
+		if symbol == "" {
+			return nil
+		}
+		return []piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}}
+	}
+	expr, words := s.Expr, ""
+	if s.Show != nil {
+		expr, words = s.Show.Expr, s.Show.Result
+	}
+	switch {
+	case words != "" && s.Kind == trace.KindCheck:
+		out.Result = []piece{{kind: pWord, text: words}}
+	case words != "":
+		out.Result = append(lead(), piece{kind: pWord, text: words})
+	default:
+		n, u := quantityOf(s.Value, s.Unit, s.Symbol)
+		out.Result = append(lead(), piece{kind: pNum, n: n, unit: u})
+	}
+	if expr == "" || s.Kind == trace.KindInput || s.Kind == trace.KindTable {
+		return out
+	}
+	ps, err := layout(expr, s.Args, false)
+	if err != nil {
+		out.Text = expr
+		return out
+	}
+	out.Formula = append(lead(), ps...)
+	if vs, err := layout(expr, s.Args, true); err == nil {
+		if words != "" {
+			vs = append(vs, piece{kind: pOp, text: "→"}, piece{kind: pWord, text: words})
+		}
+		out.Values = vs
+	}
+	return out
 }

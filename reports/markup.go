@@ -157,6 +157,20 @@ func (m md) formula(ps []piece) string {
 	sup := 0
 	for _, p := range ps {
 		switch p.kind {
+		case pWord:
+			// Words stand apart from what is around them; ", otherwise" follows its clause.
+			if b.Len() > 0 && !strings.HasSuffix(b.String(), " ") && !strings.HasPrefix(p.text, ",") {
+				b.WriteString(" ")
+			}
+			b.WriteString(m.text(p.text) + " ")
+		case pFloorOpen:
+			b.WriteString("⌊")
+		case pFloorClose:
+			b.WriteString("⌋")
+		case pCeilOpen:
+			b.WriteString("⌈")
+		case pCeilClose:
+			b.WriteString("⌉")
 		case pSym:
 			b.WriteString(m.sym(p.text))
 		case pText:
@@ -177,6 +191,8 @@ func (m md) formula(ps []piece) string {
 				b.WriteString(op)
 			case p.text == ",":
 				b.WriteString(", ")
+			case strings.HasSuffix(b.String(), " "):
+				b.WriteString(op + " ")
 			default:
 				b.WriteString(" " + op + " ")
 			}
@@ -196,7 +212,7 @@ func (m md) formula(ps []piece) string {
 			b.WriteString("\\|")
 		}
 	}
-	return b.String()
+	return strings.TrimRight(b.String(), " ")
 }
 
 func itoa(i int) string {
@@ -237,6 +253,8 @@ var texMathRunes = map[rune]string{
 	'≤': `\leq`, '≥': `\geq`, '≠': `\neq`, '≈': `\approx`, '∞': `\infty`, '√': `\surd`,
 	'→': `\rightarrow`, '←': `\leftarrow`, '⇒': `\Rightarrow`, '∑': `\sum`, '∂': `\partial`,
 	'′': `'`, '°': `^{\circ}`, '²': `^{2}`, '³': `^{3}`, '¹': `^{1}`, '⁴': `^{4}`,
+	'⁰': `^{0}`, '⁵': `^{5}`, '⁶': `^{6}`, '⁷': `^{7}`, '⁸': `^{8}`, '⁹': `^{9}`,
+	'⌊': `\lfloor`, '⌋': `\rfloor`, '⌈': `\lceil`, '⌉': `\rceil`,
 	'‰': `\text{\textperthousand}`, 'µ': `\mu`, 'Ø': `\text{\O}`, 'ø': `\text{\o}`, '∅': `\emptyset`,
 	'∈': `\in`, '∣': `\mid`, '‖': `\|`, '…': `\dots`, '⁻': `^{-}`,
 }
@@ -249,7 +267,9 @@ var texTextRunes = map[rune]string{
 	'`': `\textasciigrave{}`, '\'': `\textquotesingle{}`, '–': `--`, '—': `---`, '‘': "`", '’': `'`,
 	'“': "``", '”': `''`, '„': `\quotedblbase{}`, '•': `\textbullet{}`, '€': `\texteuro{}`,
 	'²': `\textsuperscript{2}`, '³': `\textsuperscript{3}`, '¹': `\textsuperscript{1}`,
-	'⁴': `\textsuperscript{4}`, '‰': `\textperthousand{}`, '°': `\textdegree{}`, '…': `\dots{}`,
+	'⁴': `\textsuperscript{4}`, '⁰': `\textsuperscript{0}`, '⁵': `\textsuperscript{5}`,
+	'⁶': `\textsuperscript{6}`, '⁷': `\textsuperscript{7}`, '⁸': `\textsuperscript{8}`, '⁹': `\textsuperscript{9}`,
+	'‰': `\textperthousand{}`, '°': `\textdegree{}`, '…': `\dots{}`,
 	'\u00a0': `~`, '\u2009': `\,`, '\u202f': `\,`, '\u00ad': `\-`,
 }
 
@@ -318,6 +338,9 @@ func (tex) mathText(s string) string {
 			b.WriteString(`\text{\textquotedbl}`)
 		case r == '`':
 			b.WriteString(`\text{\textasciigrave}`)
+		case r >= 0x80 && texTextRunes[r] != "":
+			// A character that text mode spells out, such as the en dash of "A1–B1".
+			b.WriteString(`\text{` + texTextRunes[r] + `}`)
 		case texLatin(r):
 			b.WriteString(`\text{` + string(r) + `}`)
 		default:
@@ -344,7 +367,8 @@ func (tex) mathNum(n num) string {
 	return n.m + `\times 10^{` + itoa(n.e) + "}"
 }
 
-// mathUnit lays a display unit out upright in math mode, with superscript digits raised.
+// mathUnit lays a display unit out upright in math mode, with superscript digits raised and
+// a thin space for each space ("× 10⁶ mm⁴" as ×\,10⁶\,mm⁴).
 func (t tex) mathUnit(u string) string {
 	var b strings.Builder
 	b.WriteString(`\,`)
@@ -357,9 +381,15 @@ func (t tex) mathUnit(u string) string {
 	}
 	for _, r := range u {
 		switch r {
-		case '²', '³', '¹', '⁴', '°':
+		case '²', '³', '¹', '⁴', '⁰', '⁵', '⁶', '⁷', '⁸', '⁹', '°':
 			flush()
 			b.WriteString(texMathRunes[r])
+		case '×':
+			flush()
+			b.WriteString(`\times`)
+		case ' ':
+			flush()
+			b.WriteString(`\,`)
 		default:
 			word.WriteRune(r)
 		}
@@ -405,6 +435,20 @@ func (t tex) formula(ps []piece) string {
 	prev := pieceKind(-1)
 	for _, p := range ps {
 		switch p.kind {
+		case pWord:
+			if strings.HasPrefix(p.text, ",") {
+				b.WriteString(`\text{` + t.text(p.text) + `}\ `)
+			} else {
+				b.WriteString(`\ \text{` + t.text(p.text) + `}\ `)
+			}
+		case pFloorOpen:
+			b.WriteString(`\lfloor `)
+		case pFloorClose:
+			b.WriteString(`\rfloor `)
+		case pCeilOpen:
+			b.WriteString(`\lceil `)
+		case pCeilClose:
+			b.WriteString(`\rceil `)
 		case pSym:
 			b.WriteString(t.mathSym(p.text))
 		case pText:
@@ -428,14 +472,10 @@ func (t tex) formula(ps []piece) string {
 				} else {
 					b.WriteString("-")
 				}
-			case "≤", "≥", "≠":
+			case "≤", "≥", "≠", "→":
 				b.WriteString(texMathRunes[[]rune(p.text)[0]] + " ")
-			case "and":
-				b.WriteString(`\wedge `)
-			case "or":
-				b.WriteString(`\vee `)
-			case "not":
-				b.WriteString(`\neg `)
+			case "and", "or", "not":
+				b.WriteString(`\ \text{` + p.text + `}\ `)
 			case ",":
 				b.WriteString(`,\ `)
 			default:

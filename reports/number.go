@@ -25,8 +25,10 @@ func (n num) plain() string {
 }
 
 // fmtNum formats v with 4 significant figures, trailing zeros trimmed, without an exponent
-// for magnitudes from 1e-4 up to 1e12 (values of 1000 and above are shown as whole numbers).
-// Non-finite values, which the engine never records, are shown as "?".
+// for magnitudes from 1e-4 up to 1e12: values of 1000 and above are shown as whole numbers,
+// rounded to 4 significant figures from 10000 on (123456.7 as 123500), the significance of a
+// hand calculation; results.json keeps every digit. Non-finite values, which the engine never
+// records, are shown as "?".
 func fmtNum(v float64) num {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return num{m: "?"}
@@ -38,7 +40,11 @@ func fmtNum(v float64) num {
 	if a >= 1e-4 && a < 1e12 {
 		var s string
 		if a >= 1000 {
-			s = strconv.FormatFloat(v, 'f', 0, 64)
+			p := math.Pow(10, math.Floor(math.Log10(a))-(sigFigs-1))
+			if p < 1 {
+				p = 1
+			}
+			s = strconv.FormatFloat(math.Round(v/p)*p, 'f', 0, 64)
 		} else {
 			dec := sigFigs - 1 - int(math.Floor(math.Log10(a)))
 			if dec < 0 {
@@ -67,7 +73,9 @@ func trimZeros(s string) string {
 
 // DisplayUnit maps an engine unit to the unit shown on the sheets and the factor that
 // converts a value in the engine unit to it: "N" to kN (×1e-3), "Nmm" to kNm (×1e-6),
-// "mm2" to mm², "N/mm" to kN/m (same number), "N/mm2" to kN/m² (×1e3); others are shown as is.
+// "mm2" to mm², "mm4" to ×10⁶ mm⁴ (×1e-6), "N/mm" to kN/m (same number), "N/mm2" to kN/m²
+// (×1e3), "N/mm3" to kN/m³ (×1e6); others are shown as is. A quantity whose unit depends on
+// what it measures (a floor area) is mapped by DisplayQuantity.
 func DisplayUnit(engine string) (scale float64, unit string) {
 	switch engine {
 	case "N":
@@ -79,7 +87,7 @@ func DisplayUnit(engine string) (scale float64, unit string) {
 	case "mm3":
 		return 1, "mm³"
 	case "mm4":
-		return 1, "mm⁴"
+		return 1e-6, "× 10⁶ mm⁴"
 	case "N/mm":
 		return 1, "kN/m"
 	case "N/mm2":
@@ -96,8 +104,39 @@ func DisplayUnit(engine string) (scale float64, unit string) {
 	return 1, engine
 }
 
+// DisplayQuantity maps the engine unit of the quantity called symbol to the unit shown on the
+// sheets, as DisplayUnit, except that floor areas (the symbols A_slab…, the tributary area A
+// and the reference area A_0 of EN 1991-1-1 6.3.1.2(10)) are shown in m² (×1e-6), where the
+// areas of bars and sections stay in mm².
+func DisplayQuantity(symbol, engine string) (scale float64, unit string) {
+	if engine == "mm2" && floorArea(symbol) {
+		return 1e-6, "m²"
+	}
+	return DisplayUnit(engine)
+}
+
+// floorArea reports whether a symbol names an area of floor: A, A_0 or A_slab with any
+// further subscript ("A_slab,A1–B1").
+func floorArea(symbol string) bool {
+	switch base, sub := splitSymbol(symbol); {
+	case base != "A":
+		return false
+	case sub == "" || sub == "0":
+		return true
+	default:
+		return sub == "slab" || strings.HasPrefix(sub, "slab,")
+	}
+}
+
 // quantity returns v in engine unit u converted for display, with the display unit.
 func quantity(v float64, u string) (num, string) {
 	s, du := DisplayUnit(u)
+	return fmtNum(v * s), du
+}
+
+// quantityOf returns v, the value of the quantity called symbol in engine unit u, converted
+// for display (DisplayQuantity), with the display unit.
+func quantityOf(v float64, u, symbol string) (num, string) {
+	s, du := DisplayQuantity(symbol, u)
 	return fmtNum(v * s), du
 }
