@@ -6,6 +6,7 @@ import (
 
 	"colsheet/calc/design"
 	"colsheet/calc/model"
+	"colsheet/calc/trace"
 	"colsheet/templates"
 )
 
@@ -19,15 +20,32 @@ type docView struct {
 	Tables    []tableView // the input as read, with units
 	Listing   []string    // the input file's lines, marked up
 	Fence     string      // Markdown: a code fence longer than any run of '~' in the listing
-	Sections  []sheetView // one per design
-	Failing   []noteRow   // failing designs and their reasons
-	Warnings  []noteRow   // designs with cautions
+	Groups    []groupSection // the column groups, each with its governing lift in full
+	Failing   []noteRow      // failing designs and their reasons
+	Warnings  []noteRow      // designs with cautions
 }
 
-// contentRow is one design's line in the contents; Column and Storey are linked to its section.
+// groupSection is one column group of the calc document: its heading, a row per lift and the
+// sheet of its governing lift.
+type groupSection struct {
+	Anchor, Target string // the group's link target, marked up, and the link to it
+	Title          string // "Group 3: 450 × 450, 8 Ø20, links Ø8 @ 300; 23 lifts"
+	Name           string // "Group 3"
+	Governing      string // the governing lift, "B2/L1"
+	Rows           []groupRow
+	Sheet          sheetView // the governing lift
+}
+
+// groupRow is one lift of a group: its values and a link to its own sheet.
+type groupRow struct {
+	Lift, NEd, MEdY, MEdZ, MRdY, MRdZ, Utilization, Governing, Status string
+	Failed                                                          bool
+}
+
+// contentRow is one group's line in the contents, linked to its section.
 type contentRow struct {
-	Target, Column, Storey, Section, Utilization, Status string
-	Failed                                               bool
+	Group, Section, Bars, Lifts, Governing, Utilization, Status string
+	Failed                                                     bool
 }
 
 // tableView is a table of the input as read: a title, the column heads and the rows, all marked up.
@@ -44,7 +62,8 @@ type noteRow struct {
 	Items           []string
 }
 
-// document builds the view of the calc document for markup m.
+// document builds the view of the calc document for markup m: the lifts in their column
+// groups, each group's governing lift in full and the others as a row each.
 func document(m markup, r *design.Result, b *book, p place) docView {
 	in := input(r)
 	idx := index(m, r, func(name string) string { return "#" + anchorName("d-", name) })
@@ -55,16 +74,62 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 	if idx.AnyFail {
 		v.Status = "FAIL"
 	}
+	gs := columnGroups(r)
+	// The document prints the steps of each governing lift (brief or full) and links only to those.
+	printed := map[string]bool{}
+	for _, g := range gs {
+		i := g.governing
+		for k, s := range b.traces[i] {
+			if p.opt.full() || briefStep(r.Designs[i].Steps[k]) {
+				printed[s.ID] = true
+			}
+		}
+	}
+	p.printed = func(id string, _ trace.Step) bool { return printed[id] }
+	governing := map[int]bool{}
+	for _, g := range gs {
+		governing[g.governing] = true
+	}
+	for n, g := range gs {
+		gov := r.Designs[g.governing]
+		target := "#" + anchorName("g-", itoa(n+1))
+		sec := groupSection{Anchor: m.anchor(anchorName("g-", itoa(n+1))), Target: target, Name: m.text(g.name(n)), Title: m.text(g.title(n)),
+			Governing: m.text(gov.Column + "/" + gov.Storey)}
+		worst := design.StatusPass
+		for _, i := range g.lifts {
+			d := r.Designs[i]
+			rs, rf := status(d.Status)
+			if rf {
+				worst = d.Status
+			}
+			label := m.text(d.Column + "/" + d.Storey)
+			if p.file != nil {
+				label = m.link(label, p.file(b.names[i]))
+			}
+			if i == g.governing {
+				label = m.link(m.text(d.Column+"/"+d.Storey), "#"+anchorName("d-", b.names[i]))
+			}
+			sec.Rows = append(sec.Rows, groupRow{Lift: label, NEd: m.num(fmtNum(d.NEd / 1e3)), MEdY: m.num(fmtNum(d.Y.MEd / 1e6)), MEdZ: m.num(fmtNum(d.Z.MEd / 1e6)),
+				MRdY: m.num(fmtNum(d.Y.MRd / 1e6)), MRdZ: m.num(fmtNum(d.Z.MRd / 1e6)), Utilization: m.num(fmtNum(d.Utilization)),
+				Governing: dash(m, d.Governing), Status: rs, Failed: rf})
+		}
+		s := sheet(m, b, g.governing, p)
+		s.H, s.Sec1, s.Sec2 = "##", "subsubsection*", "paragraph*"
+		s.Anchor = m.anchor(anchorName("d-", b.names[g.governing]))
+		sec.Sheet = s
+		v.Groups = append(v.Groups, sec)
+		gst, gfailed := status(worst)
+		v.Contents = append(v.Contents, contentRow{Group: m.link(m.text(g.name(n)), target), Section: m.text(g.section()), Bars: m.text(g.cage()),
+			Lifts: m.text(itoa(len(g.lifts))), Governing: m.link(m.text(gov.Column+"/"+gov.Storey), "#"+anchorName("d-", b.names[g.governing])),
+			Utilization: m.num(fmtNum(gov.Utilization)), Status: gst, Failed: gfailed})
+	}
 	for i, d := range r.Designs {
+		_, failed := status(d.Status)
+		// A lift that is not its group's governing one is named by its group.
 		target := "#" + anchorName("d-", b.names[i])
-		st, failed := status(d.Status)
-		v.Contents = append(v.Contents, contentRow{Target: target, Column: m.link(m.text(d.Column), target), Storey: m.link(m.text(d.Storey), target),
-			Section: m.text(fmtNum(d.B).plain() + " × " + fmtNum(d.H).plain()), Utilization: m.num(fmtNum(d.Utilization)),
-			Status: st, Failed: failed})
-		s := sheet(m, b, i, p)
-		s.H, s.Sec1, s.Sec2 = "#", "subsection*", "subsubsection*"
-		s.Anchor = m.anchor(anchorName("d-", b.names[i]))
-		v.Sections = append(v.Sections, s)
+		if !governing[i] {
+			target = "#" + anchorName("g-", itoa(groupOf(gs, i)+1))
+		}
 		if failed {
 			v.Failing = append(v.Failing, noteRow{Target: target, Subject: m.link(m.text(subject(d)), target), Items: texts(m, d.Reasons)})
 		}
@@ -214,25 +279,30 @@ func docParts(m markup, r *design.Result, delims [2]string, common, docT string,
 	return execute(t, docT, document(m, r, newBook(r), p))
 }
 
-// DocumentMarkdown returns the calc document, every design in one Markdown file (calc.md).
-func DocumentMarkdown(r *design.Result) (Sheet, error) {
-	b, err := docParts(md{}, r, [2]string{"{{", "}}"}, "md/common.md.tmpl", "md/doc.md.tmpl", place{onePage: true})
+// DocumentMarkdown returns the calc document, every column group in one Markdown file (calc.md);
+// the lifts that a group's calculation covers link to their own sheets in ../md/.
+func DocumentMarkdown(r *design.Result, o Options) (Sheet, error) {
+	b, err := docParts(md{}, r, [2]string{"{{", "}}"}, "md/common.md.tmpl", "md/doc.md.tmpl",
+		place{onePage: true, opt: o, file: func(name string) string { return sheetDir + name + ".md" }})
 	return Sheet{Name: "calc.md", Data: b}, err
 }
 
+// sheetDir is where the calc document finds the per-lift Markdown sheets.
+const sheetDir = "../md/"
+
 // DocumentLaTeX returns the calc document as one pdflatex document (calc.tex) with a table of
 // contents and hyperlinks from every step to the steps it uses.
-func DocumentLaTeX(r *design.Result) (Sheet, error) {
-	b, err := docParts(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/doc.tex.tmpl", place{onePage: true})
+func DocumentLaTeX(r *design.Result, o Options) (Sheet, error) {
+	b, err := docParts(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/doc.tex.tmpl", place{onePage: true, opt: o})
 	return Sheet{Name: "calc.tex", Data: b}, err
 }
 
 // Documents returns the calc document in each format asked for (md, tex, html), keyed by the
 // format; the Markdown is rendered once and serves the HTML too.
-func Documents(r *design.Result, formats map[string]bool) (map[string]Sheet, error) {
+func Documents(r *design.Result, formats map[string]bool, o Options) (map[string]Sheet, error) {
 	out := map[string]Sheet{}
 	if formats["md"] || formats["html"] {
-		doc, err := DocumentMarkdown(r)
+		doc, err := DocumentMarkdown(r, o)
 		if err != nil {
 			return nil, fmt.Errorf("md: %v", err)
 		}
@@ -246,7 +316,7 @@ func Documents(r *design.Result, formats map[string]bool) (map[string]Sheet, err
 		}
 	}
 	if formats["tex"] {
-		doc, err := DocumentLaTeX(r)
+		doc, err := DocumentLaTeX(r, o)
 		if err != nil {
 			return nil, fmt.Errorf("tex: %v", err)
 		}

@@ -49,6 +49,12 @@ func (verdictClasses) Transform(doc *ast.Document, reader text.Reader, _ parser.
 			if w := strongWord(n, src); w != "" {
 				n.SetAttributeString("class", []byte(strings.ToLower(w)))
 			}
+		case ast.KindLink:
+			// The calc document's links to the per-lift Markdown sheets lead to their HTML pages.
+			l := n.(*ast.Link)
+			if d := string(l.Destination); strings.HasPrefix(d, sheetDir) && strings.HasSuffix(d, ".md") {
+				l.Destination = []byte("../html/" + strings.TrimSuffix(strings.TrimPrefix(d, sheetDir), ".md") + ".html")
+			}
 		case ast.KindBlockquote:
 			if p := n.FirstChild(); p != nil && p.Kind() == ast.KindParagraph && strongWord(p.FirstChild(), src) == "FAIL" {
 				n.SetAttributeString("class", []byte("fail"))
@@ -78,19 +84,15 @@ type htmlPage struct {
 	Sheets      []htmlSheet
 }
 
-// HTML returns the calc sheets as self-contained HTML pages rendered from the Markdown:
-// index.html first, then one page per design, then all.html holding every sheet with a page
-// break between sheets when printed.
-func HTML(r *design.Result) ([]Sheet, error) {
+// HTML returns the calc sheets as self-contained HTML pages rendered from the Markdown, each
+// converted once: index.html first, then one page per design. The calc document (calc.html)
+// holds the whole package in one page.
+func HTML(r *design.Result, o Options) ([]Sheet, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
 	}
 	pageOf := func(name string) string { return name + ".html" }
-	single, err := markdown(r, pageOf, place{file: pageOf})
-	if err != nil {
-		return nil, err
-	}
-	whole, err := markdown(r, func(name string) string { return "#" + name }, place{onePage: true})
+	single, err := markdown(r, pageOf, place{file: pageOf, opt: o, fold: o.full()})
 	if err != nil {
 		return nil, err
 	}
@@ -113,8 +115,7 @@ func HTML(r *design.Result) ([]Sheet, error) {
 	}
 	failed := func(i int) bool { return i > 0 && r.Designs[i-1].Status != design.StatusPass }
 	id := func(name string) string { return strings.TrimSuffix(name, ".md") }
-	out := make([]Sheet, 0, len(single)+1)
-	all := htmlPage{Title: oneLine(strings.TrimSpace(project + " calculation sheets")), Tool: tool}
+	out := make([]Sheet, 0, len(single))
 	for i := range single {
 		body, err := toHTML(single[i].Data)
 		if err != nil {
@@ -126,17 +127,8 @@ func HTML(r *design.Result) ([]Sheet, error) {
 			return nil, err
 		}
 		out = append(out, Sheet{Name: id(single[i].Name) + ".html", Data: page})
-		wbody, err := toHTML(whole[i].Data)
-		if err != nil {
-			return nil, err
-		}
-		all.Sheets = append(all.Sheets, htmlSheet{ID: id(whole[i].Name), Failed: failed(i), Body: wbody})
 	}
-	page, err := execPage(t, all)
-	if err != nil {
-		return nil, err
-	}
-	return append(out, Sheet{Name: "all.html", Data: page}), nil
+	return out, nil
 }
 
 func toHTML(mdText []byte) (template.HTML, error) {
@@ -157,8 +149,8 @@ func execPage(t *template.Template, p htmlPage) ([]byte, error) {
 
 // DocumentHTML returns the calc document as one self-contained HTML page (calc.html),
 // rendered from the Markdown document.
-func DocumentHTML(r *design.Result) (Sheet, error) {
-	doc, err := DocumentMarkdown(r)
+func DocumentHTML(r *design.Result, o Options) (Sheet, error) {
+	doc, err := DocumentMarkdown(r, o)
 	if err != nil {
 		return Sheet{}, err
 	}

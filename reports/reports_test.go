@@ -142,14 +142,27 @@ func golden(t *testing.T, name string, got []byte) {
 
 func TestGolden(t *testing.T) {
 	r := sample(t, "Riverside Offices")
+	type maker func(*design.Result, Options) ([]Sheet, error)
+	doc := func(r *design.Result, o Options) ([]Sheet, error) {
+		var out []Sheet
+		for _, f := range []func(*design.Result, Options) (Sheet, error){DocumentMarkdown, DocumentLaTeX, DocumentHTML} {
+			s, err := f(r, o)
+			if err != nil {
+				return nil, err
+			}
+			out = append(out, s)
+		}
+		return out, nil
+	}
 	tests := []struct {
 		dir  string
-		make func(*design.Result) ([]Sheet, error)
+		make maker
+		opt  Options
 	}{
-		{"md", Markdown},
-		{"tex", LaTeX},
-		{"html", HTML},
-		{"data", func(r *design.Result) ([]Sheet, error) {
+		{"md", Markdown, Options{}},
+		{"tex", LaTeX, Options{}},
+		{"html", HTML, Options{}},
+		{"data", func(r *design.Result, _ Options) ([]Sheet, error) {
 			j, err := JSON(r)
 			if err != nil {
 				return nil, err
@@ -159,22 +172,16 @@ func TestGolden(t *testing.T) {
 				return nil, err
 			}
 			return []Sheet{{"results.json", j}, {"summary.csv", c}}, nil
-		}},
-		{"doc", func(r *design.Result) ([]Sheet, error) {
-			var out []Sheet
-			for _, f := range []func(*design.Result) (Sheet, error){DocumentMarkdown, DocumentLaTeX, DocumentHTML} {
-				s, err := f(r)
-				if err != nil {
-					return nil, err
-				}
-				out = append(out, s)
-			}
-			return out, nil
-		}},
+		}, Options{}},
+		{"doc", doc, Options{}},
+		// Every step, in HTML with the sub-steps folded.
+		{"full/md", Markdown, Options{Detail: Full}},
+		{"full/html", HTML, Options{Detail: Full}},
+		{"full/doc", doc, Options{Detail: Full}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.dir, func(t *testing.T) {
-			sheets, err := tc.make(r)
+			sheets, err := tc.make(r, tc.opt)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -191,15 +198,15 @@ func TestNames(t *testing.T) {
 	r.Designs[2].Column = "../../etc"
 	r.Designs[3].Column = "k1" // differs from K1 only in case
 	tests := []struct {
-		make func(*design.Result) ([]Sheet, error)
+		make func(*design.Result, Options) ([]Sheet, error)
 		want []string
 	}{
 		{Markdown, []string{"index.md", "K1-L1.md", "K2_A-L1.md", "______etc-L1.md", "k1-L1-2.md", "K1-L1-3.md"}},
 		{LaTeX, []string{"index.tex", "K1-L1.tex", "K2_A-L1.tex", "______etc-L1.tex", "k1-L1-2.tex", "K1-L1-3.tex"}},
-		{HTML, []string{"index.html", "K1-L1.html", "K2_A-L1.html", "______etc-L1.html", "k1-L1-2.html", "K1-L1-3.html", "all.html"}},
+		{HTML, []string{"index.html", "K1-L1.html", "K2_A-L1.html", "______etc-L1.html", "k1-L1-2.html", "K1-L1-3.html"}},
 	}
 	for _, tc := range tests {
-		sheets, err := tc.make(r)
+		sheets, err := tc.make(r, Options{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -224,7 +231,7 @@ func TestEscaping(t *testing.T) {
 	r.Designs[0].Governing = nasty
 	tests := []struct {
 		name   string
-		make   func(*design.Result) ([]Sheet, error)
+		make   func(*design.Result, Options) ([]Sheet, error)
 		want   []string // must appear
 		refuse []string // must not appear
 	}{
@@ -240,7 +247,7 @@ func TestEscaping(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
-			sheets, err := tc.make(r)
+			sheets, err := tc.make(r, Options{})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -343,9 +350,9 @@ func TestNonFinite(t *testing.T) {
 	}
 	makers := map[string]func(*design.Result) ([]byte, error){
 		"JSON": JSON, "CSV": CSV,
-		"Markdown": func(r *design.Result) ([]byte, error) { _, err := Markdown(r); return nil, err },
-		"LaTeX":    func(r *design.Result) ([]byte, error) { _, err := LaTeX(r); return nil, err },
-		"HTML":     func(r *design.Result) ([]byte, error) { _, err := HTML(r); return nil, err },
+		"Markdown": func(r *design.Result) ([]byte, error) { _, err := Markdown(r, Options{}); return nil, err },
+		"LaTeX":    func(r *design.Result) ([]byte, error) { _, err := LaTeX(r, Options{}); return nil, err },
+		"HTML":     func(r *design.Result) ([]byte, error) { _, err := HTML(r, Options{}); return nil, err },
 	}
 	for _, tc := range tests {
 		for name, f := range makers {
@@ -456,7 +463,7 @@ func TestSymbols(t *testing.T) {
 // TestHTMLWellFormed parses every page as XML (the pages are written as XHTML-compatible
 // HTML), which catches unbalanced or unclosed elements.
 func TestHTMLWellFormed(t *testing.T) {
-	sheets, err := HTML(sample(t, nasty))
+	sheets, err := HTML(sample(t, nasty), Options{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -491,9 +498,6 @@ func TestHTMLWellFormed(t *testing.T) {
 			t.Errorf("%s: unclosed %v", s.Name, stack)
 		}
 		want := 1
-		if s.Name == "all.html" {
-			want = 3
-		}
 		if sections != want {
 			t.Errorf("%s: %d sheets, want %d", s.Name, sections, want)
 		}
@@ -513,7 +517,7 @@ func TestLaTeXCompiles(t *testing.T) {
 	}
 	r := sample(t, nasty+" αβγ ≤ ≥ ² ‰ √ × · é ü ñ Ø 中")
 	r.Designs[0].Column = "K1_a&b"
-	sheets, err := LaTeX(r)
+	sheets, err := LaTeX(r, Options{})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -63,6 +63,7 @@ type stepView struct {
 	Formula  string // the expression in symbols, with the result symbol: "f_cd = α_cc · f_ck / γ_c"
 	Values   string // the expression with the values: "1 · 32 MPa / 1.5"
 	Result   string // "f_cd = 21.33 MPa"
+	Value    string // the result without its symbol: "21.33 MPa"
 	Row      string
 	Method   string
 	Verify   string // verification expression in symbols
@@ -73,6 +74,10 @@ type stepView struct {
 	Uses     string // the steps whose results this step uses, linked: "steps 3, 5" or "B2/L2 step 57"
 	Notes    []string
 	Cautions []string
+	// Folding of the sub-steps in full detail for HTML: the first step of a folded run opens it
+	// (FoldOpen, with the run's length in FoldCount), the last closes it.
+	FoldOpen, FoldClose bool
+	FoldCount           int
 }
 
 // figureView is one drawn diagram with its caption, both marked up.
@@ -82,6 +87,9 @@ type groupView struct {
 	Title string
 	Steps []stepView
 }
+
+// A run of sub-steps is folded in HTML: FoldOpen marks its first step, FoldClose its last,
+// Folded the count.
 
 // sizeRow is one line of the section-size finder's table.
 type sizeRow struct {
@@ -128,6 +136,8 @@ type sheetView struct {
 	Axes           []axisRow
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
 	Groups         []groupView
+	Brief          bool       // the steps one line each (the chain); else every step in full
+	Margin         []stepView // brief: the checks that hold with a wide margin, listed in one table
 
 	// index only
 	Designs  []designRow
@@ -374,7 +384,8 @@ func sheet(m markup, b *book, i int, p place) sheetView {
 	for _, g := range diagrams(d) {
 		v.Diagrams = append(v.Diagrams, figureView{Body: m.picture(g), Caption: m.text(g.Caption())})
 	}
-	v.Groups = groups(m, b, i, p)
+	v.Brief = !p.opt.full()
+	v.Groups, v.Margin = groups(m, b, i, p)
 	return v
 }
 
@@ -403,10 +414,23 @@ func newBook(r *design.Result) *book {
 	return b
 }
 
-// place says how one rendering links steps on other sheets.
+// place says how one rendering links steps on other sheets and which steps it prints.
 type place struct {
 	onePage bool                     // every design in one document: anchors link directly
 	file    func(name string) string // the file of another design's sheet; nil when files are not linked
+	opt     Options                  // brief or full
+	fold    bool                     // full detail with the sub-steps folded (HTML)
+	// printed reports whether the rendering prints the step of the given full ID (s is the
+	// step with its own ID); nil: as the detail says.
+	printed func(id string, s trace.Step) bool
+}
+
+// shows reports whether the rendering prints step s (its own ID) whose full ID is id.
+func (p place) shows(id string, s trace.Step) bool {
+	if p.printed != nil {
+		return p.printed(id, s)
+	}
+	return p.opt.full() || briefStep(s)
 }
 
 // target returns the link to step id (at w) from the sheet of design from, or "" for none.
@@ -423,11 +447,18 @@ func (b *book) target(p place, from int, w where, id string) string {
 
 // groups gathers the steps of design i under their Step.Group, groups in order of first
 // appearance; each step keeps its number in the trace.
-func groups(m markup, b *book, i int, p place) []groupView {
+func groups(m markup, b *book, i int, p place) ([]groupView, []stepView) {
 	steps := b.traces[i]
+	own := b.r.Designs[i].Steps
 	var out []groupView
+	var margin []stepView
 	at := map[string]int{}
+	var sub []bool // per group: whether its last step is a folded sub-step
 	for k, s := range steps {
+		shown := p.shows(s.ID, own[k])
+		if !shown && !p.fold {
+			continue
+		}
 		g := s.Group
 		if strings.TrimSpace(g) == "" {
 			g = "Further steps"
@@ -437,14 +468,66 @@ func groups(m markup, b *book, i int, p place) []groupView {
 			n = len(out)
 			at[g] = n
 			out = append(out, groupView{Title: m.rich(g)})
+			sub = append(sub, false)
 		}
-		out[n].Steps = append(out[n].Steps, step(m, s, k+1, b, i, p))
+		v := step(m, s, k+1, b, i, p)
+		if wideMargin(s) && !p.opt.full() {
+			margin = append(margin, v)
+			continue
+		}
+		folded := p.fold && !briefStep(own[k])
+		steps := out[n].Steps
+		switch {
+		case folded && !sub[n]:
+			v.FoldOpen = true
+		case !folded && sub[n]:
+			steps[len(steps)-1].FoldClose = true
+		}
+		sub[n] = folded
+		out[n].Steps = append(steps, v)
 	}
-	return out
+	for n := range out {
+		if sub[n] {
+			out[n].Steps[len(out[n].Steps)-1].FoldClose = true
+		}
+		// The count of each folded run, for its summary line.
+		open := -1
+		for k := range out[n].Steps {
+			st := &out[n].Steps[k]
+			if st.FoldOpen {
+				open = k
+			}
+			if st.FoldClose && open >= 0 {
+				out[n].Steps[open].FoldCount = k - open + 1
+				open = -1
+			}
+		}
+	}
+	// A group whose steps all went to the table of wide margins is not printed.
+	kept := out[:0]
+	for _, g := range out {
+		if len(g.Steps) > 0 {
+			kept = append(kept, g)
+		}
+	}
+	return kept, margin
+}
+
+// marginRatio is the utilisation up to which a brief sheet lists a passing check in the table
+// of checks with a wide margin instead of in its group.
+const marginRatio = 0.5
+
+// wideMargin reports whether s is a check that holds with a wide margin.
+func wideMargin(s trace.Step) bool {
+	return s.Kind == trace.KindCheck && s.Verdict == trace.Pass && len(s.Args) > 0 && s.Value <= marginRatio
 }
 
 func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
-	v := stepView{Number: n, Anchor: m.anchor(anchorName("s-", s.ID)), ID: m.text(s.ID), Title: m.rich(upperFirst(s.Title)), Clause: dash(m, s.Clause),
+	clause := s.Clause
+	if !p.opt.full() {
+		clause = shortClause(clause)
+	}
+	v := stepView{Number: n, Anchor: m.anchor(anchorName("s-", s.ID)), ID: m.text(s.ID), Title: m.rich(upperFirst(s.Title)), Clause: dash(m, clause),
 		Kind: m.text(string(s.Kind)), Type: string(s.Kind), Notes: texts(m, s.Notes), Cautions: texts(m, s.Cautions)}
 	symbol := s.Symbol
 	if s.Kind == trace.KindCheck && symbol == "" {
@@ -457,6 +540,7 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 	val, unit := quantity(s.Value, s.Unit)
 	res = append(res, piece{kind: pNum, n: val, unit: unit})
 	v.Result = m.formula(res)
+	v.Value = m.formula([]piece{{kind: pNum, n: val, unit: unit}})
 	expr := func(e string, values bool) string {
 		ps, err := layout(e, s.Args, values)
 		if err != nil {
@@ -511,6 +595,10 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 	for _, a := range s.Args {
 		w, ok := b.at[a.From]
 		if a.From == "" || !ok || seen[w] || w.design == from && w.number == n {
+			continue
+		}
+		// A step the rendering does not print is not linked (its value stands in the formula).
+		if !p.shows(a.From, b.r.Designs[w.design].Steps[w.number-1]) && !p.fold {
 			continue
 		}
 		seen[w], ids[w] = true, a.From
@@ -601,9 +689,9 @@ func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT
 }
 
 // Markdown returns the calc sheets in CommonMark with GFM tables: index.md first, then one sheet per design.
-func Markdown(r *design.Result) ([]Sheet, error) {
+func Markdown(r *design.Result, o Options) ([]Sheet, error) {
 	md := func(name string) string { return name + ".md" }
-	return markdown(r, md, place{file: md})
+	return markdown(r, md, place{file: md, opt: o})
 }
 
 func markdown(r *design.Result, link func(string) string, p place) ([]Sheet, error) {
@@ -611,7 +699,7 @@ func markdown(r *design.Result, link func(string) string, p place) ([]Sheet, err
 }
 
 // LaTeX returns the calc sheets as standalone pdflatex documents: index.tex first, then one per design.
-func LaTeX(r *design.Result) ([]Sheet, error) {
+func LaTeX(r *design.Result, o Options) ([]Sheet, error) {
 	return render(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/index.tex.tmpl", "tex/sheet.tex.tmpl", ".tex",
-		func(name string) string { return name + ".pdf" }, place{})
+		func(name string) string { return name + ".pdf" }, place{opt: o})
 }

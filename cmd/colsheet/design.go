@@ -25,6 +25,7 @@ type options struct {
 	date    string
 	replace bool // replace an earlier output folder
 	pdf     bool // run pdflatex over the calc document
+	detail  reports.Detail
 }
 
 func parseDesignArgs(args []string) (options, error) {
@@ -67,6 +68,17 @@ func parseDesignArgs(args []string) (options, error) {
 				default:
 					return o, fmt.Errorf("--formats: unknown format %q (md, tex, html)", f)
 				}
+			}
+		case "--detail":
+			v, err := val()
+			if err != nil {
+				return o, err
+			}
+			switch reports.Detail(v) {
+			case reports.Brief, reports.Full:
+				o.detail = reports.Detail(v)
+			default:
+				return o, fmt.Errorf("--detail: %q is neither brief nor full", v)
 			}
 		case "--replace":
 			o.replace = true
@@ -173,7 +185,7 @@ func produce(o options, stderr io.Writer) (*job, error) {
 		return nil, err
 	}
 	design.AddInteraction(res)
-	files, err := render(res, o.formats)
+	files, err := render(res, o.formats, reports.Options{Detail: o.detail})
 	if err != nil {
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
@@ -197,7 +209,7 @@ func (j *job) report(out string, stdout, stderr io.Writer) int {
 }
 
 // render builds every output file in memory, keyed by its path below the output folder.
-func render(res *design.Result, formats map[string]bool) (map[string][]byte, error) {
+func render(res *design.Result, formats map[string]bool, opt reports.Options) (map[string][]byte, error) {
 	files := map[string][]byte{}
 	js, err := reports.JSON(res)
 	if err != nil {
@@ -214,7 +226,7 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 		return nil, err
 	}
 	files["schedule.csv"] = schedule
-	type maker func(*design.Result) ([]reports.Sheet, error)
+	type maker func(*design.Result, reports.Options) ([]reports.Sheet, error)
 	for _, f := range []struct {
 		name string
 		make maker
@@ -222,7 +234,7 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 		if !formats[f.name] {
 			continue
 		}
-		sheets, err := f.make(res)
+		sheets, err := f.make(res, opt)
 		if err != nil {
 			return nil, fmt.Errorf("%s: %v", f.name, err)
 		}
@@ -231,7 +243,7 @@ func render(res *design.Result, formats map[string]bool) (map[string][]byte, err
 		}
 	}
 	// The calc document: every design in one file per format.
-	docs, err := reports.Documents(res, formats)
+	docs, err := reports.Documents(res, formats, opt)
 	if err != nil {
 		return nil, fmt.Errorf("calc document, %v", err)
 	}

@@ -1,0 +1,85 @@
+package reports
+
+import (
+	"path"
+	"strings"
+
+	"colsheet/calc/trace"
+)
+
+// Detail says how much of each design's trace a sheet prints.
+type Detail string
+
+const (
+	// Brief prints the chain a checker follows: actions, imperfection, slenderness, second
+	// order, design moments, resistance, the checks, bars, links, cover, fire and laps.
+	Brief Detail = "brief"
+	// Full prints every step of the trace (in HTML with the sub-steps folded).
+	Full Detail = "full"
+)
+
+// Options are the choices of a rendering.
+type Options struct {
+	Detail Detail // Brief when empty
+}
+
+func (o Options) full() bool { return o.Detail == Full }
+
+// chain lists the steps a brief sheet prints besides every check: each entry is a path
+// pattern (path.Match) over the step's own ID, without the column and lift.
+var chain = []string{
+	// Actions from the take-down and the moment analysis.
+	"td/NEd",
+	"mom/*/top", "mom/*/bot", "mom/*/bot_alt",
+	"frm/*/top", "frm/*/bottom", "frm/*/bottom_alt",
+	"l0/*/l0",
+	// The actions form.
+	"act/NEd", "*/M_top", "*/M_bot",
+	// The design chain.
+	"act/n", "creep/phi_ef",
+	"*/M02", "*/M01", "*/ei", "*/M02i", "*/l0", "*/phi_ef",
+	"*/lambda", "*/lambda_lim", "*/M0e",
+	"*/e2", "*/M2", "*/MEd_curv", "*/NB", "*/MEd_stiff", "*/MEd",
+	"sec/NRd_max", "*/sec/x", "*/sec/M_Rd",
+	"bi/a", "bi/ratio", "bi/exact/check", "bi/exact/none",
+	// Steel, links, laps, ties.
+	"det/As_min", "bars/As",
+	"links/s", "links/s_zone",
+	"lap/l0",
+	// Fire.
+	"fire/mu_fi", "fire/a", "fire/eq57/R", "fire/eq57/route", "fire/method", "fire/note",
+	"req/As_req",
+}
+
+// briefStep reports whether a brief sheet prints step s (its ID without column and lift):
+// every check, and the steps of the chain.
+func briefStep(s trace.Step) bool {
+	if s.Kind == trace.KindCheck {
+		return true
+	}
+	for _, p := range chain {
+		if ok, _ := path.Match(p, s.ID); ok {
+			return true
+		}
+	}
+	return false
+}
+
+// localID returns a full step ID without its column and lift.
+func localID(full string) string {
+	parts := strings.SplitN(full, "/", 3)
+	if len(parts) < 3 {
+		return full
+	}
+	return parts[2]
+}
+
+// shortClause drops the edition from a clause reference, and the name of EN 1992-1-1 itself,
+// which the brief sheets state once: "EN 1992-1-1:2004 6.1(4)" reads "6.1(4)".
+func shortClause(c string) string {
+	c = strings.ReplaceAll(c, "EN 1992-1-1:2004 ", "")
+	for _, ed := range []string{"EN 1992-1-2:2004", "EN 1990:2002", "EN 1991-1-1:2002"} {
+		c = strings.ReplaceAll(c, ed, strings.SplitN(ed, ":", 2)[0])
+	}
+	return c
+}
