@@ -17,9 +17,9 @@ type docView struct {
 	Status    string       // PASS or FAIL for the whole package
 	Contents  []contentRow // one per design
 	Materials []kv
-	Tables    []tableView // the input as read, with units
-	Listing   []string    // the input file's lines, marked up
-	Fence     string      // Markdown: a code fence longer than any run of '~' in the listing
+	Tables    []tableView    // the input as read, with units
+	Listing   []string       // the input file's lines, marked up
+	Fence     string         // Markdown: a code fence longer than any run of '~' in the listing
 	Groups    []groupSection // the column groups, each with its governing lift in full
 	Failing   []noteRow      // failing designs and their reasons
 	Warnings  []noteRow      // designs with cautions
@@ -39,13 +39,13 @@ type groupSection struct {
 // groupRow is one lift of a group: its values and a link to its own sheet.
 type groupRow struct {
 	Lift, NEd, MEdY, MEdZ, MRdY, MRdZ, Utilization, Governing, Status string
-	Failed                                                          bool
+	Failed                                                            bool
 }
 
 // contentRow is one group's line in the contents, linked to its section.
 type contentRow struct {
 	Group, Section, Bars, Lifts, Governing, Utilization, Status string
-	Failed                                                     bool
+	Failed                                                      bool
 }
 
 // tableView is a table of the input as read: a title, the column heads and the rows, all marked up.
