@@ -481,12 +481,36 @@ func showStep(s trace.Step) shown {
 		out.Text = expr
 		return out
 	}
-	out.Formula = append(lead(), ps...)
-	if vs, err := layout(expr, s.Args, true); err == nil {
-		if words != "" {
-			vs = append(vs, piece{kind: pOp, text: "→"}, piece{kind: pWord, text: words})
-		}
-		out.Values = vs
+	if len(ps) == 1 && ps[0].kind == pNum {
+		return out // a number alone ("r_m = 1"): the result says it
 	}
+	out.Formula = append(lead(), ps...)
+	vs, err := layout(expr, s.Args, true)
+	if err != nil || !usesArgs(expr, s.Args) {
+		return out // nothing to substitute: the values would repeat the formula
+	}
+	if words != "" {
+		vs = append(vs, piece{kind: pOp, text: "→"}, piece{kind: pWord, text: words})
+	}
+	out.Values = vs
 	return out
+}
+
+// usesArgs reports whether expr names any of the arguments.
+func usesArgs(expr string, args []trace.Arg) bool {
+	toks, err := tokenize(expr)
+	if err != nil {
+		return false
+	}
+	for _, t := range toks {
+		if t.kind != tIdent {
+			continue
+		}
+		for _, a := range args {
+			if a.Name == t.text {
+				return true
+			}
+		}
+	}
+	return false
 }

@@ -72,6 +72,10 @@ func TestEngineDisplayForms(t *testing.T) {
 		// EN 1992-1-1:2004 5.8.7.3(1): NEd/NB = 1000/5000.
 		{"NB", slender.BucklingCheck("nb", kN(1000, "N_Ed"), kN(5000, "N_B")),
 			"η = N_Ed / N_B", "1000 kN / 5000 kN", "η = 0.2"},
+		// EN 1992-1-1:2004 5.8.3.1(1): no end moments, rm = 1; a number alone is shown once, as the result.
+		{"rm = 1", slender.MomentRatio("rm", kNm(0, "M_01"), kNm(0, "M_02")), "", "", "r_m = 1"},
+		// EN 1992-1-1:2004 5.8.9(4): NEd/NRd = 2600/2500 ≥ 1, a = 2.
+		{"a = 2", slender.ExponentA("a", kN(2600, "N_Ed"), kN(2500, "N_Rd")), "", "", "a = 2"},
 		// EN 1992-1-1:2004 8.7.3(1), Table 8.3: ρ1 = 100 %, α6 = √(100/25) = 2, at most 1.5.
 		{"α6", detail.Alpha6("a6", n(100, "ρ_1")),
 			"α_6 = min(max(√(ρ_1 / 25), 1), 1.5)", "min(max(√(100 / 25), 1), 1.5)", "α_6 = 1.5"},
