@@ -66,7 +66,7 @@ type noteRow struct {
 // groups, each group's governing lift in full and the others as a row each.
 func document(m markup, r *design.Result, b *book, p place) docView {
 	in := input(r)
-	idx := index(m, r, func(name string) string { return "#" + anchorName("d-", name) })
+	idx := index(m, r, func(name string) string { return "#" + anchorName("d-", name) }, b, p)
 	idx.Subject = m.text("Calculation package")
 	idx.Sheet, idx.SheetNo = m.text("calc document"), m.text("—")
 	idx.Sec1, idx.Sec2 = "section", "subsection*"

@@ -233,7 +233,10 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 				out = append(out, piece{kind: pSym, text: a.Symbol})
 			default:
 				n, u := quantityOf(a.Value, a.Unit, a.Symbol)
-				wrap := !opened && (strings.HasPrefix(n.m, "-") && afterOperator() || (u != "" || n.e != 0) && next() == "**")
+				// A signed value after an operator, a value with a unit under a power and a value
+				// in a scaled unit ("2133 × 10⁶ mm⁴") within a product are put in parentheses.
+				scaled := strings.HasPrefix(u, "×") && (afterOperator() || next() != "" && next() != ")" && next() != ",")
+				wrap := !opened && (strings.HasPrefix(n.m, "-") && afterOperator() || (u != "" || n.e != 0) && next() == "**" || scaled)
 				if wrap {
 					out = append(out, piece{kind: pOp, text: "("})
 				}

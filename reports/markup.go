@@ -436,7 +436,8 @@ func (t tex) formula(ps []piece) string {
 	for _, p := range ps {
 		switch p.kind {
 		case pWord:
-			if strings.HasPrefix(p.text, ",") {
+			// Words are spaced from their neighbours; an operator before them spaces itself.
+			if strings.HasPrefix(p.text, ",") || prev == pOp || prev == -1 {
 				b.WriteString(`\text{` + t.text(p.text) + `}\ `)
 			} else {
 				b.WriteString(`\ \text{` + t.text(p.text) + `}\ `)

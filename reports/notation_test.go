@@ -182,6 +182,12 @@ func TestTradeUnits(t *testing.T) {
 			t.Errorf("%s = %g %s: shown %q, want %q", c.symbol, c.v, c.unit, got, c.want)
 		}
 	}
+	// A value in a scaled unit stands in parentheses within a product (common practice, no source).
+	k := trace.Formula("k", "Stiffness of the column", "common practice", "k", "Nmm", 4*33350*2133333333.3333333/3150,
+		"4 * E * I / L", trace.A("E", trace.Const(33350, "E_cm", "MPa")), trace.A("I", trace.Const(2133333333.3333333, "I_c", "mm4")), trace.A("L", trace.Const(3150, "L", "mm")))
+	if _, v, _ := shownMD(k); v != "4 · 33350 MPa · (2133 × 10⁶ mm⁴) / 3150 mm" {
+		t.Errorf("stiffness: %q", v)
+	}
 	// The same rule in a formula's values: the slab area of a load on a beam in m².
 	s := trace.Formula("F", "Permanent load on the beam", "common practice", "F_G", "N", 6.4e-3*24840000,
 		"w * A_slab", trace.A("w", trace.Const(6.4e-3, "g_k", "N/mm2")), trace.A("A_slab", trace.Const(24840000, "A_slab,A1–B1", "mm2")))

@@ -53,6 +53,7 @@ type kv struct{ Label, Value string }
 type axisRow struct{ Label, Y, Z string }
 
 type stepView struct {
+	Prefix   string // "B." for a step of the project basis
 	Number   int
 	Anchor   string // the link target of the step, already marked up for the format
 	ID       string
@@ -137,6 +138,7 @@ type sheetView struct {
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
 	Groups         []groupView
 	Brief          bool       // the steps one line each (the chain); else every step in full
+	BasisSteps         []groupView // index and calc document: the steps of the project basis
 	Margin         []stepView // brief: the checks that hold with a wide margin, listed in one table
 
 	// index only
@@ -278,8 +280,9 @@ func linksText(d design.Design) string {
 	return fmt.Sprintf("Ø%s @ %s", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain())
 }
 
-// index builds the view of the index sheet; link gives the target of a design's sheet.
-func index(m markup, r *design.Result, link func(name string) string) sheetView {
+// index builds the view of the index sheet, with the steps of the project basis; link gives
+// the target of a design's sheet.
+func index(m markup, r *design.Result, link func(name string) string, b *book, p place) sheetView {
 	in := input(r)
 	total := len(r.Designs) + 1
 	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(m, in), Number: 1, Total: total, Sheet: m.text(fmt.Sprintf("sheet 1 of %d", total)),
@@ -308,6 +311,7 @@ func index(m markup, r *design.Result, link func(name string) string) sheetView 
 			Bars: m.text(barsText(d)), Links: m.text(linksText(d)),
 			Utilization: m.num(fmtNum(d.Utilization)), Status: st, Failed: failed})
 	}
+	v.BasisSteps = basisGroups(m, b, p)
 	n := r.Failed()
 	v.AnyFail = n > 0
 	switch {
@@ -398,11 +402,26 @@ type book struct {
 	at     map[string]where
 }
 
-// where is a step's design and its number on that design's sheet.
+// where is a step's design and its number on that design's sheet; design is basisDesign for
+// a step of the project basis, numbered in the basis.
 type where struct{ design, number int }
+
+// basisDesign marks a step of the project basis in a where.
+const basisDesign = -1
+
+// stepAt returns the step (its own ID) at w.
+func (b *book) stepAt(w where) trace.Step {
+	if w.design == basisDesign {
+		return b.r.Basis[w.number-1]
+	}
+	return b.r.Designs[w.design].Steps[w.number-1]
+}
 
 func newBook(r *design.Result) *book {
 	b := &book{r: r, names: names(r), traces: make([][]trace.Step, len(r.Designs)), at: map[string]where{}}
+	for k, s := range r.Basis {
+		b.at[s.ID] = where{basisDesign, k + 1}
+	}
 	for i, d := range r.Designs {
 		b.traces[i] = d.Trace()
 		for k, s := range b.traces[i] {
@@ -425,8 +444,12 @@ type place struct {
 	printed func(id string, s trace.Step) bool
 }
 
-// shows reports whether the rendering prints step s (its own ID) whose full ID is id.
+// shows reports whether the rendering prints step s (its own ID) whose full ID is id; the
+// steps of the project basis are printed once, in the index sheet and the calc document.
 func (p place) shows(id string, s trace.Step) bool {
+	if strings.HasPrefix(id, design.BasisPrefix) {
+		return true
+	}
 	if p.printed != nil {
 		return p.printed(id, s)
 	}
@@ -439,6 +462,8 @@ func (b *book) target(p place, from int, w where, id string) string {
 	switch {
 	case p.onePage || w.design == from:
 		return a
+	case p.file != nil && w.design == basisDesign:
+		return p.file("index") + a // the index sheet holds the project basis
 	case p.file != nil:
 		return p.file(b.names[w.design]) + a
 	}
@@ -598,7 +623,7 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 			continue
 		}
 		// A step the rendering does not print is not linked (its value stands in the formula).
-		if !p.shows(a.From, b.r.Designs[w.design].Steps[w.number-1]) && !p.fold {
+		if !p.shows(a.From, b.stepAt(w)) && !p.fold {
 			continue
 		}
 		seen[w], ids[w] = true, a.From
@@ -616,8 +641,12 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 		return there[x].number < there[y].number
 	})
 	var uses []string
+	prefix := ""
+	if from == basisDesign {
+		prefix = "B."
+	}
 	for _, w := range here {
-		uses = append(uses, m.link(m.text(fmt.Sprint(w.number)), b.target(p, from, w, ids[w])))
+		uses = append(uses, m.link(m.text(prefix+fmt.Sprint(w.number)), b.target(p, from, w, ids[w])))
 	}
 	if len(here) == 1 {
 		v.Uses = "step " + uses[0]
@@ -625,8 +654,13 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 		v.Uses = "steps " + strings.Join(uses, ", ")
 	}
 	for _, w := range there {
-		d := b.r.Designs[w.design]
-		label := m.text(d.Column + "/" + d.Storey + " step " + fmt.Sprint(w.number))
+		var label string
+		if w.design == basisDesign {
+			label = m.text("basis B." + fmt.Sprint(w.number))
+		} else {
+			d := b.r.Designs[w.design]
+			label = m.text(d.Column + "/" + d.Storey + " step " + fmt.Sprint(w.number))
+		}
 		if v.Uses != "" {
 			v.Uses += ", "
 		}
@@ -672,12 +706,12 @@ func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT
 	if err != nil {
 		return nil, err
 	}
-	b, err := execute(t, indexT, index(m, r, link))
+	bk := newBook(r)
+	b, err := execute(t, indexT, index(m, r, link, bk, p))
 	if err != nil {
 		return nil, err
 	}
 	out := []Sheet{{Name: "index" + ext, Data: b}}
-	bk := newBook(r)
 	for i, name := range bk.names {
 		b, err := execute(t, sheetT, sheet(m, bk, i, p))
 		if err != nil {
@@ -702,4 +736,27 @@ func markdown(r *design.Result, link func(string) string, p place) ([]Sheet, err
 func LaTeX(r *design.Result, o Options) ([]Sheet, error) {
 	return render(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/index.tex.tmpl", "tex/sheet.tex.tmpl", ".tex",
 		func(name string) string { return name + ".pdf" }, place{opt: o})
+}
+
+// basisGroups lays out the steps of the project basis, numbered B.1, B.2, … under their groups.
+func basisGroups(m markup, b *book, p place) []groupView {
+	p.opt.Detail = Brief // one line a step, clauses without the edition of EN 1992-1-1
+	var out []groupView
+	at := map[string]int{}
+	for k, s := range b.r.Basis {
+		g := s.Group
+		if strings.TrimSpace(g) == "" {
+			g = "Project basis"
+		}
+		n, ok := at[g]
+		if !ok {
+			n = len(out)
+			at[g] = n
+			out = append(out, groupView{Title: m.rich(g)})
+		}
+		v := step(m, s, k+1, b, basisDesign, p)
+		v.Prefix = "B."
+		out[n].Steps = append(out[n].Steps, v)
+	}
+	return out
 }
