@@ -137,9 +137,9 @@ type sheetView struct {
 	Axes           []axisRow
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
 	Groups         []groupView
-	Brief          bool       // the steps one line each (the chain); else every step in full
-	BasisSteps         []groupView // index and calc document: the steps of the project basis
-	Margin         []stepView // brief: the checks that hold with a wide margin, listed in one table
+	Brief          bool        // the steps one line each (the chain); else every step in full
+	BasisSteps     []groupView // index and calc document: the steps of the project basis
+	Margin         []stepView  // brief: the checks that hold with a wide margin, listed in one table
 
 	// index only
 	Designs  []designRow
