@@ -290,8 +290,8 @@ func alternative(id, title, symbol string, rating, i int, muFi trace.Q, v float6
 	sym := fmt.Sprintf("%s,%d", symbol, i+1)
 	s := trace.Formula(id, title, en2+"5.3.2, Table 5.2a", sym, "mm", v,
 		"x_1 + (x_2 - x_1) * min(max((mu - mu_1) / (mu_2 - mu_1), 0), 1)",
-		trace.A("x_1", trace.Const(of(x1), fmt.Sprintf("%s(μ_fi=%g)", sym, mu1), "mm")),
-		trace.A("x_2", trace.Const(of(x2), fmt.Sprintf("%s(μ_fi=%g)", sym, mu2), "mm")),
+		trace.A("x_1", trace.Const(of(x1), fmt.Sprintf("%s(μfi=%g)", sym, mu1), "mm")),
+		trace.A("x_2", trace.Const(of(x2), fmt.Sprintf("%s(μfi=%g)", sym, mu2), "mm")),
 		trace.A("mu", muFi),
 		trace.A("mu_1", trace.Const(mu1, "μ_fi,1", "")),
 		trace.A("mu_2", trace.Const(mu2, "μ_fi,2", "")))
