@@ -23,7 +23,7 @@ func CSV(r *design.Result) ([]byte, error) {
 		s, _ := DisplayUnit(engine)
 		return fmtNum(v * s).plain()
 	}
-	return table(r, CSVHeader, func(d design.Design) []string {
+	return table(r, CSVHeader, func(_ int, d design.Design) []string {
 		return []string{cell(d.Column), cell(d.Storey), f(d.B, "mm"), f(d.H, "mm"), f(d.NEd, "N"),
 			f(d.Y.MEd, "Nmm"), f(d.Y.MRd, "Nmm"), f(d.Z.MEd, "Nmm"), f(d.Z.MRd, "Nmm"),
 			fmt.Sprintf("%d x %s mm", d.Bars.Count, fmtNum(d.Bars.Dia).plain()),
@@ -33,7 +33,7 @@ func CSV(r *design.Result) ([]byte, error) {
 }
 
 // table writes a CSV table with the header and one row per design.
-func table(r *design.Result, header []string, row func(design.Design) []string) ([]byte, error) {
+func table(r *design.Result, header []string, row func(int, design.Design) []string) ([]byte, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
 	}
@@ -45,8 +45,8 @@ func table(r *design.Result, header []string, row func(design.Design) []string) 
 	if err := w.Write(header); err != nil {
 		return nil, err
 	}
-	for _, d := range r.Designs {
-		if err := w.Write(row(d)); err != nil {
+	for i, d := range r.Designs {
+		if err := w.Write(row(i, d)); err != nil {
 			return nil, err
 		}
 	}
@@ -67,17 +67,18 @@ func cell(s string) string {
 }
 
 // ScheduleHeader names the columns of the column schedule.
-var ScheduleHeader = []string{"column", "lift", "b_mm", "h_mm", "bars", "As_prov_mm2", "link_dia_mm", "link_spacing_mm",
+var ScheduleHeader = []string{"column", "lift", "group", "b_mm", "h_mm", "bars", "As_prov_mm2", "link_dia_mm", "link_spacing_mm",
 	"link_spacing_reduced_mm", "reduced_zone_mm", "reduced_over_laps", "lap_length_mm", "lap_links", "lap_link_spacing_mm", "extra_ties", "cover_mm",
 	"cover_required_mm", "fire_rating", "fire", "utilization", "status", "governing"}
 
 // Schedule returns the column schedule, one row per column and lift, for the drawing office.
 func Schedule(r *design.Result) ([]byte, error) {
-	return table(r, ScheduleHeader, func(d design.Design) []string { return scheduleRow(d, cell) })
+	names := groupNames(r)
+	return table(r, ScheduleHeader, func(i int, d design.Design) []string { return scheduleRow(d, names[i], cell) })
 }
 
 // scheduleRow returns one design's schedule entries as text, passing user text through esc.
-func scheduleRow(d design.Design, esc func(string) string) []string {
+func scheduleRow(d design.Design, group string, esc func(string) string) []string {
 	n := func(v float64) string { return fmtNum(v).plain() }
 	opt := func(v float64) string {
 		if v <= 0 {
@@ -107,7 +108,7 @@ func scheduleRow(d design.Design, esc func(string) string) []string {
 	if d.Detailing.LapZone {
 		laps = "yes"
 	}
-	return []string{esc(d.Column), esc(d.Storey), n(d.B), n(d.H), fmt.Sprintf("%d × %s mm", d.Bars.Count, n(d.Bars.Dia)), n(math.Round(d.AsProv)),
+	return []string{esc(d.Column), esc(d.Storey), esc(group), n(d.B), n(d.H), fmt.Sprintf("%d × %s mm", d.Bars.Count, n(d.Bars.Dia)), n(math.Round(d.AsProv)),
 		n(d.Links.Dia), n(d.Links.Spacing), n(d.Links.SpacingReduced), n(d.Detailing.ZoneLength), laps, opt(d.Detailing.LapLength),
 		optInt(d.Detailing.LapLinks, d.Detailing.LapLinkSpacing), opt(d.Detailing.LapLinkSpacing),
 		strconv.Itoa(d.Detailing.ExtraTies), n(d.Cover), opt(d.Detailing.CoverRequired), rating, status,

@@ -20,6 +20,8 @@ type docView struct {
 	Tables    []tableView    // the input as read, with units
 	Listing   []string       // the input file's lines, marked up
 	Fence     string         // Markdown: a code fence longer than any run of '~' in the listing
+	TakeDown  []tableView    // building form: the summary, then one take-down table per column
+	Moments   []tableView    // building form: the column moments per column and direction
 	Groups    []groupSection // the column groups, each with its governing lift in full
 	Failing   []noteRow      // failing designs and their reasons
 	Warnings  []noteRow      // designs with cautions
@@ -50,10 +52,11 @@ type contentRow struct {
 
 // tableView is a table of the input as read: a title, the column heads and the rows, all marked up.
 type tableView struct {
-	Title string
-	Head  []string
-	Rows  [][]string
-	Align string // LaTeX column specification
+	Title   string
+	Head    []string
+	Rows    [][]string
+	Align   string // LaTeX column specification
+	Formula string // the rule of the rows, shown once above the table
 }
 
 // noteRow is a design (Subject, linked to its section) with the reasons it fails or the cautions it carries.
@@ -70,6 +73,7 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 	idx.Subject = m.text("Calculation package")
 	idx.Sheet, idx.SheetNo = m.text("calc document"), m.text("—")
 	idx.Sec1, idx.Sec2 = "section", "subsection*"
+	idx.ScheduleLast = false
 	v := docView{sheetView: idx, Status: "PASS"}
 	if idx.AnyFail {
 		v.Status = "FAIL"
@@ -85,6 +89,9 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 			}
 		}
 	}
+	// The take-down and the column moments as tables, whose cells are the steps' anchors.
+	c := cells{m: m, b: b, printed: printed}
+	v.TakeDown, v.Moments = takeDownTables(c), momentTables(c)
 	p.printed = func(id string, _ trace.Step) bool { return printed[id] }
 	governing := map[int]bool{}
 	for _, g := range gs {

@@ -116,3 +116,14 @@ func (g colGroup) title(n int) string {
 	}
 	return fmt.Sprintf("%s; %d %s", s, len(g.lifts), lifts)
 }
+
+// groupNames returns the name of the group of each design of r ("Group 3").
+func groupNames(r *design.Result) []string {
+	out := make([]string, len(r.Designs))
+	for n, g := range columnGroups(r) {
+		for _, i := range g.lifts {
+			out[i] = g.name(n)
+		}
+	}
+	return out
+}

@@ -478,7 +478,7 @@ func (t tex) formula(ps []piece) string {
 			case "and", "or", "not":
 				b.WriteString(`\ \text{` + p.text + `}\ `)
 			case ",":
-				b.WriteString(`,\ `)
+				b.WriteString(`,\allowbreak\ `) // a long argument list may break after a comma
 			default:
 				b.WriteString(t.mathText(p.text))
 			}

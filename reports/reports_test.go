@@ -414,7 +414,7 @@ func TestFormula(t *testing.T) {
 		{"l0 ** 2 * k", "l<sub>0</sub><sup>2</sup> · k", "(2900\u00a0mm)<sup>2</sup> · k", `${l}_{\mathrm{0}}^{2}\cdot \mathrm{k}$`},
 		{"(1 + n) ** (1/3)", "(1 + n)<sup>1/3</sup>", "(1 + 0.4)<sup>1/3</sup>", `$(1+n)^{1/3}$`},
 		{"sqrt(n) * -M01", "√(n) · −M<sub>01</sub>", "√(0.4) · −(−40\u00a0kNm)", `$\sqrt{n}\cdot -{}{M}_{\mathrm{01}}$`},
-		{"max(n, abs(M01))", "max(n, \\|M<sub>01</sub>\\|)", "max(0.4, \\|−40\u00a0kNm\\|)", `$\max(n,\ \lvert {M}_{\mathrm{01}}\rvert )$`},
+		{"max(n, abs(M01))", "max(n, \\|M<sub>01</sub>\\|)", "max(0.4, \\|−40\u00a0kNm\\|)", `$\max(n,\allowbreak\ \lvert {M}_{\mathrm{01}}\rvert )$`},
 		{"n <= 1 && n >= 0", "n ≤ 1 and n ≥ 0", "0.4 ≤ 1 and 0.4 ≥ 0", `$n\leq 1\ \text{and}\ n\geq 0$`},
 	}
 	for _, tc := range tests {
@@ -566,7 +566,7 @@ func TestScheduleFireStatus(t *testing.T) {
 	} {
 		var d design.Design
 		d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = c.rating, c.ok, c.method
-		row := scheduleRow(d, func(s string) string { return s })
+		row := scheduleRow(d, "Group 1", func(s string) string { return s })
 		found := false
 		for _, cell := range row {
 			if cell == c.want {

@@ -139,6 +139,7 @@ type sheetView struct {
 	Groups         []groupView
 	Brief          bool        // the steps one line each (the chain); else every step in full
 	BasisSteps     []groupView // index and calc document: the steps of the project basis
+	ScheduleLast   bool        // LaTeX: the schedule ends the document (its last page is labelled there)
 	Margin         []stepView  // brief: the checks that hold with a wide margin, listed in one table
 
 	// index only
@@ -289,8 +290,9 @@ func index(m markup, r *design.Result, link func(name string) string, b *book, p
 		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
 		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r)}
 	nm := names(r)
-	for _, d := range r.Designs {
-		v.Schedule = append(v.Schedule, scheduleRow(d, m.text))
+	groupOf := groupNames(r)
+	for i, d := range r.Designs {
+		v.Schedule = append(v.Schedule, scheduleRow(d, groupOf[i], m.text))
 	}
 	for _, z := range r.Sizes {
 		row := sizeRow{Column: m.text(z.Column), Given: m.text(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
@@ -312,6 +314,7 @@ func index(m markup, r *design.Result, link func(name string) string, b *book, p
 			Utilization: m.num(fmtNum(d.Utilization)), Status: st, Failed: failed})
 	}
 	v.BasisSteps = basisGroups(m, b, p)
+	v.ScheduleLast = true
 	n := r.Failed()
 	v.AnyFail = n > 0
 	switch {

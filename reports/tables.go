@@ -1,0 +1,223 @@
+package reports
+
+import (
+	"strings"
+
+	"colsheet/calc/design"
+	"colsheet/calc/trace"
+)
+
+// The calc document lays out the take-down and the column moments of the building form as
+// tables, the way a hand calculation does: one row per lift, one cell per traced step. Each
+// cell carries its step's anchor, so that the lifts' steps link to it.
+
+// column is one column of the building with its designs, lowest lift first.
+type column struct {
+	id      string
+	designs []int
+}
+
+// columnsOf returns the columns of r in the order of the result.
+func columnsOf(r *design.Result) []column {
+	var out []column
+	at := map[string]int{}
+	for i, d := range r.Designs {
+		n, ok := at[d.Column]
+		if !ok {
+			n = len(out)
+			at[d.Column] = n
+			out = append(out, column{id: d.Column})
+		}
+		out[n].designs = append(out[n].designs, i)
+	}
+	return out
+}
+
+// cells finds the steps of design i by their own IDs and marks up table cells of their values.
+type cells struct {
+	m       markup
+	b       *book
+	printed map[string]bool // the steps the document prints, where links may land
+}
+
+// find returns the step of design i with the own ID local.
+func (c cells) find(i int, local string) (trace.Step, bool) {
+	for k, s := range c.b.r.Designs[i].Steps {
+		if s.ID == local {
+			return c.b.traces[i][k], true
+		}
+	}
+	return trace.Step{}, false
+}
+
+// cell returns the value of the step of design i with the own ID local in display units,
+// with the step's anchor, and records the step as printed; "–" where there is none.
+func (c cells) cell(i int, local string) string {
+	s, ok := c.find(i, local)
+	if !ok {
+		return c.m.text("–")
+	}
+	c.printed[s.ID] = true
+	v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
+	return c.m.anchor(anchorName("s-", s.ID)) + c.m.num(v)
+}
+
+// sum returns the cells of the steps of design i whose own IDs match the pattern, joined.
+func (c cells) matching(i int, pattern func(id string) bool) string {
+	var parts []string
+	for k, s := range c.b.r.Designs[i].Steps {
+		if pattern(s.ID) {
+			full := c.b.traces[i][k]
+			c.printed[full.ID] = true
+			v, _ := quantityOf(full.Value, full.Unit, full.Symbol)
+			parts = append(parts, c.m.anchor(anchorName("s-", full.ID))+c.m.num(v))
+		}
+	}
+	if len(parts) == 0 {
+		return c.m.text("–")
+	}
+	return strings.Join(parts, c.m.text(" + "))
+}
+
+// takeDownTables returns, for the building form, one take-down table per column (top lift
+// first, as the loads come down) and the building's summary.
+func takeDownTables(c cells) []tableView {
+	r := c.b.r
+	if r.Building == nil {
+		return nil
+	}
+	m := c.m
+	var out []tableView
+	summary := tableView{Title: m.text("Take-down summary: the loads at the foot of each column"),
+		Head:  []string{m.text("Column"), m.rich("ΣG_k (kN)"), m.rich("ΣQ_k (kN)"), m.rich("N_Ed (kN)")},
+		Align: "lrrr"}
+	for _, col := range columnsOf(r) {
+		t := tableView{Title: m.text("Column " + col.id),
+			Head: []string{m.text("Lift"), m.rich("G_level (kN)"), m.rich("Q_level (kN)"), m.rich("G_col (kN)"),
+				m.rich("ΣG_k (kN)"), m.rich("ΣQ_k (kN)"), m.rich("α (αA, αn)"), m.rich("N_Ed (kN)")},
+			Align:   "lrrrrrrr",
+			Formula: m.rich("Per lift, top down: ΣG_k = G_level + G_col + ΣG_k of the lift above; ΣQ_k = Q_level + ΣQ_k of the lift above (by category); N_Ed by the combination of the design basis, with the reduction α where asked."),
+		}
+		for k := len(col.designs) - 1; k >= 0; k-- {
+			i := col.designs[k]
+			d := r.Designs[i]
+			lv := "td/" + d.Storey + "/"
+			t.Rows = append(t.Rows, []string{m.text(d.Storey),
+				c.cell(i, lv+"G"),
+				c.matching(i, func(id string) bool { return strings.HasPrefix(id, lv+"Q") && !strings.HasPrefix(id, lv+"Q_") }),
+				c.cell(i, "td/G_col"),
+				c.cell(i, "td/G_cum"),
+				c.matching(i, func(id string) bool { return strings.HasPrefix(id, "td/Q_cum_") }),
+				c.matching(i, func(id string) bool {
+					return strings.HasPrefix(id, lv+"alpha_A_") || strings.HasPrefix(id, "td/alpha_n_")
+				}),
+				c.cell(i, "td/NEd")})
+		}
+		out = append(out, t)
+		foot := col.designs[0]
+		summary.Rows = append(summary.Rows, []string{m.text(col.id), c.plain(foot, "td/G_cum"),
+			c.plainMatching(foot, func(id string) bool { return strings.HasPrefix(id, "td/Q_cum_") }), c.plain(foot, "td/NEd")})
+	}
+	return append([]tableView{summary}, out...)
+}
+
+// plain returns the value of a step as a link to its cell elsewhere in the document.
+func (c cells) plain(i int, local string) string {
+	s, ok := c.find(i, local)
+	if !ok {
+		return c.m.text("–")
+	}
+	v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
+	return c.m.link(c.m.num(v), "#"+anchorName("s-", s.ID))
+}
+
+// plainMatching is plain for the sum of the steps matching a pattern, each linked.
+func (c cells) plainMatching(i int, pattern func(id string) bool) string {
+	var parts []string
+	for k, s := range c.b.r.Designs[i].Steps {
+		if pattern(s.ID) {
+			full := c.b.traces[i][k]
+			v, _ := quantityOf(full.Value, full.Unit, full.Symbol)
+			parts = append(parts, c.m.link(c.m.num(v), "#"+anchorName("s-", full.ID)))
+		}
+	}
+	if len(parts) == 0 {
+		return c.m.text("–")
+	}
+	return strings.Join(parts, c.m.text(" + "))
+}
+
+// momentTables returns, for the building form, the column moments of each column and
+// direction: for the subframe the joint's stiffnesses, fixed-end moments, unbalanced moment and
+// the columns' shares; for the frame analysis the end moments of each lift.
+func momentTables(c cells) []tableView {
+	r := c.b.r
+	if r.Building == nil {
+		return nil
+	}
+	m := c.m
+	var out []tableView
+	for _, col := range columnsOf(r) {
+		for _, d := range []struct{ dir, axis string }{{"x", "y"}, {"y", "z"}} {
+			sub := "sub" + d.dir + "/"
+			t := tableView{Title: m.text("Column " + col.id + ", bending about " + d.axis + " (frames along " + d.dir + ")")}
+			frame := false
+			if _, ok := c.find(col.designs[0], "frm/"+d.dir+"/top"); ok {
+				frame = true
+			}
+			if frame {
+				t.Head = []string{m.text("Lift"), m.rich("M_top (kNm)"), m.rich("M_bottom (kNm)"), m.rich("M_top,inf (kNm)"), m.rich("M_bottom,inf (kNm)")}
+				t.Align = "lrrrr"
+				t.Formula = m.rich("Clockwise end moments of the lift's column from the frame line solved whole: at each end the envelope of every arrangement of the spans (superposition); ,inf with γ_G,inf on every span. The spans each arrangement loads are named on the governing lift's sheet.")
+			} else {
+				t.Head = []string{m.text("Level"), m.text("Beams 1, 2"), m.rich("k_b,1"), m.rich("k_b,2"), m.rich("k_above"), m.rich("k_below"),
+					m.rich("M_F,1 (kNm)"), m.rich("M_F,2 (kNm)"), m.rich("M_unb (kNm)"), m.rich("M_above (kNm)"), m.rich("M_below (kNm)")}
+				t.Align = "llrrrrrrrrr"
+				t.Formula = m.rich("Subframe at each level (common practice): stiffnesses k = 4EI/L (kNm per radian; beams at the stiffness factor of the basis); M_unb = ΣM_F of the arrangement that loads one side (the governing lift's sheet names it); each column takes M_unb·k/Σk at the joint and half of it at its far end.")
+			}
+			for k := len(col.designs) - 1; k >= 0; k-- {
+				i := col.designs[k]
+				lift := r.Designs[i].Storey
+				if frame {
+					p := "frm/" + d.dir + "/"
+					t.Rows = append(t.Rows, []string{m.text(lift), c.cell(i, p+"top"), c.cell(i, p+"bottom"), c.cell(i, p+"top_inf"), c.cell(i, p+"bottom_inf")})
+					continue
+				}
+				p := sub + lift + "/"
+				beams := c.beamsAt(i, p)
+				ks := [2]string{m.text("–"), m.text("–")}
+				fems := [2]string{m.text("–"), m.text("–")}
+				for s, name := range beams {
+					ks[s] = c.cell(i, p+name+"/k")
+					fems[s] = c.matching(i, func(id string) bool {
+						return id == p+name+"/FEM_loaded" || id == p+name+"/FEM_light"
+					})
+				}
+				t.Rows = append(t.Rows, []string{m.text(lift), m.text(strings.Join(beams, ", ")), ks[0], ks[1], c.cell(i, p+"above/k"), c.cell(i, p+"below/k"),
+					fems[0], fems[1], c.cell(i, p+"unbalanced"), c.cell(i, p+"m_above"), c.cell(i, p+"m_below")})
+			}
+			out = append(out, t)
+		}
+	}
+	return out
+}
+
+// beamsAt returns the names of the beams at a subframe joint of design i (step IDs under p),
+// left first; a column at an edge has one.
+func (c cells) beamsAt(i int, p string) []string {
+	var names []string
+	for _, s := range c.b.r.Designs[i].Steps {
+		if !strings.HasPrefix(s.ID, p) || !strings.HasSuffix(s.ID, "/k") {
+			continue
+		}
+		name := strings.TrimSuffix(strings.TrimPrefix(s.ID, p), "/k")
+		if name == "above" || name == "below" || strings.Contains(name, "/") {
+			continue
+		}
+		names = append(names, name)
+	}
+	if len(names) > 2 {
+		names = names[:2]
+	}
+	return names
+}
