@@ -561,14 +561,12 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 	if s.Kind == trace.KindCheck && symbol == "" {
 		symbol = "η"
 	}
-	res := []piece{}
-	if symbol != "" {
-		res = append(res, piece{kind: pSym, text: symbol}, piece{kind: pOp, text: "="})
+	sh := showStep(s)
+	v.Result = m.formula(sh.Result)
+	if len(sh.Result) > 0 && (s.Show == nil || s.Show.Result == "" || sh.Values == nil) {
+		// A result in words ("yes") already ends the substituted values ("… → yes").
+		v.Value = m.formula(sh.Result[len(sh.Result)-1:])
 	}
-	val, unit := quantity(s.Value, s.Unit)
-	res = append(res, piece{kind: pNum, n: val, unit: unit})
-	v.Result = m.formula(res)
-	v.Value = m.formula([]piece{{kind: pNum, n: val, unit: unit}})
 	expr := func(e string, values bool) string {
 		ps, err := layout(e, s.Args, values)
 		if err != nil {
@@ -579,18 +577,15 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 		}
 		return m.formula(ps)
 	}
-	if s.Expr != "" && s.Kind != trace.KindInput && s.Kind != trace.KindTable {
-		if ps, err := layout(s.Expr, s.Args, false); err == nil {
-			if symbol != "" {
-				ps = append([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}}, ps...)
-			}
-			v.Formula = m.formula(ps)
-			v.Values = expr(s.Expr, true)
-		} else {
-			v.Formula = m.text(s.Expr) // shown as written
-			if symbol != "" {
-				v.Formula = m.formula([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}, {kind: pText, text: s.Expr}})
-			}
+	switch {
+	case sh.Text != "" && symbol != "":
+		v.Formula = m.formula([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}, {kind: pText, text: sh.Text}})
+	case sh.Text != "":
+		v.Formula = m.text(sh.Text)
+	case sh.Formula != nil:
+		v.Formula = m.formula(sh.Formula)
+		if sh.Values != nil {
+			v.Values = m.formula(sh.Values)
 		}
 	}
 	switch s.Kind {
