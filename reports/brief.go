@@ -1,6 +1,7 @@
 package reports
 
 import (
+	"math"
 	"path"
 	"strings"
 
@@ -20,7 +21,31 @@ const (
 
 // Options are the choices of a rendering.
 type Options struct {
-	Detail Detail // Brief when empty
+	Detail   Detail    // Brief when empty
+	Revision *Revision // the previous revision to mark changes against; nil for none
+}
+
+// Revision is the previous package a rendering marks its changes against.
+type Revision struct {
+	Against string             // the previous package, as named on the command line
+	Old     map[string]float64 // every step value of the previous package, by full step ID
+	Rows    []RevisionRow      // the revision table, in the order the checker reads it
+}
+
+// RevisionRow is one changed input or result: plain text, escaped by the printers.
+type RevisionRow struct{ Column, Lift, Item, Old, New string }
+
+// changed reports whether the step of full ID id with value v differs from the previous
+// revision (or is new there); false without a revision.
+func (o Options) changed(id string, v float64) bool {
+	if o.Revision == nil {
+		return false
+	}
+	old, ok := o.Revision.Old[id]
+	if !ok {
+		return true
+	}
+	return math.Abs(v-old) > 1e-9*math.Max(math.Max(math.Abs(v), math.Abs(old)), 1e-300)
 }
 
 func (o Options) full() bool { return o.Detail == Full }

@@ -20,6 +20,7 @@ type docView struct {
 	Tables    []tableView    // the input as read, with units
 	Listing   []string       // the input file's lines, marked up
 	Fence     string         // Markdown: a code fence longer than any run of '~' in the listing
+	Revision  *tableView     // the changes since the previous revision (--against), read first
 	TakeDown  []tableView    // building form: the summary, then one take-down table per column
 	Moments   []tableView    // building form: the column moments per column and direction
 	Groups    []groupSection // the column groups, each with its governing lift in full
@@ -78,6 +79,18 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 	if idx.AnyFail {
 		v.Status = "FAIL"
 	}
+	if rv := p.opt.Revision; rv != nil {
+		t := tableView{Title: m.text("Changes since the previous revision, " + rv.Against),
+			Head: []string{m.text("Column"), m.text("Lift"), m.text("Item"), m.text("Previous"), m.text("This revision")}, Align: "llp{0.4\\linewidth}ll",
+			Formula: m.text("Every value that changed is marked where it stands: highlighted in HTML, with a bar in the margin in the PDF.")}
+		for _, row := range rv.Rows {
+			t.Rows = append(t.Rows, []string{m.text(row.Column), m.text(row.Lift), m.rich(row.Item), m.text(row.Old), m.text(row.New)})
+		}
+		if len(rv.Rows) == 0 {
+			t.Rows = [][]string{{m.text("—"), m.text("—"), m.text("no change: the same designs, inputs and results"), m.text("—"), m.text("—")}}
+		}
+		v.Revision = &t
+	}
 	gs := columnGroups(r)
 	// The document prints the steps of each governing lift (brief or full) and links only to those.
 	printed := map[string]bool{}
@@ -90,7 +103,7 @@ func document(m markup, r *design.Result, b *book, p place) docView {
 		}
 	}
 	// The take-down and the column moments as tables, whose cells are the steps' anchors.
-	c := cells{m: m, b: b, printed: printed}
+	c := cells{m: m, b: b, printed: printed, opt: p.opt}
 	v.TakeDown, v.Moments = takeDownTables(c), momentTables(c)
 	p.printed = func(id string, _ trace.Step) bool { return printed[id] }
 	governing := map[int]bool{}

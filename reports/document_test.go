@@ -163,9 +163,15 @@ func TestDocumentCompiles(t *testing.T) {
 	if testing.Short() {
 		t.Skip("short")
 	}
-	doc, err := DocumentLaTeX(buildingResult(t), Options{})
+	// The document with revision marks (one value changed, one step new): the margin bars and
+	// the revision table compile too.
+	r := buildingResult(t)
+	doc, err := DocumentLaTeX(r, Options{Detail: Full, Revision: revisionOf(r)})
 	if err != nil {
 		t.Fatal(err)
+	}
+	if !bytes.Contains(doc.Data, []byte(`\csrev{`)) || !bytes.Contains(doc.Data, []byte(`\csrevbar`)) {
+		t.Error("calc.tex marks no changed value")
 	}
 	dir := t.TempDir()
 	if err := os.WriteFile(filepath.Join(dir, "calc.tex"), doc.Data, 0o644); err != nil {
@@ -258,5 +264,56 @@ func BenchmarkDocument(b *testing.B) {
 		if _, err := DocumentLaTeX(r, Options{}); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// revisionOf returns a previous revision of r in which the NEd of the first design's take-down
+// was 10 % smaller and its last step did not exist.
+func revisionOf(r *design.Result) *Revision {
+	old := map[string]float64{}
+	for _, s := range r.Basis {
+		old[s.ID] = s.Value
+	}
+	for _, d := range r.Designs {
+		for _, s := range d.Trace() {
+			old[s.ID] = s.Value
+		}
+	}
+	tr := r.Designs[0].Trace()
+	delete(old, tr[len(tr)-1].ID)
+	id := r.Designs[0].Column + "/" + r.Designs[0].Storey + "/td/NEd"
+	old[id] *= 0.9
+	return &Revision{Against: "rev-A", Old: old, Rows: []RevisionRow{{Column: r.Designs[0].Column, Lift: r.Designs[0].Storey, Item: "result N_Ed", Old: "1.0 kN", New: "1.1 kN"}}}
+}
+
+// Revision marks (common practice, no source: a revised calculation shows its checker what
+// changed): changed values are marked, unchanged ones are not, and the document opens with the
+// revision table.
+func TestRevisionMarks(t *testing.T) {
+	r := buildingResult(t)
+	rv := revisionOf(r)
+	doc, err := DocumentMarkdown(r, Options{Revision: rv})
+	if err != nil {
+		t.Fatal(err)
+	}
+	md := string(doc.Data)
+	rev, contents := strings.Index(md, "## Revision"), strings.Index(md, "## Contents")
+	if rev < 0 || contents < rev || !strings.Contains(md[rev:contents], "rev-A") || !strings.Contains(md[rev:contents], "N<sub>Ed</sub>") {
+		t.Errorf("the document does not open with the revision table")
+	}
+	id := anchorName("s-", r.Designs[0].Column+"/"+r.Designs[0].Storey+"/td/NEd")
+	at := strings.Index(md, `<a id="`+id+`"></a>`)
+	if at < 0 || !strings.HasPrefix(md[at+len(`<a id="`+id+`"></a>`):], "<mark>") {
+		t.Errorf("the changed NEd of %s is not marked", id)
+	}
+	if n := strings.Count(md, "<mark>"); n < 1 || n > 20 {
+		t.Errorf("%d marks: only the changed values should be marked", n)
+	}
+	plainDoc, err := DocumentMarkdown(r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if bytes.Contains(plainDoc.Data, []byte("<mark>")) || bytes.Contains(plainDoc.Data, []byte("## Revision")) {
+		t.Error("marks without a previous revision")
 	}
 }

@@ -19,6 +19,7 @@ type markup interface {
 	anchor(name string) string               // a link target named name (from anchorName)
 	listing(line string) string              // one line of a verbatim listing (the input file)
 	picture(g diagram) string                // a diagram drawn for the format: SVG, or pgfplots for LaTeX
+	changed(s string) string                 // a value (already marked up) changed since the previous revision
 }
 
 // anchorName turns a step ID or sheet name into a link-target name of ASCII letters, digits,
@@ -127,6 +128,9 @@ func (md) listing(line string) string { return oneLine(line) }
 
 // picture is the inline SVG, a raw HTML block (it holds no blank line) that goldmark passes on.
 func (md) picture(g diagram) string { return g.SVG() }
+
+// changed highlights a changed value; the HTML renders <mark> as a highlight.
+func (md) changed(s string) string { return "<mark>" + s + "</mark>" }
 
 func (m md) sym(s string) string {
 	base, sub := splitSymbol(oneLine(s))
@@ -411,6 +415,9 @@ func (tex) link(label, target string) string {
 func (tex) anchor(name string) string { return `\hypertarget{` + name + `}{}` }
 
 func (tex) picture(g diagram) string { return g.PGF() }
+
+// changed marks a changed value (\csrev: a bar in the margin and the value highlighted).
+func (tex) changed(s string) string { return `\csrev{` + s + `}` }
 
 // listing sets the line in typewriter type, every space kept.
 func (t tex) listing(line string) string {

@@ -75,6 +75,7 @@ type stepView struct {
 	Uses     string // the steps whose results this step uses, linked: "steps 3, 5" or "B2/L2 step 57"
 	Notes    []string
 	Cautions []string
+	Changed  bool // the value differs from the previous revision's (or the step is new)
 	// Folding of the sub-steps in full detail for HTML: the first step of a folded run opens it
 	// (FoldOpen, with the run's length in FoldCount), the last closes it.
 	FoldOpen, FoldClose bool
@@ -563,6 +564,12 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 	}
 	sh := showStep(s)
 	v.Result = m.formula(sh.Result)
+	if v.Changed = p.opt.changed(s.ID, s.Value); v.Changed {
+		v.Result = m.changed(v.Result)
+		if v.Value != "" {
+			v.Value = m.changed(v.Value)
+		}
+	}
 	if len(sh.Result) > 0 && (s.Show == nil || s.Show.Result == "" || sh.Values == nil) {
 		// A result in words ("yes") already ends the substituted values ("… → yes").
 		v.Value = m.formula(sh.Result[len(sh.Result)-1:])

@@ -38,6 +38,7 @@ type cells struct {
 	m       markup
 	b       *book
 	printed map[string]bool // the steps the document prints, where links may land
+	opt     Options         // for the revision marks
 }
 
 // find returns the step of design i with the own ID local.
@@ -53,24 +54,27 @@ func (c cells) find(i int, local string) (trace.Step, bool) {
 // cell returns the value of the step of design i with the own ID local in display units,
 // with the step's anchor, and records the step as printed; "–" where there is none.
 func (c cells) cell(i int, local string) string {
-	s, ok := c.find(i, local)
-	if !ok {
-		return c.m.text("–")
-	}
-	c.printed[s.ID] = true
-	v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
-	return c.m.anchor(anchorName("s-", s.ID)) + c.m.num(v)
+	return c.matching(i, func(id string) bool { return id == local })
 }
 
-// sum returns the cells of the steps of design i whose own IDs match the pattern, joined.
+// value marks up one step's value as a table cell: its anchor, its value in display units,
+// marked where it changed since the previous revision; the step counts as printed.
+func (c cells) value(s trace.Step) string {
+	c.printed[s.ID] = true
+	v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
+	out := c.m.num(v)
+	if c.opt.changed(s.ID, s.Value) {
+		out = c.m.changed(out)
+	}
+	return c.m.anchor(anchorName("s-", s.ID)) + out
+}
+
+// matching returns the cells of the steps of design i whose own IDs match the pattern, joined.
 func (c cells) matching(i int, pattern func(id string) bool) string {
 	var parts []string
 	for k, s := range c.b.r.Designs[i].Steps {
 		if pattern(s.ID) {
-			full := c.b.traces[i][k]
-			c.printed[full.ID] = true
-			v, _ := quantityOf(full.Value, full.Unit, full.Symbol)
-			parts = append(parts, c.m.anchor(anchorName("s-", full.ID))+c.m.num(v))
+			parts = append(parts, c.value(c.b.traces[i][k]))
 		}
 	}
 	if len(parts) == 0 {
@@ -123,12 +127,7 @@ func takeDownTables(c cells) []tableView {
 
 // plain returns the value of a step as a link to its cell elsewhere in the document.
 func (c cells) plain(i int, local string) string {
-	s, ok := c.find(i, local)
-	if !ok {
-		return c.m.text("–")
-	}
-	v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
-	return c.m.link(c.m.num(v), "#"+anchorName("s-", s.ID))
+	return c.plainMatching(i, func(id string) bool { return id == local })
 }
 
 // plainMatching is plain for the sum of the steps matching a pattern, each linked.

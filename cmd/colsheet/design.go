@@ -13,6 +13,7 @@ import (
 	"colsheet/calc/design"
 	"colsheet/calc/input"
 	"colsheet/reports"
+	"colsheet/reports/archive"
 )
 
 func version() string { return design.Version }
@@ -26,6 +27,7 @@ type options struct {
 	replace bool // replace an earlier output folder
 	pdf     bool // run pdflatex over the calc document
 	detail  reports.Detail
+	against string // a previous package to mark the changes against
 }
 
 func parseDesignArgs(args []string) (options, error) {
@@ -80,6 +82,12 @@ func parseDesignArgs(args []string) (options, error) {
 			default:
 				return o, fmt.Errorf("--detail: %q is neither brief nor full", v)
 			}
+		case "--against":
+			v, err := val()
+			if err != nil {
+				return o, err
+			}
+			o.against = v
 		case "--replace":
 			o.replace = true
 		case "--pdf":
@@ -185,7 +193,20 @@ func produce(o options, stderr io.Writer) (*job, error) {
 		return nil, err
 	}
 	design.AddInteraction(res)
-	files, err := render(res, o.formats, reports.Options{Detail: o.detail})
+	opt := reports.Options{Detail: o.detail}
+	if o.against != "" {
+		// The revision marks: every value compared with the previous package's.
+		js, err := reports.JSON(res)
+		if err != nil {
+			return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
+		}
+		changes, old, err := archive.Against(o.against, js, filepath.Base(o.input), in.SHA256)
+		if err != nil {
+			return nil, fmt.Errorf("colsheet: --against %s: %v", o.against, err)
+		}
+		opt.Revision = changes.Revision(o.against, old)
+	}
+	files, err := render(res, o.formats, opt)
 	if err != nil {
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}

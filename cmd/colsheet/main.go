@@ -3,8 +3,8 @@
 //
 // Usage:
 //
-//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--date YYYY-MM-DD] [--replace] [--pdf]
-//	colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--date YYYY-MM-DD] [--replace] [--pdf]
+//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
+//	colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
 //	colsheet recheck BUNDLE
 //	colsheet compare OLD NEW [-o FILE.md]
 //	colsheet version
@@ -23,8 +23,8 @@ func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
 const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992-1-1
 
 usage:
-  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--date YYYY-MM-DD] [--replace] [--pdf]
-  colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--date YYYY-MM-DD] [--replace] [--pdf]
+  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
+  colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
   colsheet recheck BUNDLE
   colsheet compare OLD NEW [-o FILE.md]
   colsheet version
@@ -36,7 +36,10 @@ and the calc sheets under DIR/md, DIR/tex and DIR/html. Sheets are brief by
 default (the chain a checker follows; the calc document groups the lifts and
 gives each group's governing lift in full); --detail full prints every step
 (in HTML with the sub-steps folded); results.json always holds the whole
-trace. An earlier output in
+trace. --against PREVIOUS (an earlier output folder or archive bundle) marks
+every value that changed since it (highlighted in HTML, a bar in the margin
+of the PDF) and opens the calc document with the revision table. An earlier
+output in
 DIR is replaced only with --replace, as a whole (never half); other files in
 DIR are never overwritten. Exit status: 0 every design passes, 1 some design
 fails (everything is still written), 2 bad input or usage, 3 pdflatex failed

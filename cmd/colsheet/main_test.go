@@ -246,3 +246,41 @@ func TestBuildingDemo(t *testing.T) {
 		}
 	}
 }
+
+// A revision designed --against the previous package marks what changed and opens the calc
+// document with the revision table; an unreadable previous package is refused before anything
+// is written (common practice, no source).
+func TestAgainstPrevious(t *testing.T) {
+	dir := t.TempDir()
+	src, err := os.ReadFile(filepath.Join("..", "..", "testdata", "columns.yaml"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	first := writeFile(t, "cols.yaml", string(src))
+	if code, _, errOut := runCLI("design", first, "-o", filepath.Join(dir, "rev-a"), "--date", "2026-12-01"); code != 0 {
+		t.Fatalf("first revision: exit %d\n%s", code, errOut)
+	}
+	changed := strings.Replace(string(src), "NEd: 3380 kN", "NEd: 3480 kN", 1)
+	if changed == string(src) {
+		t.Fatal("the demo no longer has the NEd this test changes")
+	}
+	second := writeFile(t, "cols.yaml", changed)
+	out := filepath.Join(dir, "rev-b")
+	if code, _, errOut := runCLI("design", second, "-o", out, "--date", "2026-12-02", "--against", filepath.Join(dir, "rev-a")); code != 0 {
+		t.Fatalf("second revision: exit %d\n%s", code, errOut)
+	}
+	doc, err := os.ReadFile(filepath.Join(out, "doc", "calc.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(doc), "## Revision") || !strings.Contains(string(doc), "<mark>") || !strings.Contains(string(doc), "3480 kN") {
+		t.Error("the revised calc document lacks its revision table or marks")
+	}
+	code, _, errOut := runCLI("design", second, "-o", filepath.Join(dir, "rev-c"), "--against", filepath.Join(dir, "missing"))
+	if code != 2 || !strings.Contains(errOut, "--against") {
+		t.Errorf("a missing previous package: exit %d, %q", code, errOut)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "rev-c")); !os.IsNotExist(err) {
+		t.Error("output written although the previous package could not be read")
+	}
+}

@@ -50,6 +50,34 @@ func Compare(oldDir, newDir string) (*Changes, error) {
 	if err != nil {
 		return nil, err
 	}
+	return compare(oldRes, newRes, oldSide, newSide), nil
+}
+
+// Against compares the package in oldDir with the results.json data of a run not yet written
+// (name and sha256 are its input's), for the revision marks of the new package.
+func Against(oldDir string, data []byte, name, sha256 string) (*Changes, map[string]float64, error) {
+	oldRes, oldSide, err := readSide(oldDir)
+	if err != nil {
+		return nil, nil, err
+	}
+	newRes, err := parseResults(ResultsName, data)
+	if err != nil {
+		return nil, nil, err
+	}
+	old := map[string]float64{}
+	for _, s := range oldRes.Basis {
+		old[s.ID] = s.Value
+	}
+	for _, d := range oldRes.Designs {
+		for _, s := range d.Trace {
+			old[s.ID] = s.Value
+		}
+	}
+	return compare(oldRes, newRes, oldSide, Side{Tool: newRes.Tool, InputName: name, InputSHA256: sha256}), old, nil
+}
+
+// compare lists the changes from the old results to the new.
+func compare(oldRes, newRes *results, oldSide, newSide Side) *Changes {
 	c := &Changes{Old: oldSide, New: newSide}
 	c.project(oldRes, newRes)
 	oldBasis, newBasis := givenValues(oldRes.Basis), givenValues(newRes.Basis)
@@ -78,7 +106,7 @@ func Compare(oldDir, newDir string) (*Changes, error) {
 			c.add(o, "design removed", outcome(o), none)
 		}
 	}
-	return c, nil
+	return c
 }
 
 // readSide reads the results and, when there is one, the manifest of the package in dir.
@@ -392,4 +420,33 @@ func code(s string) string {
 		return escape(s)
 	}
 	return "`" + strings.ReplaceAll(s, "|", `\|`) + "`"
+}
+
+// Revision returns the changes as the revision table of a new package's documents, in plain
+// text (the printers escape it), marking against the previous package's step values old.
+func (c *Changes) Revision(against string, old map[string]float64) *reports.Revision {
+	r := &reports.Revision{Against: against, Old: old}
+	for _, x := range c.Rows {
+		r.Rows = append(r.Rows, reports.RevisionRow{Column: plain(x.Column), Lift: plain(x.Lift), Item: plain(x.Item), Old: plain(x.Old), New: plain(x.New)})
+	}
+	return r
+}
+
+// plain undoes the Markdown of escape and code.
+func plain(s string) string {
+	var b strings.Builder
+	esc := false
+	for _, r := range s {
+		switch {
+		case esc:
+			b.WriteRune(r)
+			esc = false
+		case r == '\\':
+			esc = true
+		case r == '`':
+		default:
+			b.WriteRune(r)
+		}
+	}
+	return b.String()
 }

@@ -125,6 +125,11 @@ func readResults(name string) (*results, error) {
 	if err != nil {
 		return nil, err
 	}
+	return parseResults(name, data)
+}
+
+// parseResults reads the results.json data (name is for messages).
+func parseResults(name string, data []byte) (*results, error) {
 	var r results
 	if err := json.Unmarshal(data, &r); err != nil {
 		return nil, fmt.Errorf("%s: %v", name, err)
