@@ -71,7 +71,7 @@ type noteRow struct {
 func document(m markup, r *design.Result, b *book, p place) docView {
 	in := input(r)
 	idx := index(m, r, func(name string) string { return "#" + anchorName("d-", name) }, b, p)
-	idx.Subject = m.text("Calculation package")
+	idx.Subject, idx.PlainSubject = m.text("Calculation package"), "Calculation package"
 	idx.Sheet, idx.SheetNo = m.text("calc document"), m.text("—")
 	idx.Sec1, idx.Sec2 = "section", "subsection*"
 	idx.ScheduleLast = false

@@ -578,3 +578,24 @@ func TestScheduleFireStatus(t *testing.T) {
 		}
 	}
 }
+
+// The PDF carries the project's title and designer in its metadata, in characters a PDF
+// information string takes safely (common practice, no source).
+func TestPDFMetadata(t *testing.T) {
+	for in, want := range map[string]string{
+		"Fenwick Quay, block 2":   "Fenwick Quay, block 2",
+		`50% {raw} \input & #tab`: "50 raw input tab",
+		"Beam A1–B1":              "Beam A1-B1",
+	} {
+		if got := pdfText(in); got != want {
+			t.Errorf("pdfText(%q) = %q, want %q", in, got, want)
+		}
+	}
+	sheets, err := LaTeX(sample(t, "Riverside Offices"), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Contains(sheets[1].Data, []byte(`pdftitle={Riverside Offices: Column K1, lift L1}`)) {
+		t.Error("the sheet's PDF has no title")
+	}
+}

@@ -34,6 +34,25 @@ var Cautions = []string{
 type projectView struct {
 	Title, Job, Revision, Designer, Checker, Date string
 	Short                                         string // the title cut to fit a running head
+	// The title, designer and checker for the PDF's metadata: plain ASCII, no markup.
+	PlainTitle, PlainDesigner, PlainChecker string
+}
+
+// pdfText keeps the characters of s that a PDF information string takes safely in LaTeX
+// (ASCII letters, digits, spaces and plain punctuation); others become spaces.
+func pdfText(s string) string {
+	var b strings.Builder
+	for _, r := range oneLine(s) {
+		switch {
+		case r >= 'a' && r <= 'z', r >= 'A' && r <= 'Z', r >= '0' && r <= '9', strings.ContainsRune(" .,:;()/'+-", r):
+			b.WriteRune(r)
+		case r == '–' || r == '—':
+			b.WriteByte('-')
+		default:
+			b.WriteByte(' ')
+		}
+	}
+	return strings.Join(strings.Fields(b.String()), " ")
 }
 
 type overrideView struct {
@@ -124,6 +143,8 @@ type sheetView struct {
 	Number   int
 	Total    int
 	Subject  string // "column K1, lift L1"
+	// The subject and the program for the PDF's metadata: plain ASCII, no markup.
+	PlainSubject, PlainTool string
 	Cautions []string
 	Basis    basisView
 
@@ -205,7 +226,8 @@ func dash(m markup, s string) string {
 func project(m markup, in *model.Input) projectView {
 	p := in.Project
 	return projectView{Title: dash(m, p.Title), Short: dash(m, shorten(p.Title, 56)), Job: dash(m, p.Job), Revision: dash(m, p.Revision),
-		Designer: dash(m, p.Designer), Checker: dash(m, p.Checker), Date: dash(m, p.Date)}
+		Designer: dash(m, p.Designer), Checker: dash(m, p.Checker), Date: dash(m, p.Date),
+		PlainTitle: pdfText(p.Title), PlainDesigner: pdfText(p.Designer), PlainChecker: pdfText(p.Checker)}
 }
 
 // toolName is the program's name as the result gives it, "colsheet" when it gives none.
@@ -289,7 +311,8 @@ func index(m markup, r *design.Result, link func(name string) string, b *book, p
 	total := len(r.Designs) + 1
 	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(m, in), Number: 1, Total: total, Sheet: m.text(fmt.Sprintf("sheet 1 of %d", total)),
 		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
-		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r)}
+		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r),
+		PlainSubject: "Index of calculation sheets", PlainTool: pdfText(program(r))}
 	nm := names(r)
 	groupOf := groupNames(r)
 	for i, d := range r.Designs {
@@ -340,6 +363,7 @@ func sheet(m markup, b *book, i int, p place) sheetView {
 		Sheet:   m.text(fmt.Sprintf("sheet %d of %d", i+2, total)),
 		SheetNo: m.text(fmt.Sprintf("%d of %d", i+2, total)),
 		Subject: m.text(subject(d)), Cautions: texts(m, Cautions), Basis: basis(m, r),
+		PlainSubject: pdfText(subject(d)), PlainTool: pdfText(program(r)),
 		Status: st, Failed: failed, Reasons: texts(m, d.Reasons), DesignCautions: texts(m, d.Cautions),
 		Utilization: m.num(fmtNum(d.Utilization)), Governing: dash(m, d.Governing)}
 	given := "chosen by the design"
