@@ -133,20 +133,20 @@ type designRow struct {
 }
 
 type sheetView struct {
-	H        string // Markdown: extra '#' that push the design's headings one level down in the calc document
-	Sec1     string // LaTeX: the sectioning command of the design's parts ("section*", or "subsection*" in the calc document)
-	Sec2     string // LaTeX: the sectioning command one level below
-	Anchor   string // link target of the design's section, marked up (calc document only)
-	Project  projectView
-	Sheet    string // "sheet 3 of 12"
-	SheetNo  string // "3 of 12"
-	Number   int
-	Total    int
-	Subject  string // "column K1, lift L1"
+	H       string // Markdown: extra '#' that push the design's headings one level down in the calc document
+	Sec1    string // LaTeX: the sectioning command of the design's parts ("section*", or "subsection*" in the calc document)
+	Sec2    string // LaTeX: the sectioning command one level below
+	Anchor  string // link target of the design's section, marked up (calc document only)
+	Project projectView
+	Sheet   string // "sheet 3 of 12"
+	SheetNo string // "3 of 12"
+	Number  int
+	Total   int
+	Subject string // "column K1, lift L1"
 	// The subject and the program for the PDF's metadata: plain ASCII, no markup.
 	PlainSubject, PlainTool string
-	Cautions []string
-	Basis    basisView
+	Cautions                []string
+	Basis                   basisView
 
 	// design sheets only
 	Status         string // PASS or FAIL
