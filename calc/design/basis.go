@@ -1,7 +1,6 @@
 package design
 
 import (
-	"encoding/json"
 	"reflect"
 	"slices"
 	"strconv"
@@ -40,7 +39,7 @@ type projectBasis struct {
 	laps                         map[float64]trace.Q // l0 by bar diameter
 	covers                       []coverSet
 	creeps                       []creepSet
-	signatures                   map[string]string // step signature → basis ID, for hoist
+	near                         map[likeKey][]int // basis steps by title, symbol and value, for the hoister
 }
 
 // coverSet is the cover allowances of one set of durability data.
@@ -157,13 +156,10 @@ func newBasis(in *model.Input) *projectBasis {
 	}
 
 	b.steps = l.Steps
-	b.signatures = make(map[string]string, len(b.steps))
-	for _, s := range b.steps {
-		if sig := signature(s); sig != "" {
-			if _, dup := b.signatures[sig]; !dup {
-				b.signatures[sig] = s.ID
-			}
-		}
+	b.near = make(map[likeKey][]int, len(b.steps))
+	for i, s := range b.steps {
+		k := likeKey{s.Title, s.Symbol, s.Value}
+		b.near[k] = append(b.near[k], i)
 	}
 	return b
 }
@@ -348,73 +344,84 @@ func (b *projectBasis) find(id string) (trace.Step, bool) {
 	return trace.Step{}, false
 }
 
-// signature returns what makes two steps the same step but for their IDs and sheet sections:
-// the title, clause, kind, symbol, expression, arguments with their sources, value, unit and
-// every remark. It is empty for a step that no basis step can stand for: a check, a solve, or a
-// step with an argument from a step outside the basis.
-func signature(s trace.Step) string {
-	switch s.Kind {
-	case trace.KindInput, trace.KindTable, trace.KindFormula:
-	default:
-		return ""
-	}
-	for _, a := range s.Args {
-		if a.From != "" && !strings.HasPrefix(a.From, "/"+BasisPrefix) {
-			return ""
-		}
-	}
-	s.ID, s.Group = "", ""
-	b, err := json.Marshal(s)
-	if err != nil {
-		return ""
-	}
-	return string(b)
+// hoister takes out of a run's steps those that repeat a basis step (the same clause, formula,
+// arguments and value: the code parameters and ψ factors that the building's take-down records,
+// the factors of Annex B that depend on the creep data alone) and refers their users to the basis
+// step, so that every reference still names a step of its own trace, of another design's, or of
+// the basis.
+type hoister struct {
+	b     *projectBasis
+	moved map[string]string // whole ID of a step taken out → basis ID ("/basis/…")
 }
 
-// hoist takes out of each design the steps that repeat a basis step (the same clause, formula,
-// arguments and value: the code parameters and ψ factors the building's take-down records, the
-// factors of Annex B that depend on the creep data alone) and refers their users to the basis
-// step. Every reference of every design still names a step of its own trace, of another
-// design's, or of the basis.
-func (b *projectBasis) hoist(designs []Design) {
-	moved := map[string]string{} // whole ID of a step taken out → basis ID ("/basis/…")
-	for k := range designs {
-		d := &designs[k]
-		prefix := d.Column + "/" + d.Storey + "/"
-		out := make([]trace.Step, 0, len(d.Steps))
-		for _, s := range d.Steps {
-			s = redirect(s, prefix, moved)
-			if id, ok := b.signatures[signature(s)]; ok && signature(s) != "" {
-				moved[prefix+s.ID] = id
-				continue
+func (b *projectBasis) hoister() *hoister {
+	return &hoister{b: b, moved: map[string]string{}}
+}
+
+// filter appends to out the steps, of the design with IDs under prefix (COLUMN/LIFT/), that do
+// not repeat a basis step, with the users of those that do referring to it; and returns the
+// places in out of the steps that refer to another design.
+func (h *hoister) filter(out, steps []trace.Step, prefix string) (_ []trace.Step, across []int) {
+	var local map[string]string // own ID of a step taken out → basis ID
+	for i := range steps {
+		out = append(out, steps[i])
+		s := &out[len(out)-1]
+		cross := h.redirect(s, local)
+		if id, ok := h.repeats(s); ok {
+			if local == nil {
+				local = map[string]string{}
 			}
-			out = append(out, s)
-		}
-		d.Steps = out
-	}
-	// References to a step taken out that come before it or from another design.
-	for k := range designs {
-		d := &designs[k]
-		prefix := d.Column + "/" + d.Storey + "/"
-		for i := range d.Steps {
-			d.Steps[i] = redirect(d.Steps[i], prefix, moved)
-		}
-	}
-}
-
-// redirect returns s with every argument whose source step was moved (by its whole ID, in moved)
-// referring to the basis step instead; the arguments are copied before any change.
-func redirect(s trace.Step, prefix string, moved map[string]string) trace.Step {
-	copied := false
-	for j, a := range s.Args {
-		if a.From == "" {
+			local[s.ID] = id
+			h.moved[prefix+s.ID] = id
+			out = out[:len(out)-1]
 			continue
 		}
-		whole := prefix + a.From
-		if strings.HasPrefix(a.From, "/") {
-			whole = a.From[1:]
+		if cross {
+			across = append(across, len(out)-1)
 		}
-		id, ok := moved[whole]
+	}
+	return out, across
+}
+
+// repeats returns the ID of the basis step that s repeats, if any: the same step in every field
+// but its ID and sheet section (the same clause, formula, arguments with their sources, value
+// and remarks).
+func (h *hoister) repeats(s *trace.Step) (string, bool) {
+	if !mayRepeat(s) {
+		return "", false
+	}
+	// Compared in place, with the ID and section of the basis step for the while.
+	id, group := s.ID, s.Group
+	for _, i := range h.b.near[likeKey{s.Title, s.Symbol, s.Value}] {
+		b := &h.b.steps[i]
+		s.ID, s.Group = b.ID, b.Group
+		same := reflect.DeepEqual(s, b)
+		s.ID, s.Group = id, group
+		if same {
+			return b.ID, true
+		}
+	}
+	return "", false
+}
+
+// redirect makes every argument of s whose source step was taken out (own in local by its ID in
+// the design, any in moved by its whole ID) refer to the basis step instead, the arguments copied
+// before any change, and reports whether s refers to a step of another design.
+func (h *hoister) redirect(s *trace.Step, local map[string]string) (across bool) {
+	copied := false
+	for j := range s.Args {
+		f := s.Args[j].From
+		var id string
+		var ok bool
+		switch {
+		case f == "" || strings.HasPrefix(f, "/"+BasisPrefix):
+			continue
+		case f[0] == '/':
+			across = true
+			id, ok = h.moved[f[1:]]
+		case local != nil:
+			id, ok = local[f]
+		}
 		if !ok {
 			continue
 		}
@@ -423,5 +430,37 @@ func redirect(s trace.Step, prefix string, moved map[string]string) trace.Step {
 		}
 		s.Args[j].From = id
 	}
-	return s
+	return across
+}
+
+// hoistTail takes out of the steps of l from index from on those that repeat a basis step,
+// in place, and refers the later ones to it (a step's references name earlier steps).
+func (b *projectBasis) hoistTail(l *trace.Log, from int) {
+	h := b.hoister()
+	kept, _ := h.filter(nil, l.Steps[from:], "")
+	n := copy(l.Steps[from:], kept)
+	clear(l.Steps[from+n:])
+	l.Steps = l.Steps[:from+n]
+}
+
+// mayRepeat reports whether s is of a kind that a basis step can stand for, its arguments (if
+// any) all from the basis; repeats tells for certain.
+func mayRepeat(s *trace.Step) bool {
+	switch s.Kind {
+	case trace.KindInput, trace.KindTable, trace.KindFormula:
+	default:
+		return false
+	}
+	for _, a := range s.Args {
+		if a.From != "" && !strings.HasPrefix(a.From, "/"+BasisPrefix) {
+			return false
+		}
+	}
+	return true
+}
+
+// likeKey is what a step must share with a basis step to be worth comparing in full.
+type likeKey struct {
+	title, symbol string
+	value         float64
 }

@@ -36,6 +36,11 @@ func Run(in *model.Input) (*Result, error) {
 		b := in.Building
 		r.Designs = make([]Design, len(d.Lifts))
 		r.cases = make([]liftCase, len(d.Lifts))
+		// The take-down's steps that repeat a basis step (code parameters, ψ factors) are the
+		// basis's: each lift refers to them.
+		h := r.bs.hoister()
+		type at struct{ k, i int }
+		var across []at
 		// Each column from its top lift down, so that a lift's bars are not less than those of
 		// the lift above (the bars do not grow up the building, common practice) and the lap
 		// above a lift can be checked.
@@ -47,7 +52,7 @@ func Run(in *model.Input) (*Result, error) {
 			}
 			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
 				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
-			dv := &Derivation{Steps: lf.Steps, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt, Min: lf.Src.Min,
+			dv := &Derivation{Steps: lf.Steps, hoist: h, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt, Min: lf.Src.Min,
 				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 			if k+1 < len(d.Lifts) && d.Lifts[k+1].Column == lf.Column {
 				above := &r.Designs[k+1]
@@ -55,6 +60,14 @@ func Run(in *model.Input) (*Result, error) {
 			}
 			r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
 			r.cases[k] = liftCase{col, &col.Storeys[0]}
+			for _, i := range dv.across {
+				across = append(across, at{k, i})
+			}
+		}
+		// References to another lift's step taken out after them: the design's trace begins
+		// with its derivation's steps.
+		for _, x := range across {
+			h.redirect(&r.Designs[x.k].Steps[x.i], nil)
 		}
 	} else {
 		for ci := range in.Columns {
@@ -68,7 +81,6 @@ func Run(in *model.Input) (*Result, error) {
 	if in.Options.Sizes != nil {
 		r.Sizes = findSizes(in, r)
 	}
-	r.bs.hoist(r.Designs)
 	r.Basis = r.bs.public()
 	return r, nil
 }
@@ -89,6 +101,9 @@ type Derivation struct {
 	Min         [2]building.MinCase
 	L0          [2]trace.Q // effective lengths about y and z, when derived
 	Top, Bottom [2]trace.Q // end moments about y and z
+
+	hoist  *hoister // takes the steps that repeat a basis step out of Steps; nil: none
+	across []int    // places of the steps that refer to another lift, once hoisted
 }
 
 // methods returns the methods and assumptions in force for the input.
@@ -214,8 +229,17 @@ type axisCommon struct {
 // param returns the code parameter name in force, as its step of the project basis records it.
 func param(p code.Params, name, unit string) trace.Q {
 	cat, _ := code.Lookup(name)
-	return trace.Q{V: p.Get(name), Symbol: cat.Symbol, Unit: unit, From: "/" + BasisPrefix + "code/" + name}
+	return trace.Q{V: p.Get(name), Symbol: cat.Symbol, Unit: unit, From: paramFrom[name]}
 }
+
+// paramFrom holds the ID of each code parameter's basis step, from the root: "/basis/code/NAME".
+var paramFrom = func() map[string]string {
+	m := make(map[string]string, len(code.Catalogue))
+	for _, c := range code.Catalogue {
+		m[c.Name] = "/" + BasisPrefix + "code/" + c.Name
+	}
+	return m
+}()
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv, bs: bs}
@@ -227,7 +251,12 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	}
 	l := &trace.Log{Steps: make([]trace.Step, 0, room)}
 	if dv != nil && dv.Steps != nil {
-		l.Steps = append(make([]trace.Step, 0, len(dv.Steps)+room), dv.Steps...)
+		l.Steps = make([]trace.Step, 0, len(dv.Steps)+room)
+		if dv.hoist != nil {
+			l.Steps, dv.across = dv.hoist.filter(l.Steps, dv.Steps, col.ID+"/"+st.Name+"/")
+		} else {
+			l.Steps = append(l.Steps, dv.Steps...)
+		}
 	}
 	p := in.Code
 
@@ -564,7 +593,9 @@ func (c *common) creepRatio(l *trace.Log, dv *Derivation) (trace.Q, bool) {
 	l.Group = "Creep (EN 1992-1-1 Annex B)"
 	fcm, rh, t0, alpha := c.bs.creepOf(l, cr)
 	h0 := l.Add(creep.NotionalSizeRect("creep/h0", c.b, c.h))
+	from := len(l.Steps)
 	phiInf := creep.Coefficient(l, "creep/", fcm, rh, h0, t0, alpha)
+	c.bs.hoistTail(l, from) // the factors that depend on the creep data alone are the basis's
 	var ratio trace.Q
 	switch {
 	case cr.Ratio > 0:
