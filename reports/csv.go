@@ -114,3 +114,13 @@ func scheduleRow(d design.Design, group string, esc func(string) string) []strin
 		strconv.Itoa(d.Detailing.ExtraTies), n(d.Cover), opt(d.Detailing.CoverRequired), rating, status,
 		fmtNum(d.Utilization).plain(), d.Status, esc(d.Governing)}
 }
+
+// scheduleCells returns one design's schedule entries as cells of the document tree.
+func scheduleCells(d design.Design, group string) []inline {
+	row := scheduleRow(d, group, func(s string) string { return s })
+	out := make([]inline, len(row))
+	for i, c := range row {
+		out[i] = txt(c)
+	}
+	return out
+}

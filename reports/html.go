@@ -2,7 +2,6 @@ package reports
 
 import (
 	"bytes"
-	"fmt"
 	"html/template"
 	"strings"
 
@@ -49,12 +48,6 @@ func (verdictClasses) Transform(doc *ast.Document, reader text.Reader, _ parser.
 			if w := strongWord(n, src); w != "" {
 				n.SetAttributeString("class", []byte(strings.ToLower(w)))
 			}
-		case ast.KindLink:
-			// The calc document's links to the per-lift Markdown sheets lead to their HTML pages.
-			l := n.(*ast.Link)
-			if d := string(l.Destination); strings.HasPrefix(d, sheetDir) && strings.HasSuffix(d, ".md") {
-				l.Destination = []byte("../html/" + strings.TrimSuffix(strings.TrimPrefix(d, sheetDir), ".md") + ".html")
-			}
 		case ast.KindBlockquote:
 			if p := n.FirstChild(); p != nil && p.Kind() == ast.KindParagraph && strongWord(p.FirstChild(), src) == "FAIL" {
 				n.SetAttributeString("class", []byte("fail"))
@@ -84,15 +77,10 @@ type htmlPage struct {
 	Sheets      []htmlSheet
 }
 
-// HTML returns the calc sheets as self-contained HTML pages rendered from the Markdown, each
-// converted once: index.html first, then one page per design. The calc document (calc.html)
-// holds the whole package in one page.
-func HTML(r *design.Result, o Options) ([]Sheet, error) {
-	if r == nil {
-		return nil, fmt.Errorf("reports: no result")
-	}
-	pageOf := func(name string) string { return name + ".html" }
-	single, err := markdown(r, pageOf, place{file: pageOf, opt: o, fold: o.full()})
+// html prints the set as HTML pages: each sheet printed as Markdown with HTML's links and its
+// folded sub-steps, converted by goldmark once, in the page template.
+func (s *sheetSet) html(r *design.Result) ([]Sheet, error) {
+	single, err := s.print(htmlFormat)
 	if err != nil {
 		return nil, err
 	}
@@ -147,23 +135,18 @@ func execPage(t *template.Template, p htmlPage) ([]byte, error) {
 	return b.Bytes(), nil
 }
 
-// DocumentHTML returns the calc document as one self-contained HTML page (calc.html),
-// rendered from the Markdown document.
-func DocumentHTML(r *design.Result, o Options) (Sheet, error) {
-	doc, err := DocumentMarkdown(r, o)
-	if err != nil {
-		return Sheet{}, err
-	}
-	return documentHTML(r, doc)
-}
-
-// documentHTML renders the Markdown calc document doc of r as the HTML one.
-func documentHTML(r *design.Result, doc Sheet) (Sheet, error) {
+// documentHTML prints the calc document v as one self-contained HTML page, from its Markdown
+// with HTML's links, converted by goldmark once.
+func documentHTML(r *design.Result, v *docView) (Sheet, error) {
 	t, err := template.ParseFS(templates.FS, "html/page.html.tmpl")
 	if err != nil {
 		return Sheet{}, err
 	}
-	body, err := toHTML(doc.Data)
+	data, err := printDocument(v, htmlFormat)
+	if err != nil {
+		return Sheet{}, err
+	}
+	body, err := toHTML(data)
 	if err != nil {
 		return Sheet{}, err
 	}

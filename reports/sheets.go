@@ -29,11 +29,11 @@ var Cautions = []string{
 	"Every number on this sheet is taken from a recorded calculation step; the step list is also in results.json.",
 }
 
-// ---- view model: every string is already escaped for the format ----
+// ---- the document tree: views whose leaves are inline runs, printed per format ----
 
 type projectView struct {
-	Title, Job, Revision, Designer, Checker, Date string
-	Short                                         string // the title cut to fit a running head
+	Title, Job, Revision, Designer, Checker, Date inline
+	Short                                         inline // the title cut to fit a running head
 	// The title, designer and checker for the PDF's metadata: plain ASCII, no markup.
 	PlainTitle, PlainDesigner, PlainChecker string
 }
@@ -56,78 +56,75 @@ func pdfText(s string) string {
 }
 
 type overrideView struct {
-	Name, Symbol, Value, Default, Clause, What string
+	Name, Symbol, Value, Default, Clause, What inline
 }
 
 type basisView struct {
-	Standard, Annex string
+	Standard, Annex inline
 	Overrides       []overrideView
 	Choices         []kv   // method choices
-	Input, SHA      string // input file and its hash
-	Tool            string // tool name and version
+	Input, SHA      inline // input file and its hash
+	Tool            inline // tool name and version
 }
 
-type kv struct{ Label, Value string }
+type kv struct{ Label, Value inline }
 
-type axisRow struct{ Label, Y, Z string }
+type axisRow struct{ Label, Y, Z inline }
 
 type stepView struct {
 	Prefix   string // "B." for a step of the project basis
 	Number   int
-	Anchor   string // the link target of the step, already marked up for the format
-	ID       string
-	Title    string
-	Clause   string
-	Kind     string // the kind, escaped for display
+	Anchor   inline // the link target of the step
+	ID       inline
+	Title    inline
+	Clause   inline
+	Kind     inline // the kind, for display
 	Type     string // the kind as recorded: input, formula, table, solve or check
-	Formula  string // the expression in symbols, with the result symbol: "f_cd = α_cc · f_ck / γ_c"
-	Values   string // the expression with the values: "1 · 32 MPa / 1.5"
-	Result   string // "f_cd = 21.33 MPa"
-	Value    string // the result without its symbol: "21.33 MPa"
-	Row      string
-	Method   string
-	Verify   string // verification expression in symbols
-	Residual string
-	Relation string
+	Formula  inline // the expression in symbols, with the result symbol: "f_cd = α_cc · f_ck / γ_c"
+	Values   inline // the expression with the values: "1 · 32 MPa / 1.5"
+	Result   inline // "f_cd = 21.33 MPa"
+	Value    inline // the result without its symbol: "21.33 MPa"
+	Row      inline
+	Method   inline
+	Verify   inline // verification expression in symbols
+	Residual inline
+	Relation inline
 	Verdict  string // PASS or FAIL for a check step
 	Failed   bool
-	Uses     string // the steps whose results this step uses, linked: "steps 3, 5" or "B2/L2 step 57"
-	Notes    []string
-	Cautions []string
+	Uses     inline // the steps whose results this step uses, linked: "steps 3, 5" or "B2/L2 step 57"
+	Notes    []inline
+	Cautions []inline
 	Changed  bool // the value differs from the previous revision's (or the step is new)
-	// Folding of the sub-steps in full detail for HTML: the first step of a folded run opens it
-	// (FoldOpen, with the run's length in FoldCount), the last closes it.
+	// Folding of the sub-steps in full detail (printed as such in HTML): the first step of a
+	// folded run opens it (FoldOpen, with the run's length in FoldCount), the last closes it.
 	FoldOpen, FoldClose bool
 	FoldCount           int
 }
 
-// figureView is one drawn diagram with its caption, both marked up.
-type figureView struct{ Body, Caption string }
+// figureView is one drawn diagram with its caption.
+type figureView struct{ Body, Caption inline }
 
 type groupView struct {
-	Title string
+	Title inline
 	Steps []stepView
 }
 
-// A run of sub-steps is folded in HTML: FoldOpen marks its first step, FoldClose its last,
-// Folded the count.
-
 // sizeRow is one line of the section-size finder's table.
 type sizeRow struct {
-	Column, Given, Found, Steel, Utilization string
+	Column, Given, Found, Steel, Utilization inline
 }
 
 type designRow struct {
 	Sheet       string // "2"
-	Link        string // relative link target, safe
-	Column      string
-	Storey      string
-	Section     string
-	NEd         string // kN
-	MEdY, MEdZ  string // kNm
-	Bars        string
-	Links       string
-	Utilization string
+	Link        target // the design's sheet
+	Column      inline
+	Storey      inline
+	Section     inline
+	NEd         inline // kN
+	MEdY, MEdZ  inline // kNm
+	Bars        inline
+	Links       inline
+	Utilization inline
 	Status      string // PASS or FAIL
 	Failed      bool
 }
@@ -136,25 +133,25 @@ type sheetView struct {
 	H       string // Markdown: extra '#' that push the design's headings one level down in the calc document
 	Sec1    string // LaTeX: the sectioning command of the design's parts ("section*", or "subsection*" in the calc document)
 	Sec2    string // LaTeX: the sectioning command one level below
-	Anchor  string // link target of the design's section, marked up (calc document only)
+	Anchor  inline // link target of the design's section (calc document only)
 	Project projectView
-	Sheet   string // "sheet 3 of 12"
-	SheetNo string // "3 of 12"
+	Sheet   inline // "sheet 3 of 12"
+	SheetNo inline // "3 of 12"
 	Number  int
 	Total   int
-	Subject string // "column K1, lift L1"
+	Subject inline // "column K1, lift L1"
 	// The subject and the program for the PDF's metadata: plain ASCII, no markup.
 	PlainSubject, PlainTool string
-	Cautions                []string
+	Cautions                []inline
 	Basis                   basisView
 
 	// design sheets only
 	Status         string // PASS or FAIL
 	Failed         bool
-	Reasons        []string
-	DesignCautions []string
-	Utilization    string
-	Governing      string
+	Reasons        []inline
+	DesignCautions []inline
+	Utilization    inline
+	Governing      inline
 	Summary        []kv
 	Axes           []axisRow
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
@@ -167,8 +164,8 @@ type sheetView struct {
 	// index only
 	Designs  []designRow
 	Sizes    []sizeRow  // the section-size finder, when asked for
-	Schedule [][]string // the column schedule, one row per design, cells already marked up
-	Failures string     // sentence on the count of failing designs
+	Schedule [][]inline // the column schedule, one row per design
+	Failures inline     // sentence on the count of failing designs
 	AnyFail  bool
 }
 
@@ -216,17 +213,17 @@ func input(r *design.Result) *model.Input {
 	return &model.Input{Code: code.Recommended()}
 }
 
-func dash(m markup, s string) string {
+func dash(s string) inline {
 	if strings.TrimSpace(s) == "" {
-		return "—"
+		return txt("—")
 	}
-	return m.text(s)
+	return txt(s)
 }
 
-func project(m markup, in *model.Input) projectView {
+func project(in *model.Input) projectView {
 	p := in.Project
-	return projectView{Title: dash(m, p.Title), Short: dash(m, shorten(p.Title, 56)), Job: dash(m, p.Job), Revision: dash(m, p.Revision),
-		Designer: dash(m, p.Designer), Checker: dash(m, p.Checker), Date: dash(m, p.Date),
+	return projectView{Title: dash(p.Title), Short: dash(shorten(p.Title, 56)), Job: dash(p.Job), Revision: dash(p.Revision),
+		Designer: dash(p.Designer), Checker: dash(p.Checker), Date: dash(p.Date),
 		PlainTitle: pdfText(p.Title), PlainDesigner: pdfText(p.Designer), PlainChecker: pdfText(p.Checker)}
 }
 
@@ -241,20 +238,20 @@ func toolName(r *design.Result) string {
 // program is the program's name and version, as the sheets show it.
 func program(r *design.Result) string { return strings.TrimSpace(toolName(r) + " " + r.ToolVersion) }
 
-func basis(m markup, r *design.Result) basisView {
+func basis(r *design.Result) basisView {
 	in := input(r)
-	b := basisView{Standard: m.text(code.Standard), Annex: dash(m, in.Code.Annex),
-		Input: dash(m, in.File), SHA: dash(m, in.SHA256)}
-	b.Tool = m.text(program(r))
+	b := basisView{Standard: txt(code.Standard), Annex: dash(in.Code.Annex),
+		Input: dash(in.File), SHA: dash(in.SHA256)}
+	b.Tool = txt(program(r))
 	for _, o := range in.Code.Overrides() {
-		b.Overrides = append(b.Overrides, overrideView{Name: m.text(o.Name), Symbol: m.sym(o.Symbol),
-			Value: m.num(fmtNum(o.Value)), Default: m.num(fmtNum(o.Default)), Clause: m.text(o.Clause), What: m.rich(o.What)})
+		b.Overrides = append(b.Overrides, overrideView{Name: txt(o.Name), Symbol: sym(o.Symbol),
+			Value: numv(fmtNum(o.Value)), Default: numv(fmtNum(o.Default)), Clause: txt(o.Clause), What: rich(o.What)})
 	}
 	if c := in.Materials.Concrete.Class; c != "" {
-		b.Choices = append(b.Choices, kv{m.text("Concrete"), m.text(c)})
+		b.Choices = append(b.Choices, kv{txt("Concrete"), txt(c)})
 	}
 	for _, me := range r.Methods {
-		b.Choices = append(b.Choices, kv{m.text(me.Topic), m.text(me.Choice + " (" + me.Clause + ")")})
+		b.Choices = append(b.Choices, kv{txt(me.Topic), txt(me.Choice + " (" + me.Clause + ")")})
 	}
 	return b
 }
@@ -266,10 +263,10 @@ func status(s string) (string, bool) {
 	return "FAIL", true
 }
 
-func texts(m markup, ss []string) []string {
-	var out []string
+func texts(ss []string) []inline {
+	var out []inline
 	for _, s := range ss {
-		out = append(out, m.rich(s))
+		out = append(out, rich(s))
 	}
 	return out
 }
@@ -306,118 +303,118 @@ func linksText(d design.Design) string {
 
 // index builds the view of the index sheet, with the steps of the project basis; link gives
 // the target of a design's sheet.
-func index(m markup, r *design.Result, link func(name string) string, b *book, p place) sheetView {
+func index(r *design.Result, link func(name string) target, b *book, p place) sheetView {
 	in := input(r)
 	total := len(r.Designs) + 1
-	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(m, in), Number: 1, Total: total, Sheet: m.text(fmt.Sprintf("sheet 1 of %d", total)),
-		SheetNo: m.text(fmt.Sprintf("1 of %d", total)),
-		Subject: m.text("Index of calculation sheets"), Cautions: texts(m, Cautions), Basis: basis(m, r),
+	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(in), Number: 1, Total: total, Sheet: txt(fmt.Sprintf("sheet 1 of %d", total)),
+		SheetNo: txt(fmt.Sprintf("1 of %d", total)),
+		Subject: txt("Index of calculation sheets"), Cautions: texts(Cautions), Basis: basis(r),
 		PlainSubject: "Index of calculation sheets", PlainTool: pdfText(program(r))}
 	nm := names(r)
 	groupOf := groupNames(r)
 	for i, d := range r.Designs {
-		v.Schedule = append(v.Schedule, scheduleRow(d, groupOf[i], m.text))
+		v.Schedule = append(v.Schedule, scheduleCells(d, groupOf[i]))
 	}
 	for _, z := range r.Sizes {
-		row := sizeRow{Column: m.text(z.Column), Given: m.text(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
-			Found: m.text("none of the sizes passes"), Steel: m.text("–"), Utilization: m.text("–")}
+		row := sizeRow{Column: txt(z.Column), Given: txt(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
+			Found: txt("none of the sizes passes"), Steel: txt("–"), Utilization: txt("–")}
 		if z.Found {
-			row.Found = m.text(fmtNum(z.Size.B).plain() + " × " + fmtNum(z.Size.H).plain())
-			row.Steel = m.text(fmtNum(z.AsProv).plain() + " mm² (" + fmtNum(100*z.Rho).plain() + " %)")
-			row.Utilization = m.num(fmtNum(z.Utilization))
+			row.Found = txt(fmtNum(z.Size.B).plain() + " × " + fmtNum(z.Size.H).plain())
+			row.Steel = txt(fmtNum(z.AsProv).plain() + " mm² (" + fmtNum(100*z.Rho).plain() + " %)")
+			row.Utilization = numv(fmtNum(z.Utilization))
 		}
 		v.Sizes = append(v.Sizes, row)
 	}
 	for i, d := range r.Designs {
 		st, failed := status(d.Status)
 		v.Designs = append(v.Designs, designRow{
-			Sheet: fmt.Sprint(i + 2), Link: link(nm[i]), Column: m.text(d.Column), Storey: m.text(d.Storey),
-			Section: m.text(fmt.Sprintf("%s × %s", fmtNum(d.B).plain(), fmtNum(d.H).plain())),
-			NEd:     m.num(fmtNum(d.NEd / 1e3)), MEdY: m.num(fmtNum(d.Y.MEd / 1e6)), MEdZ: m.num(fmtNum(d.Z.MEd / 1e6)),
-			Bars: m.text(barsText(d)), Links: m.text(linksText(d)),
-			Utilization: m.num(fmtNum(d.Utilization)), Status: st, Failed: failed})
+			Sheet: fmt.Sprint(i + 2), Link: link(nm[i]), Column: txt(d.Column), Storey: txt(d.Storey),
+			Section: txt(fmt.Sprintf("%s × %s", fmtNum(d.B).plain(), fmtNum(d.H).plain())),
+			NEd:     numv(fmtNum(d.NEd / 1e3)), MEdY: numv(fmtNum(d.Y.MEd / 1e6)), MEdZ: numv(fmtNum(d.Z.MEd / 1e6)),
+			Bars: txt(barsText(d)), Links: txt(linksText(d)),
+			Utilization: numv(fmtNum(d.Utilization)), Status: st, Failed: failed})
 	}
-	v.BasisSteps = basisGroups(m, b, p)
+	v.BasisSteps = basisGroups(b, p)
 	v.ScheduleLast = true
 	n := r.Failed()
 	v.AnyFail = n > 0
 	switch {
 	case len(r.Designs) == 0:
-		v.Failures = m.text("The input holds no designs.")
+		v.Failures = txt("The input holds no designs.")
 	case n == 0:
-		v.Failures = m.text(fmt.Sprintf("All %d designs pass.", len(r.Designs)))
+		v.Failures = txt(fmt.Sprintf("All %d designs pass.", len(r.Designs)))
 	default:
-		v.Failures = m.text(fmt.Sprintf("%d of %d designs FAIL.", n, len(r.Designs)))
+		v.Failures = txt(fmt.Sprintf("%d of %d designs FAIL.", n, len(r.Designs)))
 	}
 	return v
 }
 
 // sheet builds the view of the sheet of design i, its step links laid out for p.
-func sheet(m markup, b *book, i int, p place) sheetView {
+func sheet(b *book, i int, p place) sheetView {
 	r := b.r
 	in := input(r)
 	d := r.Designs[i]
 	total := len(r.Designs) + 1
 	st, failed := status(d.Status)
-	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(m, in), Number: i + 2, Total: total,
-		Sheet:   m.text(fmt.Sprintf("sheet %d of %d", i+2, total)),
-		SheetNo: m.text(fmt.Sprintf("%d of %d", i+2, total)),
-		Subject: m.text(subject(d)), Cautions: texts(m, Cautions), Basis: basis(m, r),
+	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(in), Number: i + 2, Total: total,
+		Sheet:   txt(fmt.Sprintf("sheet %d of %d", i+2, total)),
+		SheetNo: txt(fmt.Sprintf("%d of %d", i+2, total)),
+		Subject: txt(subject(d)), Cautions: texts(Cautions), Basis: basis(r),
 		PlainSubject: pdfText(subject(d)), PlainTool: pdfText(program(r)),
-		Status: st, Failed: failed, Reasons: texts(m, d.Reasons), DesignCautions: texts(m, d.Cautions),
-		Utilization: m.num(fmtNum(d.Utilization)), Governing: dash(m, d.Governing)}
+		Status: st, Failed: failed, Reasons: texts(d.Reasons), DesignCautions: texts(d.Cautions),
+		Utilization: numv(fmtNum(d.Utilization)), Governing: dash(d.Governing)}
 	given := "chosen by the design"
 	if d.Bars.Given {
 		given = "given in the input"
 	}
 	v.Summary = []kv{
-		{m.text("Section b × h"), m.qty(d.B, "mm") + " × " + m.qty(d.H, "mm")},
-		{m.text("Nominal cover to links"), m.qty(d.Cover, "mm")},
-		{m.rich("Concrete f_ck"), m.qty(d.Fck, "MPa")},
-		{m.rich("Reinforcement f_yk"), m.qty(d.Fyk, "MPa")},
-		{m.rich("Design axial force N_Ed"), m.qty(d.NEd, "N")},
-		{m.rich("Axial resistance N_Rd,max"), m.qty(d.NRdMax, "N")},
-		{m.text("Longitudinal bars"), m.text(barsText(d) + ", " + given)},
-		{m.rich("A_s,prov"), m.qty(d.AsProv, "mm2")},
-		{m.rich("A_s,req"), m.qty(d.AsReq, "mm2")},
-		{m.rich("A_s,min / A_s,max"), m.qty(d.AsMin, "mm2") + " / " + m.qty(d.AsMax, "mm2")},
-		{m.text("Links"), m.text("Ø"+fmtNum(d.Links.Dia).plain()+" mm at ") + m.qty(d.Links.Spacing, "mm") +
-			m.text(", ") + m.qty(d.Links.SpacingReduced, "mm") + m.text(" in the zones of 9.5.3(4)")},
+		{txt("Section b × h"), times(qty(d.B, "mm"), qty(d.H, "mm"))},
+		{txt("Nominal cover to links"), qty(d.Cover, "mm")},
+		{rich("Concrete f_ck"), qty(d.Fck, "MPa")},
+		{rich("Reinforcement f_yk"), qty(d.Fyk, "MPa")},
+		{rich("Design axial force N_Ed"), qty(d.NEd, "N")},
+		{rich("Axial resistance N_Rd,max"), qty(d.NRdMax, "N")},
+		{txt("Longitudinal bars"), txt(barsText(d) + ", " + given)},
+		{rich("A_s,prov"), qty(d.AsProv, "mm2")},
+		{rich("A_s,req"), qty(d.AsReq, "mm2")},
+		{rich("A_s,min / A_s,max"), cat(qty(d.AsMin, "mm2"), txt(" / "), qty(d.AsMax, "mm2"))},
+		{txt("Links"), cat(txt("Ø"+fmtNum(d.Links.Dia).plain()+" mm at "), qty(d.Links.Spacing, "mm"),
+			txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))},
 	}
 	if d.Biaxial.Checked {
-		v.Summary = append(v.Summary, kv{m.text("Biaxial bending (5.39)"),
-			m.text("checked, a = ") + m.num(fmtNum(d.Biaxial.A)) + m.text(", ratio ") + m.num(fmtNum(d.Biaxial.Ratio))})
+		v.Summary = append(v.Summary, kv{txt("Biaxial bending (5.39)"),
+			cat(txt("checked, a = "), numv(fmtNum(d.Biaxial.A)), txt(", ratio "), numv(fmtNum(d.Biaxial.Ratio)))})
 	} else {
-		v.Summary = append(v.Summary, kv{m.text("Biaxial bending (5.39)"), m.text("not required by (5.38a/b)")})
+		v.Summary = append(v.Summary, kv{txt("Biaxial bending (5.39)"), txt("not required by (5.38a/b)")})
 	}
-	yes := func(b bool) string {
+	yes := func(b bool) inline {
 		if b {
-			return m.text("yes")
+			return txt("yes")
 		}
-		return m.text("no")
+		return txt("no")
 	}
-	ax := func(label string, f func(a design.Axis) string) axisRow {
-		return axisRow{m.rich(label), f(d.Y), f(d.Z)}
+	ax := func(label string, f func(a design.Axis) inline) axisRow {
+		return axisRow{rich(label), f(d.Y), f(d.Z)}
 	}
 	v.Axes = []axisRow{
-		ax("Effective length l_0", func(a design.Axis) string { return m.qty(a.L0, "mm") }),
-		ax("Slenderness λ", func(a design.Axis) string { return m.num(fmtNum(a.Lambda)) }),
-		ax("Limit λ_lim", func(a design.Axis) string { return m.num(fmtNum(a.LambdaLim)) }),
-		ax("Slender", func(a design.Axis) string { return yes(a.Slender) }),
-		ax("End moment M_01", func(a design.Axis) string { return m.qty(a.M01, "Nmm") }),
-		ax("End moment M_02", func(a design.Axis) string { return m.qty(a.M02, "Nmm") }),
-		ax("Imperfection e_i", func(a design.Axis) string { return m.qty(a.Ei, "mm") }),
-		ax("First order M_0Ed", func(a design.Axis) string { return m.qty(a.M0Ed, "Nmm") }),
-		ax("Second order M_2", func(a design.Axis) string { return m.qty(a.M2, "Nmm") }),
-		ax("Creep ratio φ_ef", func(a design.Axis) string { return m.num(fmtNum(a.PhiEf)) }),
-		ax("Design moment M_Ed", func(a design.Axis) string { return m.qty(a.MEd, "Nmm") }),
-		ax("Resistance M_Rd", func(a design.Axis) string { return m.qty(a.MRd, "Nmm") }),
+		ax("Effective length l_0", func(a design.Axis) inline { return qty(a.L0, "mm") }),
+		ax("Slenderness λ", func(a design.Axis) inline { return numv(fmtNum(a.Lambda)) }),
+		ax("Limit λ_lim", func(a design.Axis) inline { return numv(fmtNum(a.LambdaLim)) }),
+		ax("Slender", func(a design.Axis) inline { return yes(a.Slender) }),
+		ax("End moment M_01", func(a design.Axis) inline { return qty(a.M01, "Nmm") }),
+		ax("End moment M_02", func(a design.Axis) inline { return qty(a.M02, "Nmm") }),
+		ax("Imperfection e_i", func(a design.Axis) inline { return qty(a.Ei, "mm") }),
+		ax("First order M_0Ed", func(a design.Axis) inline { return qty(a.M0Ed, "Nmm") }),
+		ax("Second order M_2", func(a design.Axis) inline { return qty(a.M2, "Nmm") }),
+		ax("Creep ratio φ_ef", func(a design.Axis) inline { return numv(fmtNum(a.PhiEf)) }),
+		ax("Design moment M_Ed", func(a design.Axis) inline { return qty(a.MEd, "Nmm") }),
+		ax("Resistance M_Rd", func(a design.Axis) inline { return qty(a.MRd, "Nmm") }),
 	}
 	for _, g := range diagrams(d) {
-		v.Diagrams = append(v.Diagrams, figureView{Body: m.picture(g), Caption: m.text(g.Caption())})
+		v.Diagrams = append(v.Diagrams, figureView{Body: picture(g), Caption: txt(g.Caption())})
 	}
 	v.Brief = !p.opt.full()
-	v.Groups, v.Margin = groups(m, b, i, p)
+	v.Groups, v.Margin = groups(b, i, p)
 	return v
 }
 
@@ -463,10 +460,8 @@ func newBook(r *design.Result) *book {
 
 // place says how one rendering links steps on other sheets and which steps it prints.
 type place struct {
-	onePage bool                     // every design in one document: anchors link directly
-	file    func(name string) string // the file of another design's sheet; nil when files are not linked
-	opt     Options                  // brief or full
-	fold    bool                     // full detail with the sub-steps folded (HTML)
+	onePage bool    // every design in one document
+	opt     Options // brief or full, revision marks
 	// printed reports whether the rendering prints the step of the given full ID (s is the
 	// step with its own ID); nil: as the detail says.
 	printed func(id string, s trace.Step) bool
@@ -484,23 +479,22 @@ func (p place) shows(id string, s trace.Step) bool {
 	return p.opt.full() || briefStep(s)
 }
 
-// target returns the link to step id (at w) from the sheet of design from, or "" for none.
-func (b *book) target(p place, from int, w where, id string) string {
-	a := "#" + anchorName("s-", id)
+// target returns where the link to step id (at w) from the sheet of design from leads: the
+// same page, another design's sheet, or the index sheet for the project basis.
+func (b *book) target(from int, w where, id string) target {
+	a := anchorName("s-", id)
 	switch {
-	case p.onePage || w.design == from:
-		return a
-	case p.file != nil && w.design == basisDesign:
-		return p.file("index") + a // the index sheet holds the project basis
-	case p.file != nil:
-		return p.file(b.names[w.design]) + a
+	case w.design == from:
+		return target{anchor: a}
+	case w.design == basisDesign:
+		return target{sheet: "index", anchor: a} // the index sheet holds the project basis
 	}
-	return ""
+	return target{sheet: b.names[w.design], anchor: a}
 }
 
 // groups gathers the steps of design i under their Step.Group, groups in order of first
 // appearance; each step keeps its number in the trace.
-func groups(m markup, b *book, i int, p place) ([]groupView, []stepView) {
+func groups(b *book, i int, p place) ([]groupView, []stepView) {
 	steps := b.traces[i]
 	own := b.r.Designs[i].Steps
 	var out []groupView
@@ -508,8 +502,7 @@ func groups(m markup, b *book, i int, p place) ([]groupView, []stepView) {
 	at := map[string]int{}
 	var sub []bool // per group: whether its last step is a folded sub-step
 	for k, s := range steps {
-		shown := p.shows(s.ID, own[k])
-		if !shown && !p.fold {
+		if !p.shows(s.ID, own[k]) {
 			continue
 		}
 		g := s.Group
@@ -520,15 +513,15 @@ func groups(m markup, b *book, i int, p place) ([]groupView, []stepView) {
 		if !ok {
 			n = len(out)
 			at[g] = n
-			out = append(out, groupView{Title: m.rich(g)})
+			out = append(out, groupView{Title: rich(g)})
 			sub = append(sub, false)
 		}
-		v := step(m, s, k+1, b, i, p)
+		v := step(s, k+1, b, i, p)
 		if wideMargin(s) && !p.opt.full() {
 			margin = append(margin, v)
 			continue
 		}
-		folded := p.fold && !briefStep(own[k])
+		folded := p.opt.full() && !briefStep(own[k])
 		steps := out[n].Steps
 		switch {
 		case folded && !sub[n]:
@@ -575,67 +568,67 @@ func wideMargin(s trace.Step) bool {
 	return s.Kind == trace.KindCheck && s.Verdict == trace.Pass && len(s.Args) > 0 && s.Value <= marginRatio
 }
 
-func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
+func step(s trace.Step, n int, b *book, from int, p place) stepView {
 	clause := s.Clause
 	if !p.opt.full() {
 		clause = shortClause(clause)
 	}
-	v := stepView{Number: n, Anchor: m.anchor(anchorName("s-", s.ID)), ID: m.text(s.ID), Title: m.rich(upperFirst(s.Title)), Clause: dash(m, clause),
-		Kind: m.text(string(s.Kind)), Type: string(s.Kind), Notes: texts(m, s.Notes), Cautions: texts(m, s.Cautions)}
+	v := stepView{Number: n, Anchor: anchor(anchorName("s-", s.ID)), ID: txt(s.ID), Title: rich(upperFirst(s.Title)), Clause: dash(clause),
+		Kind: txt(string(s.Kind)), Type: string(s.Kind), Notes: texts(s.Notes), Cautions: texts(s.Cautions)}
 	symbol := s.Symbol
 	if s.Kind == trace.KindCheck && symbol == "" {
 		symbol = "η"
 	}
 	sh := showStep(s)
-	v.Result = m.formula(sh.Result)
-	if v.Changed = p.opt.changed(s.ID, s.Value); v.Changed {
-		v.Result = m.changed(v.Result)
-		if v.Value != "" {
-			v.Value = m.changed(v.Value)
-		}
-	}
+	v.Result = formula(sh.Result)
 	if len(sh.Result) > 0 && (s.Show == nil || s.Show.Result == "" || sh.Values == nil) {
 		// A result in words ("yes") already ends the substituted values ("… → yes").
-		v.Value = m.formula(sh.Result[len(sh.Result)-1:])
+		v.Value = formula(sh.Result[len(sh.Result)-1:])
 	}
-	expr := func(e string, values bool) string {
+	if v.Changed = p.opt.changed(s.ID, s.Value); v.Changed {
+		v.Result = changed(v.Result)
+		if !v.Value.empty() {
+			v.Value = changed(v.Value)
+		}
+	}
+	expr := func(e string, values bool) inline {
 		ps, err := layout(e, s.Args, values)
 		if err != nil {
 			if values {
-				return ""
+				return nil
 			}
-			return m.text(e)
+			return txt(e)
 		}
-		return m.formula(ps)
+		return formula(ps)
 	}
 	switch {
 	case sh.Text != "" && symbol != "":
-		v.Formula = m.formula([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}, {kind: pText, text: sh.Text}})
+		v.Formula = formula([]piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}, {kind: pText, text: sh.Text}})
 	case sh.Text != "":
-		v.Formula = m.text(sh.Text)
+		v.Formula = txt(sh.Text)
 	case sh.Formula != nil:
-		v.Formula = m.formula(sh.Formula)
+		v.Formula = formula(sh.Formula)
 		if sh.Values != nil {
-			v.Values = m.formula(sh.Values)
+			v.Values = formula(sh.Values)
 		}
 	}
 	switch s.Kind {
 	case trace.KindTable:
-		v.Row = m.rich(s.Row)
+		v.Row = rich(s.Row)
 		if strings.TrimSpace(s.Row) == "" {
-			v.Row = "—"
+			v.Row = txt("—")
 		}
 	case trace.KindSolve:
-		v.Method = m.rich(s.Method)
+		v.Method = rich(s.Method)
 		if strings.TrimSpace(s.Method) == "" {
-			v.Method = "—"
+			v.Method = txt("—")
 		}
 		if s.Verify != "" {
 			v.Verify = expr(s.Verify, false)
 		}
-		v.Residual = m.num(fmtNum(s.Residual))
+		v.Residual = numv(fmtNum(s.Residual))
 	case trace.KindCheck:
-		v.Relation = m.rich(s.Relation)
+		v.Relation = rich(s.Relation)
 		v.Verdict, v.Failed = "PASS", false
 		if s.Verdict != trace.Pass {
 			v.Verdict, v.Failed = "FAIL", true
@@ -652,7 +645,7 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 			continue
 		}
 		// A step the rendering does not print is not linked (its value stands in the formula).
-		if !p.shows(a.From, b.stepAt(w)) && !p.fold {
+		if !p.shows(a.From, b.stepAt(w)) {
 			continue
 		}
 		seen[w], ids[w] = true, a.From
@@ -669,32 +662,31 @@ func step(m markup, s trace.Step, n int, b *book, from int, p place) stepView {
 		}
 		return there[x].number < there[y].number
 	})
-	var uses []string
+	var uses []inline
 	prefix := ""
 	if from == basisDesign {
 		prefix = "B."
 	}
 	for _, w := range here {
-		uses = append(uses, m.link(m.text(prefix+fmt.Sprint(w.number)), b.target(p, from, w, ids[w])))
+		uses = append(uses, link(txt(prefix+fmt.Sprint(w.number)), b.target(from, w, ids[w])))
 	}
+	var all []inline
 	if len(here) == 1 {
-		v.Uses = "step " + uses[0]
+		all = append(all, cat(txt("step "), uses[0]))
 	} else if len(here) > 1 {
-		v.Uses = "steps " + strings.Join(uses, ", ")
+		all = append(all, cat(txt("steps "), join(uses, txt(", "))))
 	}
 	for _, w := range there {
-		var label string
+		var label inline
 		if w.design == basisDesign {
-			label = m.text("basis B." + fmt.Sprint(w.number))
+			label = txt("basis B." + fmt.Sprint(w.number))
 		} else {
 			d := b.r.Designs[w.design]
-			label = m.text(d.Column + "/" + d.Storey + " step " + fmt.Sprint(w.number))
+			label = txt(d.Column + "/" + d.Storey + " step " + fmt.Sprint(w.number))
 		}
-		if v.Uses != "" {
-			v.Uses += ", "
-		}
-		v.Uses += m.link(label, b.target(p, from, w, ids[w]))
+		all = append(all, link(label, b.target(from, w, ids[w])))
 	}
+	v.Uses = join(all, txt(", "))
 	return v
 }
 
@@ -722,53 +714,8 @@ func execute(t *template.Template, name string, v any) ([]byte, error) {
 	return b.Bytes(), nil
 }
 
-// render runs the index and sheet templates over r for markup m; link gives the target of a
-// design's sheet from the index, p how steps link across sheets.
-func render(m markup, r *design.Result, delims [2]string, common, indexT, sheetT, ext string, link func(string) string, p place) ([]Sheet, error) {
-	if r == nil {
-		return nil, fmt.Errorf("reports: no result")
-	}
-	if err := finiteResult(r); err != nil {
-		return nil, err
-	}
-	t, err := parse(delims, common, indexT, sheetT)
-	if err != nil {
-		return nil, err
-	}
-	bk := newBook(r)
-	b, err := execute(t, indexT, index(m, r, link, bk, p))
-	if err != nil {
-		return nil, err
-	}
-	out := []Sheet{{Name: "index" + ext, Data: b}}
-	for i, name := range bk.names {
-		b, err := execute(t, sheetT, sheet(m, bk, i, p))
-		if err != nil {
-			return nil, err
-		}
-		out = append(out, Sheet{Name: name + ext, Data: b})
-	}
-	return out, nil
-}
-
-// Markdown returns the calc sheets in CommonMark with GFM tables: index.md first, then one sheet per design.
-func Markdown(r *design.Result, o Options) ([]Sheet, error) {
-	md := func(name string) string { return name + ".md" }
-	return markdown(r, md, place{file: md, opt: o})
-}
-
-func markdown(r *design.Result, link func(string) string, p place) ([]Sheet, error) {
-	return render(md{}, r, [2]string{"{{", "}}"}, "md/common.md.tmpl", "md/index.md.tmpl", "md/sheet.md.tmpl", ".md", link, p)
-}
-
-// LaTeX returns the calc sheets as standalone pdflatex documents: index.tex first, then one per design.
-func LaTeX(r *design.Result, o Options) ([]Sheet, error) {
-	return render(tex{}, r, templates.TeXDelims, "tex/common.tex.tmpl", "tex/index.tex.tmpl", "tex/sheet.tex.tmpl", ".tex",
-		func(name string) string { return name + ".pdf" }, place{opt: o})
-}
-
 // basisGroups lays out the steps of the project basis, numbered B.1, B.2, … under their groups.
-func basisGroups(m markup, b *book, p place) []groupView {
+func basisGroups(b *book, p place) []groupView {
 	p.opt.Detail = Brief // one line a step, clauses without the edition of EN 1992-1-1
 	var out []groupView
 	at := map[string]int{}
@@ -781,9 +728,9 @@ func basisGroups(m markup, b *book, p place) []groupView {
 		if !ok {
 			n = len(out)
 			at[g] = n
-			out = append(out, groupView{Title: m.rich(g)})
+			out = append(out, groupView{Title: rich(g)})
 		}
-		v := step(m, s, k+1, b, basisDesign, p)
+		v := step(s, k+1, b, basisDesign, p)
 		v.Prefix = "B."
 		out[n].Steps = append(out[n].Steps, v)
 	}

@@ -35,7 +35,6 @@ func columnsOf(r *design.Result) []column {
 
 // cells finds the steps of design i by their own IDs and marks up table cells of their values.
 type cells struct {
-	m       markup
 	b       *book
 	printed map[string]bool // the steps the document prints, where links may land
 	opt     Options         // for the revision marks
@@ -53,34 +52,34 @@ func (c cells) find(i int, local string) (trace.Step, bool) {
 
 // cell returns the value of the step of design i with the own ID local in display units,
 // with the step's anchor, and records the step as printed; "–" where there is none.
-func (c cells) cell(i int, local string) string {
+func (c cells) cell(i int, local string) inline {
 	return c.matching(i, func(id string) bool { return id == local })
 }
 
 // value marks up one step's value as a table cell: its anchor, its value in display units,
 // marked where it changed since the previous revision; the step counts as printed.
-func (c cells) value(s trace.Step) string {
+func (c cells) value(s trace.Step) inline {
 	c.printed[s.ID] = true
 	v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
-	out := c.m.num(v)
+	out := numv(v)
 	if c.opt.changed(s.ID, s.Value) {
-		out = c.m.changed(out)
+		out = changed(out)
 	}
-	return c.m.anchor(anchorName("s-", s.ID)) + out
+	return cat(anchor(anchorName("s-", s.ID)), out)
 }
 
 // matching returns the cells of the steps of design i whose own IDs match the pattern, joined.
-func (c cells) matching(i int, pattern func(id string) bool) string {
-	var parts []string
+func (c cells) matching(i int, pattern func(id string) bool) inline {
+	var parts []inline
 	for k, s := range c.b.r.Designs[i].Steps {
 		if pattern(s.ID) {
 			parts = append(parts, c.value(c.b.traces[i][k]))
 		}
 	}
 	if len(parts) == 0 {
-		return c.m.text("–")
+		return txt("–")
 	}
-	return strings.Join(parts, c.m.text(" + "))
+	return join(parts, txt(" + "))
 }
 
 // takeDownTables returns, for the building form, one take-down table per column (top lift
@@ -90,23 +89,22 @@ func takeDownTables(c cells) []tableView {
 	if r.Building == nil {
 		return nil
 	}
-	m := c.m
 	var out []tableView
-	summary := tableView{Title: m.text("Take-down summary: the loads at the foot of each column"),
-		Head:  []string{m.text("Column"), m.rich("ΣG_k (kN)"), m.rich("ΣQ_k (kN)"), m.rich("N_Ed (kN)")},
+	summary := tableView{Title: txt("Take-down summary: the loads at the foot of each column"),
+		Head:  []inline{txt("Column"), rich("ΣG_k (kN)"), rich("ΣQ_k (kN)"), rich("N_Ed (kN)")},
 		Align: "lrrr"}
 	for _, col := range columnsOf(r) {
-		t := tableView{Title: m.text("Column " + col.id),
-			Head: []string{m.text("Lift"), m.rich("G_level (kN)"), m.rich("Q_level (kN)"), m.rich("G_col (kN)"),
-				m.rich("ΣG_k (kN)"), m.rich("ΣQ_k (kN)"), m.rich("α (αA, αn)"), m.rich("N_Ed (kN)")},
+		t := tableView{Title: txt("Column " + col.id),
+			Head: []inline{txt("Lift"), rich("G_level (kN)"), rich("Q_level (kN)"), rich("G_col (kN)"),
+				rich("ΣG_k (kN)"), rich("ΣQ_k (kN)"), rich("α (αA, αn)"), rich("N_Ed (kN)")},
 			Align:   "lrrrrrrr",
-			Formula: m.rich("Per lift, top down: ΣG_k = G_level + G_col + ΣG_k of the lift above; ΣQ_k = Q_level + ΣQ_k of the lift above (by category); N_Ed by the combination of the design basis, with the reduction α where asked."),
+			Formula: rich("Per lift, top down: ΣG_k = G_level + G_col + ΣG_k of the lift above; ΣQ_k = Q_level + ΣQ_k of the lift above (by category); N_Ed by the combination of the design basis, with the reduction α where asked."),
 		}
 		for k := len(col.designs) - 1; k >= 0; k-- {
 			i := col.designs[k]
 			d := r.Designs[i]
 			lv := "td/" + d.Storey + "/"
-			t.Rows = append(t.Rows, []string{m.text(d.Storey),
+			t.Rows = append(t.Rows, []inline{txt(d.Storey),
 				c.cell(i, lv+"G"),
 				c.matching(i, func(id string) bool { return strings.HasPrefix(id, lv+"Q") && !strings.HasPrefix(id, lv+"Q_") }),
 				c.cell(i, "td/G_col"),
@@ -119,31 +117,31 @@ func takeDownTables(c cells) []tableView {
 		}
 		out = append(out, t)
 		foot := col.designs[0]
-		summary.Rows = append(summary.Rows, []string{m.text(col.id), c.plain(foot, "td/G_cum"),
+		summary.Rows = append(summary.Rows, []inline{txt(col.id), c.plain(foot, "td/G_cum"),
 			c.plainMatching(foot, func(id string) bool { return strings.HasPrefix(id, "td/Q_cum_") }), c.plain(foot, "td/NEd")})
 	}
 	return append([]tableView{summary}, out...)
 }
 
 // plain returns the value of a step as a link to its cell elsewhere in the document.
-func (c cells) plain(i int, local string) string {
+func (c cells) plain(i int, local string) inline {
 	return c.plainMatching(i, func(id string) bool { return id == local })
 }
 
 // plainMatching is plain for the sum of the steps matching a pattern, each linked.
-func (c cells) plainMatching(i int, pattern func(id string) bool) string {
-	var parts []string
+func (c cells) plainMatching(i int, pattern func(id string) bool) inline {
+	var parts []inline
 	for k, s := range c.b.r.Designs[i].Steps {
 		if pattern(s.ID) {
 			full := c.b.traces[i][k]
 			v, _ := quantityOf(full.Value, full.Unit, full.Symbol)
-			parts = append(parts, c.m.link(c.m.num(v), "#"+anchorName("s-", full.ID)))
+			parts = append(parts, link(numv(v), target{anchor: anchorName("s-", full.ID)}))
 		}
 	}
 	if len(parts) == 0 {
-		return c.m.text("–")
+		return txt("–")
 	}
-	return strings.Join(parts, c.m.text(" + "))
+	return join(parts, txt(" + "))
 }
 
 // momentTables returns, for the building form, the column moments of each column and
@@ -154,45 +152,44 @@ func momentTables(c cells) []tableView {
 	if r.Building == nil {
 		return nil
 	}
-	m := c.m
 	var out []tableView
 	for _, col := range columnsOf(r) {
 		for _, d := range []struct{ dir, axis string }{{"x", "y"}, {"y", "z"}} {
 			sub := "sub" + d.dir + "/"
-			t := tableView{Title: m.text("Column " + col.id + ", bending about " + d.axis + " (frames along " + d.dir + ")")}
+			t := tableView{Title: txt("Column " + col.id + ", bending about " + d.axis + " (frames along " + d.dir + ")")}
 			frame := false
 			if _, ok := c.find(col.designs[0], "frm/"+d.dir+"/top"); ok {
 				frame = true
 			}
 			if frame {
-				t.Head = []string{m.text("Lift"), m.rich("M_top (kNm)"), m.rich("M_bottom (kNm)"), m.rich("M_top,inf (kNm)"), m.rich("M_bottom,inf (kNm)")}
+				t.Head = []inline{txt("Lift"), rich("M_top (kNm)"), rich("M_bottom (kNm)"), rich("M_top,inf (kNm)"), rich("M_bottom,inf (kNm)")}
 				t.Align = "lrrrr"
-				t.Formula = m.rich("Clockwise end moments of the lift's column from the frame line solved whole: at each end the envelope of every arrangement of the spans (superposition); ,inf with γ_G,inf on every span. The spans each arrangement loads are named on the governing lift's sheet.")
+				t.Formula = rich("Clockwise end moments of the lift's column from the frame line solved whole: at each end the envelope of every arrangement of the spans (superposition); ,inf with γ_G,inf on every span. The spans each arrangement loads are named on the governing lift's sheet.")
 			} else {
-				t.Head = []string{m.text("Level"), m.text("Beams 1, 2"), m.rich("k_b,1"), m.rich("k_b,2"), m.rich("k_above"), m.rich("k_below"),
-					m.rich("M_F,1 (kNm)"), m.rich("M_F,2 (kNm)"), m.rich("M_unb (kNm)"), m.rich("M_above (kNm)"), m.rich("M_below (kNm)")}
+				t.Head = []inline{txt("Level"), txt("Beams 1, 2"), rich("k_b,1"), rich("k_b,2"), rich("k_above"), rich("k_below"),
+					rich("M_F,1 (kNm)"), rich("M_F,2 (kNm)"), rich("M_unb (kNm)"), rich("M_above (kNm)"), rich("M_below (kNm)")}
 				t.Align = "llrrrrrrrrr"
-				t.Formula = m.rich("Subframe at each level (common practice): stiffnesses k = 4EI/L (kNm per radian; beams at the stiffness factor of the basis); M_unb = ΣM_F of the arrangement that loads one side (the governing lift's sheet names it); each column takes M_unb·k/Σk at the joint and half of it at its far end.")
+				t.Formula = rich("Subframe at each level (common practice): stiffnesses k = 4EI/L (kNm per radian; beams at the stiffness factor of the basis); M_unb = ΣM_F of the arrangement that loads one side (the governing lift's sheet names it); each column takes M_unb·k/Σk at the joint and half of it at its far end.")
 			}
 			for k := len(col.designs) - 1; k >= 0; k-- {
 				i := col.designs[k]
 				lift := r.Designs[i].Storey
 				if frame {
 					p := "frm/" + d.dir + "/"
-					t.Rows = append(t.Rows, []string{m.text(lift), c.cell(i, p+"top"), c.cell(i, p+"bottom"), c.cell(i, p+"top_inf"), c.cell(i, p+"bottom_inf")})
+					t.Rows = append(t.Rows, []inline{txt(lift), c.cell(i, p+"top"), c.cell(i, p+"bottom"), c.cell(i, p+"top_inf"), c.cell(i, p+"bottom_inf")})
 					continue
 				}
 				p := sub + lift + "/"
 				beams := c.beamsAt(i, p)
-				ks := [2]string{m.text("–"), m.text("–")}
-				fems := [2]string{m.text("–"), m.text("–")}
+				ks := [2]inline{txt("–"), txt("–")}
+				fems := [2]inline{txt("–"), txt("–")}
 				for s, name := range beams {
 					ks[s] = c.cell(i, p+name+"/k")
 					fems[s] = c.matching(i, func(id string) bool {
 						return id == p+name+"/FEM_loaded" || id == p+name+"/FEM_light"
 					})
 				}
-				t.Rows = append(t.Rows, []string{m.text(lift), m.text(strings.Join(beams, ", ")), ks[0], ks[1], c.cell(i, p+"above/k"), c.cell(i, p+"below/k"),
+				t.Rows = append(t.Rows, []inline{txt(lift), txt(strings.Join(beams, ", ")), ks[0], ks[1], c.cell(i, p+"above/k"), c.cell(i, p+"below/k"),
 					fems[0], fems[1], c.cell(i, p+"unbalanced"), c.cell(i, p+"m_above"), c.cell(i, p+"m_below")})
 			}
 			out = append(out, t)

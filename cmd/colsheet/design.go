@@ -247,26 +247,15 @@ func render(res *design.Result, formats map[string]bool, opt reports.Options) (m
 		return nil, err
 	}
 	files["schedule.csv"] = schedule
-	type maker func(*design.Result, reports.Options) ([]reports.Sheet, error)
-	for _, f := range []struct {
-		name string
-		make maker
-	}{{"md", reports.Markdown}, {"tex", reports.LaTeX}, {"html", reports.HTML}} {
-		if !formats[f.name] {
-			continue
-		}
-		sheets, err := f.make(res, opt)
-		if err != nil {
-			return nil, fmt.Errorf("%s: %v", f.name, err)
-		}
-		for _, s := range sheets {
-			files[f.name+"/"+s.Name] = s.Data
-		}
-	}
-	// The calc document: every design in one file per format.
-	docs, err := reports.Documents(res, formats, opt)
+	// The sheets and the calc document: each tree built once, printed in every format.
+	sheets, docs, err := reports.Render(res, formats, opt)
 	if err != nil {
-		return nil, fmt.Errorf("calc document, %v", err)
+		return nil, err
+	}
+	for name, set := range sheets {
+		for _, s := range set {
+			files[name+"/"+s.Name] = s.Data
+		}
 	}
 	for _, doc := range docs {
 		files["doc/"+doc.Name] = doc.Data
