@@ -15,7 +15,7 @@
 //	materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}  concrete required (Table 3.1)
 //	design:    {stress_block: parabola-rectangle, imperfection: inclination, members: 1,
 //	            bar_diameters: [12, 16, 20, 25, 32, 40], link_diameters: [6, 8, 10, 12],
-//	            link_spacing_step: 1 mm, second_order: nominal-curvature (or nominal-stiffness,
+//	            link_spacing_step: 25 mm, lap_step: 25 mm, lap_above_floor: 0 mm, second_order: nominal-curvature (or nominal-stiffness,
 //	            both), biaxial: "5.39" (or exact), cracked_stiffness: 0.5 (0.1 to 1), size_search,
 //	            durability, fire}
 //	size_search: {sizes: [[b, h], ...]} tried in order, or {step, min, max, square: false};
@@ -373,7 +373,8 @@ func (r *reader) design(top map[string]pair) model.Options {
 		Members:       1,
 		BarDiameters:  append([]float64(nil), DefaultBarDiameters...),
 		LinkDiameters: append([]float64(nil), DefaultLinkDiameters...),
-		LinkStep:      1,
+		LinkStep:      25,
+		LapStep:       25,
 		SecondOrder:   model.SecondOrderCurvature,
 		Biaxial:       model.BiaxialRule,
 		CrackedK:      DefaultCrackedK,
@@ -415,6 +416,20 @@ func (r *reader) design(top map[string]pair) model.Options {
 	if e, ok := f["link_spacing_step"]; ok {
 		if v, ok := r.positive(e.val, "design.link_spacing_step", "mm"); ok {
 			o.LinkStep = v
+		}
+	}
+	if e, ok := f["lap_step"]; ok {
+		if v, ok := r.positive(e.val, "design.lap_step", "mm"); ok {
+			o.LapStep = v
+		}
+	}
+	if e, ok := f["lap_above_floor"]; ok {
+		if v, ok := r.number(e.val, "design.lap_above_floor", "mm"); ok {
+			if v < 0 {
+				r.fail(e.val, "design.lap_above_floor", "the start of the laps above the floor must not be negative, found %s", show(v, "mm"))
+			} else {
+				o.LapStart = v
+			}
 		}
 	}
 	r.methods(f, &o)

@@ -145,7 +145,7 @@ func TestDefaultsAndHash(t *testing.T) {
 		t.Fatal(err)
 	}
 	o := in.Options
-	if o.StressBlock != model.ParabolaRectangle || o.Imperfection != model.ImperfInclination || o.Members != 1 || o.LinkStep != 1 ||
+	if o.StressBlock != model.ParabolaRectangle || o.Imperfection != model.ImperfInclination || o.Members != 1 || o.LinkStep != 25 || o.LapStep != 25 || o.LapStart != 0 ||
 		!equal(o.BarDiameters, []float64{12, 16, 20, 25, 32, 40}) || !equal(o.LinkDiameters, []float64{6, 8, 10, 12}) {
 		t.Errorf("default options %+v", o)
 	}
@@ -231,13 +231,15 @@ func TestParseErrors(t *testing.T) {
 			"in.yaml:4: code.overrides.gamma_c: gamma_c = 3 is outside the accepted range 1 to 2",
 			`in.yaml:5: code.overrides.Es: "200 mm" is a length, expected a stress`,
 			`in.yaml:6: code.overrides.gamma: unknown parameter "gamma" (known: ` + catalogue() + ")"}},
-		{"design block", "design:\n  stress_block: parabolic\n  imperfection: none\n  members: 1.5\n  bar_diameters: []\n  link_diameters: [8, -1]\n  link_spacing_step: 0\n" + head + "        NEd: 10\n", []string{
+		{"design block", "design:\n  stress_block: parabolic\n  imperfection: none\n  members: 1.5\n  bar_diameters: []\n  link_diameters: [8, -1]\n  link_spacing_step: 0\n  lap_step: 0\n  lap_above_floor: -75 mm\n" + head + "        NEd: 10\n", []string{
 			`in.yaml:2: design.stress_block: "parabolic" is not one of parabola-rectangle, rectangular`,
 			`in.yaml:3: design.imperfection: "none" is not one of inclination, l0/400`,
 			"in.yaml:4: design.members: the number of members m must be a whole number of at least 1, found 1.5",
 			"in.yaml:5: design.bar_diameters: the list is empty; give at least one of the diameters in mm",
 			"in.yaml:6: design.link_diameters[1]: must be greater than 0, found -1 mm",
-			"in.yaml:7: design.link_spacing_step: must be greater than 0, found 0 mm"}},
+			"in.yaml:7: design.link_spacing_step: must be greater than 0, found 0 mm",
+			"in.yaml:8: design.lap_step: must be greater than 0, found 0 mm",
+			"in.yaml:9: design.lap_above_floor: the start of the laps above the floor must not be negative, found -75 mm"}},
 		{"section", "materials: {concrete: C30/37}\ncolumns:\n  - id: K1/2\n    b: -350\n    h: 2 m2\n    cover: 40 mm\n    bars: {count: 7}\n    link_dia: 0\n    storeys: [{name: L1, l0: 3000, NEd: 1}]\n", []string{
 			`in.yaml:3: columns[0].id: "K1/2" must not contain a slash`,
 			"in.yaml:4: columns[0].b: must be greater than 0, found -350 mm",

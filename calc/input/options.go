@@ -31,7 +31,7 @@ const (
 var cements = []string{"S", "N", "R"}
 
 var designKeys = []string{"stress_block", "imperfection", "members", "bar_diameters", "link_diameters",
-	"link_spacing_step", "second_order", "biaxial", "cracked_stiffness", "size_search", "durability", "fire"}
+	"link_spacing_step", "lap_step", "lap_above_floor", "second_order", "biaxial", "cracked_stiffness", "size_search", "durability", "fire"}
 
 // methods reads the second-order, biaxial and cracked-stiffness choices, the size finder and the
 // durability and fire data of the design block's fields f into o.

@@ -54,6 +54,8 @@ type Options struct {
 	BarDiameters  []float64   // longitudinal bar diameters to choose from, mm, ascending
 	LinkDiameters []float64   // link diameters to choose from, mm, ascending
 	LinkStep      float64     // link spacings are rounded down to a multiple of this, mm
+	LapStep       float64     // lap lengths are rounded up to a multiple of this, mm
+	LapStart      float64     // height of the start of the laps above the floor level at the bottom of a lift, mm
 	SecondOrder   string      // SecondOrderCurvature (default), SecondOrderStiffness or SecondOrderBoth
 	Biaxial       string      // BiaxialRule (5.39, default) or BiaxialExact (inclined neutral axis)
 	CrackedK      float64     // factor on the stiffness of restraining members for cracking, 5.8.3.2(3); default 0.5
