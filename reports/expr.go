@@ -152,6 +152,7 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		kind     pieceKind // pOp for plain parentheses, pSqrtOpen, pAbsOpen, pFloorOpen, pCeilOpen, pWord (rounddown)
 		drop     bool      // parentheses not shown (exponent group)
 		closeSup bool      // the group ends an exponent
+		up       bool      // pWord: roundup rather than rounddown
 	}
 	var (
 		out   []piece
@@ -216,6 +217,9 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 					// rounddown(x, step): "x rounded down to a step of step", or with values
 					// "240 mm rounded down to a 25 mm step".
 					stack = append(stack, group{kind: pWord, closeSup: opened})
+				case "roundup":
+					// roundup(x, step): "x rounded up to a step of step", as rounddown.
+					stack = append(stack, group{kind: pWord, closeSup: opened, up: true})
 				default:
 					out = append(out, piece{kind: pFunc, text: t.text})
 					stack = append(stack, group{kind: pOp, closeSup: opened})
@@ -309,10 +313,14 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 					if sup {
 						return nil, errExpr
 					}
+					way := "rounded down to a"
+					if stack[len(stack)-1].up {
+						way = "rounded up to a"
+					}
 					if values {
-						out = append(out, piece{kind: pWord, text: "rounded down to a"})
+						out = append(out, piece{kind: pWord, text: way})
 					} else {
-						out = append(out, piece{kind: pWord, text: "rounded down to a step of"})
+						out = append(out, piece{kind: pWord, text: way + " step of"})
 					}
 					continue
 				}

@@ -99,6 +99,9 @@ func TestEngineDisplayForms(t *testing.T) {
 		// Rounding down to the step of the link spacings, 243 mm to 225 mm (common practice, no source).
 		{"round down", detail.RoundDown("s", "Link spacing provided", "s_t", mm(243, "s_cl,tmax"), mm(25, "Δs")),
 			"s_t = s_cl,tmax rounded down to a step of Δs", "243 mm rounded down to a 25 mm step", "s_t = 225 mm"},
+		// Rounding up to the step of the lap lengths, 616.2 mm to 625 mm (common practice, no source).
+		{"round up", detail.RoundUp("l", "Lap length as built", "l_0,prov", mm(616.2, "l_0"), mm(25, "Δl")),
+			"l_0,prov = l_0 rounded up to a step of Δl", "616.2 mm rounded up to a 25 mm step", "l_0,prov = 625 mm"},
 		// EN 1992-1-1:2004 4.4.1.1(2)P: c_nom = 35 mm required, 40 mm given.
 		{"cover", cover.CoverCheck("c", mm(40, "c"), mm(35, "c_nom")), "η = c_nom / c", "35 mm / 40 mm", "η = 0.875"},
 		// EN 1992-1-1:2004 Table 4.3N: S4, 50 years, C30/37 at least the C30/37 of XC1: S3.

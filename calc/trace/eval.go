@@ -57,25 +57,29 @@ const wholeTol = 1e-9
 
 // ShowFunctions are the functions of the display syntax (Display.Expr): those of Functions,
 // with floor and ceil taking a value within 1e-9 of a whole number for that number, and
-// rounddown(x, step), x rounded down to a multiple of step.
+// rounddown(x, step) and roundup(x, step), x rounded down or up to a multiple of step.
 var ShowFunctions = func() map[string]govaluate.ExpressionFunction {
-	m := make(map[string]govaluate.ExpressionFunction, len(Functions)+3)
+	m := make(map[string]govaluate.ExpressionFunction, len(Functions)+4)
 	for k, f := range Functions {
 		m[k] = f
 	}
 	m["floor"] = unary(func(x float64) float64 { return math.Floor(x + wholeTol) })
 	m["ceil"] = unary(func(x float64) float64 { return math.Ceil(x - wholeTol) })
-	m["rounddown"] = func(args ...interface{}) (interface{}, error) {
-		if len(args) != 2 {
-			return nil, errors.New("takes two arguments")
+	round := func(f func(float64) float64) govaluate.ExpressionFunction {
+		return func(args ...interface{}) (interface{}, error) {
+			if len(args) != 2 {
+				return nil, errors.New("takes two arguments")
+			}
+			x, ok1 := args[0].(float64)
+			step, ok2 := args[1].(float64)
+			if !ok1 || !ok2 {
+				return nil, errors.New("argument is not a number")
+			}
+			return f(x/step) * step, nil
 		}
-		x, ok1 := args[0].(float64)
-		step, ok2 := args[1].(float64)
-		if !ok1 || !ok2 {
-			return nil, errors.New("argument is not a number")
-		}
-		return math.Floor(x/step+wholeTol) * step, nil
 	}
+	m["rounddown"] = round(func(q float64) float64 { return math.Floor(q + wholeTol) })
+	m["roundup"] = round(func(q float64) float64 { return math.Ceil(q - wholeTol) })
 	return m
 }()
 

@@ -8,7 +8,7 @@ import (
 
 // The display functions: floor and ceil take a quotient within 1e-9 of a whole number for that
 // number, as the evaluation expressions do with "+ 0.000000001", and rounddown(x, step) is
-// x rounded down to a multiple of step (common practice, no source).
+// x rounded down to a multiple of step, roundup(x, step) up (common practice, no source).
 func TestShowFunctions(t *testing.T) {
 	for _, c := range []struct {
 		expr string
@@ -22,7 +22,10 @@ func TestShowFunctions(t *testing.T) {
 		{"rounddown(243, 25)", 225},
 		{"rounddown(300, 25)", 300},
 		{"rounddown(0.3, 0.1)", 0.30000000000000004},
-		{"pi * 20 ** 2 / 4", math.Pi * 100}, // the area of a 20 mm bar, π·φ²/4
+		{"roundup(616.2, 25)", 625},
+		{"roundup(600, 25)", 600},
+		{"roundup(0.7, 0.1)", 0.7000000000000001}, // 7.000000000000001 steps taken for 7
+		{"pi * 20 ** 2 / 4", math.Pi * 100},       // the area of a 20 mm bar, π·φ²/4
 	} {
 		s := Formula("x", "x", "common practice", "x", "", c.want, "x", A("x", Const(c.want, "x", ""))).Shown(c.expr)
 		got, err := EvalShow(s)

@@ -81,7 +81,7 @@ type Step struct {
 // (recheck re-evaluates Expr); the sheets show Display instead.
 type Display struct {
 	// Expr is the formula as a hand calculation writes it, in the display syntax: govaluate
-	// over the step's Args with the functions of ShowFunctions (ceil, floor and rounddown
+	// over the step's Args with the functions of ShowFunctions (ceil, floor, rounddown and roundup
 	// besides those of Functions) and the name pi for π. A condition is written as the
 	// comparison itself, without "? 1 : 0". Empty: no formula is shown.
 	Expr string `json:"expr,omitempty"`
