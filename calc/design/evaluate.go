@@ -137,12 +137,17 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	// The lap checks are cheap arithmetic: trials make them too (their check steps alone are kept).
 	l.Group = "Laps (EN 1992-1-1 8.4, 8.7)"
 	l0, rho1 := c.bs.lap(l, phi, c.fyd) // the project basis's lap length of the diameter
+	// The lap as built: rounded up to a practical step; the links over it are those of this length.
+	l0b := l0
+	if st := c.in.Options.LapStep; st > 0 {
+		l0b = l.Add(detail.RoundUp("lap/l0_built", "Lap length as built", "l_0,prov", l0, trace.Const(st, "Δl", "mm")))
+	}
 	l.Group = "Arrangement of the laps (EN 1992-1-1 8.7.2)"
 	for _, id := range detail.LapArrangement(l, "lap/", phi, gb, gh, sMin) {
 		checks = append(checks, checked{id, false})
 	}
 	l.Group = "Links at the laps (EN 1992-1-1 8.7.4, 9.5.3(4))"
-	lk := detail.LapLinks(l, "lap/", detail.LapLinkInput{Phi: phi, PhiT: phiT, L0: l0, Rho1: rho1, S: s1, SRed: s2, Step: step,
+	lk := detail.LapLinks(l, "lap/", detail.LapLinkInput{Phi: phi, PhiT: phiT, L0: l0b, Rho1: rho1, S: s1, SRed: s2, Step: step,
 		SMinT: func() trace.Q {
 			st := detail.MinClearSpacing("lap/s_min_t", phiT, dg, param(prm, "spacing_k1", ""), param(prm, "spacing_k2", "mm"), param(prm, "spacing_min", "mm"))
 			st.Title = "Minimum clear distance between links, as between bars"
@@ -151,11 +156,13 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	for _, id := range lk.Checks {
 		checks = append(checks, checked{id, false})
 	}
-	d.Detailing.LapLength, d.Detailing.LapZone = l0.V, lk.Reduced
+	d.Detailing.LapLength, d.Detailing.LapBuilt, d.Detailing.LapZone = l0.V, l0b.V, lk.Reduced
 	d.Detailing.LapLinks, d.Detailing.LapLinkSpacing = lk.Count, lk.Spacing
 	if full {
 		l.Group = "Restraint of bars (EN 1992-1-1 9.5.3(6))"
 		d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p, detail.Traced{B: c.b, H: c.h, Cover: cnom, Link: phiT, Dia: phi, NB: nB, NH: nH})
+		c.asBuilt(l, &d, built{p: p, g: g, phi: phi, phiT: phiT, cnom: cnom, nBars: nb, s: s1, sRed: s2, zone: zone, l0: l0b,
+			laps: lk, restraintOfFaces: g.Restraint(p, detail.RestraintLimit)})
 	}
 
 	// Slenderness limit and second order, per axis.

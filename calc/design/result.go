@@ -72,6 +72,7 @@ type Design struct {
 	Bars           Bars
 	Links          Links
 	Detailing      Detailing
+	Schedule       Schedule     // the cage as built: cut lengths, bar marks and masses
 	Utilization    float64      // largest ratio of action to resistance among all checks
 	Status         string       // StatusPass or StatusFail
 	Governing      string       // the check that sets Utilization, in words
@@ -146,6 +147,38 @@ type Detailing struct {
 	FireOK         bool    // the fire check passes (or the rating is verified elsewhere)
 	FireMethod     string  // how the rating is shown: "Method A, Table 5.2a", "Method A, Eq. (5.7)" or "verified elsewhere"; empty when not shown
 	SurfaceMesh    bool    // a surface reinforcement mesh is required against falling off of concrete in fire (a ≥ 70 mm), EN 1992-1-2 4.5.2(2)
+
+	LapBuilt      float64       // mm, the lap length as built: LapLength rounded up to design.lap_step; 0 when not computed
+	LapStart      float64       // mm, start of the laps above the floor level at the foot of the lift
+	LapTransverse bool          // the links over the laps provide the area of one lapped bar, 8.7.4.1(3)
+	Zones         *detail.Zones // the link zones of the lift as built; nil where the lift's length is not known
+	TiesB, TiesH  int           // extra ties on the b-faces (each across h) and on the h-faces (each across b), 9.5.3(6)
+	TieBars       string        // which bars the extra ties hold, counted from a corner along each face; empty when none
+}
+
+// Schedule is the cage of a lift as built: the bar marks with their counts, cut lengths and
+// masses, and the anchorage of the bars into the foundation (the bottom lift's starter bars) and
+// into the roof (the top lift). Lengths in mm, masses in kg; zero where not known (the lift's
+// length not given).
+type Schedule struct {
+	Known     bool    // the lift's length is known: lengths, counts and masses are given
+	Bottom    bool    // the lift stands on the foundation: starter bars are cast into it
+	Top       bool    // the lift ends at the roof: its bars are anchored into the roof construction
+	Anchorage float64 // mm, lbd of the bars in compression (8.4.4), where Bottom or Top; 0 otherwise
+	Marks     []Mark  // main bars, links, ties and starter bars, in that order (those that exist)
+	MainMass  float64 // kg, main bars of the lift (starter bars included)
+	LinkMass  float64 // kg, links and ties of the lift
+	TotalMass float64 // kg, MainMass + LinkMass
+}
+
+// Mark is one bar mark of the schedule: COLUMN-LIFT-index.
+type Mark struct {
+	Mark   string  // e.g. "B2-L1-01"
+	What   string  // "main bars", "links", "ties", "starter bars"
+	Count  int     // pieces in the lift
+	Dia    float64 // mm
+	Length float64 // mm, cut length of one piece
+	Mass   float64 // kg, all pieces
 }
 
 // Links is the transverse reinforcement provided.

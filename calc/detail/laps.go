@@ -473,6 +473,7 @@ type LapLinkPlan struct {
 	Reduced    bool     // the spacing is reduced at the laps (φ > 14 mm), 9.5.3(4)
 	Transverse bool     // the links carry the transverse tension, ΣAst ≥ As (φ ≥ 20 mm), 8.7.4.1(3)
 	Spacing    float64  // link spacing over the lap, mm
+	S          trace.Q  // the step of that spacing; zero where it could not be detailed
 	Count      int      // links within the lap length at that spacing, wherever they fall; one more lies beyond each end
 	Checks     []string // IDs of the check steps
 }
@@ -507,7 +508,7 @@ func LapLinks(l *trace.Log, prefix string, in LapLinkInput) LapLinkPlan {
 		plan.Checks = append(plan.Checks, c.From)
 		return plan
 	}
-	plan.Spacing = s.V
+	plan.Spacing, plan.S = s.V, s
 	n := l.Add(LinksInLap(prefix+"n_links", in.L0, s))
 	plan.Count = int(n.V)
 	if plan.Reduced {

@@ -140,9 +140,9 @@ type ZoneInput struct {
 // ZoneSteps records the link zones of a lift under IDs prefix+…: the bottom zone's length, the larger of the
 // zone of 9.5.3(4) and the top of the lap where the spacing is reduced over the laps, its spacing (the
 // smaller of the reduced and the lap spacings), the top zone, the general length between them, and the
-// links in each and in the lift. Links are counted as spaces: one link a space in each zone, and one more
+// links in each and in the lift, and returns them with the step of the links in the lift. Links are counted as spaces: one link a space in each zone, and one more
 // at the foot of the lift.
-func ZoneSteps(l *trace.Log, prefix string, in ZoneInput) Zones {
+func ZoneSteps(l *trace.Log, prefix string, in ZoneInput) (Zones, trace.Q) {
 	var z Zones
 	lapTop := l.Add(trace.Formula(prefix+"lap_top", "Top of the laps above the floor", ec2+"8.7.3; 9.5.3(4)", "a_lap,top", "mm",
 		in.LapStart.V+in.L0.V, "a_lap + l_0", trace.A("a_lap", in.LapStart), trace.A("l_0", in.L0)))
@@ -185,5 +185,5 @@ func ZoneSteps(l *trace.Log, prefix string, in ZoneInput) Zones {
 	z.Bottom, z.General, z.Top = bot.V, gen.V, top.V
 	z.SBottom, z.SGeneral, z.STop = sBot.V, in.S.V, in.SRed.V
 	z.NBottom, z.NGeneral, z.NTop, z.Links = int(nb.V), int(ng.V), int(nt.V), int(n.V)
-	return z
+	return z, n
 }
