@@ -301,9 +301,9 @@ func TestBuildingErrors(t *testing.T) {
 		{"column size needs b and h", building + "  column_sizes: [{columns: B1, h: 400}]\n", []string{
 			"in.yaml:11: building.column_sizes[0].b: is required but missing (the width along building y, e.g. b: 350 mm)"}},
 		{"no room in the default column", strings.Replace(building, "b: 350 mm, h: 450 mm", "b: 350 mm, h: 450 mm, cover: 170 mm", 1), []string{
-			"in.yaml:7: building.columns.cover: no room for links and bars: 2·(cover + link + bar) = 2·(170 + 6 + 12) = 376 mm is not less than min(b, h) = 350 mm"}},
+			"in.yaml:7: building.columns.cover: no room for links and bars: 2·(cover + link + bar) = 2·(170 + 8 + 12) = 380 mm is not less than min(b, h) = 350 mm"}},
 		{"no room with the given bars", building + "  bars: {count: 4, dia: 40}\n  column_sizes: [{columns: B1, b: 170, h: 400}]\n", []string{
-			"in.yaml:12: building.column_sizes[0].b: no room for links and bars: 2·(cover + link + bar) = 2·(40 + 6 + 40) = 172 mm is not less than min(b, h) = 170 mm"}},
+			"in.yaml:12: building.column_sizes[0].b: no room for links and bars: 2·(cover + link + bar) = 2·(40 + 8 + 40) = 176 mm is not less than min(b, h) = 170 mm"}},
 		{"beam lines", building + "  beam_sizes:\n    - {dir: x, lines: [A, 3, \"?\"], b: 300, h: 600}\n    - {dir: y, lines: [\"1\"], b: 300, h: 600}\n    - {lines: [C, C], b: 300, h: 600}\n", []string{
 			"in.yaml:12: building.beam_sizes[0].lines[0]: line A is a lettered line, which runs along y; beams along x (dir x) lie on numbered lines",
 			"in.yaml:12: building.beam_sizes[0].lines[1]: line 3 is not on the grid (lettered lines A to C, numbered lines 1 to 2)",

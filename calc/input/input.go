@@ -14,10 +14,14 @@
 //	code:      {annex: recommended, overrides: {NAME: value}}       names from code.Catalogue
 //	materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}  concrete required (Table 3.1)
 //	design:    {stress_block: parabola-rectangle, imperfection: inclination, members: 1,
-//	            bar_diameters: [12, 16, 20, 25, 32, 40], link_diameters: [6, 8, 10, 12],
+//	            bar_diameters: [12, 16, 20, 25, 32, 40], link_diameters: [8, 10, 12],
 //	            link_spacing_step: 25 mm, lap_step: 25 mm, lap_above_floor: 0 mm, second_order: nominal-curvature (or nominal-stiffness,
 //	            both), biaxial: "5.39" (or exact), cracked_stiffness: 0.5 (0.1 to 1), size_search,
-//	            durability, fire}
+//	            durability, fire, selection, typical}
+//	selection: {least_bar: 12 mm, least_bar_wide: 16 mm (where min(b, h) ≥ wide_from), wide_from:
+//	            300 mm, vibrator_gap: 75 mm (0 to 150; 0: none), labour_per_bar: 2 (kg of steel),
+//	            labour_per_tie: 1 (kg of steel per tie piece), costed: 12 (2 to 100)}
+//	typical:   {on: true, tolerance: 10 % (0 to 100)}; applies to the building form
 //	size_search: {sizes: [[b, h], ...]} tried in order, or {step, min, max, square: false};
 //	            either way steel_ratio_max: 0.04 (0.002 to 0.08)
 //	vars:      {NAME: quantity or expression}
@@ -82,7 +86,7 @@ import (
 // Defaults of the design block.
 var (
 	DefaultBarDiameters  = []float64{12, 16, 20, 25, 32, 40} // mm
-	DefaultLinkDiameters = []float64{6, 8, 10, 12}           // mm
+	DefaultLinkDiameters = []float64{8, 10, 12}              // mm: links of at least 8 mm, common practice
 )
 
 // Limits of the characteristic yield strength of reinforcement, EN 1992-1-1:2004 3.2.2(3)P, MPa.
@@ -378,6 +382,8 @@ func (r *reader) design(top map[string]pair) model.Options {
 		SecondOrder:   model.SecondOrderCurvature,
 		Biaxial:       model.BiaxialRule,
 		CrackedK:      DefaultCrackedK,
+		Selection:     model.DefaultSelection(),
+		Typical:       model.DefaultTypical(),
 	}
 	p, ok := top["design"]
 	if !ok {

@@ -146,7 +146,7 @@ func TestDefaultsAndHash(t *testing.T) {
 	}
 	o := in.Options
 	if o.StressBlock != model.ParabolaRectangle || o.Imperfection != model.ImperfInclination || o.Members != 1 || o.LinkStep != 25 || o.LapStep != 25 || o.LapStart != 0 ||
-		!equal(o.BarDiameters, []float64{12, 16, 20, 25, 32, 40}) || !equal(o.LinkDiameters, []float64{6, 8, 10, 12}) {
+		!equal(o.BarDiameters, []float64{12, 16, 20, 25, 32, 40}) || !equal(o.LinkDiameters, []float64{8, 10, 12}) || o.Selection != model.DefaultSelection() || o.Typical != model.DefaultTypical() {
 		t.Errorf("default options %+v", o)
 	}
 	if in.Materials.Fyk != 500 || in.Materials.Aggregate != 20 || in.Code.Annex != "recommended" || len(in.Code.Overrides()) != 0 {
@@ -248,7 +248,7 @@ func TestParseErrors(t *testing.T) {
 			"in.yaml:7: columns[0].bars.dia: is required but missing (e.g. bars: {count: 8, dia: 20 mm})",
 			"in.yaml:8: columns[0].link_dia: must be greater than 0, found 0 mm"}},
 		{"cover too large", "materials: {concrete: C30/37}\ncolumns:\n  - id: K1\n    b: 200\n    h: 300\n    cover: 80 mm\n    bars: {count: 4, dia: 16}\n    storeys: [{name: L1, l0: 3000, NEd: 1}]\n", []string{
-			"in.yaml:6: columns[0].cover: no room for links and bars: 2·(cover + link + bar) = 2·(80 + 6 + 16) = 204 mm is not less than min(b, h) = 200 mm"}},
+			"in.yaml:6: columns[0].cover: no room for links and bars: 2·(cover + link + bar) = 2·(80 + 8 + 16) = 208 mm is not less than min(b, h) = 200 mm"}},
 		{"cover with the smallest sizes", "materials: {concrete: C30/37}\ndesign: {bar_diameters: [20, 16], link_diameters: [10]}\ncolumns:\n  - {id: K1, b: 200, h: 300, cover: 74, storeys: [{name: L1, l0: 3000, NEd: 1}]}\n", []string{
 			"in.yaml:4: columns[0].cover: no room for links and bars: 2·(cover + link + bar) = 2·(74 + 10 + 16) = 200 mm is not less than min(b, h) = 200 mm"}},
 		{"missing column keys", "materials: {concrete: C30/37}\ncolumns:\n  - b: 300\n", []string{

@@ -31,7 +31,8 @@ const (
 var cements = []string{"S", "N", "R"}
 
 var designKeys = []string{"stress_block", "imperfection", "members", "bar_diameters", "link_diameters",
-	"link_spacing_step", "lap_step", "lap_above_floor", "second_order", "biaxial", "cracked_stiffness", "size_search", "durability", "fire"}
+	"link_spacing_step", "lap_step", "lap_above_floor", "second_order", "biaxial", "cracked_stiffness", "size_search", "durability", "fire",
+	"selection", "typical"}
 
 // methods reads the second-order, biaxial and cracked-stiffness choices, the size finder and the
 // durability and fire data of the design block's fields f into o.
@@ -60,6 +61,12 @@ func (r *reader) methods(f map[string]pair, o *model.Options) {
 	}
 	if e, ok := f["fire"]; ok {
 		o.Fire = r.fire(e.val, "design.fire", nil)
+	}
+	if e, ok := f["selection"]; ok {
+		r.selection(e.val, "design.selection", &o.Selection)
+	}
+	if e, ok := f["typical"]; ok {
+		r.typical(e.val, "design.typical", &o.Typical)
 	}
 }
 

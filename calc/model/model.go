@@ -62,6 +62,27 @@ type Options struct {
 	Sizes         *SizeSearch // the section-size finder, when asked for
 	Durability    *Durability // cover for durability, for every column unless a column gives its own
 	Fire          *Fire       // fire resistance, for every column unless a column or level gives its own
+	Selection     Selection   // the rules of practice and the cost by which designed bars are chosen
+	Typical       Typical     // the pass that gives lifts of one section one pattern (building form)
+}
+
+// Selection holds the rules of practice that designed bars keep to and the labour terms of the
+// cost by which the cheapest passing pattern is chosen (common practice, no source).
+type Selection struct {
+	LeastBar     float64 // least main bar where the smaller dimension is below WideFrom, mm (12)
+	LeastBarWide float64 // least main bar where the smaller dimension is at least WideFrom, mm (16)
+	WideFrom     float64 // smaller dimension from which LeastBarWide applies, mm (300)
+	VibratorGap  float64 // clear gap between bars for a poker vibrator, where a pattern that keeps it passes, mm (75)
+	LabourBar    float64 // labour per main bar, kg of steel (2)
+	LabourTie    float64 // labour per tie piece, kg of steel (1)
+	Costed       int     // most passing patterns costed beyond the chosen one (12)
+}
+
+// Typical is the pass that gives the lifts of one section the same bar pattern where it costs at
+// most Tolerance more steel (building form).
+type Typical struct {
+	On        bool
+	Tolerance float64 // fraction: 0.10 for 10 %
 }
 
 // Second-order methods of EN 1992-1-1 5.8.5.
@@ -158,3 +179,15 @@ const (
 	FireMethodA   = "A"         // EN 1992-1-2 5.3.2, Method A: Table 5.2a, or Eq. (5.7)
 	FireElsewhere = "elsewhere" // verified by another method outside this calculation, recorded as such
 )
+
+// DefaultSelection returns the rules of practice and the labour terms engineers expect
+// (common practice, no source): least main bar 12 mm, 16 mm where the smaller dimension is at
+// least 300 mm; a 75 mm gap for a poker vibrator; 2 kg of steel per bar and 1 per tie piece; 12
+// passing patterns costed beyond the chosen one at most.
+func DefaultSelection() Selection {
+	return Selection{LeastBar: 12, LeastBarWide: 16, WideFrom: 300, VibratorGap: 75, LabourBar: 2, LabourTie: 1, Costed: 12}
+}
+
+// DefaultTypical returns the typical-pattern pass as the building form runs it by default: on,
+// with a tolerance of 10 % more steel.
+func DefaultTypical() Typical { return Typical{On: true, Tolerance: 0.10} }
