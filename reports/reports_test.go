@@ -566,7 +566,7 @@ func TestScheduleFireStatus(t *testing.T) {
 	} {
 		var d design.Design
 		d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = c.rating, c.ok, c.method
-		row := scheduleRow(d, "Group 1", func(s string) string { return s })
+		row := scheduleRow(d, "Group 1", design.LiftLevel{}, func(s string) string { return s })
 		found := false
 		for _, cell := range row {
 			if cell == c.want {

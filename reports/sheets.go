@@ -164,7 +164,9 @@ type sheetView struct {
 	// index only
 	Designs  []designRow
 	Sizes    []sizeRow  // the section-size finder, when asked for
-	Schedule [][]inline // the column schedule, one row per design
+	Schedule [][]inline // the column schedule, one row per design: the cage as built
+	Marks    [][]inline // the schedule's bar marks, one row per mark of each design
+	Totals   [][]inline // the quantity take-off: steel per column, per level and for the building
 	Failures inline     // sentence on the count of failing designs
 	AnyFail  bool
 }
@@ -312,9 +314,12 @@ func index(r *design.Result, link func(name string) target, b *book, p place) sh
 		PlainSubject: "Index of calculation sheets", PlainTool: pdfText(program(r))}
 	nm := names(r)
 	groupOf := groupNames(r)
+	lv := r.Levels()
 	for i, d := range r.Designs {
-		v.Schedule = append(v.Schedule, scheduleCells(d, groupOf[i]))
+		v.Schedule = append(v.Schedule, scheduleCells(d, groupOf[i], lv[i]))
+		v.Marks = append(v.Marks, markCells(d)...)
 	}
+	v.Totals = totalCells(r.Quantities())
 	for _, z := range r.Sizes {
 		row := sizeRow{Column: txt(z.Column), Given: txt(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
 			Found: txt("none of the sizes passes"), Steel: txt("–"), Utilization: txt("–")}

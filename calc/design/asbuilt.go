@@ -43,6 +43,7 @@ func (c *common) asBuilt(l *trace.Log, d *Design, in built) {
 	a := l.Add(trace.Input("built/a_lap", "Start of the laps above the floor level at the foot of the lift", src, "a_lap", "mm", c.in.Options.LapStart).
 		Note("The bars of the lift below (or the starter bars) project above the floor; each bar of this lift is set beside one of them from this level up over the lap length."))
 	d.Detailing.LapStart, d.Detailing.LapTransverse = a.V, in.laps.Transverse
+	d.Detailing.BarsB, d.Detailing.BarsH = in.p.NB, in.p.NH
 	r := in.restraintOfFaces
 	d.Detailing.TiesB, d.Detailing.TiesH, d.Detailing.TieBars = r.AlongB.Extra, r.AlongH.Extra, tieBars(r)
 

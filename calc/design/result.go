@@ -148,12 +148,14 @@ type Detailing struct {
 	FireMethod     string  // how the rating is shown: "Method A, Table 5.2a", "Method A, Eq. (5.7)" or "verified elsewhere"; empty when not shown
 	SurfaceMesh    bool    // a surface reinforcement mesh is required against falling off of concrete in fire (a ≥ 70 mm), EN 1992-1-2 4.5.2(2)
 
+	BarsB, BarsH  int           // bars along each b-face and along each h-face, corners included
 	LapBuilt      float64       // mm, the lap length as built: LapLength rounded up to design.lap_step; 0 when not computed
 	LapStart      float64       // mm, start of the laps above the floor level at the foot of the lift
 	LapTransverse bool          // the links over the laps provide the area of one lapped bar, 8.7.4.1(3)
 	Zones         *detail.Zones // the link zones of the lift as built; nil where the lift's length is not known
 	TiesB, TiesH  int           // extra ties on the b-faces (each across h) and on the h-faces (each across b), 9.5.3(6)
 	TieBars       string        // which bars the extra ties hold, counted from a corner along each face; empty when none
+
 }
 
 // Schedule is the cage of a lift as built: the bar marks with their counts, cut lengths and
@@ -214,4 +216,95 @@ func (d *Design) Trace() []trace.Step {
 		out[i] = s
 	}
 	return out
+}
+
+// LiftLevel is the level of the foot and of the top of a lift, mm above the base of its column.
+type LiftLevel struct {
+	Bottom, Top float64
+	Known       bool // false where a length of the lift or of a lift below is not given
+}
+
+// Levels returns the levels of each design's lift: from the building form's storey heights, or,
+// in the actions form, from the lengths l of the column's lifts summed in input order from its
+// first lift (unknown above a lift whose length is not given).
+func (r *Result) Levels() []LiftLevel {
+	out := make([]LiftLevel, len(r.Designs))
+	if r.Input == nil {
+		return out
+	}
+	at := map[string]LiftLevel{} // "column\x00lift"
+	if b := r.Input.Building; b != nil {
+		z := 0.0
+		for _, s := range b.Storeys {
+			at["\x00"+s.Name] = LiftLevel{Bottom: z, Top: z + s.Height, Known: s.Height > 0}
+			z += s.Height
+		}
+		for i, d := range r.Designs {
+			out[i] = at["\x00"+d.Storey]
+		}
+		return out
+	}
+	for _, c := range r.Input.Columns {
+		z, known := 0.0, true
+		for _, s := range c.Storeys {
+			known = known && s.Length > 0
+			at[c.ID+"\x00"+s.Name] = LiftLevel{Bottom: z, Top: z + s.Length, Known: known}
+			z += s.Length
+		}
+	}
+	for i, d := range r.Designs {
+		out[i] = at[d.Column+"\x00"+d.Storey]
+	}
+	return out
+}
+
+// Total is the steel of a column, of a level or of the building, kg.
+type Total struct {
+	Name           string
+	Main, Links    float64 // main bars (starter bars included), links and ties
+	Total          float64
+	Lifts, Unknown int // lifts counted, and lifts whose masses are not known (left out of the sums)
+}
+
+// Quantities is the quantity take-off of the run: the steel per column, per level (lifts
+// named by the level at their top) and for the building.
+type Quantities struct {
+	Columns, Levels []Total // in order of first appearance
+	Building        Total
+}
+
+// Quantities sums the masses of the designs' schedules per column, per level and for the building.
+func (r *Result) Quantities() Quantities {
+	var q Quantities
+	q.Building.Name = "building"
+	add := func(list *[]Total, name string, s Schedule) {
+		k := -1
+		for i := range *list {
+			if (*list)[i].Name == name {
+				k = i
+			}
+		}
+		if k < 0 {
+			*list = append(*list, Total{Name: name})
+			k = len(*list) - 1
+		}
+		(*list)[k].add(s)
+	}
+	for _, d := range r.Designs {
+		add(&q.Columns, d.Column, d.Schedule)
+		add(&q.Levels, d.Storey, d.Schedule)
+		q.Building.add(d.Schedule)
+	}
+	return q
+}
+
+func (t *Total) add(s Schedule) {
+	t.Lifts++
+	if !s.Known {
+		t.Unknown++
+		return
+	}
+	t.Main += s.MainMass
+	t.Links += s.LinkMass
+	t.Total += s.TotalMass
 }
