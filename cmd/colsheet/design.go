@@ -247,6 +247,11 @@ func render(res *design.Result, formats map[string]bool, opt reports.Options) (m
 		return nil, err
 	}
 	files["schedule.csv"] = schedule
+	quantities, err := reports.QuantitiesCSV(res)
+	if err != nil {
+		return nil, err
+	}
+	files["quantities.csv"] = quantities
 	// The sheets and the calc document: each tree built once, printed in every format.
 	sheets, docs, err := reports.Render(res, formats, opt)
 	if err != nil {
