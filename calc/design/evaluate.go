@@ -45,7 +45,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 
 	// Reinforcement provided and its limits.
 	l.Group = "Reinforcement provided"
-	src := trace.ClauseChosen + "the least steel that passes every check"
+	src := trace.ClauseChosen + "the cheapest pattern that passes every check within the rules of practice"
 	if given {
 		src = "input"
 	}

@@ -156,6 +156,10 @@ type Detailing struct {
 	TiesB, TiesH  int           // extra ties on the b-faces (each across h) and on the h-faces (each across b), 9.5.3(6)
 	TieBars       string        // which bars the extra ties hold, counted from a corner along each face; empty when none
 
+	// Crank is the offset, mm, by which the bars of this lift are cranked at its top into the section
+	// of the lift above where the section changes (0: the bars run straight on), and CrankLength
+	// the length of the crank at 1 in 12, EN 1992-1-1:2004 9.5.3(5).
+	Crank, CrankLength float64
 }
 
 // Schedule is the cage of a lift as built: the bar marks with their counts, cut lengths and

@@ -41,6 +41,7 @@ func Run(in *model.Input) (*Result, error) {
 		h := r.bs.hoister()
 		type at struct{ k, i int }
 		var across []at
+		dvs := make([]*Derivation, len(d.Lifts))
 		// Each column from its top lift down, so that a lift's bars are not less than those of
 		// the lift above (the bars do not grow up the building, common practice) and the lap
 		// above a lift can be checked.
@@ -57,9 +58,18 @@ func Run(in *model.Input) (*Result, error) {
 			if k+1 < len(d.Lifts) && d.Lifts[k+1].Column == lf.Column {
 				above := &r.Designs[k+1]
 				dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.B*above.H, above.Storey
+				if above.pattern.Count() > 0 {
+					dv.above = neighbourOf(above)
+				}
 			}
 			r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
 			r.cases[k] = liftCase{col, &col.Storeys[0]}
+			dvs[k] = dv
+		}
+		if in.Options.Typical.On && b.Bars == nil {
+			r.typicalPass(in, dvs)
+		}
+		for k, dv := range dvs {
 			for _, i := range dv.across {
 				across = append(across, at{k, i})
 			}
@@ -104,6 +114,11 @@ type Derivation struct {
 
 	hoist  *hoister // takes the steps that repeat a basis step out of Steps; nil: none
 	across []int    // places of the steps that refer to another lift, once hoisted
+
+	above     *neighbour       // the bars of the lift above, which this lift's bars continue; nil at the top
+	below     *neighbour       // the typical pass: the bars of the lift below, within which this lift's stay; nil: none
+	prefer    []detail.Pattern // the typical pass: the patterns of the section in order of use, to prefer
+	tolerance float64          // the typical pass: the most extra steel accepted for a preferred pattern, as a fraction
 }
 
 // methods returns the methods and assumptions in force for the input.
@@ -126,7 +141,7 @@ func methods(in *model.Input) []Method {
 		secondOrder(in),
 		{"Design moment", "MEd = max{M02, M0e + M2, M01 + 0.5·M2, NEd·e0}, imperfections about both axes", "EN 1992-1-1:2004 5.8.8.2; common practice"},
 		{"Biaxial bending", "criteria (5.38a/b), then (5.39) with a from NEd/NRd", "EN 1992-1-1:2004 5.8.9"},
-		{"Bars", "symmetric patterns with a bar in each corner; the least steel that passes every check", "EN 1992-1-1:2004 9.5.2, 8.2"},
+		bars(in),
 		{"Links", "diameter, spacing and reduced spacing", "EN 1992-1-1:2004 9.5.3"},
 		{"Laps", "all bars lapped at one section above the floor, each bar of the lift above beside its bar below; the clear distance beside each lapped pair; links over the lap at the reduced spacing, for bars of 20 mm and over with ΣAst ≥ As of one bar in the outer thirds, one more beyond each end", "EN 1992-1-1:2004 8.7.2(3), (4); 8.7.4; 9.5.3(4)"},
 		{"Scope", "isolated columns of braced frames under the given actions; tension columns excluded", "common practice"},
@@ -373,12 +388,15 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 
 // linkFor returns the link diameter for bars of diameter dia: the given one, or the smallest
 // listed size not below max(6 mm, φ/4) of EN 1992-1-1:2004 9.5.3(1).
-func (c *common) linkFor(dia float64) float64 {
-	if c.col.LinkDia > 0 {
-		return c.col.LinkDia
+func (c *common) linkFor(dia float64) float64 { return linkDiaFor(c.in, c.col, dia) }
+
+// linkDiaFor returns the link diameter of the column's bars of diameter dia, as (*common).linkFor.
+func linkDiaFor(in *model.Input, col *model.Column, dia float64) float64 {
+	if col.LinkDia > 0 {
+		return col.LinkDia
 	}
-	need := math.Max(c.p.Get("link_dia_min"), c.p.Get("link_dia_ratio")*dia)
-	sizes := c.in.Options.LinkDiameters
+	need := math.Max(in.Code.Get("link_dia_min"), in.Code.Get("link_dia_ratio")*dia)
+	sizes := in.Options.LinkDiameters
 	for _, d := range sizes {
 		if d >= need-1e-9 {
 			return d
@@ -401,64 +419,7 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 		c.withArrangements(&d, dv)
 		return c.finish(d)
 	}
-	asLo := c.asMin.V
-	if dv != nil && dv.AsAbove > asLo {
-		asLo = dv.AsAbove
-	}
-	it := detail.NewIter(col.B, col.H, col.Cover, in.Options.BarDiameters, c.linkFor, c.lappedFit, asLo, c.asMax.V)
-	var best Design
-	found, seen := false, false
-	var lastP detail.Pattern
-	floor := c.areaFloor(in.Options.BarDiameters[0])
-	for p, ok := it.Next(); ok; p, ok = it.Next() {
-		seen, lastP = true, p
-		// Below the area floor no pattern resists the least design moments.
-		if p.Area() < floor*(1-1e-6) {
-			continue
-		}
-		// NRd,max grows with the steel area alone: below the area that carries NEd every
-		// pattern fails, and the patterns come in order of area.
-		if c.nEd.V > c.section([][2]float64{{0, 0}}, p.Area()).nRdMax() {
-			continue
-		}
-		// A pattern that fails a resistance check for certain is skipped.
-		if c.cannotPass(p) {
-			continue
-		}
-		// The first pattern that survives usually passes, so it is traced in full at once;
-		// later ones are tried without their trace and traced only when they pass. A pattern
-		// that fails only where no bar pattern can help (the fire method does not apply to the
-		// column) ends the search as well: it is the design, and it fails.
-		d := c.evaluate(p, false, !found)
-		if d.Status == StatusPass || d.failsOnlyOnFixed() {
-			if found {
-				d = c.evaluate(p, false, true)
-			}
-			if c.withArrangements(&d, dv); d.Status == StatusPass || d.failsOnlyOnFixed() {
-				return c.finish(d)
-			}
-		}
-		if !found || d.Utilization < best.Utilization {
-			best, found = d, true
-		}
-	}
-	switch {
-	case !seen:
-		return c.noArrangement()
-	case !found:
-		// Every pattern fails for certain: show the one with the most steel, which fails loudly.
-		d := c.evaluate(lastP, false, true)
-		if c.nEd.V > d.NRdMax {
-			d.Reasons = append([]string{"NEd exceeds the resistance to pure compression even with the most steel that fits: enlarge the section or raise the concrete class."}, d.Reasons...)
-		} else {
-			d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the most steel is shown."}, d.Reasons...)
-		}
-		return c.finish(d)
-	}
-	d := c.evaluate(best.pattern, false, true)
-	c.withArrangements(&d, dv)
-	d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, d.Reasons...)
-	return c.finish(d)
+	return c.search(dv)
 }
 
 // withArrangements checks the design's bars once more for each moment arrangement with the
@@ -560,12 +521,19 @@ func (c *common) givenPattern() detail.Pattern {
 	return detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count / 2}
 }
 
-// candidatesFor returns the patterns to try: the given bars, or every pattern in order of area.
+// candidatesFor returns the patterns to try: the given bars, or the patterns within the rules of
+// practice in the order the design tries them: those that keep the vibrator gap by cost, then
+// the others by cost.
 func candidatesFor(c *common) []detail.Pattern {
 	if c.col.Bars != nil {
 		return []detail.Pattern{c.givenPattern()}
 	}
-	return detail.Candidates(c.col.B, c.col.H, c.col.Cover, c.in.Options.BarDiameters, c.linkFor, c.lappedFit, c.asMin.V, c.asMax.V)
+	roomy, tight := c.options(c.rulesFor(c.dv))
+	var out []detail.Pattern
+	for _, o := range append(roomy, tight...) {
+		out = append(out, o.p)
+	}
+	return out
 }
 
 // lappedFit returns the least clear distance between the bars of diameter dia, away from the laps, that
