@@ -35,7 +35,8 @@ type groupSection struct {
 	Name      inline // "Group 3"
 	Governing inline // the governing lift, "B2/L1"
 	Rows      []groupRow
-	Sheet     sheetView // the governing lift
+	Sketch    []figureView // the section sketch of the group's cage, printed beside its table (the governing lift's)
+	Sheet     sheetView    // the governing lift
 }
 
 // groupRow is one lift of a group: its values and a link to its own sheet.
@@ -134,6 +135,7 @@ func document(r *design.Result, b *book, p place) docView {
 		s := sheet(b, g.governing, p)
 		s.H, s.Sec1, s.Sec2 = "##", "subsubsection*", "paragraph*"
 		s.Anchor = anchor(anchorName("d-", b.names[g.governing]))
+		sec.Sketch, s.Sketch = s.Sketch, nil // the group's cage is drawn once, beside its table
 		sec.Sheet = s
 		v.Groups = append(v.Groups, sec)
 		gst, gfailed := status(worst)

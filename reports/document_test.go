@@ -141,7 +141,8 @@ func TestDocumentParts(t *testing.T) {
 	if groups < 1 || groups >= len(r.Designs) {
 		t.Errorf("%d groups of %d lifts: the test building should group some lifts", groups, len(r.Designs))
 	}
-	if n, want := strings.Count(string(mdDoc.Data), "<svg "), 3*groups; n != want {
+	// Per group: the section sketch beside its table and the three interaction diagrams.
+	if n, want := strings.Count(string(mdDoc.Data), "<svg "), 4*groups; n != want {
 		t.Errorf("calc.md: %d SVG pictures, want %d", n, want)
 	}
 	for _, want := range []string{`\tableofcontents`, `\section{Column groups}`, `\subsection{Group 1: `, `\hypertarget{s-`, `\hyperlink{s-`, `\section{Failures and warnings}`} {
@@ -149,7 +150,7 @@ func TestDocumentParts(t *testing.T) {
 			t.Errorf("calc.tex lacks %q", want)
 		}
 	}
-	if n, want := strings.Count(string(texDoc.Data), `\begin{tikzpicture}`), 3*groups; n != want {
+	if n, want := strings.Count(string(texDoc.Data), `\begin{tikzpicture}`), 4*groups; n != want {
 		t.Errorf("calc.tex: %d pictures, want %d", n, want)
 	}
 }
@@ -225,7 +226,7 @@ func TestHTMLInChromium(t *testing.T) {
 	if !strings.Contains(dom, "Calculation package") || !strings.Contains(dom, "Group 1: ") {
 		t.Errorf("the rendered page lacks its headings (%d bytes of DOM)", len(dom))
 	}
-	if n, want := strings.Count(dom, "<svg "), 3*len(columnGroups(r)); n != want {
+	if n, want := strings.Count(dom, "<svg "), 4*len(columnGroups(r)); n != want {
 		t.Errorf("rendered DOM holds %d SVG pictures, want %d", n, want)
 	}
 	for _, line := range strings.Split(stderr.String(), "\n") {

@@ -24,7 +24,7 @@ const (
 	sLink                    // inner linked to a target
 	sAnchor                  // a link target (text: its name)
 	sChanged                 // inner, changed since the previous revision
-	sPicture                 // a diagram
+	sPicture                 // a drawing: a diagram or a section sketch
 	sListing                 // one line of a verbatim listing
 )
 
@@ -37,7 +37,14 @@ type span struct {
 	pieces []piece
 	inner  inline
 	to     target
-	fig    *diagram
+	fig    drawing
+}
+
+// drawing is a picture that prints itself for each format: an inline SVG element, or TikZ
+// (pgfplots for a diagram) for LaTeX. An interaction diagram and a section sketch are drawings.
+type drawing interface {
+	SVG() string
+	PGF() string
 }
 
 // target is where a link leads: an anchor on a sheet of the same set ("" for the page being
@@ -60,7 +67,7 @@ func qty(v float64, u string) inline      { return inline{{kind: sQty, v: v, uni
 func formula(ps []piece) inline           { return inline{{kind: sFormula, pieces: ps}} }
 func link(label inline, to target) inline { return inline{{kind: sLink, inner: label, to: to}} }
 func changed(in inline) inline            { return inline{{kind: sChanged, inner: in}} }
-func picture(g diagram) inline            { return inline{{kind: sPicture, fig: &g}} }
+func picture(g drawing) inline            { return inline{{kind: sPicture, fig: g}} }
 
 // cat joins runs.
 func cat(parts ...inline) inline {
@@ -119,7 +126,7 @@ func (p printer) inline(in inline) string {
 		case sChanged:
 			b.WriteString(p.m.changed(p.inline(s.inner)))
 		case sPicture:
-			b.WriteString(p.m.picture(*s.fig))
+			b.WriteString(p.m.picture(s.fig))
 		case sListing:
 			b.WriteString(p.m.listing(s.text))
 		}

@@ -18,7 +18,7 @@ type markup interface {
 	link(label, target string) string        // label (already marked up) linked to target; the label alone when target is ""
 	anchor(name string) string               // a link target named name (from anchorName)
 	listing(line string) string              // one line of a verbatim listing (the input file)
-	picture(g diagram) string                // a diagram drawn for the format: SVG, or pgfplots for LaTeX
+	picture(g drawing) string                // a drawing for the format: SVG, or TikZ and pgfplots for LaTeX
 	changed(s string) string                 // a value (already marked up) changed since the previous revision
 }
 
@@ -127,7 +127,7 @@ func (md) anchor(name string) string { return `<a id="` + name + `"></a>` }
 func (md) listing(line string) string { return oneLine(line) }
 
 // picture is the inline SVG, a raw HTML block (it holds no blank line) that goldmark passes on.
-func (md) picture(g diagram) string { return g.SVG() }
+func (md) picture(g drawing) string { return g.SVG() }
 
 // changed highlights a changed value; the HTML renders <mark> as a highlight.
 func (md) changed(s string) string { return "<mark>" + s + "</mark>" }
@@ -414,7 +414,7 @@ func (tex) link(label, target string) string {
 
 func (tex) anchor(name string) string { return `\hypertarget{` + name + `}{}` }
 
-func (tex) picture(g diagram) string { return g.PGF() }
+func (tex) picture(g drawing) string { return g.PGF() }
 
 // changed marks a changed value (\csrev: a bar in the margin and the value highlighted).
 func (tex) changed(s string) string { return `\csrev{` + s + `}` }

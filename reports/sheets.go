@@ -154,6 +154,7 @@ type sheetView struct {
 	Governing      inline
 	Summary        []kv
 	Axes           []axisRow
+	Sketch         []figureView // the section sketch of the cage (none where the design holds no bars)
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
 	Groups         []groupView
 	Brief          bool        // the steps one line each (the chain); else every step in full
@@ -414,6 +415,9 @@ func sheet(b *book, i int, p place) sheetView {
 		ax("Creep ratio φ_ef", func(a design.Axis) inline { return numv(fmtNum(a.PhiEf)) }),
 		ax("Design moment M_Ed", func(a design.Axis) inline { return qty(a.MEd, "Nmm") }),
 		ax("Resistance M_Rd", func(a design.Axis) inline { return qty(a.MRd, "Nmm") }),
+	}
+	if sk, ok := cageSketch(d); ok {
+		v.Sketch = []figureView{{Body: picture(sk), Caption: txt(sk.Caption())}}
 	}
 	for _, g := range diagrams(d) {
 		v.Diagrams = append(v.Diagrams, figureView{Body: picture(g), Caption: txt(g.Caption())})
