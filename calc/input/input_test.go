@@ -240,6 +240,14 @@ func TestParseErrors(t *testing.T) {
 			"in.yaml:7: design.link_spacing_step: must be greater than 0, found 0 mm",
 			"in.yaml:8: design.lap_step: must be greater than 0, found 0 mm",
 			"in.yaml:9: design.lap_above_floor: the start of the laps above the floor must not be negative, found -75 mm"}},
+		{"selection and typical", "design:\n  selection:\n    least_bar: 20 mm\n    least_bar_wide: 16 mm\n    vibrator_gap: 200 mm\n    labour_per_bar: -1\n    costed: 1\n    vibrator: 75\n  typical: {on: yes please, tolerance: \"150 %\"}\n" + head + "        NEd: 10\n", []string{
+			"in.yaml:3: design.selection.least_bar: least_bar = 20 mm is greater than least_bar_wide = 16 mm",
+			"in.yaml:5: design.selection.vibrator_gap: the clear gap for a poker vibrator must lie between 0 and 150 mm (0: no such gap asked), found 200 mm",
+			"in.yaml:6: design.selection.labour_per_bar: the labour term in kilograms of steel must lie between 0 and 100, found -1",
+			"in.yaml:7: design.selection.costed: the number of passing patterns costed must be a whole number from 2 to 100, found 1",
+			"in.yaml:8: design.selection.vibrator: unknown key (known here: least_bar, least_bar_wide, wide_from, vibrator_gap, labour_per_bar, labour_per_tie, costed)",
+			`in.yaml:9: design.typical.on: expected true or false, found "yes please"`,
+			"in.yaml:9: design.typical.tolerance: the tolerance must lie between 0 and 100 %, found 150 %"}},
 		{"section", "materials: {concrete: C30/37}\ncolumns:\n  - id: K1/2\n    b: -350\n    h: 2 m2\n    cover: 40 mm\n    bars: {count: 7}\n    link_dia: 0\n    storeys: [{name: L1, l0: 3000, NEd: 1}]\n", []string{
 			`in.yaml:3: columns[0].id: "K1/2" must not contain a slash`,
 			"in.yaml:4: columns[0].b: must be greater than 0, found -350 mm",
