@@ -159,14 +159,14 @@ func (c Continuity) OK() bool { return c.Ratio <= 1+1e-9 }
 // larger diameter; where the section is the same, every bar above lies within one bar diameter
 // (the larger) of a bar below, so that it laps beside it (EN 1992-1-1:2004 8.7.2(3)); where the
 // section changes, the bars below are cranked into the section above and the positions are not
-// compared.
+// compared; nor are they where the counts or the diameter already fail (Farthest is then 0).
 func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
 	c := Continuity{SameSection: ga.B == g.B && ga.H == g.H && ga.Cover == g.Cover, Reach: math.Max(a.Dia, p.Dia)}
 	c.Ratio = math.Max(math.Max(float64(a.NB)/float64(p.NB), float64(a.NH)/float64(p.NH)), a.Dia/p.Dia)
 	ea, e := ga.Edge(a.Dia), g.Edge(p.Dia)
 	c.Offset = math.Max(math.Abs((ga.B/2-ea)-(g.B/2-e)), math.Abs((ga.H/2-ea)-(g.H/2-e)))
-	if !c.SameSection {
-		return c
+	if !c.SameSection || c.Ratio > 1+1e-9 {
+		return c // cranked, or too few bars or too small: the positions need no comparing
 	}
 	below := g.Positions(p)
 	for _, q := range ga.Positions(a) {
