@@ -61,18 +61,18 @@ var chain = []string{
 	// The actions form.
 	"act/NEd", "*/M_top", "*/M_bot",
 	// The design chain.
-	"act/n", "creep/phi_ef",
+	"creep/phi_ef",
 	"*/M02", "*/M01", "*/ei", "*/M02i", "*/l0", "*/phi_ef",
 	"*/lambda", "*/lambda_lim", "*/M0e",
 	"*/e2", "*/M2", "*/MEd_curv", "*/NB", "*/MEd_stiff", "*/MEd",
 	"sec/NRd_max", "*/sec/x", "*/sec/M_Rd",
 	"bi/a", "bi/ratio", "bi/exact/check", "bi/exact/none",
 	// Steel, links, laps, ties.
-	"det/As_min", "bars/As",
+	"bars/As",
 	"links/s", "links/s_zone",
 	"lap/l0",
 	// Fire.
-	"fire/mu_fi", "fire/a", "fire/eq57/R", "fire/eq57/route", "fire/method", "fire/note",
+	"fire/mu_fi", "fire/a", "fire/eq57/R", "fire/method", "fire/note",
 	"req/As_req",
 }
 

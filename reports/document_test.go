@@ -132,7 +132,7 @@ func TestDocumentParts(t *testing.T) {
 	}
 	for _, want := range []string{"# Calculation package: Link test", "| Revision | A |", "Input SHA-256", r.Input.SHA256,
 		"## Contents", "## Basis of design", "## The input as read", "  12  ", "## Column groups", "## Group 1: ", "governing lift: Column ",
-		"## Column schedule", "## Failures and warnings", "competent engineer", "#### Interaction diagrams"} {
+		"## Column schedule", "## Failures and warnings", "competent engineer", "#### Section and interaction diagrams"} {
 		if !strings.Contains(string(mdDoc.Data), want) {
 			t.Errorf("calc.md lacks %q", want)
 		}

@@ -230,6 +230,15 @@ func (a axisRange) decimals() int {
 }
 
 // fixed formats v with dec decimals, never as "-0"; non-finite values give "0".
+// coord writes a coordinate of a drawing to 0.01 px without trailing zeros ("64.00" is "64").
+func coord(v float64) string {
+	s := fixed(v, 2)
+	if strings.Contains(s, ".") {
+		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
+	}
+	return s
+}
+
 func fixed(v float64, dec int) string {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "0"
@@ -353,7 +362,7 @@ func svgNum(v float64, dec int) string {
 func (g diagram) SVG() string {
 	var b strings.Builder
 	h := g.height()
-	f := func(v float64) string { return fixed(v, 2) }
+	f := coord
 	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="` + strconv.Itoa(svgWidth) + `" height="` + strconv.Itoa(h) +
 		`" viewBox="0 0 ` + strconv.Itoa(svgWidth) + " " + strconv.Itoa(h) + `" role="img" font-family="sans-serif" font-size="` +
 		strconv.Itoa(svgFont) + `">` + "\n")
@@ -482,7 +491,7 @@ func svgCircle(m mark, x, y float64) string {
 	if m.Hollow {
 		fill = "#ffffff"
 	}
-	return `<circle cx="` + fixed(x, 2) + `" cy="` + fixed(y, 2) + `" r="3.5" fill="` + fill + `" stroke="` + markColour(m) + `" stroke-width="1.5"/>`
+	return `<circle cx="` + coord(x) + `" cy="` + coord(y) + `" r="3.5" fill="` + fill + `" stroke="` + markColour(m) + `" stroke-width="1.5"/>`
 }
 
 // ---- pgfplots ----

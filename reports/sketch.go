@@ -285,7 +285,7 @@ func (s sketch) px(p pt) (x, y float64) {
 // SVG returns the sketch as a self-contained inline <svg> element.
 func (s sketch) SVG() string {
 	var b strings.Builder
-	f := func(v float64) string { return fixed(v, 2) }
+	f := coord
 	k := s.k()
 	w, h := s.size()
 	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="` + f(w) + `" height="` + f(h) + `" viewBox="0 0 ` + f(w) + " " + f(h) +
@@ -419,7 +419,7 @@ func (s sketch) tieLine(t [2]int) (a, c pt) {
 func (s sketch) PGF() string {
 	var b strings.Builder
 	var t tex
-	f := func(v float64) string { return fixed(v, 2) }
+	f := coord
 	// at writes a point of the section (mm of the column from the centroid) moved by (dx, dy) mm
 	// on paper.
 	at := func(p pt, dx, dy float64) string {

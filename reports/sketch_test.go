@@ -362,8 +362,8 @@ func TestSketchEngine(t *testing.T) {
 		t.Fatal(err)
 	}
 	for _, f := range []struct{ format, heading, picture string }{
-		{"md", "### Section of the cage", "<svg"},
-		{"tex", "{Section of the cage}", "\\begin{tikzpicture}[x=1mm"},
+		{"md", "### Section and interaction diagrams", `<svg xmlns="http://www.w3.org/2000/svg" width="`},
+		{"tex", "{Section and interaction diagrams}", "\\begin{tikzpicture}[x=1mm"},
 	} {
 		var sheet string
 		for _, sh := range pkg[f.format] {
