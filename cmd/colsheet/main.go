@@ -30,7 +30,8 @@ usage:
   colsheet version
   colsheet help
 
-design writes DIR/results.json, DIR/summary.csv, DIR/schedule.csv, the calc
+design writes DIR/results.json, DIR/summary.csv, DIR/schedule.csv,
+DIR/quantities.csv (steel masses per column, level and building), the calc
 document DIR/doc/calc.{md,tex,html} (calc.pdf with --pdf, which needs pdflatex)
 and the calc sheets under DIR/md, DIR/tex and DIR/html. Sheets are brief by
 default (the chain a checker follows; the calc document groups the lifts and
