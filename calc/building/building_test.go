@@ -363,3 +363,23 @@ func TestTakeDownInputsTraced(t *testing.T) {
 		}
 	}
 }
+
+// A floor entry without levels gives every level (the input form documents a missing levels
+// list as all of them): the take-down by hand, tributary area × area load + beams + column
+// self-weight with 1.35 and 1.5 (EN 1990:2002 Eq. (6.10), Table A1.2(B)), as TestTakeDownByHand.
+func TestFloorWithoutLevelsGivesAllLevels(t *testing.T) {
+	in := contractBuilding()
+	in.Building.Floors = []model.Floor{{Gk: 5.8e-3, Qk: 2.5e-3, Category: "B", Spans: model.SpanY}}
+	d, err := Derive(in, panel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const rho = 25e-6
+	beam := rho * 275 * 500
+	colW := rho * 350 * 450
+	a := (6600 + 6600) / 2.0 * (7800 + 5700) / 2
+	g := 3*(5.8e-3*a+beam*(6600+(7800+5700)/2)) + colW*(3800+3300+3300)
+	// Three levels of category B: the leading imposed load is the sum, no αn (imposed_reduction: none).
+	want := 1.35*g + 1.5*3*2.5e-3*a
+	near(t, "B2 NEd at L1", lift(t, d, "B2", "L1").NEd, want, 1e-9)
+}

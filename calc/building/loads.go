@@ -32,13 +32,12 @@ type Level struct {
 	Loads   []BeamLoad
 }
 
-// floorOf returns the floor entry that gives the level's loads.
+// floorOf returns the floor entry that gives the level's loads; an entry without levels gives
+// every level.
 func floorOf(b *model.Building, level string) (model.Floor, bool) {
 	for _, f := range b.Floors {
-		for _, l := range f.Levels {
-			if l == level {
-				return f, true
-			}
+		if contains(f.Levels, level) {
+			return f, true
 		}
 	}
 	return model.Floor{}, false
