@@ -343,7 +343,7 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 			coverOK := true
 			coverAt := e.val
 			if c, ok := g["cover"]; ok {
-				b.Cover, coverOK = r.positive(c.val, join(path, "cover"), "mm")
+				b.Cover, coverOK = r.plausible(c.val, join(path, "cover"), LimitCover)
 				coverAt = c.val
 			}
 			if sizeOK && coverOK && barsOK {
@@ -414,7 +414,7 @@ func (r *reader) levels(n *yaml.Node, path string) ([]model.Level, bool) {
 			good = false
 		}
 		if e, ok := f["height"]; ok {
-			l.Height, _ = r.positive(e.val, join(p, "height"), "mm")
+			l.Height, _ = r.plausible(e.val, join(p, "height"), LimitHeight)
 		} else {
 			r.fail(it, join(p, "height"), "is required but missing (the height from the level below, e.g. height: 3.8 m)")
 		}
@@ -449,7 +449,7 @@ func (r *reader) grid(n *yaml.Node, path string) (x, y []float64, ok bool) {
 		var out []float64
 		good := true
 		for i, it := range items {
-			v, ok := r.positive(it, index(p, i), "mm")
+			v, ok := r.plausible(it, index(p, i), LimitBay)
 			good = good && ok
 			out = append(out, v)
 		}
@@ -480,7 +480,7 @@ func (r *reader) size(f map[string]pair, n *yaml.Node, path, member string) (mod
 			ok = false
 			continue
 		}
-		v, good := r.positive(e.val, join(path, k), "mm")
+		v, good := r.plausible(e.val, join(path, k), LimitSide)
 		ok = ok && good
 		if k == "b" {
 			s.B = v
@@ -710,13 +710,13 @@ func (r *reader) floors(s *site, key, n *yaml.Node, path string) []model.Floor {
 			}
 		}
 		if e, ok := f["gk"]; ok {
-			fl.Gk, _ = r.nonNegative(e.val, join(p, "gk"), "kN/m2")
+			fl.Gk, _ = r.plausible(e.val, join(p, "gk"), LimitAreaLoad)
 		} else {
 			r.fail(it, join(p, "gk"), "is required but missing (the permanent area load besides beams and columns, e.g. gk: 5.8 kN/m2)")
 		}
 		qkOK := false
 		if e, ok := f["qk"]; ok {
-			fl.Qk, qkOK = r.nonNegative(e.val, join(p, "qk"), "kN/m2")
+			fl.Qk, qkOK = r.plausible(e.val, join(p, "qk"), LimitAreaLoad)
 		} else {
 			r.fail(it, join(p, "qk"), "is required but missing (the imposed area load, e.g. qk: 2.5 kN/m2; 0 for none)")
 		}
@@ -814,11 +814,11 @@ func (r *reader) lineLoads(s *site, n *yaml.Node, path string) []model.LineLoad 
 		qOK := false
 		eg, hasG := f["gk"]
 		if hasG {
-			ll.Gk, _ = r.nonNegative(eg.val, join(p, "gk"), "kN/m")
+			ll.Gk, _ = r.plausible(eg.val, join(p, "gk"), LimitLineLoad)
 		}
 		eq, hasQ := f["qk"]
 		if hasQ {
-			ll.Qk, qOK = r.nonNegative(eq.val, join(p, "qk"), "kN/m")
+			ll.Qk, qOK = r.plausible(eq.val, join(p, "qk"), LimitLineLoad)
 		}
 		if !hasG && !hasQ {
 			r.fail(it, p, "give the load: gk, qk or both (e.g. gk: 8.5 kN/m)")

@@ -300,8 +300,8 @@ func TestBuildingErrors(t *testing.T) {
 			"in.yaml:11: building.column_sizes[0].levels[2]: level L1 is listed twice"}},
 		{"column size needs b and h", building + "  column_sizes: [{columns: B1, h: 400}]\n", []string{
 			"in.yaml:11: building.column_sizes[0].b: is required but missing (the width along building y, e.g. b: 350 mm)"}},
-		{"no room in the default column", strings.Replace(building, "b: 350 mm, h: 450 mm", "b: 350 mm, h: 450 mm, cover: 170 mm", 1), []string{
-			"in.yaml:7: building.columns.cover: no room for links and bars: 2·(cover + link + bar) = 2·(170 + 8 + 12) = 380 mm is not less than min(b, h) = 350 mm"}},
+		{"no room in the default column", strings.Replace(building, "b: 350 mm, h: 450 mm", "b: 200 mm, h: 450 mm, cover: 80 mm", 1), []string{
+			"in.yaml:7: building.columns.cover: no room for links and bars: 2·(cover + link + bar) = 2·(80 + 8 + 12) = 200 mm is not less than min(b, h) = 200 mm"}},
 		{"no room with the given bars", building + "  bars: {count: 4, dia: 40}\n  column_sizes: [{columns: B1, b: 170, h: 400}]\n", []string{
 			"in.yaml:12: building.column_sizes[0].b: no room for links and bars: 2·(cover + link + bar) = 2·(40 + 8 + 40) = 176 mm is not less than min(b, h) = 170 mm"}},
 		{"beam lines", building + "  beam_sizes:\n    - {dir: x, lines: [A, 3, \"?\"], b: 300, h: 600}\n    - {dir: y, lines: [\"1\"], b: 300, h: 600}\n    - {lines: [C, C], b: 300, h: 600}\n", []string{
@@ -315,7 +315,7 @@ func TestBuildingErrors(t *testing.T) {
 			"in.yaml:13: building.line_loads[1].to: line D is not on the grid (lettered lines A to C, numbered lines 1 to 2)",
 			"in.yaml:13: building.line_loads[1].category: is required but missing with an imposed load (the category of EN 1991-1-1 Table 6.1, e.g. category: B)",
 			"in.yaml:14: building.line_loads[2].from: line C runs parallel to line B and does not cross it; give a numbered line",
-			"in.yaml:14: building.line_loads[2].gk: must not be negative, found -1 kN/m",
+			"in.yaml:14: building.line_loads[2].gk: -1 kN/m is outside the plausible range of the line load, 0 kN/m to 1000 kN/m (see the input limits in the README)",
 			"in.yaml:15: building.line_loads[3].line: is required but missing (the grid line of the beams, e.g. line: A)"}},
 		{"options", building + "  analysis: exact\n  beam_stiffness: 0.5\n  imposed_reduction: both\n  combination: 6.1a\n  l0_factor: 0.4\n  base: [fixed]\n", []string{
 			`in.yaml:11: building.analysis: "exact" is not one of subframe, frame`,
@@ -326,7 +326,7 @@ func TestBuildingErrors(t *testing.T) {
 			"in.yaml:16: building.base: expected a text, found a list"}},
 		{"storeys", strings.Replace(building, "{name: R, height: 3.3 m}", "{name: L1, height: -3.3 m}\n    - {name: \"\", height: 3 m}\n    - L3", 1), []string{
 			`in.yaml:5: building.storeys[1].name: storey name "L1" is used twice (first at building.storeys[0])`,
-			"in.yaml:5: building.storeys[1].height: must be greater than 0, found -3300 mm",
+			"in.yaml:5: building.storeys[1].height: -3300 mm is outside the plausible range of the storey height, 2000 mm to 12000 mm (see the input limits in the README)",
 			"in.yaml:6: building.storeys[2].name: must not be empty",
 			`in.yaml:7: building.storeys[3]: expected a mapping with the keys name, height, found "L3"`}},
 	}

@@ -68,12 +68,14 @@ import (
 	"crypto/sha256"
 	"encoding/hex"
 	"errors"
+	"fmt"
 	"io"
 	"math"
 	"regexp"
 	"sort"
 	"strconv"
 	"strings"
+	"time"
 
 	"colsheet/calc/code"
 	"colsheet/calc/material"
@@ -119,18 +121,36 @@ func (r *reader) yamlError(err error) {
 		line, _ = strconv.Atoi(m[1])
 		msg = m[2]
 	}
-	r.errs = append(r.errs, Error{File: r.file, Line: line, Msg: "YAML: " + msg})
+	r.errs = append(r.errs, Error{File: r.file, Line: line, Msg: "the file is not valid YAML: " + msg})
 }
 
 var topKeys = []string{"project", "code", "materials", "design", "vars", "columns", "building"}
 
+// tabs reports the lines of data that indent with a tab, which YAML does not allow and its
+// parser reports at a later line; where tabs stand elsewhere, only when the parse fails. It
+// reports whether it found any.
+func (r *reader) tabs(data []byte, anywhere bool) bool {
+	found := false
+	for i, line := range bytes.Split(data, []byte("\n")) {
+		indent := line[:len(line)-len(bytes.TrimLeft(line, " \t-"))]
+		if bytes.IndexByte(indent, '\t') >= 0 || anywhere && bytes.IndexByte(line, '\t') >= 0 {
+			r.errs = append(r.errs, Error{File: r.file, Line: i + 1, Msg: "tab character: use spaces"})
+			found = true
+		}
+	}
+	return found
+}
+
 func (r *reader) parse(data []byte) *model.Input {
+	if r.tabs(data, false) {
+		return nil
+	}
 	dec := yaml.NewDecoder(bytes.NewReader(data))
 	var doc yaml.Node
 	if err := dec.Decode(&doc); err != nil {
 		if errors.Is(err, io.EOF) {
 			r.fail(nil, "", "the file is empty; expected a mapping with at least materials and columns or building")
-		} else {
+		} else if !r.tabs(data, true) {
 			r.yamlError(err)
 		}
 		return nil
@@ -208,8 +228,12 @@ func (r *reader) vars(top map[string]pair) ([]quantity.Def, []pair) {
 	}
 	var defs []quantity.Def
 	var from []pair
-	for _, e := range r.pairs(n, "vars") {
+	for _, e := range r.entries(n, "vars", true) {
 		path := "vars." + e.name
+		if isNull(e.val) {
+			r.fail(e.key, path, "has no value (give a number or a quantity, e.g. %s: 350 mm)", e.name)
+			continue
+		}
 		v := resolve(e.val)
 		if v.Kind != yaml.ScalarNode {
 			r.fail(v, path, "expected a number or a quantity, found %s", kindName(v))
@@ -251,6 +275,12 @@ func (r *reader) project(n *yaml.Node) model.Project {
 	set("designer", &p.Designer)
 	set("checker", &p.Checker)
 	set("date", &p.Date)
+	if e, ok := f["date"]; ok && p.Date != "" {
+		if _, err := time.Parse("2006-01-02", p.Date); err != nil {
+			r.fail(e.val, "project.date", "%q is not a date of the form 2026-12-01", p.Date)
+			p.Date = ""
+		}
+	}
 	return p
 }
 
@@ -285,8 +315,12 @@ func (r *reader) code(n *yaml.Node) code.Params {
 		r.fail(m, "code.overrides", "expected a mapping of parameter names to values, found %s", kindName(m))
 		return params
 	}
-	for _, o := range r.pairs(m, "code.overrides") {
+	for _, o := range r.entries(m, "code.overrides", true) {
 		path := "code.overrides." + o.name
+		if isNull(o.val) {
+			r.fail(o.key, path, "has no value (give the parameter's value, or leave the key out for the recommended one)")
+			continue
+		}
 		c, known := code.Lookup(o.name)
 		if !known {
 			_, err := params.Override(o.name, 0)
@@ -335,7 +369,7 @@ func (r *reader) materials(n *yaml.Node) model.Materials {
 		}
 	}
 	if e, ok := f["aggregate"]; ok {
-		if v, ok := r.positive(e.val, "materials.aggregate", "mm"); ok {
+		if v, ok := r.plausible(e.val, "materials.aggregate", LimitAggregate); ok {
 			m.Aggregate = v
 		}
 	}
@@ -410,32 +444,28 @@ func (r *reader) design(top map[string]pair) model.Options {
 		}
 	}
 	if e, ok := f["bar_diameters"]; ok {
-		if d, ok := r.diameters(e.val, "design.bar_diameters"); ok {
+		if d, ok := r.diameters(e.val, "design.bar_diameters", LimitBar); ok {
 			o.BarDiameters = d
 		}
 	}
 	if e, ok := f["link_diameters"]; ok {
-		if d, ok := r.diameters(e.val, "design.link_diameters"); ok {
+		if d, ok := r.diameters(e.val, "design.link_diameters", LimitLink); ok {
 			o.LinkDiameters = d
 		}
 	}
 	if e, ok := f["link_spacing_step"]; ok {
-		if v, ok := r.positive(e.val, "design.link_spacing_step", "mm"); ok {
+		if v, ok := r.plausible(e.val, "design.link_spacing_step", LimitStep); ok {
 			o.LinkStep = v
 		}
 	}
 	if e, ok := f["lap_step"]; ok {
-		if v, ok := r.positive(e.val, "design.lap_step", "mm"); ok {
+		if v, ok := r.plausible(e.val, "design.lap_step", LimitStep); ok {
 			o.LapStep = v
 		}
 	}
 	if e, ok := f["lap_above_floor"]; ok {
-		if v, ok := r.number(e.val, "design.lap_above_floor", "mm"); ok {
-			if v < 0 {
-				r.fail(e.val, "design.lap_above_floor", "the start of the laps above the floor must not be negative, found %s", show(v, "mm"))
-			} else {
-				o.LapStart = v
-			}
+		if v, ok := r.plausible(e.val, "design.lap_above_floor", LimitLapStart); ok {
+			o.LapStart = v
 		}
 	}
 	r.methods(f, &o)
@@ -443,7 +473,7 @@ func (r *reader) design(top map[string]pair) model.Options {
 }
 
 // diameters reads a non-empty list of diameters and returns them ascending without repeats.
-func (r *reader) diameters(n *yaml.Node, path string) ([]float64, bool) {
+func (r *reader) diameters(n *yaml.Node, path string, l Limit) ([]float64, bool) {
 	items, ok := r.list(n, path, "diameters in mm")
 	if !ok {
 		return nil, false
@@ -451,7 +481,7 @@ func (r *reader) diameters(n *yaml.Node, path string) ([]float64, bool) {
 	var out []float64
 	good := true
 	for i, it := range items {
-		v, ok := r.positive(it, index(path, i), "mm")
+		v, ok := r.plausible(it, index(path, i), l)
 		if !ok {
 			good = false
 			continue
@@ -519,14 +549,14 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 	}
 	var bOK, hOK, coverOK bool
 	if e, ok := required("b", "the width along y, e.g. b: 350 mm"); ok {
-		c.B, bOK = r.positive(e.val, join(path, "b"), "mm")
+		c.B, bOK = r.plausible(e.val, join(path, "b"), LimitSide)
 	}
 	if e, ok := required("h", "the depth along z, e.g. h: 500 mm"); ok {
-		c.H, hOK = r.positive(e.val, join(path, "h"), "mm")
+		c.H, hOK = r.plausible(e.val, join(path, "h"), LimitSide)
 	}
 	coverEntry, hasCover := required("cover", "the nominal cover to the links, e.g. cover: 40 mm")
 	if hasCover {
-		c.Cover, coverOK = r.positive(coverEntry.val, join(path, "cover"), "mm")
+		c.Cover, coverOK = r.plausible(coverEntry.val, join(path, "cover"), LimitCover)
 	}
 	barsOK := true
 	if e, ok := f["bars"]; ok {
@@ -534,7 +564,7 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 	}
 	linkOK := true
 	if e, ok := f["link_dia"]; ok {
-		c.LinkDia, linkOK = r.positive(e.val, join(path, "link_dia"), "mm")
+		c.LinkDia, linkOK = r.plausible(e.val, join(path, "link_dia"), LimitLink)
 	}
 	if bOK && hOK && coverOK && barsOK && linkOK {
 		link := c.LinkDia
@@ -560,7 +590,11 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 		c.Fire = r.fire(e.val, join(path, "fire"), opt.Fire)
 	}
 	if e, ok := required("storeys", "the lifts with their actions"); ok {
-		c.Storeys = r.storeys(e.val, join(path, "storeys"))
+		side := 0.0
+		if bOK && hOK {
+			side = min(c.B, c.H)
+		}
+		c.Storeys = r.storeys(e.val, join(path, "storeys"), side)
 	}
 	return c, len(r.errs) == before
 }
@@ -589,7 +623,7 @@ func (r *reader) bars(n *yaml.Node, path string) (*model.BarSpec, bool) {
 	}
 	if e, has := f["dia"]; has {
 		var good bool
-		b.Dia, good = r.positive(e.val, join(path, "dia"), "mm")
+		b.Dia, good = r.plausible(e.val, join(path, "dia"), LimitBar)
 		ok = ok && good
 	} else {
 		r.fail(n, join(path, "dia"), "is required but missing (e.g. bars: {count: 8, dia: 20 mm})")
@@ -598,7 +632,8 @@ func (r *reader) bars(n *yaml.Node, path string) (*model.BarSpec, bool) {
 	return b, ok
 }
 
-func (r *reader) storeys(n *yaml.Node, path string) []model.Storey {
+// storeys reads the lifts of a column whose smaller section side is side (0 if unknown).
+func (r *reader) storeys(n *yaml.Node, path string, side float64) []model.Storey {
 	items, ok := r.list(n, path, "storeys")
 	if !ok {
 		return nil
@@ -607,7 +642,7 @@ func (r *reader) storeys(n *yaml.Node, path string) []model.Storey {
 	names := map[string]int{}
 	for i, it := range items {
 		p := index(path, i)
-		s := r.storey(it, p)
+		s := r.storey(it, p, side)
 		if s.Name != "" {
 			if first, dup := names[s.Name]; dup {
 				r.fail(it, p+".name", "storey name %q is used twice in this column (first at %s)", s.Name, index(path, first))
@@ -620,7 +655,7 @@ func (r *reader) storeys(n *yaml.Node, path string) []model.Storey {
 	return out
 }
 
-func (r *reader) storey(item *yaml.Node, path string) model.Storey {
+func (r *reader) storey(item *yaml.Node, path string, side float64) model.Storey {
 	n := resolve(item)
 	s := model.Storey{Line: item.Line}
 	f := r.fields(n, path, "name", "l0", "length", "NEd", "M", "phi_ef", "creep")
@@ -635,18 +670,18 @@ func (r *reader) storey(item *yaml.Node, path string) model.Storey {
 		r.fail(n, join(path, "name"), "is required but missing (e.g. name: L1)")
 	}
 	if e, ok := f["l0"]; ok {
-		s.L0Y, s.L0Z = r.l0(e.val, join(path, "l0"))
+		s.L0Y, s.L0Z = r.l0(e.val, join(path, "l0"), side)
 	} else {
 		r.fail(n, join(path, "l0"), "is required but missing (e.g. l0: {y: 2.9 m, z: 3.1 m} or l0: 3 m)")
 	}
 	if e, ok := f["length"]; ok {
-		s.Length, _ = r.positive(e.val, join(path, "length"), "mm")
+		s.Length, _ = r.plausible(e.val, join(path, "length"), LimitHeight)
 	}
 	if e, ok := f["NEd"]; ok {
 		if v, ok := r.number(e.val, join(path, "NEd"), "kN"); ok {
 			if v < 0 {
 				r.fail(e.val, join(path, "NEd"), "tension columns are out of scope (NEd = %s; compression is positive)", show(v, "kN"))
-			} else {
+			} else if r.inside(e.val, join(path, "NEd"), v, LimitNEd) {
 				s.NEd = v
 			}
 		}
@@ -675,11 +710,12 @@ func (r *reader) storey(item *yaml.Node, path string) model.Storey {
 	return s
 }
 
-// l0 reads the effective lengths: a mapping {y, z} or one value for both axes.
-func (r *reader) l0(n *yaml.Node, path string) (y, z float64) {
+// l0 reads the effective lengths: a mapping {y, z} or one value for both axes. Each lies
+// within LimitL0 and is not shorter than the section's smaller side (when known, side > 0).
+func (r *reader) l0(n *yaml.Node, path string, side float64) (y, z float64) {
 	n = resolve(n)
 	if n.Kind == yaml.ScalarNode {
-		v, _ := r.positive(n, path, "mm")
+		v := r.effectiveLength(n, path, side)
 		return v, v
 	}
 	f := r.fields(n, path, "y", "z")
@@ -692,7 +728,7 @@ func (r *reader) l0(n *yaml.Node, path string) (y, z float64) {
 			r.fail(n, join(path, axis), "is required but missing (the effective length for buckling about %s)", axis)
 			continue
 		}
-		v, _ := r.positive(e.val, join(path, axis), "mm")
+		v := r.effectiveLength(e.val, join(path, axis), side)
 		if axis == "y" {
 			y = v
 		} else {
@@ -709,10 +745,10 @@ func (r *reader) moments(n *yaml.Node, path string) (my, mz model.Ends) {
 		var out model.Ends
 		g := r.fields(e.val, path, "top", "bottom")
 		if e, ok := g["top"]; ok {
-			out.Top, _ = r.number(e.val, join(path, "top"), "kNm")
+			out.Top, _ = r.plausible(e.val, join(path, "top"), LimitMoment)
 		}
 		if e, ok := g["bottom"]; ok {
-			out.Bottom, _ = r.number(e.val, join(path, "bottom"), "kNm")
+			out.Bottom, _ = r.plausible(e.val, join(path, "bottom"), LimitMoment)
 		}
 		return out
 	}
@@ -723,4 +759,24 @@ func (r *reader) moments(n *yaml.Node, path string) (my, mz model.Ends) {
 		mz = ends(e, join(path, "z"))
 	}
 	return my, mz
+}
+
+// effectiveLength reads one effective length: within LimitL0 and, where the section is known
+// (side > 0), not shorter than its smaller side, common practice (a member shorter than its
+// width is no column; EN 1992-1-1:2004 5.3.1(7) asks for a height of three depths).
+func (r *reader) effectiveLength(n *yaml.Node, path string, side float64) float64 {
+	v, ok := r.plausible(n, path, LimitL0)
+	if !ok {
+		return 0
+	}
+	if side > 0 && v < side {
+		rn := resolve(n)
+		hint := ""
+		if (rn.ShortTag() == "!!int" || rn.ShortTag() == "!!float") && v*1000 <= LimitL0.Max {
+			hint = fmt.Sprintf("; a plain number is in mm: for metres write the unit, \"%s m\"", rn.Value)
+		}
+		r.fail(n, path, "l0 = %s is shorter than the section's smaller side %s: not a column%s", show(v, "mm"), show(side, "mm"), hint)
+		return 0
+	}
+	return v
 }

@@ -191,8 +191,8 @@ func (r *reader) pairSize(n *yaml.Node, path string) (model.Size, bool) {
 		r.fail(v, path, "expected a section [b, h] of two lengths, e.g. [350 mm, 450 mm], found %s", describeItems(v))
 		return model.Size{}, false
 	}
-	b, okb := r.positive(at[0], paths[0], "mm")
-	h, okh := r.positive(at[1], paths[1], "mm")
+	b, okb := r.plausible(at[0], paths[0], LimitSide)
+	h, okh := r.plausible(at[1], paths[1], LimitSide)
 	return model.Size{B: b, H: h}, okb && okh
 }
 
@@ -223,7 +223,12 @@ func (r *reader) sizeRange(f map[string]pair, n *yaml.Node, path string, s *mode
 			good = false
 			continue
 		}
-		v, ok := r.positive(e.val, join(path, k), "mm")
+		var v float64
+		if k == "step" {
+			v, ok = r.positive(e.val, join(path, k), "mm")
+		} else {
+			v, ok = r.plausible(e.val, join(path, k), LimitSide)
+		}
 		good = good && ok
 		vals[k] = v
 	}

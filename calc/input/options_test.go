@@ -179,7 +179,7 @@ func TestOptionErrors(t *testing.T) {
 			ss + ": give the candidate sections, as sizes: [[300 mm, 300 mm], [350 mm, 350 mm]] or as step, min and max"}},
 		{"size search: not positive", lift + "design:\n  size_search: {step: 0, min: -250, max: 800 kN}\n", []string{
 			ss + ".step: must be greater than 0, found 0 mm",
-			ss + ".min: must be greater than 0, found -250 mm",
+			ss + ".min: -250 mm is outside the plausible range of the section side, 150 mm to 3000 mm (see the input limits in the README)",
 			ss + `.max: "800 kN" is a force, expected a length`}},
 		{"size search: too many sections", lift + "design:\n  size_search: {step: 1, min: 200, max: 400}\n", []string{
 			ss + ".step: 1 mm from 200 mm to 400 mm gives 40401 sections, more than the 10000 the size finder takes; give a larger step"}},
@@ -192,7 +192,7 @@ func TestOptionErrors(t *testing.T) {
 		{"size search: bad sizes", lift + "design:\n  size_search:\n    sizes:\n      - [300]\n      - 300\n      - [300, 0]\n      - {b: 300}\n      - [300 mm, 350]\n      - [0.3 m, 350 mm]\n", []string{
 			"in.yaml:14: design.size_search.sizes[0]: expected a section [b, h] of two lengths, e.g. [350 mm, 450 mm], found a list of 1 item",
 			`in.yaml:15: design.size_search.sizes[1]: expected a section [b, h] of two lengths, e.g. [350 mm, 450 mm], found "300"`,
-			"in.yaml:16: design.size_search.sizes[2][1]: must be greater than 0, found 0 mm",
+			"in.yaml:16: design.size_search.sizes[2][1]: 0 mm is outside the plausible range of the section side, 150 mm to 3000 mm (see the input limits in the README)",
 			"in.yaml:17: design.size_search.sizes[3].h: is required but missing (give the section as [b, h] or {b: 350 mm, h: 450 mm})",
 			"in.yaml:19: design.size_search.sizes[5]: the section 300 × 350 mm is listed twice (first at design.size_search.sizes[4])"}},
 		{"size search: empty sizes", lift + "design:\n  size_search: {sizes: []}\n", []string{

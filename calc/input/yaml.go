@@ -71,7 +71,10 @@ type pair struct {
 
 // pairs returns the entries of mapping n in order, expanding merge keys (<<), refusing
 // duplicate and non-scalar keys, and leaving out entries whose value is null.
-func (r *reader) pairs(n *yaml.Node, path string) []pair {
+func (r *reader) pairs(n *yaml.Node, path string) []pair { return r.entries(n, path, false) }
+
+// entries is pairs, keeping the entries whose value is null where withNull is set.
+func (r *reader) entries(n *yaml.Node, path string, withNull bool) []pair {
 	var out []pair
 	seen := map[string]bool{}
 	var merged []pair
@@ -120,14 +123,14 @@ func (r *reader) pairs(n *yaml.Node, path string) []pair {
 			continue
 		}
 		seen[k.Value] = true
-		if !isNull(v) {
+		if withNull || !isNull(v) {
 			out = append(out, pair{k, v, k.Value})
 		}
 	}
 	for _, p := range merged {
 		if !seen[p.name] {
 			seen[p.name] = true
-			if !isNull(p.val) {
+			if withNull || !isNull(p.val) {
 				out = append(out, p)
 			}
 		}
@@ -150,7 +153,9 @@ func (r *reader) fieldsHinted(n *yaml.Node, path string, misplaced map[string]st
 		return nil
 	}
 	out := map[string]pair{}
-	for _, p := range r.pairs(n, path) {
+	// Null entries are read too, so that a key without a value that belongs nowhere
+	// ({title: a, foo, job: x}) is reported; a known key with a null value is absent.
+	for _, p := range r.entries(n, path, true) {
 		ok := false
 		for _, k := range known {
 			ok = ok || k == p.name
@@ -161,6 +166,9 @@ func (r *reader) fieldsHinted(n *yaml.Node, path string, misplaced map[string]st
 		}
 		if !ok {
 			r.fail(p.key, join(path, p.name), "unknown key (known here: %s)", strings.Join(known, ", "))
+			continue
+		}
+		if isNull(p.val) {
 			continue
 		}
 		out[p.name] = p
@@ -234,6 +242,10 @@ func (r *reader) number(n *yaml.Node, path, unit string) (float64, bool) {
 			r.fail(n, path, "%s", err)
 			return 0, false
 		}
+		if !finite(x) {
+			r.fail(n, path, "%q is not a finite number", n.Value)
+			return 0, false
+		}
 		return x, true
 	case "!!str":
 		x, err := r.env.Eval(n.Value, unit)
@@ -242,6 +254,10 @@ func (r *reader) number(n *yaml.Node, path, unit string) (float64, bool) {
 		}
 		if err != nil {
 			r.fail(n, path, "%s", err)
+			return 0, false
+		}
+		if !finite(x) {
+			r.fail(n, path, "%q is not a finite number", n.Value)
 			return 0, false
 		}
 		return x, true

@@ -81,7 +81,7 @@ func lex(s string) ([]token, error) {
 			out = append(out, token{kind: tOp, text: string(r)})
 			i += w
 		case r == '^':
-			return nil, errors.New("^ is not a power here (it is bitwise XOR in govaluate); use ** for powers")
+			return nil, errors.New("^ is not a power here; use ** for powers (a ** 2)")
 		default:
 			op := string(r)
 			for _, two := range []string{"==", "!=", ">=", "<=", "&&", "||", "??", "<<", ">>", "=~", "!~"} {

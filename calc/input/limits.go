@@ -1,0 +1,84 @@
+package input
+
+import (
+	"math"
+
+	"gopkg.in/yaml.v3"
+)
+
+// Limit is the range of plausibility of one kind of input quantity: a value outside it is
+// refused as a slip of the pen or of the unit, not designed. The README lists them all.
+type Limit struct {
+	What     string  // the quantity, for messages and the README table
+	Unit     string  // the unit a plain number is read in and values are shown in
+	Min, Max float64 // the range, in engine units, both ends included
+	Reason   string  // why the range is what it is
+}
+
+// The limits of the input quantities.
+var (
+	LimitSide = Limit{"section side", "mm", 150, 3000,
+		"common practice: a cast column or beam narrower than 150 mm cannot be concreted around its bars; over 3 m it is a wall or a pier"}
+	LimitCover = Limit{"nominal cover", "mm", 10, 100,
+		"EN 1992-1-1:2004 4.4.1.2(2), Eq. (4.2): cmin is at least 10 mm; over 100 mm the cover needs its own reinforcement, common practice"}
+	LimitBar = Limit{"longitudinal bar diameter", "mm", 8, 50,
+		"EN 1992-1-1:2004 9.5.2(1): at least φmin = 8 mm (recommended); 50 mm is the largest bar rolled, common practice"}
+	LimitLink = Limit{"link diameter", "mm", 6, 20,
+		"EN 1992-1-1:2004 9.5.3(1): at least 6 mm; links over 20 mm are not bent on site, common practice"}
+	LimitAggregate = Limit{"aggregate size", "mm", 4, 63,
+		"common practice: the aggregate sizes of concrete for structures (EN 12620 sizes up to 63 mm)"}
+	LimitL0 = Limit{"effective length l0", "mm", 300, 60000,
+		"common practice: below 0.3 m the member is a pad, not a column; over 60 m no column of 3 m side is within the slenderness the method covers"}
+	LimitHeight = Limit{"storey height", "mm", 2000, 12000,
+		"common practice: storeys of buildings are 2 m to 12 m high"}
+	LimitBay = Limit{"bay width", "mm", 1000, 30000,
+		"common practice: beam-and-slab floors span 1 m to 30 m"}
+	LimitNEd = Limit{"design axial force", "kN", 0, 1e8,
+		"common practice: the heaviest building columns carry some tens of MN; 100 MN (1e5 kN) is beyond any"}
+	LimitMoment = Limit{"first-order end moment", "kNm", -1e11, 1e11,
+		"common practice: 1e5 kNm either way is beyond any building column"}
+	LimitAreaLoad = Limit{"area load", "kN/m2", 0, 0.1,
+		"common practice: 100 kN/m² is beyond any floor of a building (EN 1991-1-1 Table 6.2 tops out at 7.5 kN/m² for storage)"}
+	LimitLineLoad = Limit{"line load", "kN/m", 0, 1000,
+		"common practice: 1000 kN/m is beyond any wall or façade a floor beam carries"}
+	LimitStep = Limit{"rounding step", "mm", 5, 100,
+		"common practice: site dimensions are rounded to 5 mm to 100 mm"}
+	LimitLapStart = Limit{"start of the laps above the floor", "mm", 0, 12000,
+		"the laps start within the storey, at most the tallest storey (12 m)"}
+)
+
+// Limits lists every limit, in the order of the README table.
+var Limits = []Limit{LimitSide, LimitCover, LimitBar, LimitLink, LimitAggregate, LimitL0, LimitHeight,
+	LimitBay, LimitNEd, LimitMoment, LimitAreaLoad, LimitLineLoad, LimitStep, LimitLapStart}
+
+// plausible reads a quantity that must lie within l. A plain number for a length that is too
+// small in millimetres but plausible in metres is refused with the hint to write the unit.
+func (r *reader) plausible(n *yaml.Node, path string, l Limit) (float64, bool) {
+	v, ok := r.number(n, path, l.Unit)
+	if !ok {
+		return 0, false
+	}
+	if !r.inside(n, path, v, l) {
+		return 0, false
+	}
+	return v, true
+}
+
+// inside reports whether v, read from n, lies within l, and reports a fault when it does not.
+func (r *reader) inside(n *yaml.Node, path string, v float64, l Limit) bool {
+	if v >= l.Min && v <= l.Max {
+		return true
+	}
+	rn := resolve(n)
+	bare := rn.Kind == yaml.ScalarNode && (rn.ShortTag() == "!!int" || rn.ShortTag() == "!!float")
+	if bare && l.Unit == "mm" && v < l.Min && v*1000 >= l.Min && v*1000 <= l.Max {
+		r.fail(n, path, "%s is read as %s, less than the least plausible %s of %s; for metres write the unit: \"%s m\"",
+			rn.Value, show(v, "mm"), l.What, show(l.Min, l.Unit), rn.Value)
+		return false
+	}
+	r.fail(n, path, "%s is outside the plausible range of the %s, %s to %s (see the input limits in the README)", show(v, l.Unit), l.What, show(l.Min, l.Unit), show(l.Max, l.Unit))
+	return false
+}
+
+// finite reports whether v is a finite number.
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
