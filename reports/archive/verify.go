@@ -2,7 +2,9 @@ package archive
 
 import (
 	"bytes"
+	"crypto/ed25519"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"io/fs"
@@ -45,17 +47,23 @@ type Report struct {
 	Files        int // files listed in the manifest and checked
 	Steps        int // traced steps re-evaluated
 	References   int // arguments whose source step was looked up
+	Printed      int // steps printed on the Markdown sheets and compared with results.json
+	Signed       bool
 	FileProblems []FileProblem
 	StepProblems []StepProblem
+	Problems     []Problem // contract values, sheets, inputs and the signature
 }
 
-// OK reports whether every file matches the manifest and every step reproduces.
-func (r *Report) OK() bool { return len(r.FileProblems) == 0 && len(r.StepProblems) == 0 }
+// OK reports whether every file matches the manifest, every step reproduces, every contract
+// value, printed value and input agrees with its step, and the signature, where asked, holds.
+func (r *Report) OK() bool {
+	return len(r.FileProblems) == 0 && len(r.StepProblems) == 0 && len(r.Problems) == 0
+}
 
 // WriteText writes a plain text summary of the report to w.
 func (r *Report) WriteText(w io.Writer) error {
 	var b bytes.Buffer
-	fmt.Fprintf(&b, "recheck of %s: %d files, %d steps, %d references checked\n", r.Dir, r.Files, r.Steps, r.References)
+	fmt.Fprintf(&b, "recheck of %s: %d files, %d steps, %d references, %d printed values checked\n", r.Dir, r.Files, r.Steps, r.References, r.Printed)
 	for _, p := range r.FileProblems {
 		fmt.Fprintf(&b, "FAIL file %s: %s\n", p.Path, p.Problem)
 	}
@@ -69,10 +77,20 @@ func (r *Report) WriteText(w io.Writer) error {
 		}
 		b.WriteByte('\n')
 	}
-	if r.OK() {
-		fmt.Fprintln(&b, "OK: every file matches the manifest and every step reproduces")
-	} else {
-		fmt.Fprintf(&b, "NOT OK: %d file problems, %d step problems\n", len(r.FileProblems), len(r.StepProblems))
+	for _, p := range r.Problems {
+		if p.Design != "" {
+			fmt.Fprintf(&b, "FAIL design %s, %s: %s\n", p.Design, p.Key, p.Problem)
+		} else {
+			fmt.Fprintf(&b, "FAIL %s: %s\n", p.Key, p.Problem)
+		}
+	}
+	switch {
+	case !r.OK():
+		fmt.Fprintf(&b, "NOT OK: %d file problems, %d step problems, %d other problems\n", len(r.FileProblems), len(r.StepProblems), len(r.Problems))
+	case r.Signed:
+		fmt.Fprintln(&b, "OK: the manifest's signature holds for the key given, every file matches the manifest, every step reproduces, and results.json, the sheets and the input agree with the steps")
+	default:
+		fmt.Fprintln(&b, "OK: every file matches the manifest, every step reproduces, and results.json, the sheets and the input agree with the steps (consistency only: the manifest is not signed)")
 	}
 	_, err := w.Write(b.Bytes())
 	return err
@@ -99,18 +117,27 @@ type resultsCase struct {
 	} `json:"axes"`
 	AsProv float64 `json:"As_prov_mm2"`
 	Bars   struct {
-		Count int     `json:"count"`
-		Dia   float64 `json:"dia_mm"`
+		Count     int          `json:"count"`
+		Dia       float64      `json:"dia_mm"`
+		Positions [][2]float64 `json:"positions_mm"`
 	} `json:"bars"`
 	Links struct {
-		Dia     float64 `json:"dia_mm"`
-		Spacing float64 `json:"spacing_mm"`
+		Dia            float64 `json:"dia_mm"`
+		Spacing        float64 `json:"spacing_mm"`
+		SpacingReduced float64 `json:"spacing_reduced_mm"`
 	} `json:"links"`
+	B           float64           `json:"b_mm"`
+	H           float64           `json:"h_mm"`
+	Cover       float64           `json:"cover_mm"`
+	AsReq       float64           `json:"As_req_mm2"`
+	AsMin       float64           `json:"As_min_mm2"`
+	AsMax       float64           `json:"As_max_mm2"`
 	Utilization float64           `json:"utilization"`
 	Status      string            `json:"status"`
 	Governing   string            `json:"governing"`
 	RawTrace    []json.RawMessage `json:"trace"`
 	Trace       []trace.Step      `json:"-"` // read back whole (reports.Unpacker)
+	byID        map[string]int    // index of each step of Trace by its ID, built on first use
 }
 
 // resultsAxis holds the design and resisting moments about one axis.
@@ -158,16 +185,38 @@ func parseResults(name string, data []byte) (*results, error) {
 	return &r, nil
 }
 
-// Verify checks the package in dir against its manifest and re-evaluates every traced step of its results.json.
-// It returns an error only when the manifest cannot be read; every other fault goes into the report.
-func Verify(dir string) (*Report, error) {
-	m, err := ReadManifest(filepath.Join(dir, ManifestName))
+// Verify checks the package in dir against its manifest and re-evaluates every traced step of its
+// results.json; it ties each contract value of results.json to the step that produces it, each
+// value printed on the Markdown sheets to its step, and each input step to the archived input,
+// read and designed again. It returns an error only when the manifest cannot be read; every
+// other fault goes into the report. Symbolic links, FIFOs, devices and files larger than
+// MaxFileSize are refused unread.
+func Verify(dir string) (*Report, error) { return VerifyKey(dir, nil) }
+
+// VerifyKey is Verify that also checks the manifest's signature (SignatureName) with the Ed25519
+// public key pub; with pub nil it checks no signature.
+func VerifyKey(dir string, pub ed25519.PublicKey) (*Report, error) {
+	data, err := readInside(dir, ManifestName)
+	if err != nil {
+		return nil, err
+	}
+	m, err := ParseManifest(filepath.Join(dir, ManifestName), data)
 	if err != nil {
 		return nil, err
 	}
 	r := &Report{Dir: dir}
-	r.checkFiles(dir, m)
-	res, err := readResults(filepath.Join(dir, ResultsName))
+	if pub != nil {
+		r.checkSignature(dir, data, pub)
+	}
+	files := r.checkFiles(dir, m)
+	resData, ok := files[ResultsName]
+	if !ok {
+		if resData, err = readInside(dir, ResultsName); err != nil {
+			r.fileProblem(ResultsName, fmt.Sprintf("cannot be read: %v", err))
+			return r, nil
+		}
+	}
+	res, err := parseResults(filepath.Join(dir, ResultsName), resData)
 	if err != nil {
 		r.fileProblem(ResultsName, fmt.Sprintf("cannot be read: %v", err))
 		return r, nil
@@ -177,6 +226,26 @@ func Verify(dir string) (*Report, error) {
 	}
 	r.checkSteps(res)
 	r.checkContract(res)
+	steps := map[string]trace.Step{}
+	for _, s := range res.Basis {
+		steps[reports.StepAnchor(s.ID)] = s
+	}
+	for _, d := range res.Designs {
+		for _, s := range d.Trace {
+			steps[reports.StepAnchor(s.ID)] = s
+		}
+	}
+	for _, f := range m.Files {
+		if data, ok := files[f.Path]; ok && strings.HasSuffix(f.Path, ".md") {
+			r.checkSheet(f.Path, data, steps)
+		}
+	}
+	in := path.Join("input", m.Input.Name)
+	if data, ok := files[in]; ok {
+		r.checkInputs(res, filepath.Join(dir, filepath.FromSlash(in)), data)
+	} else {
+		r.problem(nil, "input", "the archived input %s cannot be read, so the input steps cannot be checked", in)
+	}
 	return r, nil
 }
 
@@ -184,36 +253,81 @@ func (r *Report) fileProblem(p, problem string) {
 	r.FileProblems = append(r.FileProblems, FileProblem{Path: p, Problem: problem})
 }
 
-// checkFiles compares every file listed in m with the file in dir and lists the files m does not list.
-func (r *Report) checkFiles(dir string, m Manifest) {
-	listed := map[string]bool{ManifestName: true}
+// MaxFileSize is the largest file recheck reads from a package: 256 MiB. A larger file is
+// refused unread, so that a hostile package cannot exhaust memory or time.
+const MaxFileSize = 256 << 20
+
+// readInside reads the file at the slash path rel below dir. Every component of the path must
+// be a directory or, the last, a regular file: a symbolic link, FIFO, device or socket is
+// refused before it is opened, so that a package can neither read outside itself nor block
+// the reader; a file above MaxFileSize is refused, and one that changes while read fails.
+func readInside(dir, rel string) ([]byte, error) {
+	parts := strings.Split(rel, "/")
+	name := dir
+	var st fs.FileInfo
+	for i, part := range parts {
+		name = filepath.Join(name, part)
+		var err error
+		if st, err = os.Lstat(name); err != nil {
+			return nil, err
+		}
+		last := i == len(parts)-1
+		switch m := st.Mode(); {
+		case m&fs.ModeSymlink != 0:
+			return nil, fmt.Errorf("%s is a symbolic link: refused", path.Join(parts[:i+1]...))
+		case !last && !m.IsDir():
+			return nil, fmt.Errorf("%s is not a folder: refused", path.Join(parts[:i+1]...))
+		case last && !m.IsRegular():
+			return nil, fmt.Errorf("%s is not a regular file (%v): refused", rel, m.Type())
+		}
+	}
+	if st.Size() > MaxFileSize {
+		return nil, fmt.Errorf("%s is %d bytes, above the limit of %d: refused", rel, st.Size(), MaxFileSize)
+	}
+	f, err := os.Open(name)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	if st2, err := f.Stat(); err != nil || !os.SameFile(st, st2) {
+		return nil, fmt.Errorf("%s changed while it was opened: refused", rel)
+	}
+	data, err := io.ReadAll(io.LimitReader(f, MaxFileSize+1))
+	if err != nil {
+		return nil, err
+	}
+	if int64(len(data)) > MaxFileSize {
+		return nil, fmt.Errorf("%s grew above the limit of %d bytes while read: refused", rel, MaxFileSize)
+	}
+	return data, nil
+}
+
+// checkFiles compares every file listed in m with the file in dir, lists the files m does not
+// list and refuses every entry that is neither a folder nor a regular file. It returns the
+// files read that match the manifest, by slash path.
+func (r *Report) checkFiles(dir string, m Manifest) map[string][]byte {
+	files := map[string][]byte{}
+	listed := map[string]bool{ManifestName: true, SignatureName: true}
 	for _, f := range m.Files {
 		listed[f.Path] = true
 		r.Files++
-		name := filepath.Join(dir, filepath.FromSlash(f.Path))
-		st, err := os.Lstat(name)
+		data, err := readInside(dir, f.Path)
 		switch {
-		case os.IsNotExist(err):
+		case errors.Is(err, fs.ErrNotExist):
 			r.fileProblem(f.Path, "missing")
 			continue
 		case err != nil:
 			r.fileProblem(f.Path, fmt.Sprintf("cannot be read: %v", err))
 			continue
-		case !st.Mode().IsRegular():
-			r.fileProblem(f.Path, "is not a regular file")
-			continue
-		case st.Size() != f.Size:
-			r.fileProblem(f.Path, fmt.Sprintf("size %d bytes, the manifest says %d", st.Size(), f.Size))
-			continue
-		}
-		data, err := os.ReadFile(name)
-		if err != nil {
-			r.fileProblem(f.Path, fmt.Sprintf("cannot be read: %v", err))
+		case int64(len(data)) != f.Size:
+			r.fileProblem(f.Path, fmt.Sprintf("size %d bytes, the manifest says %d", len(data), f.Size))
 			continue
 		}
 		if got := Sum(data); got != f.SHA256 {
 			r.fileProblem(f.Path, fmt.Sprintf("content changed: SHA-256 %s, the manifest says %s", got, f.SHA256))
+			continue
 		}
+		files[f.Path] = data
 	}
 	in := path.Join("input", m.Input.Name)
 	found := false
@@ -222,6 +336,7 @@ func (r *Report) checkFiles(dir string, m Manifest) {
 			found = true
 			if f.SHA256 != m.Input.SHA256 {
 				r.fileProblem(in, fmt.Sprintf("listed with SHA-256 %s, the manifest's input.sha256 is %s", f.SHA256, m.Input.SHA256))
+				delete(files, in)
 			}
 		}
 	}
@@ -229,20 +344,20 @@ func (r *Report) checkFiles(dir string, m Manifest) {
 		r.fileProblem(in, "the input file named in the manifest is not listed")
 	}
 	err := filepath.WalkDir(dir, func(p string, d fs.DirEntry, err error) error {
-		if err != nil {
-			rel, _ := filepath.Rel(dir, p)
-			r.fileProblem(filepath.ToSlash(rel), fmt.Sprintf("cannot be read: %v", err))
-			return nil
-		}
-		if d.IsDir() {
-			return nil
-		}
-		rel, err := filepath.Rel(dir, p)
-		if err != nil {
-			return err
-		}
+		rel, _ := filepath.Rel(dir, p)
 		rel = filepath.ToSlash(rel)
-		if !listed[rel] {
+		if err != nil {
+			r.fileProblem(rel, fmt.Sprintf("cannot be read: %v", err))
+			return nil
+		}
+		switch t := d.Type(); {
+		case d.IsDir():
+			return nil
+		case t&fs.ModeSymlink != 0:
+			r.fileProblem(rel, "is a symbolic link: a package holds only folders and regular files")
+		case !t.IsRegular():
+			r.fileProblem(rel, fmt.Sprintf("is not a regular file (%v): a package holds only folders and regular files", t))
+		case !listed[rel]:
 			r.fileProblem(rel, "present but not listed in the manifest")
 		}
 		return nil
@@ -250,6 +365,7 @@ func (r *Report) checkFiles(dir string, m Manifest) {
 	if err != nil {
 		r.fileProblem(".", fmt.Sprintf("cannot be listed: %v", err))
 	}
+	return files
 }
 
 // checkSteps re-evaluates every step of res, its project basis and every design's, and checks
@@ -344,35 +460,4 @@ func (r *Report) stepProblem(d resultsCase, s trace.Step, problem string, number
 func near(a, b float64) bool {
 	d := math.Abs(a - b)
 	return d <= Tolerance*math.Max(math.Abs(a), math.Abs(b)) || d <= 1e-300
-}
-
-// checkContract checks that every contract value of a design (NEd, MEd and MRd about each axis,
-// As,prov, the utilisation) is the value of one of its traced steps, so that a number changed in
-// results.json outside the trace is caught too.
-func (r *Report) checkContract(res *results) {
-	for _, d := range res.Designs {
-		for _, c := range []struct {
-			key   string
-			v     float64
-			scale float64 // to engine units
-		}{
-			{"NEd_kN", d.NEd, 1e3},
-			{"axes.y.MEd_kNm", d.Axes.Y.MEd, 1e6}, {"axes.y.MRd_kNm", d.Axes.Y.MRd, 1e6},
-			{"axes.z.MEd_kNm", d.Axes.Z.MEd, 1e6}, {"axes.z.MRd_kNm", d.Axes.Z.MRd, 1e6},
-			{"As_prov_mm2", d.AsProv, 1}, {"utilization", d.Utilization, 1},
-		} {
-			want := c.v * c.scale
-			found := false
-			for _, s := range d.Trace {
-				if near(s.Value, want) {
-					found = true
-					break
-				}
-			}
-			if !found {
-				r.StepProblems = append(r.StepProblems, StepProblem{Column: d.Column, Lift: d.Lift, ID: d.Column + "/" + d.Lift + "/" + c.key,
-					Title: "contract value " + c.key, Problem: "no traced step records this value"})
-			}
-		}
-	}
 }

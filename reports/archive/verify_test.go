@@ -88,7 +88,10 @@ func step(designs []any, k, i int) map[string]any {
 	return designs[k].(map[string]any)["trace"].([]any)[i].(map[string]any)
 }
 
-// Verify passes the shipped small bundle and names every file and step that was tampered with.
+// Verify names every file and step of the shipped small bundle that was tampered with. The bundle
+// is written by hand, not by the engine, so its contract values, sheets and input do not hold
+// (TestRecheckForgeries checks those on packages the engine made): only the problems with files
+// and steps are compared here.
 func TestVerify(t *testing.T) {
 	small := readTree(t, filepath.Join("testdata", "small"))
 	for _, tc := range []struct {
@@ -117,20 +120,20 @@ func TestVerify(t *testing.T) {
 		{name: "input tampered, caught in the lift below", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) { step(d, 0, 0)["value"] = 950000.0 })
 			rehash(t, dir)
-		}, steps: []string{"K1/L2/chk/N", "K1/L1/act/N_above", "K1/L2/NEd_kN"}},
+		}, steps: []string{"K1/L2/chk/N", "K1/L1/act/N_above"}},
 		{name: "verdict flipped", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) {
 				s := step(d, 2, 4)
 				s["value"], s["expr"], s["verdict"] = 1.5, "1.5", "pass"
 			})
 			rehash(t, dir)
-		}, steps: []string{"K3/L1/chk/N", "K3/L1/utilization"}, text: []string{"verdict pass with a ratio above 1"}},
+		}, steps: []string{"K3/L1/chk/N"}, text: []string{"verdict pass with a ratio above 1"}},
 		{name: "contract value tampered, manifest rehashed", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) {
 				d[0].(map[string]any)["axes"].(map[string]any)["y"].(map[string]any)["MRd_kNm"] = 99.0
 			})
 			rehash(t, dir)
-		}, steps: []string{"K1/L2/axes.y.MRd_kNm"}, text: []string{"contract value axes.y.MRd_kNm"}},
+		}, text: []string{"FAIL design K1/L2, axes.y.MRd_kNm: results.json says 99,"}},
 		{name: "dangling source", tamper: func(t *testing.T, dir string) {
 			editResults(t, dir, func(d []any) {
 				step(d, 1, 5)["args"].([]any)[0].(map[string]any)["from"] = "/K1/L9/act/NEd"
@@ -182,8 +185,8 @@ func TestVerify(t *testing.T) {
 			if strings.Join(gotSteps, ",") != strings.Join(tc.steps, ",") {
 				t.Errorf("step problems %v, want %v: %+v", gotSteps, tc.steps, r.StepProblems)
 			}
-			if r.OK() != (len(tc.files)+len(tc.steps) == 0) {
-				t.Errorf("OK() = %v", r.OK())
+			if r.OK() {
+				t.Errorf("OK() = true for a bundle not made by the engine")
 			}
 			var text bytes.Buffer
 			if err := r.WriteText(&text); err != nil {
@@ -194,7 +197,7 @@ func TestVerify(t *testing.T) {
 					t.Errorf("report lacks %q:\n%s", want, text.String())
 				}
 			}
-			if r.OK() && !strings.Contains(text.String(), "OK: every file") || !r.OK() && !strings.Contains(text.String(), "NOT OK") {
+			if !strings.Contains(text.String(), "NOT OK") {
 				t.Errorf("report does not end with the verdict:\n%s", text.String())
 			}
 			if tc.name == "fresh" && (r.Files != 4 || r.Steps != 31 || r.References != 13) {
