@@ -149,7 +149,8 @@ func (g Geometry) ForCount(count int, dia, sMin float64) (Pattern, bool) {
 
 // Candidates returns every pattern of the given diameters that fits, with sMinFor giving the least
 // clear spacing for a diameter and linkFor the link diameter that goes with it, ordered by steel
-// area, then by number of bars, then by evenness. Patterns outside [asLo, asHi] are left out.
+// area, then by number of bars, then by evenness. Patterns outside [asLo, asHi] and of more than
+// MaxBars bars are left out.
 func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
 	var out []Pattern
 	it := NewIter(b, h, cover, dias, linkFor, sMinFor, asLo, asHi)
@@ -158,6 +159,12 @@ func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia f
 	}
 	return out
 }
+
+// MaxBars is the largest bar count the pattern search tries, whatever the section size, so
+// that its work is bounded: more than the perimeter of the largest section the input takes
+// (3 m × 3 m, 12 m) holds of the smallest bars at the least spacing (8 mm at 20 mm clear, about
+// 430 bars); common practice, no source.
+const MaxBars = 1000
 
 // Iter yields the patterns of Candidates one at a time, in the same order, making each only
 // when it is asked for.
@@ -210,7 +217,7 @@ func (s *stream) fill(asLo, asHi float64) {
 				s.pending = append(s.pending, cand{p, a, s.g.spread(p)})
 			}
 		}
-		if !fits || (Pattern{Dia: s.dia, NB: 2, NH: half - 2}).Area() > asHi+1e-9 {
+		if !fits || (Pattern{Dia: s.dia, NB: 2, NH: half - 2}).Area() > asHi+1e-9 || s.count >= MaxBars {
 			s.done = true
 		}
 		s.count += 2

@@ -3,6 +3,7 @@ package detail
 import (
 	"math"
 	"testing"
+	"time"
 
 	"colsheet/calc/trace"
 )
@@ -104,5 +105,31 @@ func TestForCountAndCandidates(t *testing.T) {
 	}
 	if cs[0].Count() != 4 || cs[0].Dia != 12 {
 		t.Errorf("least steel should be 4 × 12, got %d × %g", cs[0].Count(), cs[0].Dia)
+	}
+}
+
+// The pattern search ends whatever the section size: with a section of 1e12 mm every pattern
+// fits and 4 % of Ac (EN 1992-1-1:2004 9.5.2(3)) never binds, so only MaxBars stops it. And the
+// cap never binds within the input's limits: the largest section (3 m × 3 m) holds no MaxBars
+// bars of the smallest diameter (8 mm, 9.5.2(1)) at the least clear spacing of 20 mm (8.2(2)).
+func TestSearchBounded(t *testing.T) {
+	start := time.Now()
+	huge := 1e12
+	it := NewIter(huge, huge, 40, []float64{12, 16, 20, 25, 32, 40},
+		func(float64) float64 { return 8 }, func(float64) float64 { return 20 }, 0, 0.04*huge*huge)
+	n, most := 0, 0
+	for p, ok := it.Next(); ok; p, ok = it.Next() {
+		n++
+		most = max(most, p.Count())
+	}
+	if most > MaxBars || most < MaxBars-2 || n == 0 {
+		t.Errorf("the search gave %d patterns of up to %d bars, want up to the cap of %d", n, most, MaxBars)
+	}
+	if d := time.Since(start); d > 10*time.Second {
+		t.Errorf("the search over a section of 1e12 mm took %v", d)
+	}
+	g := Geometry{B: 3000, H: 3000, Cover: 10, Link: 6}
+	if _, fits := g.ForCount(MaxBars, 8, 20); fits {
+		t.Errorf("%d bars of 8 mm fit a 3 m × 3 m section: the cap binds within the input limits", MaxBars)
 	}
 }
