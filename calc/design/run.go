@@ -17,8 +17,9 @@ import (
 	"colsheet/calc/trace"
 )
 
-// Version is the engine's version, written into every result.
-const Version = "0.1.0"
+// Version is the version Run writes into a result; the command replaces it with its build's
+// version (module version and VCS revision), so no fixed number stands for the code that ran.
+const Version = "devel"
 
 // Run designs or checks every column and lift of the input.
 // For the building form it first derives the actions of every column and lift; an error

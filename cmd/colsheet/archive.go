@@ -29,15 +29,22 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
+	o.command = "archive"
 	inName := filepath.Base(o.input)
+	inPath := "input/" + inName
+	if _, clash := job.files[inPath]; clash {
+		fmt.Fprintf(stderr, "colsheet: %s is already an output file; nothing written\n", inPath)
+		return 2
+	}
+	job.files[inPath] = job.input
+	exe, err := executableSum()
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet: the SHA-256 of the running program: %v; nothing written\n", err)
+		return 2
+	}
 	seal := func(files map[string][]byte) error {
-		inPath := "input/" + inName
-		if _, clash := files[inPath]; clash {
-			return fmt.Errorf("%s is already an output file", inPath)
-		}
-		files[inPath] = job.input
 		m := archive.NewManifest(files, archive.Meta{
-			ToolName: job.res.ToolName, ToolVersion: job.res.ToolVersion,
+			ToolName: job.res.ToolName, ToolVersion: job.res.ToolVersion, Executable: exe,
 			Date: job.res.Input.Project.Date, InputName: inName, Input: job.input,
 		})
 		data, err := m.JSON()

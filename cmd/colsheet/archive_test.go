@@ -191,23 +191,31 @@ func TestArchiveCompare(t *testing.T) {
 	}
 }
 
-// Archive refuses an existing bundle without --replace and leaves it untouched; with --replace it writes it whole.
+// Archive refuses a folder holding a manifest.json that colsheet did not write (no marker lists
+// it), with or without --replace, and leaves it untouched; its own bundle it replaces with --replace.
 func TestArchiveRefusesExisting(t *testing.T) {
 	dir := filepath.Join(t.TempDir(), "bundle")
 	os.MkdirAll(dir, 0o755)
 	os.WriteFile(filepath.Join(dir, "manifest.json"), []byte("earlier"), 0o644)
-	code, _, stderr := runCLI("archive", demoInput, "-o", dir, "--date", "2026-12-01")
-	if code != 2 || !strings.Contains(stderr, "earlier output") {
-		t.Errorf("exit %d, want 2: %s", code, stderr)
+	for _, extra := range [][]string{nil, {"--replace"}} {
+		args := append([]string{"archive", demoInput, "-o", dir, "--date", "2026-12-01"}, extra...)
+		code, _, stderr := runCLI(args...)
+		if code != 2 || !strings.Contains(stderr, "already holds manifest.json") {
+			t.Errorf("%v: exit %d, want 2: %s", extra, code, stderr)
+		}
+		if es, _ := os.ReadDir(dir); len(es) != 1 {
+			t.Errorf("%v: the existing folder was changed: %v", extra, es)
+		}
+		if b, _ := os.ReadFile(filepath.Join(dir, "manifest.json")); string(b) != "earlier" {
+			t.Errorf("%v: the existing manifest was overwritten", extra)
+		}
 	}
-	if es, _ := os.ReadDir(dir); len(es) != 1 {
-		t.Errorf("the existing bundle was changed: %v", es)
-	}
-	if b, _ := os.ReadFile(filepath.Join(dir, "manifest.json")); string(b) != "earlier" {
-		t.Error("the existing manifest was overwritten")
-	}
-	if code, _, stderr := runCLI("archive", demoInput, "-o", dir, "--date", "2026-12-01", "--replace"); code != 0 {
-		t.Fatalf("--replace: exit %d %s", code, stderr)
+	os.Remove(filepath.Join(dir, "manifest.json"))
+	for _, extra := range [][]string{nil, {"--replace"}} {
+		args := append([]string{"archive", demoInput, "-o", dir, "--date", "2026-12-01"}, extra...)
+		if code, _, stderr := runCLI(args...); code != 0 {
+			t.Fatalf("%v: exit %d %s", extra, code, stderr)
+		}
 	}
 	if code, stdout, _ := runCLI("recheck", dir); code != 0 {
 		t.Errorf("replaced bundle: exit %d\n%s", code, stdout)

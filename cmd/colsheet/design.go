@@ -6,7 +6,6 @@ import (
 	"io"
 	"os"
 	"path/filepath"
-	"sort"
 	"strings"
 	"time"
 
@@ -16,10 +15,9 @@ import (
 	"colsheet/reports/archive"
 )
 
-func version() string { return design.Version }
-
 // options are the flags of the design command.
 type options struct {
+	command string // design or archive
 	input   string
 	out     string
 	formats map[string]bool
@@ -126,6 +124,7 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "colsheet design: %v\n\n%s", err, usage)
 		return 2
 	}
+	o.command = "design"
 	job, err := produce(o, stderr)
 	if err != nil {
 		fmt.Fprintln(stderr, err)
@@ -134,20 +133,32 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 	return deliver(o, job, nil, stdout, stderr)
 }
 
-// deliver makes the PDF when asked, lets seal add its files (the archive's input copy and
-// manifest), writes the output folder whole and reports; it returns the exit status.
+// deliver makes the PDF when asked, adds the marker, lets seal add the archive's manifest,
+// writes the output folder and reports; it returns the exit status.
 func deliver(o options, j *job, seal func(files map[string][]byte) error, stdout, stderr io.Writer) int {
 	pdfErr := error(nil)
 	if o.pdf {
 		pdfErr = makePDF(j.files, j.res.Input.Project.Date)
 	}
+	// The marker names the run and lists every file, the manifest that seal adds without its SHA-256.
+	var later []string
+	if seal != nil {
+		later = []string{archive.ManifestName}
+	}
+	mark, err := newMarker(marker{Program: j.res.ToolName, Version: j.res.ToolVersion, Command: o.command,
+		Date: j.res.Input.Project.Date, Input: filepath.Base(o.input), InputSHA256: archive.Sum(j.input)}, j.files, later...)
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet: %s: %v; nothing written\n", markerName, err)
+		return 2
+	}
+	j.files[markerName] = mark
 	if seal != nil {
 		if err := seal(j.files); err != nil {
 			fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
 			return 2
 		}
 	}
-	if err := publish(o.out, j.files, o.replace); err != nil {
+	if err := publish(o.out, j.files, o.replace, stderr); err != nil {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
 	}
@@ -192,6 +203,8 @@ func produce(o options, stderr io.Writer) (*job, error) {
 	if err != nil {
 		return nil, err
 	}
+	// The build's own version, in results.json, the manifest and every title block.
+	res.ToolVersion = version()
 	design.AddInteraction(res)
 	opt := reports.Options{Detail: o.detail}
 	if o.against != "" {
@@ -266,138 +279,4 @@ func render(res *design.Result, formats map[string]bool, opt reports.Options) (m
 		files["doc/"+doc.Name] = doc.Data
 	}
 	return files, nil
-}
-
-// publish writes files as the folder dir. The files go to a new temporary folder beside dir,
-// which is then renamed into place, so that an interrupted run leaves any previous dir whole.
-// An existing dir is replaced only when replace is set and it holds an earlier colsheet output.
-func publish(dir string, files map[string][]byte, replace bool) error {
-	dir = filepath.Clean(dir)
-	old, err := os.Stat(dir)
-	exists := err == nil
-	switch {
-	case err != nil && !os.IsNotExist(err):
-		return err
-	case exists && !old.IsDir():
-		return fmt.Errorf("%s exists and is not a folder; nothing written", dir)
-	case exists && !emptyDir(dir) && !ownOutput(dir):
-		// A folder of other files (the input beside it, say): add ours, overwriting nothing.
-		return beside(dir, files)
-	case exists && !replace && !emptyDir(dir):
-		return fmt.Errorf("%s holds an earlier output; nothing written (give --replace to replace it)", dir)
-	}
-	parent := filepath.Dir(dir)
-	if err := os.MkdirAll(parent, 0o755); err != nil {
-		return err
-	}
-	tmp, err := os.MkdirTemp(parent, "."+filepath.Base(dir)+".new-")
-	if err != nil {
-		return err
-	}
-	if err := writeTree(tmp, files); err != nil {
-		os.RemoveAll(tmp)
-		return err
-	}
-	if err := os.Chmod(tmp, 0o755); err != nil {
-		os.RemoveAll(tmp)
-		return err
-	}
-	if !exists {
-		if err := os.Rename(tmp, dir); err != nil {
-			os.RemoveAll(tmp)
-			return err
-		}
-		return nil
-	}
-	// Move the old folder aside, the new one in, then drop the old one.
-	aside, err := os.MkdirTemp(parent, "."+filepath.Base(dir)+".old-")
-	if err != nil {
-		os.RemoveAll(tmp)
-		return err
-	}
-	os.Remove(aside)
-	if err := os.Rename(dir, aside); err != nil {
-		os.RemoveAll(tmp)
-		return err
-	}
-	if err := os.Rename(tmp, dir); err != nil {
-		os.Rename(aside, dir) // put the previous output back
-		os.RemoveAll(tmp)
-		return err
-	}
-	return os.RemoveAll(aside)
-}
-
-// beside writes the output files into dir, a folder of other files, each to a temporary file
-// renamed into place; it refuses, writing nothing, when any of the output's entries is there already.
-func beside(dir string, files map[string][]byte) error {
-	tops := map[string]bool{}
-	for name := range files {
-		top, _, _ := strings.Cut(name, "/")
-		tops[top] = true
-	}
-	for top := range tops {
-		if _, err := os.Lstat(filepath.Join(dir, top)); err == nil {
-			return fmt.Errorf("%s already holds %s (but no earlier results.json); nothing written", dir, top)
-		}
-	}
-	return writeTree(dir, files)
-}
-
-// writeTree writes every file below dir, which must exist, each through writeAtomic.
-func writeTree(dir string, files map[string][]byte) error {
-	names := make([]string, 0, len(files))
-	for name := range files {
-		names = append(names, name)
-	}
-	sort.Strings(names)
-	for _, name := range names {
-		path := filepath.Join(dir, filepath.FromSlash(name))
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			return err
-		}
-		if err := writeAtomic(path, files[name]); err != nil {
-			return err
-		}
-	}
-	return nil
-}
-
-// writeAtomic writes data as the file name through a temporary file beside it renamed into
-// place, so that name is never seen half-written.
-func writeAtomic(name string, data []byte) error {
-	tmp, err := os.CreateTemp(filepath.Dir(name), "."+filepath.Base(name)+".new-")
-	if err != nil {
-		return err
-	}
-	_, err = tmp.Write(data)
-	if e := tmp.Close(); err == nil {
-		err = e
-	}
-	if err == nil {
-		err = os.Chmod(tmp.Name(), 0o644)
-	}
-	if err == nil {
-		err = os.Rename(tmp.Name(), name)
-	}
-	if err != nil {
-		os.Remove(tmp.Name())
-	}
-	return err
-}
-
-// emptyDir reports whether dir holds no entries.
-func emptyDir(dir string) bool {
-	es, err := os.ReadDir(dir)
-	return err == nil && len(es) == 0
-}
-
-// ownOutput reports whether dir looks like an earlier output of colsheet.
-func ownOutput(dir string) bool {
-	for _, f := range []string{"results.json", "manifest.json"} {
-		if st, err := os.Stat(filepath.Join(dir, f)); err == nil && st.Mode().IsRegular() {
-			return true
-		}
-	}
-	return false
 }

@@ -9,16 +9,26 @@
 //	colsheet compare OLD NEW [-o FILE.md]
 //	colsheet version
 //
-// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage, 3 pdflatex failed.
+// Exit status: 0 every design passes, 1 some design fails, 2 bad input or usage, 3 pdflatex failed,
+// 4 internal error.
 package main
 
 import (
 	"fmt"
 	"io"
 	"os"
+	"os/signal"
+	"runtime/debug"
+	"syscall"
 )
 
-func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
+func main() {
+	// SIGINT and SIGTERM remove the temporary files and folders; an earlier output stays whole.
+	sig := make(chan os.Signal, 1)
+	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
+	go func() { os.Exit(interrupted(temps, <-sig, os.Stderr)) }()
+	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+}
 
 const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992-1-1
 
@@ -39,12 +49,13 @@ gives each group's governing lift in full); --detail full prints every step
 (in HTML with the sub-steps folded); results.json always holds the whole
 trace. --against PREVIOUS (an earlier output folder or archive bundle) marks
 every value that changed since it (highlighted in HTML, a bar in the margin
-of the PDF) and opens the calc document with the revision table. An earlier
-output in
-DIR is replaced only with --replace, as a whole (never half); other files in
-DIR are never overwritten. Exit status: 0 every design passes, 1 some design
+of the PDF) and opens the calc document with the revision table. DIR/.colsheet-output
+marks the entries colsheet wrote; an earlier output is replaced only with
+--replace, never half, and only the entries it lists, unchanged since: a
+file colsheet did not write is never deleted or overwritten, and a symbolic
+link as DIR is refused. Exit status: 0 every design passes, 1 some design
 fails (everything is still written), 2 bad input or usage, 3 pdflatex failed
-(without pdflatex, --pdf only says so).
+(without pdflatex, --pdf only says so), 4 internal error (please report).
 
 archive writes the same files plus BUNDLE/input/ (the input file) and
 BUNDLE/manifest.json (size and SHA-256 of every file). recheck verifies a
@@ -53,7 +64,20 @@ reproduce, 1 something does not, 2 unreadable bundle or usage). compare
 prints the changed inputs and results of two bundles as a Markdown table.
 `
 
-func run(args []string, stdout, stderr io.Writer) int {
+// run runs the command of args and returns its exit status; a panic is an internal error (4).
+func run(args []string, stdout, stderr io.Writer) (code int) {
+	defer func() {
+		if p := recover(); p != nil {
+			temps.removeAll(false)
+			fmt.Fprintf(stderr, "colsheet: internal error, please report: %v\n(temporary files removed; an earlier output is left as it was)\n%s", p, debug.Stack())
+			code = 4
+		}
+	}()
+	return command(args, stdout, stderr)
+}
+
+// command dispatches args to their command.
+func command(args []string, stdout, stderr io.Writer) int {
 	if len(args) == 0 {
 		fmt.Fprint(stderr, usage)
 		return 2

@@ -26,11 +26,11 @@ func makePDF(files map[string][]byte, date string) error {
 	if err != nil {
 		return errNoTeX
 	}
-	dir, err := os.MkdirTemp("", "colsheet-pdf-")
+	dir, err := temps.mkdirTemp("", "colsheet-pdf-")
 	if err != nil {
 		return err
 	}
-	defer os.RemoveAll(dir)
+	defer temps.discard(dir)
 	if err := os.WriteFile(filepath.Join(dir, "calc.tex"), src, 0o644); err != nil {
 		return err
 	}

@@ -21,10 +21,11 @@ const ManifestName = "manifest.json"
 // FormatVersion is the version of the manifest layout written by NewManifest.
 const FormatVersion = 1
 
-// Tool names the program and version that wrote a package.
+// Tool names the program and version that wrote a package and the SHA-256 of its executable.
 type Tool struct {
-	Name    string `json:"name"`
-	Version string `json:"version"`
+	Name       string `json:"name"`
+	Version    string `json:"version"`
+	Executable string `json:"executable_sha256,omitempty"` // empty in a package of an earlier version
 }
 
 // Input names the input file of a package and holds its SHA-256.
@@ -53,6 +54,7 @@ type Manifest struct {
 type Meta struct {
 	ToolName    string
 	ToolVersion string
+	Executable  string // SHA-256 of the running executable, lower-case hex
 	Date        string // the project date of the sheets, or "undated"
 	InputName   string // base name of the input file
 	Input       []byte // the input file as read
@@ -68,7 +70,7 @@ func Sum(data []byte) string {
 func NewManifest(files map[string][]byte, m Meta) Manifest {
 	out := Manifest{
 		Format: FormatVersion,
-		Tool:   Tool{Name: m.ToolName, Version: m.ToolVersion},
+		Tool:   Tool{Name: m.ToolName, Version: m.ToolVersion, Executable: m.Executable},
 		Date:   m.Date,
 		Input:  Input{Name: m.InputName, SHA256: Sum(m.Input)},
 		Files:  []File{},
@@ -123,6 +125,9 @@ func ParseManifest(name string, data []byte) (Manifest, error) {
 	}
 	if m.Tool.Name == "" {
 		return fail("tool.name", "missing")
+	}
+	if m.Tool.Executable != "" && !isSum(m.Tool.Executable) {
+		return fail("tool.executable_sha256", "%q is not a SHA-256 in lower-case hex", m.Tool.Executable)
 	}
 	if m.Input.Name == "" || strings.ContainsAny(m.Input.Name, `/\`) {
 		return fail("input.name", "%q is not a file name", m.Input.Name)
