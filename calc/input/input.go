@@ -6,6 +6,7 @@
 // units: all lengths, covers, effective lengths and diameters mm; forces kN; moments kNm;
 // stresses MPa; area loads kN/m2; line loads kN/m; weight densities kN/m3; code overrides in
 // the unit their catalogue entry states (a pure number if none).
+// Each quantity lies within its range of plausibility (Limits, listed in the README).
 // Unknown keys are faults, and all faults of a file are reported together as Errors.
 //
 // The keys, with their defaults where optional:

@@ -20,25 +20,25 @@ var (
 	LimitSide = Limit{"section side", "mm", 150, 3000,
 		"common practice: a cast column or beam narrower than 150 mm cannot be concreted around its bars; over 3 m it is a wall or a pier"}
 	LimitCover = Limit{"nominal cover", "mm", 10, 100,
-		"EN 1992-1-1:2004 4.4.1.2(2), Eq. (4.2): cmin is at least 10 mm; over 100 mm the cover needs its own reinforcement, common practice"}
+		"EN 1992-1-1:2004 4.4.1.2(2)P, Eq. (4.2): cmin is at least 10 mm; a cover over 100 mm spalls unless it is reinforced itself, common practice"}
 	LimitBar = Limit{"longitudinal bar diameter", "mm", 8, 50,
-		"EN 1992-1-1:2004 9.5.2(1): at least φmin = 8 mm (recommended); 50 mm is the largest bar rolled, common practice"}
+		"EN 1992-1-1:2004 9.5.2(1): at least φmin = 8 mm (recommended); 50 mm is the largest bar commonly rolled, common practice"}
 	LimitLink = Limit{"link diameter", "mm", 6, 20,
-		"EN 1992-1-1:2004 9.5.3(1): at least 6 mm; links over 20 mm are not bent on site, common practice"}
+		"EN 1992-1-1:2004 9.5.3(1): at least 6 mm; 20 mm is more than a quarter of the largest bar (12.5 mm), common practice"}
 	LimitAggregate = Limit{"aggregate size", "mm", 4, 63,
-		"common practice: the aggregate sizes of concrete for structures (EN 12620 sizes up to 63 mm)"}
+		"common practice: the largest aggregate of structural concrete is 4 mm to 63 mm"}
 	LimitL0 = Limit{"effective length l0", "mm", 300, 60000,
-		"common practice: below 0.3 m the member is a pad, not a column; over 60 m no column of 3 m side is within the slenderness the method covers"}
+		"common practice: below 0.3 m the member is a pad, not a column; 60 m is five of the tallest storeys, beyond any effective length of a building column"}
 	LimitHeight = Limit{"storey height", "mm", 2000, 12000,
 		"common practice: storeys of buildings are 2 m to 12 m high"}
 	LimitBay = Limit{"bay width", "mm", 1000, 30000,
 		"common practice: beam-and-slab floors span 1 m to 30 m"}
 	LimitNEd = Limit{"design axial force", "kN", 0, 1e8,
-		"common practice: the heaviest building columns carry some tens of MN; 100 MN (1e5 kN) is beyond any"}
+		"common practice: building columns carry at most some tens of MN (1e4 kN); 1e5 kN is beyond any"}
 	LimitMoment = Limit{"first-order end moment", "kNm", -1e11, 1e11,
 		"common practice: 1e5 kNm either way is beyond any building column"}
 	LimitAreaLoad = Limit{"area load", "kN/m2", 0, 0.1,
-		"common practice: 100 kN/m² is beyond any floor of a building (EN 1991-1-1 Table 6.2 tops out at 7.5 kN/m² for storage)"}
+		"common practice: 100 kN/m² is beyond any floor of a building (the imposed loads of EN 1991-1-1 Tables 6.2 and 6.4 stay below 10 kN/m², from memory)"}
 	LimitLineLoad = Limit{"line load", "kN/m", 0, 1000,
 		"common practice: 1000 kN/m is beyond any wall or façade a floor beam carries"}
 	LimitStep = Limit{"rounding step", "mm", 5, 100,

@@ -1,6 +1,7 @@
 package input
 
 import (
+	"os"
 	"strings"
 	"testing"
 	"time"
@@ -94,5 +95,26 @@ func TestMessagesNameNoLibrary(t *testing.T) {
 				t.Errorf("%q: the message names %q: %s", text, word, err)
 			}
 		}
+	}
+}
+
+// limitsTable is the README's table of the input limits.
+func limitsTable() string {
+	var sb strings.Builder
+	sb.WriteString("| quantity | plausible range | reason |\n| --- | --- | --- |\n")
+	for _, l := range Limits {
+		sb.WriteString("| " + l.What + " | " + show(l.Min, l.Unit) + " to " + show(l.Max, l.Unit) + " | " + l.Reason + " |\n")
+	}
+	return sb.String()
+}
+
+// The README lists every limit as the code holds it.
+func TestLimitsDocumented(t *testing.T) {
+	data, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := limitsTable(); !strings.Contains(string(data), want) {
+		t.Errorf("README.md does not hold the table of the input limits; it should read:\n%s", want)
 	}
 }
