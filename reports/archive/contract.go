@@ -2,7 +2,9 @@ package archive
 
 import (
 	"fmt"
+	"maps"
 	"math"
+	"slices"
 	"strings"
 
 	"colsheet/calc/design"
@@ -250,7 +252,7 @@ func (r *Report) checkInputs(res *results, name string, data []byte) {
 			r.problem(nil, s.ID, "results.json records %.12g, the archived input gives %.12g", s.Value, w.Value)
 		}
 	}
-	for id := range want {
+	for _, id := range slices.Sorted(maps.Keys(want)) {
 		if !got[id] {
 			r.problem(nil, id, "the archived input gives this project basis step; results.json does not hold it")
 		}
@@ -292,7 +294,7 @@ func (r *Report) checkInputs(res *results, name string, data []byte) {
 			}
 			delete(inputs, s.ID)
 		}
-		for id := range inputs {
+		for _, id := range slices.Sorted(maps.Keys(inputs)) {
 			r.problem(d, id, "the archived input gives this input step; results.json does not hold it")
 		}
 		if a.Status != d.Status || !near(a.Utilization, d.Utilization) || a.Governing != d.Governing {
