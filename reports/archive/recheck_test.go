@@ -35,6 +35,12 @@ columns:
 // and calc document, the input) with its manifest to a new folder.
 func engineBundle(t *testing.T, name, src string) string {
 	t.Helper()
+	return engineBundleAt(t, name, src, reports.Brief)
+}
+
+// engineBundleAt is engineBundle with the sheets at the given detail.
+func engineBundleAt(t *testing.T, name, src string, detail reports.Detail) string {
+	t.Helper()
 	in, err := yamlinput.Parse(name, []byte(src))
 	if err != nil {
 		t.Fatal(err)
@@ -47,7 +53,7 @@ func engineBundle(t *testing.T, name, src string) string {
 	if err != nil {
 		t.Fatal(err)
 	}
-	pkg, docs, err := reports.Render(r, map[string]bool{"md": true}, reports.Options{})
+	pkg, docs, err := reports.Render(r, map[string]bool{"md": true}, reports.Options{Detail: detail})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -366,5 +372,32 @@ func TestRecheckSignature(t *testing.T) {
 		if r.OK() != tc.ok || !strings.Contains(text.String(), tc.text) {
 			t.Errorf("%s: OK() = %v:\n%s", tc.name, r.OK(), text.String())
 		}
+	}
+}
+
+// A full sheet (each step under a heading, its result on a line of its own) is checked as well:
+// it passes as written, and a result changed on it fails.
+func TestRecheckFullSheet(t *testing.T) {
+	dir := engineBundleAt(t, "forge.yaml", forgeColumn, reports.Full)
+	r, err := Verify(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !r.OK() || r.Printed < 200 {
+		t.Fatalf("fresh full bundle: OK() = %v, %d printed values checked: %v", r.OK(), r.Printed, keys(r))
+	}
+	name := filepath.Join(dir, "md", "K1-L1.md")
+	b, _ := os.ReadFile(name)
+	c := bytes.Replace(b, []byte("**N<sub>Ed</sub> = 2400\u00a0kN**"), []byte("**N<sub>Ed</sub> = 1400\u00a0kN**"), 1)
+	if bytes.Equal(b, c) {
+		t.Fatal("the full sheet does not print NEd as expected")
+	}
+	os.WriteFile(name, c, 0o644)
+	rehashAs(t, dir, "forge.yaml")
+	r, _ = Verify(dir)
+	var text bytes.Buffer
+	r.WriteText(&text)
+	if r.OK() || !strings.Contains(text.String(), "FAIL md/K1-L1.md: step K1/L1/act/NEd: the sheet prints 1400, its step records 2400") {
+		t.Errorf("report:\n%s", text.String())
 	}
 }

@@ -17,7 +17,11 @@ func (r *Report) checkSheet(p string, data []byte, steps map[string]trace.Step) 
 	const open, shut = `<a id="`, `"></a>`
 	lines := strings.Split(string(bytes.ReplaceAll(data, []byte("\r\n"), []byte("\n"))), "\n")
 	for i := 0; i < len(lines); i++ {
-		line := lines[i]
+		// A brief sheet starts a step's line with its anchor; a full one puts the anchor in a heading.
+		line, full := lines[i], false
+		if h := strings.TrimLeft(line, "#"); h != line && strings.HasPrefix(h, " "+open+"s-") {
+			line, full = h[1:], true
+		}
 		if !strings.HasPrefix(line, open+"s-") {
 			continue
 		}
@@ -32,10 +36,15 @@ func (r *Report) checkSheet(p string, data []byte, steps map[string]trace.Step) 
 			continue
 		}
 		r.Printed++
-		// The result: the lines after the title line, up to the next blank line or anchor.
+		// The formula and result: the lines after the anchor's line, up to the next blank line
+		// (brief) or the next heading (full), and never past the next anchor.
 		var body strings.Builder
-		for j := i + 1; j < len(lines) && lines[j] != "" && !strings.HasPrefix(lines[j], open); j++ {
-			body.WriteString(lines[j])
+		for j := i + 1; j < len(lines); j++ {
+			l := lines[j]
+			if strings.HasPrefix(l, "#") || strings.HasPrefix(l, open) || !full && l == "" {
+				break
+			}
+			body.WriteString(l)
 			body.WriteByte('\n')
 		}
 		want, isNum := reports.MarkdownNumber(s)
@@ -85,7 +94,8 @@ func boldSpans(s string) []string {
 		if j < 0 {
 			return out
 		}
-		out = append(out, s[i+2:i+2+j])
+		b := strings.NewReplacer("<mark>", "", "</mark>", "").Replace(s[i+2 : i+2+j])
+		out = append(out, b)
 		s = s[i+2+j+2:]
 	}
 }
