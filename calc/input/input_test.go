@@ -341,7 +341,7 @@ columns:
 // The golden lists hold every fault of files with many faults; go test -update rewrites them.
 // The list of code parameters is written <catalogue> so that adding one keeps the lists valid.
 func TestManyErrors(t *testing.T) {
-	for _, name := range []string{"bad", "building_bad", "building_refs"} {
+	for _, name := range []string{"bad", "building_bad", "building_refs", "limits_bad"} {
 		t.Run(name, func(t *testing.T) {
 			_, err := parseFile(t, "testdata/"+name+".yaml")
 			if err == nil {
