@@ -1,6 +1,7 @@
 package main
 
 import (
+	"crypto/ed25519"
 	"fmt"
 	"io"
 	"os"
@@ -15,6 +16,18 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 	for _, a := range args {
 		if a == "--formats" || strings.HasPrefix(a, "--formats=") {
 			fmt.Fprintf(stderr, "colsheet archive: --formats is not taken: a package holds every format\n\n%s", usage)
+			return 2
+		}
+	}
+	args, keyFile, err := takeFlag(args, "--sign")
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet archive: %v\n\n%s", err, usage)
+		return 2
+	}
+	var key ed25519.PrivateKey
+	if keyFile != "" {
+		if key, err = archive.ReadPrivateKey(keyFile); err != nil {
+			fmt.Fprintf(stderr, "colsheet archive: --sign: %v; nothing written\n", err)
 			return 2
 		}
 	}
@@ -52,6 +65,9 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 			return fmt.Errorf("%s: %v", archive.ManifestName, err)
 		}
 		files[archive.ManifestName] = data
+		if key != nil {
+			files[archive.SignatureName] = archive.Sign(data, key)
+		}
 		return nil
 	}
 	return deliver(o, job, seal, stdout, stderr)
@@ -59,11 +75,23 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 
 // runRecheck verifies a package folder against its manifest and re-evaluates its trace.
 func runRecheck(args []string, stdout, stderr io.Writer) int {
+	args, keyFile, err := takeFlag(args, "--key")
+	if err != nil {
+		fmt.Fprintf(stderr, "colsheet recheck: %v\n\n%s", err, usage)
+		return 2
+	}
 	if len(args) != 1 || strings.HasPrefix(args[0], "-") {
 		fmt.Fprintf(stderr, "colsheet recheck: give one package folder\n\n%s", usage)
 		return 2
 	}
-	rep, err := archive.Verify(args[0])
+	var pub ed25519.PublicKey
+	if keyFile != "" {
+		if pub, err = archive.ReadPublicKey(keyFile); err != nil {
+			fmt.Fprintf(stderr, "colsheet recheck: --key: %v\n", err)
+			return 2
+		}
+	}
+	rep, err := archive.VerifyKey(args[0], pub)
 	if err != nil {
 		fmt.Fprintf(stderr, "colsheet recheck: %v\n", err)
 		return 2
@@ -76,6 +104,35 @@ func runRecheck(args []string, stdout, stderr io.Writer) int {
 		return 1
 	}
 	return 0
+}
+
+// takeFlag removes the option name with its value ("--name VALUE" or "--name=VALUE") from args
+// and returns the rest and the value, "" where the option is not given.
+func takeFlag(args []string, name string) ([]string, string, error) {
+	var rest []string
+	value, seen := "", false
+	for i := 0; i < len(args); i++ {
+		a := args[i]
+		v, has := strings.CutPrefix(a, name+"=")
+		switch {
+		case a != name && !has:
+			rest = append(rest, a)
+			continue
+		case seen:
+			return nil, "", fmt.Errorf("%s given twice", name)
+		case !has:
+			if i+1 >= len(args) {
+				return nil, "", fmt.Errorf("%s needs a key file", name)
+			}
+			i++
+			v = args[i]
+		}
+		if v == "" {
+			return nil, "", fmt.Errorf("%s needs a key file", name)
+		}
+		value, seen = v, true
+	}
+	return rest, value, nil
 }
 
 // runCompare prints, or writes to a new file, the revision table between two package folders.

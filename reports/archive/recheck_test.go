@@ -135,6 +135,9 @@ func TestRecheckForgeries(t *testing.T) {
 		{name: "links spread", forge: func(t *testing.T, dir string) {
 			editDesign(t, dir, 0, func(d map[string]any) { d["links"].(map[string]any)["spacing_mm"] = 600.0 })
 		}, want: []string{"K1/L1 links.spacing_mm"}, noFile: true},
+		{name: "cover changed", forge: func(t *testing.T, dir string) {
+			editDesign(t, dir, 0, func(d map[string]any) { d["cover_mm"] = 45.0 })
+		}, want: []string{"K1/L1 cover_mm"}, text: []string{"FAIL design K1/L1, cover_mm: results.json says 45, the archived input gives 35"}, noFile: true},
 		{name: "status flipped", forge: func(t *testing.T, dir string) {
 			editDesign(t, dir, 0, func(d map[string]any) { d["status"] = "fail" })
 		}, want: []string{"K1/L1 status"}, text: []string{"results.json says fail, but no check step fails"}, noFile: true},
