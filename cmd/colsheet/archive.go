@@ -100,6 +100,10 @@ func runRecheck(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "colsheet recheck: %v\n", err)
 		return 2
 	}
+	// Provenance: the program that made the package, beside the one that rechecks it.
+	if m, err := archive.ReadManifest(filepath.Join(args[0], archive.ManifestName)); err == nil {
+		fmt.Fprint(stdout, provenanceNote(m.Tool, version(), executableSumOrEmpty()))
+	}
 	if !rep.OK() {
 		return 1
 	}
@@ -195,4 +199,33 @@ func writeNewFile(name string, data []byte) error {
 		return fmt.Errorf("%s: %v", name, err)
 	}
 	return nil
+}
+
+// executableSumOrEmpty returns the SHA-256 of the running executable, "" where it cannot be read.
+func executableSumOrEmpty() string {
+	sum, err := executableSum()
+	if err != nil {
+		return ""
+	}
+	return sum
+}
+
+// provenanceNote says whether the package was made by the program that rechecks it: the same
+// version and executable, or which differ (a different engine may design differently, so the
+// re-run of the archived input can then disagree).
+func provenanceNote(made archive.Tool, runVersion, runExe string) string {
+	var diff []string
+	if made.Version != runVersion {
+		diff = append(diff, fmt.Sprintf("version %s, rechecked with %s", made.Version, runVersion))
+	}
+	switch {
+	case made.Executable == "":
+		diff = append(diff, "the executable's SHA-256 is not recorded")
+	case runExe != "" && made.Executable != runExe:
+		diff = append(diff, fmt.Sprintf("executable SHA-256 %s, rechecked with %s", made.Executable, runExe))
+	}
+	if len(diff) == 0 {
+		return "provenance: made by this program (same version and executable)\n"
+	}
+	return "provenance: made by a different program: " + strings.Join(diff, "; ") + "\n"
 }

@@ -4,8 +4,8 @@
 // Usage:
 //
 //	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
-//	colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
-//	colsheet recheck BUNDLE
+//	colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [--sign KEYFILE]
+//	colsheet recheck BUNDLE [--key PUBFILE]
 //	colsheet compare OLD NEW [-o FILE.md]
 //	colsheet version
 //
@@ -34,8 +34,8 @@ const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992
 
 usage:
   colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
-  colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
-  colsheet recheck BUNDLE
+  colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [--sign KEYFILE]
+  colsheet recheck BUNDLE [--key PUBFILE]
   colsheet compare OLD NEW [-o FILE.md]
   colsheet version
   colsheet help
@@ -58,10 +58,14 @@ fails (everything is still written), 2 bad input or usage, 3 pdflatex failed
 (without pdflatex, --pdf only says so), 4 internal error (please report).
 
 archive writes the same files plus BUNDLE/input/ (the input file) and
-BUNDLE/manifest.json (size and SHA-256 of every file). recheck verifies a
-bundle against its manifest and re-evaluates every traced step (exit 0 all
-reproduce, 1 something does not, 2 unreadable bundle or usage). compare
-prints the changed inputs and results of two bundles as a Markdown table.
+BUNDLE/manifest.json (size and SHA-256 of every file and of the program);
+--sign KEYFILE signs the manifest with an Ed25519 key (manifest.sig). recheck
+verifies a bundle against its manifest (and with --key PUBFILE its
+signature), re-evaluates every traced step, ties every value of results.json
+and of the sheets to its step, designs the archived input again and names the
+program that made the bundle (exit 0 all reproduce, 1 something does not, 2
+unreadable bundle or usage). compare prints the changed inputs and results of
+two bundles as a Markdown table.
 `
 
 // run runs the command of args and returns its exit status; a panic is an internal error (4).

@@ -65,3 +65,21 @@ func TestRecheckKeyAndForgery(t *testing.T) {
 		t.Errorf("forged utilisation, signed manifest rehashed: exit %d\n%s", code, out)
 	}
 }
+
+// Recheck says whether the package was made by the program that rechecks it (common practice,
+// no source: an archived calculation names the program that produced it).
+func TestProvenanceNote(t *testing.T) {
+	same := provenanceNote(archive.Tool{Name: "colsheet", Version: "v1", Executable: "ab"}, "v1", "ab")
+	if !strings.Contains(same, "made by this program") {
+		t.Errorf("same program: %q", same)
+	}
+	other := provenanceNote(archive.Tool{Name: "colsheet", Version: "v1", Executable: "ab"}, "v2", "cd")
+	for _, want := range []string{"different program", "version v1, rechecked with v2", "executable SHA-256 ab, rechecked with cd"} {
+		if !strings.Contains(other, want) {
+			t.Errorf("different program: %q lacks %q", other, want)
+		}
+	}
+	if old := provenanceNote(archive.Tool{Name: "colsheet", Version: "v1"}, "v1", "cd"); !strings.Contains(old, "not recorded") {
+		t.Errorf("an older package: %q", old)
+	}
+}
