@@ -6,9 +6,12 @@ import (
 	"colsheet/calc/creep"
 	"colsheet/calc/frame"
 	"math"
+	"runtime"
 	"slices"
 	"strconv"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"colsheet/calc/code"
 	"colsheet/calc/detail"
@@ -37,63 +40,124 @@ func Run(in *model.Input) (*Result, error) {
 		b := in.Building
 		r.Designs = make([]Design, len(d.Lifts))
 		r.cases = make([]liftCase, len(d.Lifts))
-		// The take-down's steps that repeat a basis step (code parameters, ψ factors) are the
-		// basis's: each lift refers to them.
-		h := r.bs.hoister()
-		type at struct{ k, i int }
-		var across []at
 		dvs := make([]*Derivation, len(d.Lifts))
-		// Each column from its top lift down, so that a lift's bars are not less than those of
-		// the lift above (the bars do not grow up the building, common practice) and the lap
-		// above a lift can be checked.
-		for k := len(d.Lifts) - 1; k >= 0; k-- {
-			lf := &d.Lifts[k]
-			l0y, l0z := b.Options.L0Factor*lf.Height, b.Options.L0Factor*lf.Height
-			if b.Options.L0FromFrame {
-				l0y, l0z = lf.Src.L0[0].V, lf.Src.L0[1].V
+		cols := columnSpans(d.Lifts)
+		// The columns are independent: each on a worker, each column from its top lift down, so
+		// that a lift's bars are not less than those of the lift above (the bars do not grow up
+		// the building, common practice) and the lap above a lift can be checked. A lift refers
+		// only to steps of its own column, so each column has its own hoister: the take-down's
+		// steps that repeat a basis step (code parameters, ψ factors) are the basis's, and each
+		// lift refers to them.
+		each(len(cols), func(ci int) {
+			h := r.bs.hoister()
+			for k := cols[ci].hi - 1; k >= cols[ci].lo; k-- {
+				lf := &d.Lifts[k]
+				l0y, l0z := b.Options.L0Factor*lf.Height, b.Options.L0Factor*lf.Height
+				if b.Options.L0FromFrame {
+					l0y, l0z = lf.Src.L0[0].V, lf.Src.L0[1].V
+				}
+				col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
+					Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
+				dv := &Derivation{Steps: lf.Steps, hoist: h, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt, Min: lf.Src.Min,
+					Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
+				if k+1 < cols[ci].hi {
+					above := &r.Designs[k+1]
+					dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.B*above.H, above.Storey
+					if above.pattern.Count() > 0 {
+						dv.above = neighbourOf(above)
+					}
+				}
+				r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
+				r.cases[k] = liftCase{col, &col.Storeys[0]}
+				dvs[k] = dv
 			}
-			col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
-				Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
-			dv := &Derivation{Steps: lf.Steps, hoist: h, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt, Min: lf.Src.Min,
-				Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
-			if k+1 < len(d.Lifts) && d.Lifts[k+1].Column == lf.Column {
-				above := &r.Designs[k+1]
-				dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.B*above.H, above.Storey
-				if above.pattern.Count() > 0 {
-					dv.above = neighbourOf(above)
+		})
+		var typical *typicalUses
+		if in.Options.Typical.On && b.Bars == nil {
+			typical = r.typicalUses()
+		}
+		each(len(cols), func(ci int) {
+			if typical != nil {
+				r.typicalColumn(in, dvs, typical, cols[ci])
+			}
+			// References to another lift's step taken out after them: the design's trace begins
+			// with its derivation's steps.
+			for k := cols[ci].lo; k < cols[ci].hi; k++ {
+				for _, i := range dvs[k].across {
+					dvs[k].hoist.redirect(&r.Designs[k].Steps[i], nil)
 				}
 			}
-			r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
-			r.cases[k] = liftCase{col, &col.Storeys[0]}
-			dvs[k] = dv
-		}
-		if in.Options.Typical.On && b.Bars == nil {
-			r.typicalPass(in, dvs)
-		}
-		for k, dv := range dvs {
-			for _, i := range dv.across {
-				across = append(across, at{k, i})
-			}
-		}
-		// References to another lift's step taken out after them: the design's trace begins
-		// with its derivation's steps.
-		for _, x := range across {
-			h.redirect(&r.Designs[x.k].Steps[x.i], nil)
-		}
+		})
 	} else {
 		for ci := range in.Columns {
 			col := &in.Columns[ci]
 			for si := range col.Storeys {
-				r.Designs = append(r.Designs, design(in, col, &col.Storeys[si], nil, r.bs))
 				r.cases = append(r.cases, liftCase{col, &col.Storeys[si]})
 			}
 		}
+		// The lifts of the actions form are independent.
+		r.Designs = make([]Design, len(r.cases))
+		each(len(r.cases), func(k int) {
+			r.Designs[k] = design(in, r.cases[k].col, r.cases[k].st, nil, r.bs)
+		})
 	}
 	if in.Options.Sizes != nil {
 		r.Sizes = findSizes(in, r)
 	}
 	r.Basis = r.bs.public()
 	return r, nil
+}
+
+// span is the lifts [lo, hi) of one column in the derived lifts, lowest first.
+type span struct{ lo, hi int }
+
+// columnSpans returns the runs of lifts of one column, in order.
+func columnSpans(lifts []building.Lift) []span {
+	var out []span
+	for lo := 0; lo < len(lifts); {
+		hi := lo + 1
+		for hi < len(lifts) && lifts[hi].Column == lifts[lo].Column {
+			hi++
+		}
+		out = append(out, span{lo, hi})
+		lo = hi
+	}
+	return out
+}
+
+// each calls f(i) for every i in [0, n) on at most GOMAXPROCS goroutines and returns when all
+// are done; f(i) must write only what belongs to i. A panic in f is raised again in the caller.
+func each(n int, f func(i int)) {
+	w := min(runtime.GOMAXPROCS(0), n)
+	if w <= 1 {
+		for i := 0; i < n; i++ {
+			f(i)
+		}
+		return
+	}
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	var once sync.Once
+	var caught any
+	for range w {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			defer func() {
+				if p := recover(); p != nil {
+					once.Do(func() { caught = p })
+					next.Store(int64(n)) // the others stop at their next item
+				}
+			}()
+			for i := int(next.Add(1)) - 1; i < n; i = int(next.Add(1)) - 1 {
+				f(i)
+			}
+		}()
+	}
+	wg.Wait()
+	if caught != nil {
+		panic(caught)
+	}
 }
 
 // Derivation is the traced origin of a lift's actions when they come from the building form:

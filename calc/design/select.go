@@ -445,39 +445,51 @@ func bars(in *model.Input) Method {
 // sectionKey names a section for the typical pass.
 type sectionKey struct{ b, h, cover float64 }
 
-// typicalPass gives lifts of one section the pattern used most in the building for that section
-// where it costs at most the tolerance more steel, keeping the bars of every column continuous:
-// each column from its top lift down, a lift takes a pattern that continues the bars of the lift
-// above (as finally chosen) and lies within those of the lift below (as first chosen), so that the
-// lift below keeps a passing pattern. A lift whose lift above changed is designed again.
-func (r *Result) typicalPass(in *model.Input, dvs []*Derivation) {
-	n := len(r.Designs)
-	key := func(d *Design) sectionKey { return sectionKey{d.B, d.H, d.Cover} }
-	uses := map[sectionKey]map[detail.Pattern]int{}
-	first := make([]Design, n)
+// typicalUses holds what the typical pass takes from the first pass over the whole building:
+// how often each pattern is used per section, and each lift's design as first chosen.
+type typicalUses struct {
+	uses  map[sectionKey]map[detail.Pattern]int
+	first []Design
+}
+
+// typicalUses counts the patterns of the designs per section, before the typical pass.
+func (r *Result) typicalUses() *typicalUses {
+	t := &typicalUses{uses: map[sectionKey]map[detail.Pattern]int{}, first: slices.Clone(r.Designs)}
 	for k := range r.Designs {
 		d := &r.Designs[k]
-		first[k] = *d
 		if d.Bars.Given || d.Status != StatusPass || d.pattern.Count() == 0 {
 			continue
 		}
-		if uses[key(d)] == nil {
-			uses[key(d)] = map[detail.Pattern]int{}
+		key := sectionKey{d.B, d.H, d.Cover}
+		if t.uses[key] == nil {
+			t.uses[key] = map[detail.Pattern]int{}
 		}
-		uses[key(d)][d.pattern]++
+		t.uses[key][d.pattern]++
 	}
-	same := func(i, j int) bool { return j >= 0 && j < n && r.Designs[i].Column == r.Designs[j].Column }
-	changed := make([]bool, n)
+	return t
+}
+
+// typicalColumn gives the lifts of one column (the lifts s) the pattern used most in the building
+// for their section where it costs at most the tolerance more steel, keeping the bars of the column
+// continuous: from its top lift down, a lift takes a pattern that continues the bars of the lift
+// above (as finally chosen) and lies within those of the lift below (as first chosen), so that the
+// lift below keeps a passing pattern. A lift whose lift above changed is designed again. The
+// counts t are of the whole building; the columns are independent of each other.
+func (r *Result) typicalColumn(in *model.Input, dvs []*Derivation, t *typicalUses, s span) {
+	key := func(d *Design) sectionKey { return sectionKey{d.B, d.H, d.Cover} }
+	first := t.first
+	same := func(j int) bool { return j >= s.lo && j < s.hi }
+	changed := make([]bool, s.hi-s.lo)
 	tol := in.Options.Typical.Tolerance
-	for k := n - 1; k >= 0; k-- {
+	for k := s.hi - 1; k >= s.lo; k-- {
 		d := &r.Designs[k]
 		if d.Bars.Given || d.pattern.Count() == 0 {
 			continue
 		}
-		aboveChanged := same(k, k+1) && changed[k+1]
+		aboveChanged := same(k+1) && changed[k+1-s.lo]
 		var prefer []detail.Pattern
 		if d.Status == StatusPass {
-			m := uses[key(d)]
+			m := t.uses[key(d)]
 			for p, cnt := range m {
 				if cnt > m[d.pattern] {
 					prefer = append(prefer, p)
@@ -498,10 +510,10 @@ func (r *Result) typicalPass(in *model.Input, dvs []*Derivation) {
 		}
 		dv, lc := dvs[k], r.cases[k]
 		var above, below *neighbour
-		if same(k, k+1) {
+		if same(k + 1) {
 			above = neighbourOf(&r.Designs[k+1])
 		}
-		if same(k, k-1) && first[k-1].pattern.Count() > 0 {
+		if same(k-1) && first[k-1].pattern.Count() > 0 {
 			below = neighbourOf(&first[k-1])
 		}
 		// Only the patterns that could replace this lift's: they continue the bars above, stay within
@@ -521,7 +533,7 @@ func (r *Result) typicalPass(in *model.Input, dvs []*Derivation) {
 			dv.AsAbove, dv.AcAbove = a.AsProv, a.B*a.H
 		}
 		nd := design(in, lc.col, lc.st, dv, r.bs)
-		changed[k] = nd.pattern != d.pattern
+		changed[k-s.lo] = nd.pattern != d.pattern
 		r.Designs[k] = nd
 	}
 }
