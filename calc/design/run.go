@@ -177,6 +177,7 @@ type Derivation struct {
 	L0          [2]trace.Q // effective lengths about y and z, when derived
 	Top, Bottom [2]trace.Q // end moments about y and z
 
+	trial  bool     // the actions of a check by quick evaluation only, whose steps are not kept
 	hoist  *hoister // takes the steps that repeat a basis step out of Steps; nil: none
 	across []int    // places of the steps that refer to another lift, once hoisted
 
@@ -323,15 +324,16 @@ var paramFrom = func() map[string]string {
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) *common {
 	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv, bs: bs}
-	// Room for every step of the design, so that evaluate and finish append in place; a
-	// derivation without steps serves a trial only (withArrangements), which keeps no trace.
-	room := 96 + stepsPerPattern
-	if dv != nil && dv.Steps == nil {
-		room = 96
-	}
-	l := &trace.Log{Steps: make([]trace.Step, 0, room)}
-	if dv != nil && dv.Steps != nil {
-		l.Steps = make([]trace.Step, 0, len(dv.Steps)+room)
+	// Room for every step of the design, so that evaluate and finish append in place, allocated
+	// once; a trial derivation (withArrangements) keeps no trace: its log keeps no step.
+	var l *trace.Log
+	switch {
+	case dv != nil && dv.trial:
+		l = &trace.Log{Trial: true}
+	case dv == nil:
+		l = &trace.Log{Steps: make([]trace.Step, 0, 96+stepsPerPattern)}
+	default:
+		l = &trace.Log{Steps: make([]trace.Step, 0, len(dv.Steps)+96+stepsPerPattern)}
 		if dv.hoist != nil {
 			l.Steps, dv.across = dv.hoist.filter(l.Steps, dv.Steps, col.ID+"/"+st.Name+"/")
 		} else {
@@ -524,7 +526,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		}
 		bottom := dv.Bottom
 		bottom[k] = alt
-		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP}, c.bs)
+		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}, c.bs)
 		qr := c2.quickResist(d.pattern, c.nEd.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
@@ -551,7 +553,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		}
 		top, bottom := dv.Top, dv.Bottom
 		top[k], bottom[k] = mc.Top, mc.Bot
-		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP}, c.bs)
+		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}, c.bs)
 		qr := c2.quickResist(d.pattern, mc.N.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
