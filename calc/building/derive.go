@@ -116,7 +116,7 @@ func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
 		st := b.Storeys[k]
 		lv := &levels[k]
 		size := columnSize(b, id, st.Name)
-		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 160)}
+		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 192)}
 		rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
 		gk, qk, area, byBeam := levelTakeDown(l, lv, i, j, rho)
 		alphaA := map[string]trace.Q{}
