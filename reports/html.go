@@ -80,43 +80,66 @@ type htmlPage struct {
 // html prints the set as HTML pages: each sheet printed as Markdown with HTML's links and its
 // folded sub-steps, converted by goldmark once, in the page template.
 func (s *sheetSet) html(r *design.Result) ([]Sheet, error) {
-	single, err := s.print(htmlFormat)
+	tp, err := htmlFormat.printer(htmlFormat.common, htmlFormat.index, htmlFormat.sheet)
 	if err != nil {
 		return nil, err
 	}
+	h, err := newHTMLPages(r)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]Sheet, 0, len(s.names)+1)
+	for i := 0; i <= len(s.names); i++ {
+		single, err := s.page(tp, i)
+		if err != nil {
+			return nil, err
+		}
+		page, err := h.page(i, single)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, page)
+	}
+	return out, nil
+}
+
+// htmlPages turns the pages of a set of sheets, printed as Markdown with HTML's links, into
+// HTML pages; page may run on several goroutines at once.
+type htmlPages struct {
+	r             *design.Result
+	t             *template.Template
+	tool, project string
+}
+
+func newHTMLPages(r *design.Result) (*htmlPages, error) {
 	t, err := template.ParseFS(templates.FS, "html/page.html.tmpl")
 	if err != nil {
 		return nil, err
 	}
-	in := input(r)
-	tool := program(r)
-	project := oneLine(in.Project.Title)
-	title := func(i int) string {
-		s := "Index of calculation sheets"
-		if i > 0 {
-			s = subject(r.Designs[i-1])
-		}
-		if strings.TrimSpace(project) != "" {
-			s = project + ": " + s
-		}
-		return oneLine(s)
+	return &htmlPages{r: r, t: t, tool: program(r), project: oneLine(input(r).Project.Title)}, nil
+}
+
+// page returns page i of the set (0 the index, then the designs in order) from its Markdown single.
+func (h *htmlPages) page(i int, single Sheet) (Sheet, error) {
+	title := "Index of calculation sheets"
+	if i > 0 {
+		title = subject(h.r.Designs[i-1])
 	}
-	failed := func(i int) bool { return i > 0 && r.Designs[i-1].Status != design.StatusPass }
-	id := func(name string) string { return strings.TrimSuffix(name, ".md") }
-	out := make([]Sheet, 0, len(single))
-	for i := range single {
-		body, err := toHTML(single[i].Data)
-		if err != nil {
-			return nil, err
-		}
-		page, err := execPage(t, htmlPage{Title: title(i), Tool: tool,
-			Sheets: []htmlSheet{{ID: id(single[i].Name), Failed: failed(i), Body: body}}})
-		if err != nil {
-			return nil, err
-		}
-		out = append(out, Sheet{Name: id(single[i].Name) + ".html", Data: page})
+	if strings.TrimSpace(h.project) != "" {
+		title = h.project + ": " + title
 	}
-	return out, nil
+	failed := i > 0 && h.r.Designs[i-1].Status != design.StatusPass
+	id := strings.TrimSuffix(single.Name, ".md")
+	body, err := toHTML(single.Data)
+	if err != nil {
+		return Sheet{}, err
+	}
+	page, err := execPage(h.t, htmlPage{Title: oneLine(title), Tool: h.tool,
+		Sheets: []htmlSheet{{ID: id, Failed: failed, Body: body}}})
+	if err != nil {
+		return Sheet{}, err
+	}
+	return Sheet{Name: id + ".html", Data: page}, nil
 }
 
 func toHTML(mdText []byte) (template.HTML, error) {

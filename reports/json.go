@@ -1,9 +1,11 @@
 package reports
 
 import (
+	"bufio"
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"io"
 	"math"
 	"slices"
 	"strconv"
@@ -174,28 +176,94 @@ func nonNil(s []string) []string {
 	return s
 }
 
-// JSON returns results.json, compact: the contract of DESIGN.md plus, per design, NRd_max_kN,
-// reasons, cautions and the full trace, and the project basis (Result.Basis) once. The steps are
-// packed (see packer): each names its form in the top-level "forms" list and carries its own ID
-// and numbers; ReadSteps reads them back whole. It fails when any recorded number is not finite.
+// JSON returns results.json (see WriteJSON) in memory.
 func JSON(r *design.Result) ([]byte, error) {
-	if r == nil {
-		return nil, fmt.Errorf("reports: no result")
-	}
-	if err := finiteResult(r); err != nil {
+	var b bytes.Buffer
+	if err := WriteJSON(&b, r); err != nil {
 		return nil, err
 	}
-	in := input(r)
-	out := jsonResult{
-		Tool:        jsonTool{Name: toolName(r), Version: r.ToolVersion},
-		InputSHA256: in.SHA256,
-		Code:        jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()},
-		Designs:     []jsonDesign{},
+	return b.Bytes(), nil
+}
+
+// WriteJSON writes results.json to w, compact: the contract of DESIGN.md plus, per design,
+// NRd_max_kN, reasons, cautions and the full trace, and the project basis (Result.Basis) once.
+// The steps are packed (see packer): each names its form in the top-level "forms" list and
+// carries its own ID and numbers; ReadSteps reads them back whole. The forms come first, so a
+// first pass collects them (holding only the forms and each step's index) and a second writes
+// the designs one at a time; the bytes are those of the whole jsonResult encoded at once. It
+// fails, writing nothing, when any recorded number is not finite.
+func WriteJSON(w io.Writer, r *design.Result) error {
+	if r == nil {
+		return fmt.Errorf("reports: no result")
 	}
+	if err := finiteResult(r); err != nil {
+		return err
+	}
+	in := input(r)
 	pk := newPacker()
-	out.Basis = make([]jsonStep, len(r.Basis))
-	for i, s := range r.Basis {
-		// A basis step names other basis steps by their whole ID: from the root in its form.
+	basis := basisForJSON(r.Basis)
+	basisForms, err := pk.indices(basis, func(s trace.Step) string { return s.ID })
+	if err != nil {
+		return err
+	}
+	designForms := make([][]int, len(r.Designs))
+	for k, d := range r.Designs {
+		prefix := d.Column + "/" + d.Storey + "/"
+		if designForms[k], err = pk.indices(d.Steps, func(s trace.Step) string { return prefix + s.ID }); err != nil {
+			return err
+		}
+	}
+	forms, err := pk.forms()
+	if err != nil {
+		return err
+	}
+	// Compact, one line ending in a newline; "<", ">" and "&" as they are (not for HTML).
+	e := newJSONWriter(w)
+	e.raw(`{"tool":`)
+	e.value(jsonTool{Name: toolName(r), Version: r.ToolVersion})
+	e.raw(`,"input_sha256":`)
+	e.value(in.SHA256)
+	e.raw(`,"code":`)
+	e.value(jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()})
+	e.raw(`,"forms":`)
+	e.value(forms)
+	e.raw(`,"basis":`)
+	steps := make([]jsonStep, len(basis))
+	for i, s := range basis {
+		steps[i] = packed(s, s.ID, basisForms[i])
+	}
+	e.value(steps)
+	e.raw(`,"designs":[`)
+	for k, d := range r.Designs {
+		if k > 0 {
+			e.raw(",")
+		}
+		prefix := d.Column + "/" + d.Storey + "/"
+		steps := make([]jsonStep, len(d.Steps))
+		for i, s := range d.Steps {
+			steps[i] = packed(s, prefix+s.ID, designForms[k][i])
+		}
+		e.value(designJSON(d, steps))
+	}
+	e.raw("]")
+	if len(r.Sizes) > 0 {
+		var sizes []jsonSize
+		for _, z := range r.Sizes {
+			sizes = append(sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
+				GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
+		}
+		e.raw(`,"size_search":`)
+		e.value(sizes)
+	}
+	e.raw("}\n")
+	return e.flush()
+}
+
+// basisForJSON returns the basis steps as results.json holds them: a basis step names other
+// basis steps by their whole ID, from the root in its form.
+func basisForJSON(basis []trace.Step) []trace.Step {
+	out := slices.Clone(basis)
+	for i, s := range out {
 		if len(s.Args) > 0 {
 			s.Args = slices.Clone(s.Args)
 			for j := range s.Args {
@@ -203,75 +271,86 @@ func JSON(r *design.Result) ([]byte, error) {
 					s.Args[j].From = "/" + f
 				}
 			}
-		}
-		st, err := pk.pack(s, s.ID)
-		if err != nil {
-			return nil, err
-		}
-		out.Basis[i] = st
-	}
-	for _, d := range r.Designs {
-		pos := d.Bars.Positions
-		if pos == nil {
-			pos = [][2]float64{}
-		}
-		prefix := d.Column + "/" + d.Storey + "/"
-		steps := make([]jsonStep, len(d.Steps))
-		for i, s := range d.Steps {
-			st, err := pk.pack(s, prefix+s.ID)
-			if err != nil {
-				return nil, err
-			}
-			steps[i] = st
-		}
-		out.Designs = append(out.Designs, jsonDesign{
-			Column: d.Column, Storey: d.Storey, B: d.B, H: d.H, Cover: d.Cover, Fck: d.Fck, Fyk: d.Fyk,
-			NEd:     d.NEd / 1e3,
-			Axes:    jsonAxes{Y: axisJSON(d.Y), Z: axisJSON(d.Z)},
-			Biaxial: jsonBiaxial{Checked: d.Biaxial.Checked, A: d.Biaxial.A, Ratio: d.Biaxial.Ratio},
-			AsReq:   d.AsReq, AsMin: d.AsMin, AsMax: d.AsMax, AsProv: d.AsProv,
-			Bars: jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
-			Links: jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
-				SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks},
-			Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
-			NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
-		})
-	}
-	for k, d := range r.Designs {
-		if e := d.Exact; e != nil {
-			out.Designs[k].Exact = &jsonExact{MRd: e.MRd / 1e6, MRdY: e.My / 1e6, MRdZ: e.Mz / 1e6, Ratio: e.Ratio, Angle: e.Angle * 180 / math.Pi}
-		}
-		if it := d.Interaction; it != nil {
-			c := &jsonCurves{NMY: [][3]float64{}, NMZ: [][3]float64{}, MyMz: [][2]float64{}}
-			for _, p := range it.NMY {
-				c.NMY = append(c.NMY, [3]float64{p.N / 1e3, p.M / 1e6, p.MNeg / 1e6})
-			}
-			for _, p := range it.NMZ {
-				c.NMZ = append(c.NMZ, [3]float64{p.N / 1e3, p.M / 1e6, p.MNeg / 1e6})
-			}
-			for _, p := range it.Contour {
-				c.MyMz = append(c.MyMz, [2]float64{p.My / 1e6, p.Mz / 1e6})
-			}
-			out.Designs[k].Interaction = c
+			out[i] = s
 		}
 	}
-	for _, z := range r.Sizes {
-		out.Sizes = append(out.Sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
-			GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
+	return out
+}
+
+// designJSON returns design d as results.json holds it, with its packed trace steps.
+func designJSON(d design.Design, steps []jsonStep) jsonDesign {
+	pos := d.Bars.Positions
+	if pos == nil {
+		pos = [][2]float64{}
 	}
-	forms, err := pk.forms()
-	if err != nil {
-		return nil, err
+	out := jsonDesign{
+		Column: d.Column, Storey: d.Storey, B: d.B, H: d.H, Cover: d.Cover, Fck: d.Fck, Fyk: d.Fyk,
+		NEd:     d.NEd / 1e3,
+		Axes:    jsonAxes{Y: axisJSON(d.Y), Z: axisJSON(d.Z)},
+		Biaxial: jsonBiaxial{Checked: d.Biaxial.Checked, A: d.Biaxial.A, Ratio: d.Biaxial.Ratio},
+		AsReq:   d.AsReq, AsMin: d.AsMin, AsMax: d.AsMax, AsProv: d.AsProv,
+		Bars: jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
+		Links: jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
+			SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks},
+		Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
+		NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
 	}
-	out.Forms = forms
-	// Compact, one line ending in a newline; "<", ">" and "&" as they are (not for HTML).
-	var b bytes.Buffer
-	enc := json.NewEncoder(&b)
-	enc.SetEscapeHTML(false)
-	if err := enc.Encode(out); err != nil {
-		return nil, err
+	if e := d.Exact; e != nil {
+		out.Exact = &jsonExact{MRd: e.MRd / 1e6, MRdY: e.My / 1e6, MRdZ: e.Mz / 1e6, Ratio: e.Ratio, Angle: e.Angle * 180 / math.Pi}
 	}
-	return b.Bytes(), nil
+	if it := d.Interaction; it != nil {
+		c := &jsonCurves{NMY: [][3]float64{}, NMZ: [][3]float64{}, MyMz: [][2]float64{}}
+		for _, p := range it.NMY {
+			c.NMY = append(c.NMY, [3]float64{p.N / 1e3, p.M / 1e6, p.MNeg / 1e6})
+		}
+		for _, p := range it.NMZ {
+			c.NMZ = append(c.NMZ, [3]float64{p.N / 1e3, p.M / 1e6, p.MNeg / 1e6})
+		}
+		for _, p := range it.Contour {
+			c.MyMz = append(c.MyMz, [2]float64{p.My / 1e6, p.Mz / 1e6})
+		}
+		out.Interaction = c
+	}
+	return out
+}
+
+// jsonWriter writes JSON values one at a time through a buffer, each encoded as it would be
+// inside a whole document (compact, without HTML escapes); the first error sticks.
+type jsonWriter struct {
+	w   *bufio.Writer
+	buf bytes.Buffer
+	enc *json.Encoder
+	err error
+}
+
+func newJSONWriter(w io.Writer) *jsonWriter {
+	e := &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
+	e.enc = json.NewEncoder(&e.buf)
+	e.enc.SetEscapeHTML(false)
+	return e
+}
+
+func (e *jsonWriter) raw(s string) {
+	if e.err == nil {
+		_, e.err = e.w.WriteString(s)
+	}
+}
+
+func (e *jsonWriter) value(v any) {
+	if e.err != nil {
+		return
+	}
+	e.buf.Reset()
+	if e.err = e.enc.Encode(v); e.err == nil {
+		_, e.err = e.w.Write(bytes.TrimSuffix(e.buf.Bytes(), []byte("\n")))
+	}
+}
+
+func (e *jsonWriter) flush() error {
+	if e.err != nil {
+		return e.err
+	}
+	return e.w.Flush()
 }
 
 // finiteResult reports the first number of r that is NaN or infinite, naming where it is.
@@ -379,15 +458,11 @@ type packer struct {
 
 func newPacker() *packer { return &packer{index: map[string]int{}} }
 
-// pack returns step s, whose references are as its design records them, packed under the
-// whole ID id.
-func (p *packer) pack(s trace.Step, id string) (jsonStep, error) {
-	out := jsonStep{ID: id, Value: s.Value, Residual: s.Residual, Verdict: s.Verdict}
+// form returns the index of the form of step s, adding it at the end when it is new.
+func (p *packer) form(s trace.Step) (int, error) {
 	if len(s.Args) > 0 {
-		out.Args = make([]float64, len(s.Args))
 		args := make([]trace.Arg, len(s.Args))
 		for i, a := range s.Args {
-			out.Args[i] = a.Value
 			a.Value = 0
 			args[i] = a
 		}
@@ -396,7 +471,7 @@ func (p *packer) pack(s trace.Step, id string) (jsonStep, error) {
 	s.ID, s.Value, s.Residual, s.Verdict = "", 0, 0, ""
 	key, err := json.Marshal(s)
 	if err != nil {
-		return jsonStep{}, err
+		return 0, err
 	}
 	k, ok := p.index[string(key)]
 	if !ok {
@@ -404,8 +479,32 @@ func (p *packer) pack(s trace.Step, id string) (jsonStep, error) {
 		p.index[string(key)] = k
 		p.keys = append(p.keys, string(key))
 	}
-	out.Form = &k
+	return k, nil
+}
+
+// indices returns the form index of each of steps, collecting the new forms; id names a step in errors.
+func (p *packer) indices(steps []trace.Step, id func(trace.Step) string) ([]int, error) {
+	out := make([]int, len(steps))
+	for i, s := range steps {
+		k, err := p.form(s)
+		if err != nil {
+			return nil, fmt.Errorf("step %s: %v", id(s), err)
+		}
+		out[i] = k
+	}
 	return out, nil
+}
+
+// packed returns step s packed under the whole ID id with the form index k.
+func packed(s trace.Step, id string, k int) jsonStep {
+	out := jsonStep{ID: id, Value: s.Value, Residual: s.Residual, Verdict: s.Verdict, Form: &k}
+	if len(s.Args) > 0 {
+		out.Args = make([]float64, len(s.Args))
+		for i, a := range s.Args {
+			out.Args[i] = a.Value
+		}
+	}
+	return out
 }
 
 // forms returns the forms collected: each step's JSON without its ID, value, residual and

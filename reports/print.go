@@ -3,6 +3,7 @@ package reports
 import (
 	"fmt"
 	"reflect"
+	"strings"
 	"text/template"
 
 	"colsheet/calc/design"
@@ -65,9 +66,8 @@ func (f format) inDocument(t target) string {
 
 // printer runs the format's templates over trees.
 type treePrinter struct {
-	f   format
-	t   *template.Template
-	cur printer // the printer of the page being printed
+	f format
+	t *template.Template
 }
 
 func (f format) printer(files ...string) (*treePrinter, error) {
@@ -88,10 +88,11 @@ func (f format) printer(files ...string) (*treePrinter, error) {
 	return tp, nil
 }
 
-// print prints the tree v with the page template name, links resolved by link.
+// print prints the tree v with the page template name, links resolved by link; it may run on
+// several goroutines at once.
 func (tp *treePrinter) print(name string, v any, link func(target) string) ([]byte, error) {
-	tp.cur = printer{m: tp.f.m, link: link}
-	return execute(tp.t, name, tp.cur.tree(reflect.ValueOf(v)))
+	p := printer{m: tp.f.m, link: link}
+	return execute(tp.t, name, p.tree(reflect.ValueOf(v)))
 }
 
 var (
@@ -170,19 +171,27 @@ func (s *sheetSet) print(f format) ([]Sheet, error) {
 	if err != nil {
 		return nil, err
 	}
-	b, err := tp.print(f.index, s.index, f.onSheet("index"))
-	if err != nil {
-		return nil, err
-	}
-	out := []Sheet{{Name: "index" + f.ext, Data: b}}
-	for i, name := range s.names {
-		b, err := tp.print(f.sheet, s.sheets[i], f.onSheet(name))
+	out := make([]Sheet, 0, len(s.names)+1)
+	for i := 0; i <= len(s.names); i++ {
+		sh, err := s.page(tp, i)
 		if err != nil {
 			return nil, err
 		}
-		out = append(out, Sheet{Name: name + f.ext, Data: b})
+		out = append(out, sh)
 	}
 	return out, nil
+}
+
+// page prints page i of the set (0 the index, then the sheets in order) with tp.
+func (s *sheetSet) page(tp *treePrinter, i int) (Sheet, error) {
+	f := tp.f
+	if i == 0 {
+		b, err := tp.print(f.index, s.index, f.onSheet("index"))
+		return Sheet{Name: "index" + f.ext, Data: b}, err
+	}
+	name := s.names[i-1]
+	b, err := tp.print(f.sheet, s.sheets[i-1], f.onSheet(name))
+	return Sheet{Name: name + f.ext, Data: b}, err
 }
 
 // buildDocument builds the tree of the calc document once, for every format.
@@ -270,47 +279,165 @@ func DocumentHTML(r *design.Result, o Options) (Sheet, error) {
 type Package map[string][]Sheet
 
 // Render builds the trees of the sheets and the calc document once and prints them in each
-// format asked for (md, tex, html).
+// format asked for (md, tex, html), in memory (see RenderTo).
 func Render(r *design.Result, formats map[string]bool, o Options) (Package, []Sheet, error) {
-	set, err := buildSheets(r, o)
+	out := Package{}
+	var docs []Sheet
+	err := RenderTo(r, formats, o, 1, func(path string, data []byte) error {
+		dir, name, _ := strings.Cut(path, "/")
+		if dir == "doc" {
+			docs = append(docs, Sheet{Name: name, Data: data})
+		} else {
+			out[dir] = append(out[dir], Sheet{Name: name, Data: data})
+		}
+		return nil
+	})
 	if err != nil {
 		return nil, nil, err
+	}
+	return out, docs, nil
+}
+
+// RenderTo builds the trees of the sheets and the calc document once, prints them in each
+// format asked for (md, tex, html) and hands each file to emit as soon as it is printed, by its
+// slash path below the output folder ("md/index.md", …, "doc/calc.md"), in a fixed order: per
+// format the index and the sheets in order, then the calc document of each format. Up to
+// workers goroutines print the sheets; emit runs on the caller's goroutine, and an error it
+// returns stops the rendering and is returned as it is.
+func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int, emit func(path string, data []byte) error) error {
+	set, err := buildSheets(r, o)
+	if err != nil {
+		return err
 	}
 	doc, err := buildDocument(r, o)
 	if err != nil {
-		return nil, nil, err
+		return err
 	}
-	out := Package{}
-	var docs []Sheet
-	for _, f := range []struct {
+	var emitErr error
+	put := func(path string, data []byte) error {
+		emitErr = emit(path, data)
+		return emitErr
+	}
+	fail := func(what string, err error) error {
+		if err == emitErr {
+			return err
+		}
+		return fmt.Errorf("%s: %v", what, err)
+	}
+	formatsInOrder := []struct {
 		name string
 		f    format
-	}{{"md", mdFormat}, {"tex", texFormat}} {
+	}{{"md", mdFormat}, {"tex", texFormat}, {"html", htmlFormat}}
+	for _, f := range formatsInOrder {
 		if !formats[f.name] {
 			continue
 		}
-		sheets, err := set.print(f.f)
+		tp, err := f.f.printer(f.f.common, f.f.index, f.f.sheet)
 		if err != nil {
-			return nil, nil, fmt.Errorf("%s: %v", f.name, err)
+			return fail(f.name, err)
 		}
-		out[f.name] = sheets
-		b, err := printDocument(doc, f.f)
+		page := func(i int) (Sheet, error) { return set.page(tp, i) }
+		if f.name == "html" {
+			h, err := newHTMLPages(r)
+			if err != nil {
+				return fail(f.name, err)
+			}
+			page = func(i int) (Sheet, error) {
+				single, err := set.page(tp, i)
+				if err != nil {
+					return Sheet{}, err
+				}
+				return h.page(i, single)
+			}
+		}
+		err = inOrder(len(set.names)+1, workers, page, func(s Sheet) error { return put(f.name+"/"+s.Name, s.Data) })
 		if err != nil {
-			return nil, nil, fmt.Errorf("%s calc document: %v", f.name, err)
+			return fail(f.name, err)
 		}
-		docs = append(docs, Sheet{Name: "calc" + f.f.ext, Data: b})
 	}
-	if formats["html"] {
-		sheets, err := set.html(r)
-		if err != nil {
-			return nil, nil, fmt.Errorf("html: %v", err)
+	for _, f := range formatsInOrder {
+		if !formats[f.name] {
+			continue
 		}
-		out["html"] = sheets
-		d, err := documentHTML(r, doc)
-		if err != nil {
-			return nil, nil, fmt.Errorf("html calc document: %v", err)
+		var d Sheet
+		if f.name == "html" {
+			d, err = documentHTML(r, doc)
+		} else {
+			d.Name = "calc" + f.f.ext
+			d.Data, err = printDocument(doc, f.f)
 		}
-		docs = append(docs, d)
+		if err != nil {
+			return fail(f.name+" calc document", err)
+		}
+		if err := put("doc/"+d.Name, d.Data); err != nil {
+			return err
+		}
 	}
-	return out, docs, nil
+	return nil
+}
+
+// inOrder makes the n pages page(0) … page(n-1) on up to workers goroutines and hands each to
+// emit, on the caller's goroutine, in order; at most 2×workers pages wait in memory. The first
+// error stops it; a panic in page is raised again on the caller's goroutine.
+func inOrder(n, workers int, page func(i int) (Sheet, error), emit func(Sheet) error) error {
+	if workers < 2 {
+		for i := 0; i < n; i++ {
+			s, err := page(i)
+			if err == nil {
+				err = emit(s)
+			}
+			if err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	type made struct {
+		s     Sheet
+		err   error
+		fault any
+	}
+	queue := make(chan chan made, 2*workers) // the pages in order, each filled when made
+	busy := make(chan struct{}, workers)
+	done := make(chan struct{})
+	defer close(done)
+	go func() {
+		defer close(queue)
+		for i := 0; i < n; i++ {
+			c := make(chan made, 1)
+			select {
+			case queue <- c:
+			case <-done:
+				return
+			}
+			select {
+			case busy <- struct{}{}:
+			case <-done:
+				return
+			}
+			go func(i int) {
+				defer func() { <-busy }()
+				defer func() {
+					if p := recover(); p != nil {
+						c <- made{fault: p}
+					}
+				}()
+				s, err := page(i)
+				c <- made{s: s, err: err}
+			}(i)
+		}
+	}()
+	for c := range queue {
+		m := <-c
+		if m.fault != nil {
+			panic(m.fault)
+		}
+		if m.err == nil {
+			m.err = emit(m.s)
+		}
+		if m.err != nil {
+			return m.err
+		}
+	}
+	return nil
 }

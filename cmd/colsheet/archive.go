@@ -6,6 +6,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"sort"
 	"strings"
 
 	"colsheet/reports/archive"
@@ -37,36 +38,56 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 		return 2
 	}
 	o.formats = map[string]bool{"md": true, "tex": true, "html": true}
+	inName := filepath.Base(o.input)
+	inPath := "input/" + inName
+	o.extra = []string{"input", archive.ManifestName}
+	if key != nil {
+		o.extra = append(o.extra, archive.SignatureName)
+	}
 	job, err := produce(o, stderr)
 	if err != nil {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
 	o.command = "archive"
-	inName := filepath.Base(o.input)
-	inPath := "input/" + inName
-	if _, clash := job.files[inPath]; clash {
+	if job.st.has(inPath) {
+		job.st.discard()
 		fmt.Fprintf(stderr, "colsheet: %s is already an output file; nothing written\n", inPath)
 		return 2
 	}
-	job.files[inPath] = job.input
+	if err := job.st.put(inPath, job.input); err != nil {
+		job.st.discard()
+		fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
+		return 2
+	}
 	exe, err := executableSum()
 	if err != nil {
+		job.st.discard()
 		fmt.Fprintf(stderr, "colsheet: the SHA-256 of the running program: %v; nothing written\n", err)
 		return 2
 	}
-	seal := func(files map[string][]byte) error {
-		m := archive.NewManifest(files, archive.Meta{
-			ToolName: job.res.ToolName, ToolVersion: job.res.ToolVersion, Executable: exe,
-			Date: job.res.Input.Project.Date, InputName: inName, Input: job.input,
-		})
+	seal := func(st *stage) error {
+		m := archive.Manifest{Format: archive.FormatVersion,
+			Tool:  archive.Tool{Name: job.res.ToolName, Version: job.res.ToolVersion, Executable: exe},
+			Date:  job.res.Input.Project.Date,
+			Input: archive.Input{Name: inName, SHA256: archive.Sum(job.input)},
+			Files: []archive.File{},
+		}
+		for p, f := range st.files {
+			if p != archive.ManifestName {
+				m.Files = append(m.Files, archive.File{Path: p, Size: f.size, SHA256: f.sum})
+			}
+		}
+		sort.Slice(m.Files, func(i, j int) bool { return m.Files[i].Path < m.Files[j].Path })
 		data, err := m.JSON()
 		if err != nil {
 			return fmt.Errorf("%s: %v", archive.ManifestName, err)
 		}
-		files[archive.ManifestName] = data
+		if err := st.put(archive.ManifestName, data); err != nil {
+			return err
+		}
 		if key != nil {
-			files[archive.SignatureName] = archive.Sign(data, key)
+			return st.put(archive.SignatureName, archive.Sign(data, key))
 		}
 		return nil
 	}

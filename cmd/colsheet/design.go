@@ -6,6 +6,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 	"time"
 
@@ -25,7 +26,8 @@ type options struct {
 	replace bool // replace an earlier output folder
 	pdf     bool // run pdflatex over the calc document
 	detail  reports.Detail
-	against string // a previous package to mark the changes against
+	against string   // a previous package to mark the changes against
+	extra   []string // top-level entries of the output besides those of the design (the archive's)
 }
 
 func parseDesignArgs(args []string) (options, error) {
@@ -134,11 +136,12 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 }
 
 // deliver makes the PDF when asked, adds the marker, lets seal add the archive's manifest,
-// writes the output folder and reports; it returns the exit status.
-func deliver(o options, j *job, seal func(files map[string][]byte) error, stdout, stderr io.Writer) int {
+// puts the output folder in place and reports; it returns the exit status.
+func deliver(o options, j *job, seal func(st *stage) error, stdout, stderr io.Writer) int {
+	defer j.st.discard()
 	pdfErr := error(nil)
 	if o.pdf {
-		pdfErr = makePDF(j.files, j.res.Input.Project.Date)
+		pdfErr = makePDF(j.st, j.res.Input.Project.Date)
 	}
 	// The marker names the run and lists every file, the manifest that seal adds without its SHA-256.
 	var later []string
@@ -146,19 +149,21 @@ func deliver(o options, j *job, seal func(files map[string][]byte) error, stdout
 		later = []string{archive.ManifestName}
 	}
 	mark, err := newMarker(marker{Program: j.res.ToolName, Version: j.res.ToolVersion, Command: o.command,
-		Date: j.res.Input.Project.Date, Input: filepath.Base(o.input), InputSHA256: archive.Sum(j.input)}, j.files, later...)
+		Date: j.res.Input.Project.Date, Input: filepath.Base(o.input), InputSHA256: archive.Sum(j.input)}, j.st, later...)
+	if err == nil {
+		err = j.st.put(markerName, mark)
+	}
 	if err != nil {
 		fmt.Fprintf(stderr, "colsheet: %s: %v; nothing written\n", markerName, err)
 		return 2
 	}
-	j.files[markerName] = mark
 	if seal != nil {
-		if err := seal(j.files); err != nil {
+		if err := seal(j.st); err != nil {
 			fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
 			return 2
 		}
 	}
-	if err := publish(o.out, j.files, o.replace, stderr); err != nil {
+	if err := publish(o.out, j.st, o.replace, stderr); err != nil {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
 	}
@@ -174,14 +179,28 @@ func deliver(o options, j *job, seal func(files map[string][]byte) error, stdout
 	return code
 }
 
-// job is one run of the design: the result and every output file, in memory.
+// job is one run of the design: the result and the output written so far, in a stage.
 type job struct {
 	input []byte // the input file as read
 	res   *design.Result
-	files map[string][]byte // output files keyed by their slash-separated path below the output folder
+	st    *stage
 }
 
-// produce reads and designs the input of o and renders every output file in memory; nothing is written.
+// outputTops lists the top-level entries of the output of o besides the marker, those of extra
+// (the archive's) among them.
+func outputTops(o options) []string {
+	tops := []string{"results.json", "summary.csv", "schedule.csv", "quantities.csv", "doc"}
+	for _, f := range []string{"md", "tex", "html"} {
+		if o.formats[f] {
+			tops = append(tops, f)
+		}
+	}
+	return append(tops, o.extra...)
+}
+
+// produce reads and designs the input of o and writes every output file into a stage; nothing
+// is put in place. It checks the output folder first, as publish will, so that a refusal comes
+// before the work.
 func produce(o options, stderr io.Writer) (*job, error) {
 	data, err := os.ReadFile(o.input)
 	if err != nil {
@@ -190,6 +209,10 @@ func produce(o options, stderr io.Writer) (*job, error) {
 	in, err := input.Parse(o.input, data)
 	if err != nil {
 		return nil, err
+	}
+	where, err := checkOut(o.out, o.replace, outputTops(o), stderr)
+	if err != nil {
+		return nil, fmt.Errorf("colsheet: %v", err)
 	}
 	if o.date != "" {
 		in.Project.Date = o.date
@@ -219,11 +242,22 @@ func produce(o options, stderr io.Writer) (*job, error) {
 		}
 		opt.Revision = changes.Revision(o.against, old)
 	}
-	files, err := render(res, o.formats, opt)
+	if err := os.MkdirAll(where, 0o755); err != nil {
+		return nil, fmt.Errorf("colsheet: %v", err)
+	}
+	name := filepath.Base(o.out)
+	if abs, err := filepath.Abs(o.out); err == nil && abs == where {
+		name = "colsheet-output" // staged inside the output folder, beside other files
+	}
+	st, err := newStage(where, name)
 	if err != nil {
+		return nil, fmt.Errorf("colsheet: %v", err)
+	}
+	if err := render(st, res, o.formats, opt, runtime.GOMAXPROCS(0)); err != nil {
+		st.discard()
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
-	return &job{input: data, res: res, files: files}, nil
+	return &job{input: data, res: res, st: st}, nil
 }
 
 // report prints the count of passing and failing designs and returns the exit status.
@@ -242,41 +276,25 @@ func (j *job) report(out string, stdout, stderr io.Writer) int {
 	return 0
 }
 
-// render builds every output file in memory, keyed by its path below the output folder.
-func render(res *design.Result, formats map[string]bool, opt reports.Options) (map[string][]byte, error) {
-	files := map[string][]byte{}
-	js, err := reports.JSON(res)
-	if err != nil {
-		return nil, err
+// render writes every output file into the stage st as soon as it is made: results.json one
+// design at a time, the CSV files, then the sheets (printed by up to workers goroutines) and the
+// calc document of each format.
+func render(st *stage, res *design.Result, formats map[string]bool, opt reports.Options, workers int) error {
+	if err := st.create("results.json", func(w io.Writer) error { return reports.WriteJSON(w, res) }); err != nil {
+		return err
 	}
-	files["results.json"] = js
-	csv, err := reports.CSV(res)
-	if err != nil {
-		return nil, err
-	}
-	files["summary.csv"] = csv
-	schedule, err := reports.Schedule(res)
-	if err != nil {
-		return nil, err
-	}
-	files["schedule.csv"] = schedule
-	quantities, err := reports.QuantitiesCSV(res)
-	if err != nil {
-		return nil, err
-	}
-	files["quantities.csv"] = quantities
-	// The sheets and the calc document: each tree built once, printed in every format.
-	sheets, docs, err := reports.Render(res, formats, opt)
-	if err != nil {
-		return nil, err
-	}
-	for name, set := range sheets {
-		for _, s := range set {
-			files[name+"/"+s.Name] = s.Data
+	for _, c := range []struct {
+		name string
+		make func(*design.Result) ([]byte, error)
+	}{{"summary.csv", reports.CSV}, {"schedule.csv", reports.Schedule}, {"quantities.csv", reports.QuantitiesCSV}} {
+		data, err := c.make(res)
+		if err != nil {
+			return err
+		}
+		if err := st.put(c.name, data); err != nil {
+			return err
 		}
 	}
-	for _, doc := range docs {
-		files["doc/"+doc.Name] = doc.Data
-	}
-	return files, nil
+	// The sheets and the calc document: each tree built once, printed in every format.
+	return reports.RenderTo(res, formats, opt, workers, st.put)
 }

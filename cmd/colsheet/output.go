@@ -49,16 +49,16 @@ func topOf(p string) string {
 	return top
 }
 
-// newMarker returns the marker file of m listing files (keyed by slash path) and, without a
-// SHA-256, the paths in later; the same files always give the same bytes.
-func newMarker(m marker, files map[string][]byte, later ...string) ([]byte, error) {
+// newMarker returns the marker file of m listing the files of st with their SHA-256 and,
+// without one, the paths in later; the same files always give the same bytes.
+func newMarker(m marker, st *stage, later ...string) ([]byte, error) {
 	tops := map[string]bool{}
 	m.Files = []markerFile{}
-	for p, data := range files {
+	for p, f := range st.files {
 		if p == markerName {
 			continue
 		}
-		m.Files = append(m.Files, markerFile{Path: p, SHA256: archive.Sum(data)})
+		m.Files = append(m.Files, markerFile{Path: p, SHA256: f.sum})
 		tops[topOf(p)] = true
 	}
 	for _, p := range later {
@@ -171,13 +171,14 @@ func checkOwn(dir string, m *marker) error {
 	return nil
 }
 
-// publish writes files (keyed by slash path, the marker among them) as colsheet's output in the
-// folder dir, and tells notes what it restored. A missing dir is written whole, as a new folder
-// renamed into place. An existing dir is replaced only with replace and only where its marker
-// lists colsheet's own entries, unchanged since they were written: whole, when it holds nothing
-// else, else entry by entry beside the other files. A folder without a marker takes the output
-// beside its files when none of the output's entries is there. Any failure leaves dir as it was.
-func publish(dir string, files map[string][]byte, replace bool, notes io.Writer) error {
+// publish puts the output written in the stage st (the marker among its files) in place as
+// colsheet's output in the folder dir, and tells notes what it restored. A missing dir is the
+// stage renamed into place. An existing dir is replaced only with replace and only where its
+// marker lists colsheet's own entries, unchanged since they were written: whole, when it holds
+// nothing else, else entry by entry beside the other files (always so when st is staged inside
+// dir). A folder without a marker takes the output beside its files when none of the output's
+// entries is there. Any failure leaves dir as it was. checkOut runs the same checks up front.
+func publish(dir string, st *stage, replace bool, notes io.Writer) error {
 	dir, err := filepath.Abs(dir)
 	if err != nil {
 		return err
@@ -186,19 +187,19 @@ func publish(dir string, files map[string][]byte, replace bool, notes io.Writer)
 	if err := restoreAside(parent, base, true, notes); err != nil {
 		return err
 	}
-	st, err := os.Lstat(dir)
+	inside := filepath.Dir(st.dir) == dir
+	info, err := os.Lstat(dir)
 	switch {
 	case errors.Is(err, fs.ErrNotExist):
 		if err := os.MkdirAll(parent, 0o755); err != nil {
 			return err
 		}
-		return swapFolder(dir, files, false)
+		return swapFolder(dir, st, false)
 	case err != nil:
 		return err
-	case st.Mode()&os.ModeSymlink != 0:
-		return fmt.Errorf("%s is a symbolic link; colsheet does not write through links (give the folder it points to); nothing written", dir)
-	case !st.IsDir():
-		return fmt.Errorf("%s exists and is not a folder; nothing written", dir)
+	}
+	if err := isFolder(dir, info); err != nil {
+		return err
 	}
 	old, err := readMarker(dir)
 	if err != nil {
@@ -208,14 +209,15 @@ func publish(dir string, files map[string][]byte, replace bool, notes io.Writer)
 	if err != nil {
 		return err
 	}
+	names = without(names, filepath.Base(st.dir))
 	if old == nil {
-		if len(names) == 0 {
-			return swapFolder(dir, files, true)
+		if len(names) == 0 && !inside {
+			return swapFolder(dir, st, true)
 		}
-		return putEntries(dir, files, nil)
+		return putEntries(dir, st, nil)
 	}
 	if !replace {
-		return fmt.Errorf("%s holds an earlier output; nothing written (give --replace to replace it)", dir)
+		return errEarlier(dir)
 	}
 	for _, e := range old.Entries {
 		if err := restoreAside(dir, e, false, notes); err != nil {
@@ -223,21 +225,130 @@ func publish(dir string, files map[string][]byte, replace bool, notes io.Writer)
 		}
 	}
 	if err := checkOwn(dir, old); err != nil {
-		return fmt.Errorf("%s: %v; nothing replaced (move it out of the output's entries to replace them)", dir, err)
+		return errChanged(dir, err)
 	}
 	if names, err = dirNames(dir); err != nil {
 		return err
 	}
-	own := map[string]bool{markerName: true}
-	for _, e := range old.Entries {
-		own[e] = true
+	names = without(names, filepath.Base(st.dir))
+	if inside || !onlyOwn(names, old) {
+		return putEntries(dir, st, old)
 	}
-	for _, n := range names {
-		if !own[n] {
-			return putEntries(dir, files, old)
+	return swapFolder(dir, st, true)
+}
+
+// checkOut runs the checks of publish on the output folder dir, for an output of the top-level
+// entries tops (the marker besides), so that a run that would be refused stops before it
+// designs. It writes nothing; the one change it may make is publish's first: an earlier output
+// that an interrupted run left aside is put back (and notes told). It returns the folder to
+// stage the output in: dir's parent where the output will be renamed into place whole, dir
+// itself where it goes entry by entry beside other files.
+func checkOut(dir string, replace bool, tops []string, notes io.Writer) (string, error) {
+	dir, err := filepath.Abs(dir)
+	if err != nil {
+		return "", err
+	}
+	parent, base := filepath.Dir(dir), filepath.Base(dir)
+	if err := restoreAside(parent, base, true, notes); err != nil {
+		return "", err
+	}
+	info, err := os.Lstat(dir)
+	if errors.Is(err, fs.ErrNotExist) {
+		return parent, nil
+	}
+	if err != nil {
+		return "", err
+	}
+	if err := isFolder(dir, info); err != nil {
+		return "", err
+	}
+	old, err := readMarker(dir)
+	if err != nil {
+		return "", fmt.Errorf("%s: %v; nothing written", dir, err)
+	}
+	names, err := dirNames(dir)
+	if err != nil {
+		return "", err
+	}
+	if old != nil {
+		if !replace {
+			return "", errEarlier(dir)
+		}
+		if err := checkOwn(dir, old); err != nil {
+			return "", errChanged(dir, err)
+		}
+		if onlyOwn(names, old) {
+			return parent, nil
+		}
+	} else if len(names) == 0 {
+		return parent, nil
+	}
+	for _, top := range append(tops, markerName) {
+		if _, err := os.Lstat(filepath.Join(dir, top)); err == nil && !owns(old, top) {
+			return "", errForeign(dir, top)
 		}
 	}
-	return swapFolder(dir, files, true)
+	return dir, nil
+}
+
+// isFolder refuses dir, of the file info, where it is a symbolic link or not a folder.
+func isFolder(dir string, info fs.FileInfo) error {
+	switch {
+	case info.Mode()&os.ModeSymlink != 0:
+		return fmt.Errorf("%s is a symbolic link; colsheet does not write through links (give the folder it points to); nothing written", dir)
+	case !info.IsDir():
+		return fmt.Errorf("%s exists and is not a folder; nothing written", dir)
+	}
+	return nil
+}
+
+func errEarlier(dir string) error {
+	return fmt.Errorf("%s holds an earlier output; nothing written (give --replace to replace it)", dir)
+}
+
+func errChanged(dir string, err error) error {
+	return fmt.Errorf("%s: %v; nothing replaced (move it out of the output's entries to replace them)", dir, err)
+}
+
+func errForeign(dir, top string) error {
+	return fmt.Errorf("%s already holds %s, which no %s there lists as colsheet's; nothing written", dir, top, markerName)
+}
+
+// owns reports whether the marker old lists the top-level name as colsheet's (the marker itself included).
+func owns(old *marker, name string) bool {
+	if old == nil {
+		return false
+	}
+	if name == markerName {
+		return true
+	}
+	for _, e := range old.Entries {
+		if e == name {
+			return true
+		}
+	}
+	return false
+}
+
+// onlyOwn reports whether every one of names is colsheet's by the marker old.
+func onlyOwn(names []string, old *marker) bool {
+	for _, n := range names {
+		if !owns(old, n) {
+			return false
+		}
+	}
+	return true
+}
+
+// without returns names less name.
+func without(names []string, name string) []string {
+	out := names[:0:0]
+	for _, n := range names {
+		if n != name {
+			out = append(out, n)
+		}
+	}
+	return out
 }
 
 // dirNames lists the names in the folder dir.
@@ -263,9 +374,23 @@ func restoreAside(parent, name string, whole bool, notes io.Writer) error {
 	if _, err := os.Lstat(filepath.Join(parent, name)); !errors.Is(err, fs.ErrNotExist) {
 		return nil
 	}
+	best := asideOf(parent, name, whole)
+	if best == "" {
+		return nil
+	}
+	if err := os.Rename(best, filepath.Join(parent, name)); err != nil {
+		return fmt.Errorf("restoring %s from %s: %v", name, best, err)
+	}
+	fmt.Fprintf(notes, "colsheet: %s was missing; the earlier output left aside by an interrupted run is restored from %s\n", filepath.Join(parent, name), best)
+	return nil
+}
+
+// asideOf returns the newest entry of parent that is name moved aside, "" when there is none; a
+// folder (whole) counts only when it carries colsheet's marker.
+func asideOf(parent, name string, whole bool) string {
 	es, err := os.ReadDir(parent)
 	if err != nil {
-		return nil // no parent: nothing to restore
+		return "" // no parent: nothing to restore
 	}
 	best, bestTime := "", time.Time{}
 	for _, e := range es {
@@ -286,14 +411,7 @@ func restoreAside(parent, name string, whole bool, notes io.Writer) error {
 			best, bestTime = p, info.ModTime()
 		}
 	}
-	if best == "" {
-		return nil
-	}
-	if err := os.Rename(best, filepath.Join(parent, name)); err != nil {
-		return fmt.Errorf("restoring %s from %s: %v", name, best, err)
-	}
-	fmt.Fprintf(notes, "colsheet: %s was missing; the earlier output left aside by an interrupted run is restored from %s\n", filepath.Join(parent, name), best)
-	return nil
+	return best
 }
 
 // reserveAside returns an unused name in dir for name moved aside.
@@ -305,24 +423,17 @@ func reserveAside(dir, name string) (string, error) {
 	return p, os.Remove(p)
 }
 
-// swapFolder writes files as a new folder beside dir and renames it into place; an existing dir
-// is moved aside first and removed once the new one is in place, so that dir names either the
-// old or the new output at every instant.
-func swapFolder(dir string, files map[string][]byte, exists bool) error {
+// swapFolder renames the stage st into place as dir; an existing dir is moved aside first and
+// removed once the new one is in place, so that dir names either the old or the new output at
+// every instant.
+func swapFolder(dir string, st *stage, exists bool) error {
 	parent, base := filepath.Dir(dir), filepath.Base(dir)
-	tmp, err := temps.mkdirTemp(parent, "."+base+".new-")
-	if err != nil {
-		return err
-	}
-	defer temps.discard(tmp)
-	if err := writeTree(tmp, files); err != nil {
-		return err
-	}
+	tmp := st.dir
 	if err := os.Chmod(tmp, 0o755); err != nil {
 		return err
 	}
 	aside := ""
-	err = temps.critical(func() error {
+	err := temps.critical(func() error {
 		if exists {
 			var err error
 			if aside, err = reserveAside(parent, base); err != nil {
@@ -351,86 +462,40 @@ func swapFolder(dir string, files map[string][]byte, exists bool) error {
 	return nil
 }
 
-// putEntries writes files into dir, a folder of other files, entry by entry: every entry is
-// first written whole under a temporary name, then each is renamed into place (an earlier one of
-// old's moved aside first, and removed at the end, as are old's entries that the output no
-// longer has). It refuses, writing nothing, when an entry of the output is in dir but not in old.
-func putEntries(dir string, files map[string][]byte, old *marker) error {
-	own := map[string]bool{}
-	if old != nil {
-		own[markerName] = true
-		for _, e := range old.Entries {
-			own[e] = true
-		}
-	}
-	groups := map[string]map[string][]byte{}
-	for p, data := range files {
-		top, rest, _ := strings.Cut(p, "/")
-		if groups[top] == nil {
-			groups[top] = map[string][]byte{}
-		}
-		groups[top][rest] = data
-	}
+// putEntries puts the entries of the stage st into dir, a folder of other files, entry by entry:
+// each is renamed into place (an earlier one of old's moved aside first, and removed at the end,
+// as are old's entries that the output no longer has), the marker last. It refuses, changing
+// nothing, when an entry of the output is in dir but not in old.
+func putEntries(dir string, st *stage, old *marker) error {
 	var tops []string
-	for top := range groups {
+	for _, top := range st.tops() {
 		if top != markerName {
 			tops = append(tops, top)
 		}
 	}
-	sort.Strings(tops)
 	for _, top := range append(tops, markerName) {
-		if _, err := os.Lstat(filepath.Join(dir, top)); err == nil && !own[top] {
-			return fmt.Errorf("%s already holds %s, which no %s there lists as colsheet's; nothing written", dir, top, markerName)
+		if _, err := os.Lstat(filepath.Join(dir, top)); err == nil && !owns(old, top) {
+			return errForeign(dir, top)
 		}
+	}
+	output := map[string]bool{}
+	for _, top := range tops {
+		output[top] = true
 	}
 	var gone []string // old entries the output no longer has
 	if old != nil {
 		for _, e := range old.Entries {
-			if _, ok := groups[e]; !ok {
+			if !output[e] {
 				if _, err := os.Lstat(filepath.Join(dir, e)); err == nil {
 					gone = append(gone, e)
 				}
 			}
 		}
 	}
-	// Every entry written under a temporary name first: a write error changes nothing in dir.
+	// Every entry is written whole in the stage: a write error has changed nothing in dir.
 	staged := map[string]string{}
-	defer func() {
-		for _, t := range staged {
-			temps.discard(t)
-		}
-	}()
-	for _, top := range append(tops, markerName) {
-		g := groups[top]
-		if g == nil {
-			continue
-		}
-		if data, ok := g[""]; ok && len(g) == 1 {
-			f, err := temps.createTemp(dir, "."+top+".new-")
-			if err != nil {
-				return err
-			}
-			staged[top] = f.Name()
-			if err := writeOpen(f, top, data); err != nil {
-				return err
-			}
-			continue
-		}
-		tmp, err := temps.mkdirTemp(dir, "."+top+".new-")
-		if err != nil {
-			return err
-		}
-		staged[top] = tmp
-		sub := map[string][]byte{}
-		for rest, data := range g {
-			sub[rest] = data
-		}
-		if err := writeTreeAs(tmp, top+"/", sub); err != nil {
-			return err
-		}
-		if err := os.Chmod(tmp, 0o755); err != nil {
-			return err
-		}
+	for _, top := range st.tops() {
+		staged[top] = filepath.Join(st.dir, top)
 	}
 	type swap struct{ top, aside, tmp string }
 	var asides []string
@@ -478,10 +543,6 @@ func putEntries(dir string, files map[string][]byte, old *marker) error {
 			did = append(did, d)
 		}
 		for _, d := range did {
-			if d.tmp != "" {
-				temps.dropLocked(d.tmp)
-				delete(staged, d.top)
-			}
 			if d.aside != "" {
 				temps.addLocked(d.aside)
 				asides = append(asides, d.aside)
@@ -501,32 +562,6 @@ func putEntries(dir string, files map[string][]byte, old *marker) error {
 // writeHook, when set (by tests), is called before each output file is written with its slash
 // path below the output folder; an error it returns fails the write as a full disk would.
 var writeHook func(name string) error
-
-// writeTree writes every file below dir, which must exist.
-func writeTree(dir string, files map[string][]byte) error { return writeTreeAs(dir, "", files) }
-
-// writeTreeAs writes every file below dir, which must exist, naming each prefix+path to writeHook.
-func writeTreeAs(dir, prefix string, files map[string][]byte) error {
-	names := make([]string, 0, len(files))
-	for name := range files {
-		names = append(names, name)
-	}
-	sort.Strings(names)
-	for _, name := range names {
-		p := filepath.Join(dir, filepath.FromSlash(name))
-		if err := os.MkdirAll(filepath.Dir(p), 0o755); err != nil {
-			return err
-		}
-		f, err := os.OpenFile(p, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o644)
-		if err != nil {
-			return err
-		}
-		if err := writeOpen(f, prefix+name, files[name]); err != nil {
-			return err
-		}
-	}
-	return nil
-}
 
 // writeOpen writes data to the new file f (named name below the output), closes it and makes it
 // readable by all.

@@ -1,8 +1,10 @@
 package main
 
 import (
+	"fmt"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 	"testing"
 
@@ -31,27 +33,35 @@ func BenchmarkDemoPackage(b *testing.B) {
 	}
 	design.AddInteraction(res)
 	formats := map[string]bool{"md": true, "tex": true, "html": true}
-	b.ResetTimer()
-	var results, other, doc int
-	for i := 0; i < b.N; i++ {
-		files, err := render(res, formats, reports.Options{})
-		if err != nil {
-			b.Fatal(err)
-		}
-		results, other, doc = 0, 0, 0
-		for path, f := range files {
-			switch {
-			case path == "results.json":
-				results = len(f)
-			default:
-				other += len(f)
+	for _, workers := range []int{1, runtime.GOMAXPROCS(0)} {
+		b.Run(fmt.Sprintf("workers=%d", workers), func(b *testing.B) {
+			b.ReportAllocs()
+			var results, other, doc int64
+			for i := 0; i < b.N; i++ {
+				st, err := newStage(b.TempDir(), "out")
+				if err != nil {
+					b.Fatal(err)
+				}
+				if err := render(st, res, formats, reports.Options{}, workers); err != nil {
+					b.Fatal(err)
+				}
+				results, other, doc = 0, 0, 0
+				for path, f := range st.files {
+					switch {
+					case path == "results.json":
+						results = f.size
+					default:
+						other += f.size
+					}
+					if strings.HasPrefix(path, "doc/") {
+						doc += f.size
+					}
+				}
+				st.discard()
 			}
-			if strings.HasPrefix(path, "doc/") {
-				doc += len(f)
-			}
-		}
+			b.ReportMetric(float64(results)/1e6, "MB-results.json")
+			b.ReportMetric(float64(other)/1e6, "MB-other")
+			b.ReportMetric(float64(doc)/1e6, "MB-calc-document")
+		})
 	}
-	b.ReportMetric(float64(results)/1e6, "MB-results.json")
-	b.ReportMetric(float64(other)/1e6, "MB-other")
-	b.ReportMetric(float64(doc)/1e6, "MB-calc-document")
 }

@@ -15,12 +15,15 @@ import (
 // errNoTeX says that pdflatex is not installed.
 var errNoTeX = errors.New("pdflatex not found on PATH: the calc document is written as doc/calc.tex only; install TeX Live (Debian: texlive-latex-base texlive-latex-recommended texlive-pictures) to get doc/calc.pdf")
 
-// makePDF runs pdflatex over doc/calc.tex of files in a temporary folder and adds doc/calc.pdf.
-// The PDF's dates come from the project date (SOURCE_DATE_EPOCH), so that reruns match.
-func makePDF(files map[string][]byte, date string) error {
-	src, ok := files["doc/calc.tex"]
-	if !ok {
+// makePDF runs pdflatex over doc/calc.tex of the stage st in a temporary folder and adds
+// doc/calc.pdf. The PDF's dates come from the project date (SOURCE_DATE_EPOCH), so that reruns match.
+func makePDF(st *stage, date string) error {
+	if !st.has("doc/calc.tex") {
 		return errors.New("--pdf needs the LaTeX format (--formats with tex)")
+	}
+	src, err := st.read("doc/calc.tex")
+	if err != nil {
+		return err
 	}
 	bin, err := exec.LookPath("pdflatex")
 	if err != nil {
@@ -56,8 +59,7 @@ func makePDF(files map[string][]byte, date string) error {
 	if err != nil {
 		return fmt.Errorf("pdflatex wrote no PDF: %v", err)
 	}
-	files["doc/calc.pdf"] = pdf
-	return nil
+	return st.put("doc/calc.pdf", pdf)
 }
 
 // tail returns the last n lines of b.

@@ -1,0 +1,86 @@
+package reports
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"testing"
+)
+
+// The sheets printed by a pool of goroutines come out in the same order and with the same bytes
+// as printed one at a time (common practice, no source: reruns stay byte-identical).
+func TestRenderToWorkersSameBytes(t *testing.T) {
+	r := runFile(t, "", packBuilding)
+	formats := map[string]bool{"md": true, "tex": true, "html": true}
+	type file struct {
+		path string
+		data []byte
+	}
+	collect := func(workers int) []file {
+		var out []file
+		if err := RenderTo(r, formats, Options{}, workers, func(p string, data []byte) error {
+			out = append(out, file{p, data})
+			return nil
+		}); err != nil {
+			t.Fatal(err)
+		}
+		return out
+	}
+	one := collect(1)
+	if want := 3*(len(r.Designs)+1) + 3; len(one) != want {
+		t.Fatalf("%d files, want %d (index and sheets per format, three calc documents)", len(one), want)
+	}
+	for _, workers := range []int{2, 4, 16} {
+		many := collect(workers)
+		if len(many) != len(one) {
+			t.Fatalf("workers %d: %d files, want %d", workers, len(many), len(one))
+		}
+		for i := range one {
+			if many[i].path != one[i].path || !bytes.Equal(many[i].data, one[i].data) {
+				t.Errorf("workers %d: file %d is %s, want %s with the same bytes", workers, i, many[i].path, one[i].path)
+			}
+		}
+	}
+	// An error of emit stops the run and comes back as it is.
+	stop := errors.New("disk full")
+	n := 0
+	err := RenderTo(r, formats, Options{}, 4, func(string, []byte) error {
+		if n++; n == 3 {
+			return stop
+		}
+		return nil
+	})
+	if err != stop || n != 3 {
+		t.Errorf("emit error: got %v after %d files, want %v after 3", err, n, stop)
+	}
+}
+
+// inOrder hands the pages over in order, stops at the first error and raises a page's panic on
+// the caller's goroutine (common practice, no source).
+func TestInOrder(t *testing.T) {
+	for _, workers := range []int{1, 3} {
+		var got []string
+		err := inOrder(40, workers, func(i int) (Sheet, error) {
+			if i == 25 {
+				return Sheet{}, fmt.Errorf("page %d", i)
+			}
+			return Sheet{Name: fmt.Sprint(i)}, nil
+		}, func(s Sheet) error { got = append(got, s.Name); return nil })
+		if err == nil || err.Error() != "page 25" || len(got) != 25 || got[24] != "24" || got[0] != "0" {
+			t.Errorf("workers %d: %v after %d pages", workers, err, len(got))
+		}
+		func() {
+			defer func() {
+				if p := recover(); p != "fault 7" {
+					t.Errorf("workers %d: recovered %v, want the page's panic", workers, p)
+				}
+			}()
+			inOrder(20, workers, func(i int) (Sheet, error) {
+				if i == 7 {
+					panic("fault 7")
+				}
+				return Sheet{}, nil
+			}, func(Sheet) error { return nil })
+		}()
+	}
+}
