@@ -52,17 +52,20 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 	o.command = "archive"
 	if job.st.has(inPath) {
 		job.st.discard()
+		job.progress.end()
 		fmt.Fprintf(stderr, "colsheet: %s is already an output file; nothing written\n", inPath)
 		return 2
 	}
 	if err := job.st.put(inPath, job.input); err != nil {
 		job.st.discard()
+		job.progress.end()
 		fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
 		return 2
 	}
 	exe, err := executableSum()
 	if err != nil {
 		job.st.discard()
+		job.progress.end()
 		fmt.Fprintf(stderr, "colsheet: the SHA-256 of the running program: %v; nothing written\n", err)
 		return 2
 	}

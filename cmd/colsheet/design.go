@@ -28,6 +28,7 @@ type options struct {
 	detail  reports.Detail
 	against string   // a previous package to mark the changes against
 	extra   []string // top-level entries of the output besides those of the design (the archive's)
+	quiet   bool     // no progress line
 }
 
 func parseDesignArgs(args []string) (options, error) {
@@ -90,6 +91,8 @@ func parseDesignArgs(args []string) (options, error) {
 			o.against = v
 		case "--replace":
 			o.replace = true
+		case "-q", "--quiet":
+			o.quiet = true
 		case "--pdf":
 			o.pdf = true
 		case "--date":
@@ -139,8 +142,10 @@ func runDesign(args []string, stdout, stderr io.Writer) int {
 // puts the output folder in place and reports; it returns the exit status.
 func deliver(o options, j *job, seal func(st *stage) error, stdout, stderr io.Writer) int {
 	defer j.st.discard()
+	defer j.progress.end()
 	pdfErr := error(nil)
 	if o.pdf {
+		j.progress.phase("running pdflatex over doc/calc.tex", 0)
 		pdfErr = makePDF(j.st, j.res.Input.Project.Date)
 	}
 	// The marker names the run and lists every file, the manifest that seal adds without its SHA-256.
@@ -163,6 +168,7 @@ func deliver(o options, j *job, seal func(st *stage) error, stdout, stderr io.Wr
 			return 2
 		}
 	}
+	j.progress.end()
 	if err := publish(o.out, j.st, o.replace, stderr); err != nil {
 		fmt.Fprintf(stderr, "colsheet: %v\n", err)
 		return 2
@@ -181,9 +187,10 @@ func deliver(o options, j *job, seal func(st *stage) error, stdout, stderr io.Wr
 
 // job is one run of the design: the result and the output written so far, in a stage.
 type job struct {
-	input []byte // the input file as read
-	res   *design.Result
-	st    *stage
+	input    []byte // the input file as read
+	res      *design.Result
+	st       *stage
+	progress *progress // the progress line, nil when not shown
 }
 
 // outputTops lists the top-level entries of the output of o besides the marker, those of extra
@@ -201,7 +208,13 @@ func outputTops(o options) []string {
 // produce reads and designs the input of o and writes every output file into a stage; nothing
 // is put in place. It checks the output folder first, as publish will, so that a refusal comes
 // before the work.
-func produce(o options, stderr io.Writer) (*job, error) {
+func produce(o options, stderr io.Writer) (j *job, err error) {
+	prog := newProgress(stderr, o.quiet)
+	defer func() {
+		if err != nil {
+			prog.end()
+		}
+	}()
 	data, err := os.ReadFile(o.input)
 	if err != nil {
 		return nil, fmt.Errorf("colsheet: %v", err)
@@ -222,6 +235,7 @@ func produce(o options, stderr io.Writer) (*job, error) {
 		fmt.Fprintln(stderr, "colsheet: no date given (project.date or --date): the sheets say \"undated\"")
 		in.Project.Date = "undated"
 	}
+	prog.phase("designing", 0)
 	res, err := design.Run(in)
 	if err != nil {
 		return nil, err
@@ -253,11 +267,16 @@ func produce(o options, stderr io.Writer) (*job, error) {
 	if err != nil {
 		return nil, fmt.Errorf("colsheet: %v", err)
 	}
+	// The files: results.json, three CSV, and per format the index, a sheet per design and the
+	// calc document.
+	prog.phase("writing files", 4+len(o.formats)*(len(res.Designs)+2))
+	st.written = prog.step
 	if err := render(st, res, o.formats, opt, runtime.GOMAXPROCS(0)); err != nil {
 		st.discard()
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
-	return &job{input: data, res: res, st: st}, nil
+	st.written = nil
+	return &job{input: data, res: res, st: st, progress: prog}, nil
 }
 
 // report prints the count of passing and failing designs and returns the exit status.

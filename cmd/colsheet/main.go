@@ -3,8 +3,8 @@
 //
 // Usage:
 //
-//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
-//	colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [--sign KEYFILE]
+//	colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [-q]
+//	colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [-q] [--sign KEYFILE]
 //	colsheet recheck BUNDLE [--key PUBFILE]
 //	colsheet compare OLD NEW [-o FILE.md]
 //	colsheet version
@@ -33,8 +33,8 @@ func main() {
 const usage = `colsheet: traced design of reinforced-concrete columns to EN 1992-1-1
 
 usage:
-  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf]
-  colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [--sign KEYFILE]
+  colsheet design INPUT.yaml -o DIR [--formats md,tex,html] [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [-q]
+  colsheet archive INPUT.yaml -o BUNDLE [--detail brief|full] [--against PREVIOUS] [--date YYYY-MM-DD] [--replace] [--pdf] [-q] [--sign KEYFILE]
   colsheet recheck BUNDLE [--key PUBFILE]
   colsheet compare OLD NEW [-o FILE.md]
   colsheet version
@@ -56,6 +56,9 @@ file colsheet did not write is never deleted or overwritten, and a symbolic
 link as DIR is refused. Exit status: 0 every design passes, 1 some design
 fails (everything is still written), 2 bad input or usage, 3 pdflatex failed
 (without pdflatex, --pdf only says so), 4 internal error (please report).
+On a terminal, a run over a second shows its progress on one line of
+stderr (the files written of their total); -q turns it off. The output
+folder is checked before the design, so a refusal comes before the work.
 
 archive writes the same files plus BUNDLE/input/ (the input file) and
 BUNDLE/manifest.json (size and SHA-256 of every file and of the program);

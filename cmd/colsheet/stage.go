@@ -16,8 +16,9 @@ import (
 // stage is an output being written: a temporary folder that publish renames into place, and
 // the size and SHA-256 of every file written into it, taken while writing.
 type stage struct {
-	dir   string
-	files map[string]stagedFile // by slash path below the output folder
+	dir     string
+	files   map[string]stagedFile // by slash path below the output folder
+	written func()                // called after each file written, where set
 }
 
 // stagedFile is the size and SHA-256 (lower-case hex) of a file of a stage.
@@ -82,6 +83,9 @@ func (s *stage) create(name string, fill func(w io.Writer) error) error {
 		return fmt.Errorf("writing %s: %v", name, err)
 	}
 	s.files[name] = stagedFile{size: n.n, sum: hex.EncodeToString(h.Sum(nil))}
+	if s.written != nil {
+		s.written()
+	}
 	return nil
 }
 

@@ -5,6 +5,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 
 	"colsheet/reports/archive"
 )
@@ -71,4 +72,44 @@ func TestStage(t *testing.T) {
 		}
 	}
 	sameTree(t, "rerun", snapshot(t, filepath.Join(base, "a")), snapshot(t, filepath.Join(base, "b")))
+}
+
+// The progress line is off when stderr is not a terminal (a buffer, a regular file) and with -q;
+// when on, it shows nothing in the first second, then what the run does with the files written
+// of their total, and clears its line at the end (common practice, no source).
+func TestProgress(t *testing.T) {
+	f, err := os.Create(filepath.Join(t.TempDir(), "stderr"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	var buf strings.Builder
+	if newProgress(f, false) != nil || newProgress(&buf, false) != nil || newProgress(os.Stderr, true) != nil {
+		t.Error("a progress line on a file, a buffer or with -q")
+	}
+	var nilLine *progress // every method of the line not shown does nothing
+	nilLine.phase("x", 1)
+	nilLine.step()
+	nilLine.end()
+	start := time.Now()
+	startProgress(&buf, start).end() // stopped before the first tick: nothing drawn
+	p := progressLine(&buf, start)
+	p.phase("writing files", 441)
+	p.step()
+	p.step()
+	p.draw(start.Add(progressDelay / 2))
+	if buf.Len() != 0 {
+		t.Errorf("shown before the delay: %q", buf.String())
+	}
+	p.draw(start.Add(3 * time.Second))
+	if got := buf.String(); !strings.Contains(got, "\rcolsheet: writing files 2 of 441 (3 s)") {
+		t.Errorf("line %q", got)
+	}
+	p.end()
+	if !strings.HasSuffix(buf.String(), "\r\x1b[K") {
+		t.Errorf("line not cleared: %q", buf.String())
+	}
+	if code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", filepath.Join(t.TempDir(), "o"), "-q"); code != 0 {
+		t.Errorf("-q: exit %d %s", code, stderr)
+	}
 }
