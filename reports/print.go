@@ -184,13 +184,21 @@ func (s *sheetSet) print(f format) ([]Sheet, error) {
 
 // page prints page i of the set (0 the index, then the sheets in order) with tp.
 func (s *sheetSet) page(tp *treePrinter, i int) (Sheet, error) {
+	if i == 0 {
+		return s.printPage(tp, 0, s.index)
+	}
+	return s.printPage(tp, i, s.sheets[i-1])
+}
+
+// printPage prints the tree v of page i of the set (0 the index, then the sheets in order) with tp.
+func (s *sheetSet) printPage(tp *treePrinter, i int, v sheetView) (Sheet, error) {
 	f := tp.f
 	if i == 0 {
-		b, err := tp.print(f.index, s.index, f.onSheet("index"))
+		b, err := tp.print(f.index, v, f.onSheet("index"))
 		return Sheet{Name: "index" + f.ext, Data: b}, err
 	}
 	name := s.names[i-1]
-	b, err := tp.print(f.sheet, s.sheets[i-1], f.onSheet(name))
+	b, err := tp.print(f.sheet, v, f.onSheet(name))
 	return Sheet{Name: name + f.ext, Data: b}, err
 }
 
@@ -298,78 +306,100 @@ func Render(r *design.Result, formats map[string]bool, o Options) (Package, []Sh
 	return out, docs, nil
 }
 
-// RenderTo builds the trees of the sheets and the calc document once, prints them in each
+// RenderTo builds the tree of each sheet and of the calc document once, prints it in each
 // format asked for (md, tex, html) and hands each file to emit as soon as it is printed, by its
-// slash path below the output folder ("md/index.md", …, "doc/calc.md"), in a fixed order: per
-// format the index and the sheets in order, then the calc document of each format. Up to
-// workers goroutines print the sheets; emit runs on the caller's goroutine, and an error it
-// returns stops the rendering and is returned as it is.
+// slash path below the output folder ("md/index.md", …, "doc/calc.md"): the index, then each
+// design's sheet in every format, then the calc document of each format. Up to workers
+// goroutines build and print the sheets, each tree dropped once printed, so that the memory
+// held does not grow with the number of designs beyond the result and its index (the book);
+// emit runs on the caller's goroutine, and an error it returns stops the rendering and is
+// returned as it is.
 func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int, emit func(path string, data []byte) error) error {
-	set, err := buildSheets(r, o)
-	if err != nil {
+	if r == nil {
+		return fmt.Errorf("reports: no result")
+	}
+	if err := finiteResult(r); err != nil {
 		return err
 	}
-	doc, err := buildDocument(r, o)
-	if err != nil {
-		return err
+	bk := newBook(r)
+	p := place{opt: o}
+	set := &sheetSet{names: bk.names, index: index(r, func(name string) target { return target{sheet: name} }, bk, p)}
+	type printing struct {
+		name string
+		tp   *treePrinter
+		html *htmlPages
 	}
-	var emitErr error
-	put := func(path string, data []byte) error {
-		emitErr = emit(path, data)
-		return emitErr
-	}
-	fail := func(what string, err error) error {
-		if err == emitErr {
-			return err
-		}
-		return fmt.Errorf("%s: %v", what, err)
-	}
-	formatsInOrder := []struct {
+	var fs []printing
+	for _, f := range []struct {
 		name string
 		f    format
-	}{{"md", mdFormat}, {"tex", texFormat}, {"html", htmlFormat}}
-	for _, f := range formatsInOrder {
+	}{{"md", mdFormat}, {"tex", texFormat}, {"html", htmlFormat}} {
 		if !formats[f.name] {
 			continue
 		}
 		tp, err := f.f.printer(f.f.common, f.f.index, f.f.sheet)
 		if err != nil {
-			return fail(f.name, err)
+			return fmt.Errorf("%s: %v", f.name, err)
 		}
-		page := func(i int) (Sheet, error) { return set.page(tp, i) }
+		pr := printing{name: f.name, tp: tp}
 		if f.name == "html" {
-			h, err := newHTMLPages(r)
-			if err != nil {
-				return fail(f.name, err)
-			}
-			page = func(i int) (Sheet, error) {
-				single, err := set.page(tp, i)
-				if err != nil {
-					return Sheet{}, err
-				}
-				return h.page(i, single)
+			if pr.html, err = newHTMLPages(r); err != nil {
+				return fmt.Errorf("%s: %v", f.name, err)
 			}
 		}
-		err = inOrder(len(set.names)+1, workers, page, func(s Sheet) error { return put(f.name+"/"+s.Name, s.Data) })
-		if err != nil {
-			return fail(f.name, err)
-		}
+		fs = append(fs, pr)
 	}
-	for _, f := range formatsInOrder {
-		if !formats[f.name] {
-			continue
+	type file struct {
+		path string
+		data []byte
+	}
+	// Page i (0 the index, then the designs in order): its tree built once, printed per format.
+	page := func(i int) ([]file, error) {
+		v := set.index
+		if i > 0 {
+			v = sheet(bk, i-1, p)
 		}
+		out := make([]file, 0, len(fs))
+		for _, f := range fs {
+			sh, err := set.printPage(f.tp, i, v)
+			if err == nil && f.html != nil {
+				sh, err = f.html.page(i, sh)
+			}
+			if err != nil {
+				return nil, fmt.Errorf("%s: %v", f.name, err)
+			}
+			out = append(out, file{f.name + "/" + sh.Name, sh.Data})
+		}
+		return out, nil
+	}
+	var emitErr error
+	err := inOrder(len(set.names)+1, workers, page, func(files []file) error {
+		for _, f := range files {
+			if emitErr = emit(f.path, f.data); emitErr != nil {
+				return emitErr
+			}
+		}
+		return nil
+	})
+	if err != nil {
+		return err
+	}
+	if len(fs) == 0 {
+		return nil
+	}
+	doc := document(r, bk, place{onePage: true, opt: o})
+	for _, f := range fs {
 		var d Sheet
-		if f.name == "html" {
-			d, err = documentHTML(r, doc)
+		if f.html != nil {
+			d, err = documentHTML(r, &doc)
 		} else {
-			d.Name = "calc" + f.f.ext
-			d.Data, err = printDocument(doc, f.f)
+			d.Name = "calc" + f.tp.f.ext
+			d.Data, err = printDocument(&doc, f.tp.f)
 		}
 		if err != nil {
-			return fail(f.name+" calc document", err)
+			return fmt.Errorf("%s calc document: %v", f.name, err)
 		}
-		if err := put("doc/"+d.Name, d.Data); err != nil {
+		if err := emit("doc/"+d.Name, d.Data); err != nil {
 			return err
 		}
 	}
@@ -379,7 +409,7 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 // inOrder makes the n pages page(0) … page(n-1) on up to workers goroutines and hands each to
 // emit, on the caller's goroutine, in order; at most 2×workers pages wait in memory. The first
 // error stops it; a panic in page is raised again on the caller's goroutine.
-func inOrder(n, workers int, page func(i int) (Sheet, error), emit func(Sheet) error) error {
+func inOrder[T any](n, workers int, page func(i int) (T, error), emit func(T) error) error {
 	if workers < 2 {
 		for i := 0; i < n; i++ {
 			s, err := page(i)
@@ -393,7 +423,7 @@ func inOrder(n, workers int, page func(i int) (Sheet, error), emit func(Sheet) e
 		return nil
 	}
 	type made struct {
-		s     Sheet
+		s     T
 		err   error
 		fault any
 	}
