@@ -514,15 +514,8 @@ func groups(b *book, i int, p place) ([]groupView, []stepView) {
 		if !p.shows(s.ID, own[k]) {
 			continue
 		}
-		g := s.Group
-		if strings.TrimSpace(g) == "" {
-			g = "Further steps"
-		}
-		n, ok := at[g]
-		if !ok {
-			n = len(out)
-			at[g] = n
-			out = append(out, groupView{Title: rich(g)})
+		n, added := groupIn(&out, at, s.Group, "Further steps")
+		if added {
 			sub = append(sub, false)
 		}
 		v := step(s, k+1, b, i, p)
@@ -729,19 +722,25 @@ func basisGroups(b *book, p place) []groupView {
 	var out []groupView
 	at := map[string]int{}
 	for k, s := range b.r.Basis {
-		g := s.Group
-		if strings.TrimSpace(g) == "" {
-			g = "Project basis"
-		}
-		n, ok := at[g]
-		if !ok {
-			n = len(out)
-			at[g] = n
-			out = append(out, groupView{Title: rich(g)})
-		}
+		n, _ := groupIn(&out, at, s.Group, "Project basis")
 		v := step(s, k+1, b, basisDesign, p)
 		v.Prefix = "B."
 		out[n].Steps = append(out[n].Steps, v)
 	}
 	return out
+}
+
+// groupIn returns the index in out of the group titled g (fallback when g is blank), appending
+// it in order of first appearance; added says whether it was new.
+func groupIn(out *[]groupView, at map[string]int, g, fallback string) (n int, added bool) {
+	if strings.TrimSpace(g) == "" {
+		g = fallback
+	}
+	if n, ok := at[g]; ok {
+		return n, false
+	}
+	n = len(*out)
+	at[g] = n
+	*out = append(*out, groupView{Title: rich(g)})
+	return n, true
 }
