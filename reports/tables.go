@@ -70,10 +70,16 @@ func (c cells) value(s trace.Step) inline {
 
 // matching returns the cells of the steps of design i whose own IDs match the pattern, joined.
 func (c cells) matching(i int, pattern func(id string) bool) inline {
+	return c.joined(i, pattern, c.value)
+}
+
+// joined marks up each step of design i whose own ID matches the pattern with mark, joined by
+// " + "; "–" where none matches.
+func (c cells) joined(i int, pattern func(id string) bool, mark func(trace.Step) inline) inline {
 	var parts []inline
 	for k, s := range c.b.r.Designs[i].Steps {
 		if pattern(s.ID) {
-			parts = append(parts, c.value(c.b.traces[i][k]))
+			parts = append(parts, mark(c.b.traces[i][k]))
 		}
 	}
 	if len(parts) == 0 {
@@ -128,20 +134,12 @@ func (c cells) plain(i int, local string) inline {
 	return c.plainMatching(i, func(id string) bool { return id == local })
 }
 
-// plainMatching is plain for the sum of the steps matching a pattern, each linked.
+// plainMatching is plain for the sum of the steps matching a pattern, each linked to its cell.
 func (c cells) plainMatching(i int, pattern func(id string) bool) inline {
-	var parts []inline
-	for k, s := range c.b.r.Designs[i].Steps {
-		if pattern(s.ID) {
-			full := c.b.traces[i][k]
-			v, _ := quantityOf(full.Value, full.Unit, full.Symbol)
-			parts = append(parts, link(numv(v), target{anchor: anchorName("s-", full.ID)}))
-		}
-	}
-	if len(parts) == 0 {
-		return txt("–")
-	}
-	return join(parts, txt(" + "))
+	return c.joined(i, pattern, func(s trace.Step) inline {
+		v, _ := quantityOf(s.Value, s.Unit, s.Symbol)
+		return link(numv(v), target{anchor: anchorName("s-", s.ID)})
+	})
 }
 
 // momentTables returns, for the building form, the column moments of each column and
