@@ -10,9 +10,12 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"colsheet/calc/code"
 	"colsheet/calc/design"
+	"colsheet/calc/model"
+	"colsheet/calc/section"
 	"colsheet/calc/trace"
 )
 
@@ -119,7 +122,7 @@ type jsonDesign struct {
 	Interaction *jsonCurves `json:"interaction,omitempty"`
 	Reasons     []string    `json:"reasons"`
 	Cautions    []string    `json:"cautions"`
-	Trace       []jsonStep  `json:"trace"`
+	Trace       []jsonStep  `json:"trace,omitempty"` // written by JSONStream.Design after the rest
 }
 
 // jsonExact is the exact biaxial resistance along the resultant design moment.
@@ -143,10 +146,10 @@ type jsonResult struct {
 	Tool        jsonTool          `json:"tool"`
 	InputSHA256 string            `json:"input_sha256"`
 	Code        jsonCode          `json:"code"`
-	Forms       []json.RawMessage `json:"forms"`
-	Basis       []jsonStep        `json:"basis"`
 	Designs     []jsonDesign      `json:"designs"`
 	Sizes       []jsonSize        `json:"size_search,omitempty"`
+	Basis       []jsonStep        `json:"basis"`
+	Forms       []json.RawMessage `json:"forms"`
 }
 
 // jsonSize is one column's result of the section-size finder.
@@ -185,78 +188,115 @@ func JSON(r *design.Result) ([]byte, error) {
 	return b.Bytes(), nil
 }
 
-// WriteJSON writes results.json to w, compact: the contract of DESIGN.md plus, per design,
-// NRd_max_kN, reasons, cautions and the full trace, and the project basis (Result.Basis) once.
-// The steps are packed (see packer): each names its form in the top-level "forms" list and
-// carries its own ID and numbers; ReadSteps reads them back whole. The forms come first, so a
-// first pass collects them (holding only the forms and each step's index) and a second writes
-// the designs one at a time; the bytes are those of the whole jsonResult encoded at once. It
-// fails, writing nothing, when any recorded number is not finite.
+// WriteJSON writes results.json of r to w through a JSONStream (see there).
 func WriteJSON(w io.Writer, r *design.Result) error {
 	if r == nil {
 		return fmt.Errorf("reports: no result")
 	}
-	if err := finiteResult(r); err != nil {
-		return err
-	}
-	in := input(r)
-	pk := newPacker()
-	basis := basisForJSON(r.Basis)
-	basisForms, err := pk.indices(basis, func(s trace.Step) string { return s.ID })
+	s, err := NewJSONStream(w, toolName(r), r.ToolVersion, input(r))
 	if err != nil {
 		return err
 	}
-	designForms := make([][]int, len(r.Designs))
-	for k, d := range r.Designs {
-		prefix := d.Column + "/" + d.Storey + "/"
-		if designForms[k], err = pk.indices(d.Steps, func(s trace.Step) string { return prefix + s.ID }); err != nil {
+	for k := range r.Designs {
+		if err := s.Design(&r.Designs[k]); err != nil {
 			return err
 		}
 	}
-	forms, err := pk.forms()
-	if err != nil {
+	return s.End(r)
+}
+
+// JSONStream writes results.json one design at a time, compact on one line: the contract of
+// DESIGN.md plus, per design, NRd_max_kN, reasons, cautions and the full trace, then the
+// size search, the project basis (Result.Basis) once and the forms. The steps are packed (see
+// packer): each names its form in the top-level "forms" list, written last, and carries its own
+// ID and numbers; ReadSteps reads them back whole. Its bytes are those of the whole document
+// encoded at once with encoding/json (compact, no HTML escapes). A number that is not finite
+// is an error naming where it is, and what was written must then be discarded.
+type JSONStream struct {
+	e  *jsonWriter
+	pk *packer
+	n  int // designs written
+}
+
+// NewJSONStream starts results.json on w for the given program, version and input: everything
+// before the first design.
+func NewJSONStream(w io.Writer, tool, version string, in *model.Input) (*JSONStream, error) {
+	for _, o := range in.Code.Overrides() {
+		if !trace.Finite(o.Value) {
+			return nil, fmt.Errorf("reports: code override %s is not finite", o.Name)
+		}
+	}
+	s := &JSONStream{e: newJSONWriter(w), pk: newPacker()}
+	s.e.raw(`{"tool":`)
+	s.e.value(jsonTool{Name: tool, Version: version})
+	s.e.raw(`,"input_sha256":`)
+	s.e.value(in.SHA256)
+	s.e.raw(`,"code":`)
+	s.e.value(jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()})
+	s.e.raw(`,"designs":[`)
+	return s, s.e.err
+}
+
+// Design writes the next design, its trace packed.
+func (s *JSONStream) Design(d *design.Design) error {
+	if err := finiteDesign(d); err != nil {
 		return err
 	}
-	// Compact, one line ending in a newline; "<", ">" and "&" as they are (not for HTML).
-	e := newJSONWriter(w)
-	e.raw(`{"tool":`)
-	e.value(jsonTool{Name: toolName(r), Version: r.ToolVersion})
-	e.raw(`,"input_sha256":`)
-	e.value(in.SHA256)
-	e.raw(`,"code":`)
-	e.value(jsonCode{Standard: code.Standard, Annex: in.Code.Annex, Overrides: in.Code.Overrides()})
-	e.raw(`,"forms":`)
-	e.value(forms)
-	e.raw(`,"basis":`)
-	steps := make([]jsonStep, len(basis))
-	for i, s := range basis {
-		steps[i] = packed(s, s.ID, basisForms[i])
+	if s.n > 0 {
+		s.e.raw(",")
 	}
-	e.value(steps)
-	e.raw(`,"designs":[`)
-	for k, d := range r.Designs {
-		if k > 0 {
-			e.raw(",")
+	s.n++
+	// The design without its trace, then the trace, the last key, appended by hand.
+	s.e.valueOpen(designJSON(*d))
+	s.e.raw(`,"trace":[`)
+	prefix := d.Column + "/" + d.Storey + "/"
+	for i := range d.Steps {
+		if i > 0 {
+			s.e.raw(",")
 		}
-		prefix := d.Column + "/" + d.Storey + "/"
-		steps := make([]jsonStep, len(d.Steps))
-		for i, s := range d.Steps {
-			steps[i] = packed(s, prefix+s.ID, designForms[k][i])
-		}
-		e.value(designJSON(d, steps))
+		st := &d.Steps[i]
+		s.e.step(st, prefix, s.pk.form(st))
 	}
-	e.raw("]")
+	s.e.raw("]}")
+	return s.e.err
+}
+
+// End writes what follows the designs (the size search of r, its basis and the forms) and
+// flushes the output.
+func (s *JSONStream) End(r *design.Result) error {
+	s.e.raw("]")
 	if len(r.Sizes) > 0 {
 		var sizes []jsonSize
 		for _, z := range r.Sizes {
+			if !finite(z.Size.B, z.Size.H, z.Given.B, z.Given.H, z.AsProv, z.Rho, z.Utilization) {
+				return fmt.Errorf("reports: size search of column %s: a number is not finite", z.Column)
+			}
 			sizes = append(sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
 				GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
 		}
-		e.raw(`,"size_search":`)
-		e.value(sizes)
+		s.e.raw(`,"size_search":`)
+		s.e.value(sizes)
 	}
-	e.raw("}\n")
-	return e.flush()
+	basis := basisForJSON(r.Basis)
+	s.e.raw(`,"basis":[`)
+	for i := range basis {
+		st := &basis[i]
+		if err := finiteStep(st); err != nil {
+			return err
+		}
+		if i > 0 {
+			s.e.raw(",")
+		}
+		s.e.step(st, "", s.pk.form(st))
+	}
+	s.e.raw(`],"forms":`)
+	forms, err := s.pk.forms()
+	if err != nil {
+		return err
+	}
+	s.e.value(forms)
+	s.e.raw("}\n")
+	return s.e.flush()
 }
 
 // basisForJSON returns the basis steps as results.json holds them: a basis step names other
@@ -278,7 +318,7 @@ func basisForJSON(basis []trace.Step) []trace.Step {
 }
 
 // designJSON returns design d as results.json holds it, with its packed trace steps.
-func designJSON(d design.Design, steps []jsonStep) jsonDesign {
+func designJSON(d design.Design) jsonDesign {
 	pos := d.Bars.Positions
 	if pos == nil {
 		pos = [][2]float64{}
@@ -293,7 +333,7 @@ func designJSON(d design.Design, steps []jsonStep) jsonDesign {
 		Links: jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
 			SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks},
 		Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
-		NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions), Trace: steps,
+		NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions),
 	}
 	if e := d.Exact; e != nil {
 		out.Exact = &jsonExact{MRd: e.MRd / 1e6, MRdY: e.My / 1e6, MRdZ: e.Mz / 1e6, Ratio: e.Ratio, Angle: e.Angle * 180 / math.Pi}
@@ -317,10 +357,11 @@ func designJSON(d design.Design, steps []jsonStep) jsonDesign {
 // jsonWriter writes JSON values one at a time through a buffer, each encoded as it would be
 // inside a whole document (compact, without HTML escapes); the first error sticks.
 type jsonWriter struct {
-	w   *bufio.Writer
-	buf bytes.Buffer
-	enc *json.Encoder
-	err error
+	w       *bufio.Writer
+	buf     bytes.Buffer
+	enc     *json.Encoder
+	scratch []byte // one packed step
+	err     error
 }
 
 func newJSONWriter(w io.Writer) *jsonWriter {
@@ -346,6 +387,135 @@ func (e *jsonWriter) value(v any) {
 	}
 }
 
+// valueOpen writes the JSON object v without its closing brace, for keys to follow by hand.
+func (e *jsonWriter) valueOpen(v any) {
+	if e.err != nil {
+		return
+	}
+	e.buf.Reset()
+	if e.err = e.enc.Encode(v); e.err == nil {
+		b := bytes.TrimSuffix(e.buf.Bytes(), []byte("\n"))
+		if len(b) == 0 || b[len(b)-1] != '}' {
+			e.err = fmt.Errorf("reports: %T is not a JSON object", v)
+			return
+		}
+		_, e.err = e.w.Write(b[:len(b)-1])
+	}
+}
+
+// step writes step st packed under the form k, its ID prefixed by prefix (see jsonStep): the
+// bytes encoding/json gives for the jsonStep, without its reflection.
+func (e *jsonWriter) step(st *trace.Step, prefix string, k int) {
+	if e.err != nil {
+		return
+	}
+	b := e.scratch[:0]
+	b = append(b, `{"id":`...)
+	b = appendJSONString(b, prefix, st.ID)
+	b = append(b, `,"form":`...)
+	b = strconv.AppendInt(b, int64(k), 10)
+	b = append(b, `,"value":`...)
+	b = appendJSONFloat(b, st.Value)
+	if len(st.Args) > 0 {
+		b = append(b, `,"args":[`...)
+		for i := range st.Args {
+			if i > 0 {
+				b = append(b, ',')
+			}
+			b = appendJSONFloat(b, st.Args[i].Value)
+		}
+		b = append(b, ']')
+	}
+	if st.Residual != 0 {
+		b = append(b, `,"residual":`...)
+		b = appendJSONFloat(b, st.Residual)
+	}
+	if st.Verdict != "" {
+		b = append(b, `,"verdict":`...)
+		b = appendJSONString(b, "", st.Verdict)
+	}
+	b = append(b, '}')
+	e.scratch = b
+	_, e.err = e.w.Write(b)
+}
+
+// appendJSONFloat appends v as encoding/json writes a float64: the shortest form that reads
+// back, in exponent form below 1e-6 and from 1e21, with a two-digit exponent cut to one.
+func appendJSONFloat(b []byte, v float64) []byte {
+	f := byte('f')
+	if a := math.Abs(v); a != 0 && (a < 1e-6 || a >= 1e21) {
+		f = 'e'
+	}
+	b = strconv.AppendFloat(b, v, f, -1, 64)
+	if f == 'e' {
+		if n := len(b); n >= 4 && b[n-4] == 'e' && b[n-3] == '-' && b[n-2] == '0' {
+			b[n-2] = b[n-1]
+			b = b[:n-1]
+		}
+	}
+	return b
+}
+
+// appendJSONString appends the JSON string of a+s as encoding/json writes it without HTML
+// escapes: quotes, backslashes and control characters escaped, U+2028 and U+2029 as \u escapes,
+// invalid UTF-8 as U+FFFD.
+func appendJSONString(b []byte, a, s string) []byte {
+	b = append(b, '"')
+	b = appendJSONText(b, a)
+	b = appendJSONText(b, s)
+	return append(b, '"')
+}
+
+func appendJSONText(b []byte, s string) []byte {
+	const hex = "0123456789abcdef"
+	start := 0
+	for i := 0; i < len(s); {
+		if c := s[i]; c < utf8.RuneSelf {
+			if c >= 0x20 && c != '"' && c != '\\' {
+				i++
+				continue
+			}
+			b = append(b, s[start:i]...)
+			switch c {
+			case '"', '\\':
+				b = append(b, '\\', c)
+			case '\b':
+				b = append(b, '\\', 'b')
+			case '\f':
+				b = append(b, '\\', 'f')
+			case '\n':
+				b = append(b, '\\', 'n')
+			case '\r':
+				b = append(b, '\\', 'r')
+			case '\t':
+				b = append(b, '\\', 't')
+			default:
+				b = append(b, '\\', 'u', '0', '0', hex[c>>4], hex[c&0xf])
+			}
+			i++
+			start = i
+			continue
+		}
+		r, size := utf8.DecodeRuneInString(s[i:])
+		if r == utf8.RuneError && size == 1 {
+			b = append(b, s[start:i]...)
+			b = append(b, `\ufffd`...)
+			i += size
+			start = i
+			continue
+		}
+		if r == '\u2028' || r == '\u2029' {
+			b = append(b, s[start:i]...)
+			b = append(b, '\\', 'u', '2', '0', '2', hex[r&0xf])
+			i += size
+			start = i
+			continue
+		}
+		i += size
+	}
+	return append(b, s[start:]...)
+}
+
 func (e *jsonWriter) flush() error {
 	if e.err != nil {
 		return e.err
@@ -355,73 +525,96 @@ func (e *jsonWriter) flush() error {
 
 // finiteResult reports the first number of r that is NaN or infinite, naming where it is.
 func finiteResult(r *design.Result) error {
-	check := func(where string, vs ...float64) error {
-		for i, v := range vs {
-			if !trace.Finite(v) {
-				return fmt.Errorf("reports: %s (value %d) is not finite", where, i+1)
-			}
-		}
-		return nil
-	}
 	for _, o := range input(r).Code.Overrides() {
-		if err := check("code override "+o.Name, o.Value); err != nil {
+		if !trace.Finite(o.Value) {
+			return fmt.Errorf("reports: code override %s is not finite", o.Name)
+		}
+	}
+	for i := range r.Basis {
+		if err := finiteStep(&r.Basis[i]); err != nil {
 			return err
 		}
 	}
-	for _, s := range r.Basis {
-		if err := check("step "+s.ID, s.Value, s.Residual); err != nil {
+	for k := range r.Designs {
+		if err := finiteDesign(&r.Designs[k]); err != nil {
 			return err
 		}
-		for _, a := range s.Args {
-			if err := check("step "+s.ID+" argument "+a.Name, a.Value); err != nil {
-				return err
+	}
+	return nil
+}
+
+// finite reports whether every one of vs is neither NaN nor infinite.
+func finite(vs ...float64) bool {
+	for _, v := range vs {
+		if !trace.Finite(v) {
+			return false
+		}
+	}
+	return true
+}
+
+// notFinite returns the error for the first of vs that is not finite, naming it by where.
+func notFinite(where string, vs ...float64) error {
+	for i, v := range vs {
+		if !trace.Finite(v) {
+			return fmt.Errorf("reports: %s (value %d) is not finite", where, i+1)
+		}
+	}
+	return nil
+}
+
+// finiteStep reports a number of step s that is NaN or infinite, naming the step; the text is
+// built only then.
+func finiteStep(s *trace.Step) error {
+	if !finite(s.Value, s.Residual) {
+		return notFinite("step "+s.ID, s.Value, s.Residual)
+	}
+	for _, a := range s.Args {
+		if !trace.Finite(a.Value) {
+			return notFinite("step "+s.ID+" argument "+a.Name, a.Value)
+		}
+	}
+	return nil
+}
+
+// finiteDesign reports the first number of design d that is NaN or infinite, naming where it is.
+func finiteDesign(d *design.Design) error {
+	id := func() string { return d.Column + "/" + d.Storey }
+	if vs := []float64{d.B, d.H, d.Cover, d.Fck, d.Fyk, d.NEd, d.AsReq, d.AsMin, d.AsMax,
+		d.AsProv, d.NRdMax, d.Utilization, d.Biaxial.A, d.Biaxial.Ratio, d.Bars.Dia, d.Links.Dia,
+		d.Links.Spacing, d.Links.SpacingReduced, d.Detailing.LapLinkSpacing}; !finite(vs...) {
+		return notFinite("design "+id(), vs...)
+	}
+	for k, a := range []*design.Axis{&d.Y, &d.Z} {
+		if vs := []float64{a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd}; !finite(vs...) {
+			return notFinite("design "+id()+" axis "+[]string{"y", "z"}[k], vs...)
+		}
+	}
+	if e := d.Exact; e != nil && !finite(e.MRd, e.Ratio, e.Angle, e.My, e.Mz) {
+		return notFinite("design "+id()+" exact biaxial", e.MRd, e.Ratio, e.Angle, e.My, e.Mz)
+	}
+	if it := d.Interaction; it != nil {
+		for _, c := range [][]section.NMPoint{it.NMY, it.NMZ} {
+			for _, p := range c {
+				if !finite(p.N, p.M, p.MNeg) {
+					return notFinite("design "+id()+" N–M curve", p.N, p.M, p.MNeg)
+				}
+			}
+		}
+		for _, p := range it.Contour {
+			if !finite(p.My, p.Mz) {
+				return notFinite("design "+id()+" My–Mz contour", p.My, p.Mz)
 			}
 		}
 	}
-	for _, d := range r.Designs {
-		id := d.Column + "/" + d.Storey
-		if err := check("design "+id, d.B, d.H, d.Cover, d.Fck, d.Fyk, d.NEd, d.AsReq, d.AsMin, d.AsMax,
-			d.AsProv, d.NRdMax, d.Utilization, d.Biaxial.A, d.Biaxial.Ratio, d.Bars.Dia, d.Links.Dia,
-			d.Links.Spacing, d.Links.SpacingReduced, d.Detailing.LapLinkSpacing); err != nil {
+	for i, p := range d.Bars.Positions {
+		if !finite(p[0], p[1]) {
+			return notFinite("design "+id()+" bar "+strconv.Itoa(i+1), p[0], p[1])
+		}
+	}
+	for i := range d.Steps {
+		if err := finiteStep(&d.Steps[i]); err != nil {
 			return err
-		}
-		for k, a := range []design.Axis{d.Y, d.Z} {
-			if err := check("design "+id+" axis "+[]string{"y", "z"}[k], a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei,
-				a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd); err != nil {
-				return err
-			}
-		}
-		if e := d.Exact; e != nil {
-			if err := check("design "+id+" exact biaxial", e.MRd, e.Ratio, e.Angle, e.My, e.Mz); err != nil {
-				return err
-			}
-		}
-		if it := d.Interaction; it != nil {
-			for _, p := range append(it.NMY, it.NMZ...) {
-				if err := check("design "+id+" N–M curve", p.N, p.M, p.MNeg); err != nil {
-					return err
-				}
-			}
-			for _, p := range it.Contour {
-				if err := check("design "+id+" My–Mz contour", p.My, p.Mz); err != nil {
-					return err
-				}
-			}
-		}
-		for i, p := range d.Bars.Positions {
-			if err := check("design "+id+" bar "+strconv.Itoa(i+1), p[0], p[1]); err != nil {
-				return err
-			}
-		}
-		for _, s := range d.Steps {
-			if err := check("step "+s.ID, s.Value, s.Residual); err != nil {
-				return err
-			}
-			for _, a := range s.Args {
-				if err := check("step "+s.ID+" argument "+a.Name, a.Value); err != nil {
-					return err
-				}
-			}
 		}
 	}
 	return nil
@@ -453,67 +646,78 @@ type jsonStep struct {
 // packer collects the distinct forms of the steps it packs, in the order of first use.
 type packer struct {
 	index map[string]int
-	keys  []string
+	reps  []trace.Step // one step of each form
+	key   []byte
 }
 
 func newPacker() *packer { return &packer{index: map[string]int{}} }
 
 // form returns the index of the form of step s, adding it at the end when it is new.
-func (p *packer) form(s trace.Step) (int, error) {
-	if len(s.Args) > 0 {
-		args := make([]trace.Arg, len(s.Args))
-		for i, a := range s.Args {
-			a.Value = 0
-			args[i] = a
-		}
-		s.Args = args
+func (p *packer) form(s *trace.Step) int {
+	p.key = formKey(p.key[:0], s)
+	if k, ok := p.index[string(p.key)]; ok {
+		return k
 	}
-	s.ID, s.Value, s.Residual, s.Verdict = "", 0, 0, ""
-	key, err := json.Marshal(s)
-	if err != nil {
-		return 0, err
-	}
-	k, ok := p.index[string(key)]
-	if !ok {
-		k = len(p.keys)
-		p.index[string(key)] = k
-		p.keys = append(p.keys, string(key))
-	}
-	return k, nil
+	k := len(p.reps)
+	p.index[string(p.key)] = k
+	p.reps = append(p.reps, *s)
+	return k
 }
 
-// indices returns the form index of each of steps, collecting the new forms; id names a step in errors.
-func (p *packer) indices(steps []trace.Step, id func(trace.Step) string) ([]int, error) {
-	out := make([]int, len(steps))
-	for i, s := range steps {
-		k, err := p.form(s)
-		if err != nil {
-			return nil, fmt.Errorf("step %s: %v", id(s), err)
-		}
-		out[i] = k
+// formKey appends to b a key of the form of step s: every field of trace.Step but its ID,
+// value, residual and verdict and its arguments' values, each field with its length, so that
+// two steps share a key exactly when they share a form.
+func formKey(b []byte, s *trace.Step) []byte {
+	str := func(v string) {
+		b = strconv.AppendInt(b, int64(len(v)), 10)
+		b = append(b, ':')
+		b = append(b, v...)
 	}
-	return out, nil
-}
-
-// packed returns step s packed under the whole ID id with the form index k.
-func packed(s trace.Step, id string, k int) jsonStep {
-	out := jsonStep{ID: id, Value: s.Value, Residual: s.Residual, Verdict: s.Verdict, Form: &k}
-	if len(s.Args) > 0 {
-		out.Args = make([]float64, len(s.Args))
-		for i, a := range s.Args {
-			out.Args[i] = a.Value
+	for _, v := range []string{s.Group, s.Title, s.Clause, string(s.Kind), s.Symbol, s.Expr, s.Unit, s.Row, s.Method, s.Verify, s.Relation} {
+		str(v)
+	}
+	b = strconv.AppendInt(b, int64(len(s.Args)), 10)
+	for i := range s.Args {
+		a := &s.Args[i]
+		str(a.Name)
+		str(a.Symbol)
+		str(a.Unit)
+		str(a.From)
+	}
+	for _, l := range [][]string{s.Notes, s.Cautions} {
+		// nil and empty lists write alike (omitempty).
+		b = strconv.AppendInt(b, int64(len(l)), 10)
+		for _, v := range l {
+			str(v)
 		}
 	}
-	return out
+	if s.Show == nil {
+		b = append(b, '-')
+	} else {
+		b = append(b, '+')
+		str(s.Show.Expr)
+		str(s.Show.Result)
+	}
+	return b
 }
 
 // forms returns the forms collected: each step's JSON without its ID, value, residual and
-// verdict and without the values of its arguments.
+// verdict and without the values of its arguments, its keys in name order.
 func (p *packer) forms() ([]json.RawMessage, error) {
-	out := make([]json.RawMessage, len(p.keys))
-	for i, key := range p.keys {
+	out := make([]json.RawMessage, len(p.reps))
+	for i, s := range p.reps {
+		if len(s.Args) > 0 {
+			s.Args = slices.Clone(s.Args)
+			for j := range s.Args {
+				s.Args[j].Value = 0
+			}
+		}
+		key, err := json.Marshal(s)
+		if err != nil {
+			return nil, err
+		}
 		var m map[string]json.RawMessage
-		if err := json.Unmarshal([]byte(key), &m); err != nil {
+		if err := json.Unmarshal(key, &m); err != nil {
 			return nil, err
 		}
 		for _, k := range []string{"id", "value", "residual", "verdict"} {

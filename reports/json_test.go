@@ -3,8 +3,10 @@ package reports
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"os"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 
@@ -186,10 +188,10 @@ func TestWriteJSONIsWholeEncoding(t *testing.T) {
 			Tool        jsonTool          `json:"tool"`
 			InputSHA256 string            `json:"input_sha256"`
 			Code        json.RawMessage   `json:"code"`
-			Forms       []json.RawMessage `json:"forms"`
-			Basis       []jsonStep        `json:"basis"`
 			Designs     []jsonDesign      `json:"designs"`
 			Sizes       []jsonSize        `json:"size_search,omitempty"`
+			Basis       []jsonStep        `json:"basis"`
+			Forms       []json.RawMessage `json:"forms"`
 		}
 		if err := json.Unmarshal(streamed.Bytes(), &whole); err != nil {
 			t.Fatalf("%s: %v", tc.name, err)
@@ -211,5 +213,64 @@ func TestWriteJSONIsWholeEncoding(t *testing.T) {
 			}
 			t.Errorf("%s: streamed results.json differs from the whole encoding at byte %d of %d/%d", tc.name, i, len(a), len(b))
 		}
+	}
+}
+
+// The hand-written encoders of packed steps give the bytes of encoding/json (the reference
+// library; compact, no HTML escapes) for awkward strings and numbers.
+func TestStepEncodingMatchesEncodingJSON(t *testing.T) {
+	strs := []string{"", "K1/L1/geo/b", "a\"b\\c", "tab\tnew\nline\r", "\x00\x01\x1f", "<&>", "λ φ_ef ≤ 1", "\u2028\u2029", "bad\xffutf8", "é\xc3"}
+	nums := []float64{0, 1, -1, 0.1, 1e-6, 9.99e-7, 1e-7, 1.5e-9, 1e20, 1e21, 1.234e25, -3.3e-12, 123456789.125, math.SmallestNonzeroFloat64, math.MaxFloat64}
+	for _, s := range strs {
+		want, _ := json.Marshal(s)
+		var b bytes.Buffer
+		enc := json.NewEncoder(&b)
+		enc.SetEscapeHTML(false)
+		enc.Encode(s)
+		want = bytes.TrimSuffix(b.Bytes(), []byte("\n"))
+		if got := appendJSONString(nil, "", s); !bytes.Equal(got, want) {
+			t.Errorf("string %q: got %s, want %s", s, got, want)
+		}
+	}
+	for _, v := range nums {
+		want, _ := json.Marshal(v)
+		if got := appendJSONFloat(nil, v); !bytes.Equal(got, want) {
+			t.Errorf("float %g: got %s, want %s", v, got, want)
+		}
+	}
+}
+
+// formKey covers every field of trace.Step: a new field must be added to the key (or to the
+// fields a packed step carries itself), or steps differing only in it would share a form.
+func TestFormKeyCoversStep(t *testing.T) {
+	known := map[string]bool{"ID": true, "Group": true, "Title": true, "Clause": true, "Kind": true, "Symbol": true,
+		"Expr": true, "Args": true, "Value": true, "Unit": true, "Row": true, "Method": true, "Verify": true,
+		"Residual": true, "Relation": true, "Verdict": true, "Notes": true, "Cautions": true, "Show": true}
+	ty := reflect.TypeOf(trace.Step{})
+	for i := 0; i < ty.NumField(); i++ {
+		if !known[ty.Field(i).Name] {
+			t.Errorf("trace.Step.%s is not in formKey", ty.Field(i).Name)
+		}
+	}
+	base := trace.Formula("x", "T", "c", "s", "mm", 1, "a", trace.Arg{Name: "a", Symbol: "a", Unit: "mm", From: "f"})
+	variants := []func(s *trace.Step){
+		func(s *trace.Step) { s.Group = "g" }, func(s *trace.Step) { s.Title = "U" },
+		func(s *trace.Step) { s.Args[0].From = "g" }, func(s *trace.Step) { s.Notes = []string{"n"} },
+		func(s *trace.Step) { s.Cautions = []string{""} }, func(s *trace.Step) { s.Show = &trace.Display{} },
+		func(s *trace.Step) { s.Title, s.Clause = "Tc", "" }, // lengths keep fields apart
+	}
+	k0 := string(formKey(nil, &base))
+	for i, v := range variants {
+		s := base
+		s.Args = slices.Clone(base.Args)
+		v(&s)
+		if string(formKey(nil, &s)) == k0 {
+			t.Errorf("variant %d shares the form key of the base step", i)
+		}
+	}
+	same := base
+	same.ID, same.Value, same.Verdict = "y", 2, "pass"
+	if string(formKey(nil, &same)) != k0 {
+		t.Error("ID, value or verdict changed the form key")
 	}
 }

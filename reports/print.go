@@ -321,6 +321,9 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 	if err := finiteResult(r); err != nil {
 		return err
 	}
+	if !formats["md"] && !formats["tex"] && !formats["html"] {
+		return nil // no sheets and no calc document asked for
+	}
 	bk := newBook(r)
 	p := place{opt: o}
 	set := &sheetSet{names: bk.names, index: index(r, func(name string) target { return target{sheet: name} }, bk, p)}
