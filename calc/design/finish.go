@@ -94,15 +94,17 @@ const (
 // AddInteraction computes, for every design with bars, the N–M diagrams about both axes and
 // the My–Mz contour at NEd of its section (EN 1992-1-1:2004 6.1), for plotting.
 func AddInteraction(r *Result) {
-	for k := range r.Designs {
-		d := &r.Designs[k]
-		if d.sec == nil {
-			continue
-		}
-		d.Interaction = &Interaction{
-			NMY:     d.sec.CurveNM(section.AxisY, curvePoints),
-			NMZ:     d.sec.CurveNM(section.AxisZ, curvePoints),
-			Contour: d.sec.ContourMyMz(d.NEd, contourPoints),
-		}
+	each(len(r.Designs), func(k int) { addInteraction(&r.Designs[k]) })
+}
+
+// addInteraction computes the interaction data of design d, as AddInteraction.
+func addInteraction(d *Design) {
+	if d.sec == nil {
+		return
+	}
+	d.Interaction = &Interaction{
+		NMY:     d.sec.CurveNM(section.AxisY, curvePoints),
+		NMZ:     d.sec.CurveNM(section.AxisZ, curvePoints),
+		Contour: d.sec.ContourMyMz(d.NEd, contourPoints),
 	}
 }

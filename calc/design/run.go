@@ -27,7 +27,30 @@ const Version = "devel"
 // Run designs or checks every column and lift of the input.
 // For the building form it first derives the actions of every column and lift; an error
 // then names a fault of the building that the input reader could not see.
-func Run(in *model.Input) (*Result, error) {
+func Run(in *model.Input) (*Result, error) { return run(in, nil) }
+
+// Stream designs or checks every column and lift of the input as Run does, adds each design's
+// interaction data (AddInteraction) and hands each design to emit in input order as soon as it
+// and every design before it are done; in the building form that is once every lift is
+// designed, since the choice of typical bars may change any lift. With keep false a design
+// keeps its results but not its trace, section or interaction data once emit returns, so that
+// the memory of a run does not grow with the traces of its lifts. An error from emit stops the
+// run and is returned.
+func Stream(in *model.Input, keep bool, emit func(k int, d *Design) error) (*Result, error) {
+	return run(in, func(k int, d *Design) error {
+		if err := emit(k, d); err != nil {
+			return err
+		}
+		if !keep {
+			d.Steps, d.sec, d.Interaction = nil, nil, nil
+		}
+		return nil
+	})
+}
+
+// run is Run, handing each design to emit (when not nil) in input order as Stream says, each
+// with its interaction data.
+func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in)}
 	if in.Building != nil {
 		d, err := building.Derive(in, func(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
@@ -86,8 +109,18 @@ func Run(in *model.Input) (*Result, error) {
 				for _, i := range dvs[k].across {
 					dvs[k].hoist.redirect(&r.Designs[k].Steps[i], nil)
 				}
+				if emit != nil {
+					addInteraction(&r.Designs[k])
+				}
 			}
 		})
+		if emit != nil {
+			for k := range r.Designs {
+				if err := emit(k, &r.Designs[k]); err != nil {
+					return nil, err
+				}
+			}
+		}
 	} else {
 		for ci := range in.Columns {
 			col := &in.Columns[ci]
@@ -97,9 +130,17 @@ func Run(in *model.Input) (*Result, error) {
 		}
 		// The lifts of the actions form are independent.
 		r.Designs = make([]Design, len(r.cases))
-		each(len(r.cases), func(k int) {
+		one := func(k int) {
 			r.Designs[k] = design(in, r.cases[k].col, r.cases[k].st, nil, r.bs)
-		})
+			if emit != nil {
+				addInteraction(&r.Designs[k])
+			}
+		}
+		if emit == nil {
+			each(len(r.cases), one)
+		} else if err := eachInOrder(len(r.cases), one, func(k int) error { return emit(k, &r.Designs[k]) }); err != nil {
+			return nil, err
+		}
 	}
 	if in.Options.Sizes != nil {
 		r.Sizes = findSizes(in, r)
@@ -158,6 +199,82 @@ func each(n int, f func(i int)) {
 	if caught != nil {
 		panic(caught)
 	}
+}
+
+// eachInOrder calls f(i) for every i in [0, n) as each does and emit(i) in the caller's
+// goroutine in order of i, as soon as f(i) and every emit before it are done; the workers keep
+// at most a bounded number of items ahead of emit, so that what f makes can be let go by emit.
+// An error from emit stops the work and is returned; a panic in f is raised again in the caller.
+func eachInOrder(n int, f func(i int), emit func(i int) error) error {
+	w := min(runtime.GOMAXPROCS(0), n)
+	if w <= 1 {
+		for i := 0; i < n; i++ {
+			f(i)
+			if err := emit(i); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	window := make(chan struct{}, 8*w) // a slot per item between its start and its emit
+	ready := make(chan int, 8*w)
+	stop := make(chan struct{})
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	var once sync.Once
+	var caught any
+	for range w {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			defer func() {
+				if p := recover(); p != nil {
+					once.Do(func() { caught = p; close(stop) })
+				}
+			}()
+			for {
+				select {
+				case window <- struct{}{}:
+				case <-stop:
+					return
+				}
+				i := int(next.Add(1)) - 1
+				if i >= n {
+					return
+				}
+				f(i)
+				select {
+				case ready <- i:
+				case <-stop:
+					return
+				}
+			}
+		}()
+	}
+	var err error
+	done := make([]bool, n)
+	for emitted := 0; emitted < n && err == nil; {
+		select {
+		case i := <-ready:
+			done[i] = true
+		case <-stop:
+			wg.Wait()
+			panic(caught)
+		}
+		for emitted < n && done[emitted] && err == nil {
+			err = emit(emitted)
+			emitted++
+			<-window
+		}
+	}
+	if err != nil {
+		once.Do(func() { close(stop) })
+	}
+	wg.Wait()
+	if caught != nil {
+		panic(caught)
+	}
+	return err
 }
 
 // Derivation is the traced origin of a lift's actions when they come from the building form:

@@ -2,6 +2,7 @@ package design_test
 
 import (
 	"bytes"
+	"errors"
 	"os"
 	"runtime"
 	"testing"
@@ -50,5 +51,92 @@ func TestWorkersSameBytes(t *testing.T) {
 				t.Errorf("%s: results.json on %d workers differs from one worker at byte %d of %d", file, procs, i, len(one))
 			}
 		}
+	}
+}
+
+// TestStreamSameBytes writes results.json through design.Stream (each design written as it is
+// emitted, its trace let go after) on one worker and on several: the bytes are those of Run
+// followed by AddInteraction, the designs emitted once each in input order, without traces after.
+func TestStreamSameBytes(t *testing.T) {
+	for _, file := range []string{"../../testdata/columns.yaml", "../../testdata/demo.yaml"} {
+		if testing.Short() && file != "../../testdata/columns.yaml" {
+			continue
+		}
+		data, err := os.ReadFile(file)
+		if err != nil {
+			t.Fatal(err)
+		}
+		in, err := input.Parse(file, data)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := design.Run(in)
+		if err != nil {
+			t.Fatal(err)
+		}
+		design.AddInteraction(r)
+		want, err := reports.JSON(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, procs := range []int{1, 2, 5} {
+			func() {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				in, err := input.Parse(file, data)
+				if err != nil {
+					t.Fatal(err)
+				}
+				var b bytes.Buffer
+				js, err := reports.NewJSONStream(&b, r.ToolName, r.ToolVersion, in)
+				if err != nil {
+					t.Fatal(err)
+				}
+				next := 0
+				res, err := design.Stream(in, false, func(k int, d *design.Design) error {
+					if k != next {
+						t.Fatalf("emitted design %d, want %d", k, next)
+					}
+					next++
+					return js.Design(d)
+				})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if err := js.End(res); err != nil {
+					t.Fatal(err)
+				}
+				if !bytes.Equal(b.Bytes(), want) {
+					t.Errorf("%s on %d workers: streamed results.json differs from Run's", file, procs)
+				}
+				if next != len(res.Designs) || len(res.Designs[0].Steps) != 0 || res.Designs[0].Interaction != nil {
+					t.Errorf("%s: %d emitted of %d; traces kept: %d steps", file, next, len(res.Designs), len(res.Designs[0].Steps))
+				}
+			}()
+		}
+	}
+}
+
+// TestStreamStopsOnError: an error from emit stops the run and comes back.
+func TestStreamStopsOnError(t *testing.T) {
+	file := "../../testdata/columns.yaml"
+	data, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := input.Parse(file, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	stop := errors.New("disk full")
+	calls := 0
+	_, err = design.Stream(in, true, func(k int, d *design.Design) error {
+		calls++
+		if k == 1 {
+			return stop
+		}
+		return nil
+	})
+	if !errors.Is(err, stop) || calls != 2 {
+		t.Errorf("error %v after %d calls, want the emit error after 2", err, calls)
 	}
 }

@@ -1,6 +1,9 @@
 package section
 
-import "math"
+import (
+	"errors"
+	"math"
+)
 
 // NMPoint is one point of the N–M interaction diagram about an axis.
 type NMPoint struct {
@@ -50,11 +53,13 @@ type MyMzPoint struct {
 	MRd   float64 // √(My² + Mz²), N·mm
 }
 
-// ContourMyMz returns the My–Mz contour of the section at axial force NEd: the exact
-// biaxial resistance (Biaxial) in points (at least 4) directions θ = 2πk/points round the
-// full circle, from θ = 0. It returns nil when the section is invalid or NEd lies outside
-// (−As·fyd, NRd,max]; directions whose solution fails are left out, so every value is
-// finite.
+// ContourMyMz returns the My–Mz contour of the section at axial force NEd: for points (at
+// least 4) neutral-axis angles β = 2πk/points round the full circle, from β = 0, the strain
+// plane at that angle whose axial force is NEd (its depth by Brent's method, as Biaxial) and
+// its resisting moments, which lie on the contour; each point's θ is the direction of its
+// moment. On the axes (β a multiple of π/2) these are the uniaxial resistances. It returns
+// nil when the section is invalid or NEd lies outside (−As·fyd, NRd,max]; angles whose
+// solution fails are left out, so every value is finite.
 func (s *Section) ContourMyMz(NEd float64, points int) []MyMzPoint {
 	if s.Validate() != nil || !finite(NEd) || !(NEd > s.NRdMin()) || NEd > s.NRdMax()+1e-9*math.Max(s.NRdMax(), 1) {
 		return nil
@@ -62,20 +67,30 @@ func (s *Section) ContourMyMz(NEd float64, points int) []MyMzPoint {
 	if points < 4 {
 		points = 4
 	}
+	nmax := s.NRdMax()
+	b := &biaxSolver{s: s, NEd: NEd, nmin: s.NRdMin(), ftol: biaxNTol * math.Max(nmax, 1),
+		mtol: 1e-13 * math.Max(nmax, 1) * (s.B + s.H)}
 	out := make([]MyMzPoint, 0, points)
-	beta := 0.0
 	for k := 0; k < points; k++ {
-		theta := 2 * math.Pi * float64(k) / float64(points)
-		// Start from the last angle turned by the step in θ: the neighbouring plane.
-		guess := theta
-		if k > 0 {
-			guess = beta + 2*math.Pi/float64(points)
+		beta := normAngle(2 * math.Pi * float64(k) / float64(points))
+		if points%4 == 0 && k%(points/4) == 0 {
+			beta = normAngle(float64(k/(points/4)) * math.Pi / 2) // exactly on an axis
 		}
-		st, err := s.biaxial(NEd, theta, guess)
-		if err != nil {
-			continue
+		var st BiaxialState
+		if NEd >= nmax-1e-9*math.Max(nmax, 1) {
+			st = s.uniform(beta)
+		} else {
+			p, _, err := b.depth(beta)
+			switch {
+			case errors.Is(err, errNoMoment):
+				st = s.uniform(beta)
+			case err != nil:
+				continue
+			default:
+				g := s.incline(beta, b.buf[:])
+				st = g.state(beta, p)
+			}
 		}
-		beta = st.Angle
 		out = append(out, MyMzPoint{Theta: st.Theta, Angle: st.Angle, My: st.My, Mz: st.Mz, MRd: st.MRd})
 	}
 	return out

@@ -66,13 +66,15 @@ func TestCurveNM(t *testing.T) {
 }
 
 // The My–Mz contour passes through the uniaxial resistances on the axes (relative 1e-6,
-// as Biaxial), each point points along its θ (within 1e-9 rad, the solver's tolerance)
-// with MRd = √(My² + Mz²); outside (−As·fyd, NRd,max] there is no contour, and at NRd,max
-// it collapses to zero. Common practice, no source.
+// as Biaxial); its points lie at evenly spaced neutral-axis angles, each is the resistance
+// that Biaxial finds in the point's own direction θ (relative 1e-6, the two solvers'
+// tolerances) with MRd = √(My² + Mz²); outside (−As·fyd, NRd,max] there is no contour, and at
+// NRd,max it collapses to zero. Common practice, no source.
 func TestContourMyMz(t *testing.T) {
 	for _, block := range []Block{ParabolaRectangle, Rectangular} {
 		for _, mk := range []func(testing.TB, float64, Block) *Section{sym8, sym12} {
 			s := mk(t, 30, block)
+			scale := s.NRdMax() * (s.B + s.H) / 2
 			for _, frac := range []float64{0.1, 0.35, 0.6, 0.85} {
 				ned := s.NRdMin() + frac*(s.NRdMax()-s.NRdMin())
 				pts := s.ContourMyMz(ned, 24)
@@ -80,10 +82,15 @@ func TestContourMyMz(t *testing.T) {
 					t.Fatalf("%s NEd %.4g: %d points, want 24", block, ned, len(pts))
 				}
 				for k, p := range pts {
-					theta := 2 * math.Pi * float64(k) / 24
-					mis := math.Abs(math.Remainder(math.Atan2(p.Mz, p.My)-theta, 2*math.Pi))
-					if mis > 1e-9 || math.Abs(math.Remainder(p.Theta-theta, 2*math.Pi)) > 1e-12 || !relClose(p.MRd, math.Hypot(p.My, p.Mz), 1e-12, 0) {
-						t.Errorf("%s NEd %.4g point %d: %+v (direction mismatch %g rad)", block, ned, k, p, mis)
+					beta := 2 * math.Pi * float64(k) / 24
+					st, err := s.Biaxial(ned, p.Theta)
+					if err != nil {
+						t.Fatal(err)
+					}
+					if math.Abs(math.Remainder(p.Angle-beta, 2*math.Pi)) > 1e-12 || !relClose(p.MRd, math.Hypot(p.My, p.Mz), 1e-12, 0) ||
+						math.Abs(math.Remainder(math.Atan2(p.Mz, p.My)-p.Theta, 2*math.Pi)) > 1e-12 ||
+						!relClose(p.My, st.My, 1e-6, 1e-9*scale) || !relClose(p.Mz, st.Mz, 1e-6, 1e-9*scale) {
+						t.Errorf("%s NEd %.4g point %d: %+v, Biaxial in its direction %+v", block, ned, k, p, st)
 					}
 				}
 				for _, c := range []struct {

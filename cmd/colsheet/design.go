@@ -12,6 +12,7 @@ import (
 
 	"colsheet/calc/design"
 	"colsheet/calc/input"
+	"colsheet/calc/model"
 	"colsheet/reports"
 	"colsheet/reports/archive"
 )
@@ -235,27 +236,6 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 		fmt.Fprintln(stderr, "colsheet: no date given (project.date or --date): the sheets say \"undated\"")
 		in.Project.Date = "undated"
 	}
-	prog.phase("designing", 0)
-	res, err := design.Run(in)
-	if err != nil {
-		return nil, err
-	}
-	// The build's own version, in results.json, the manifest and every title block.
-	res.ToolVersion = version()
-	design.AddInteraction(res)
-	opt := reports.Options{Detail: o.detail}
-	if o.against != "" {
-		// The revision marks: every value compared with the previous package's.
-		js, err := reports.JSON(res)
-		if err != nil {
-			return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
-		}
-		changes, old, err := archive.Against(o.against, js, filepath.Base(o.input), in.SHA256)
-		if err != nil {
-			return nil, fmt.Errorf("colsheet: --against %s: %v", o.against, err)
-		}
-		opt.Revision = changes.Revision(o.against, old)
-	}
 	if err := os.MkdirAll(where, 0o755); err != nil {
 		return nil, fmt.Errorf("colsheet: %v", err)
 	}
@@ -267,16 +247,71 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 	if err != nil {
 		return nil, fmt.Errorf("colsheet: %v", err)
 	}
-	// The files: results.json, three CSV, and per format the index, a sheet per design and the
-	// calc document.
-	prog.phase("writing files", 4+len(o.formats)*(len(res.Designs)+2))
+	defer func() {
+		if err != nil {
+			st.discard()
+		}
+	}()
+	// The designs, each written into results.json as soon as it and those before it are done;
+	// without sheets a design lets go of its trace once written.
+	sheets := o.formats["md"] || o.formats["tex"] || o.formats["html"]
+	prog.phase("designing", lifts(in))
+	var res *design.Result
+	var runErr error
+	err = st.create("results.json", func(w io.Writer) error {
+		js, err := reports.NewJSONStream(w, "colsheet", version(), in)
+		if err != nil {
+			return err
+		}
+		res, runErr = design.Stream(in, sheets, func(_ int, d *design.Design) error {
+			prog.step()
+			return js.Design(d)
+		})
+		if runErr != nil {
+			return runErr
+		}
+		// The build's own version, in results.json, the manifest and every title block.
+		res.ToolVersion = version()
+		return js.End(res)
+	})
+	switch {
+	case runErr != nil:
+		return nil, runErr // a fault of the building, named by the engine
+	case err != nil:
+		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
+	}
+	opt := reports.Options{Detail: o.detail}
+	if o.against != "" {
+		// The revision marks: every value compared with the previous package's.
+		js, err := os.ReadFile(filepath.Join(st.dir, "results.json"))
+		if err != nil {
+			return nil, fmt.Errorf("colsheet: %v", err)
+		}
+		changes, old, err := archive.Against(o.against, js, filepath.Base(o.input), in.SHA256)
+		if err != nil {
+			return nil, fmt.Errorf("colsheet: --against %s: %v", o.against, err)
+		}
+		opt.Revision = changes.Revision(o.against, old)
+	}
+	// The other files: three CSV, and per format the index, a sheet per design and the calc
+	// document.
+	prog.phase("writing files", 3+len(o.formats)*(len(res.Designs)+2))
 	st.written = prog.step
 	if err := render(st, res, o.formats, opt, runtime.GOMAXPROCS(0)); err != nil {
-		st.discard()
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
 	st.written = nil
 	return &job{input: data, res: res, st: st, progress: prog}, nil
+}
+
+// lifts returns the number of lifts of the actions form of in, 0 for the building form (whose
+// lifts the take-down finds).
+func lifts(in *model.Input) int {
+	n := 0
+	for _, c := range in.Columns {
+		n += len(c.Storeys)
+	}
+	return n
 }
 
 // report prints the count of passing and failing designs and returns the exit status.
@@ -295,13 +330,9 @@ func (j *job) report(out string, stdout, stderr io.Writer) int {
 	return 0
 }
 
-// render writes every output file into the stage st as soon as it is made: results.json one
-// design at a time, the CSV files, then the sheets (printed by up to workers goroutines) and the
-// calc document of each format.
+// render writes the CSV files into the stage st, then the sheets (printed by up to workers
+// goroutines) and the calc document of each format, each file as soon as it is made.
 func render(st *stage, res *design.Result, formats map[string]bool, opt reports.Options, workers int) error {
-	if err := st.create("results.json", func(w io.Writer) error { return reports.WriteJSON(w, res) }); err != nil {
-		return err
-	}
 	for _, c := range []struct {
 		name string
 		make func(*design.Result) ([]byte, error)

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 	"runtime"
@@ -40,6 +41,9 @@ func BenchmarkDemoPackage(b *testing.B) {
 			for i := 0; i < b.N; i++ {
 				st, err := newStage(b.TempDir(), "out")
 				if err != nil {
+					b.Fatal(err)
+				}
+				if err := st.create("results.json", func(w io.Writer) error { return reports.WriteJSON(w, res) }); err != nil {
 					b.Fatal(err)
 				}
 				if err := render(st, res, formats, reports.Options{}, workers); err != nil {
