@@ -17,7 +17,7 @@ import (
 )
 
 // stepsPerPattern is the room left for the bar-dependent steps of a full evaluation.
-const stepsPerPattern = 256
+const stepsPerPattern = 160
 
 // evaluate runs every bar-dependent step for one bar pattern and returns the design it gives.
 // With full false the equilibrium of the section is recorded as one step per axis instead of
@@ -29,6 +29,11 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		// The bar-dependent steps follow the common ones in the same backing array: a later
 		// full evaluation overwrites them, which is safe since a design keeps only its last.
 		l.Steps = c.steps[:len(c.steps):cap(c.steps)]
+	} else {
+		// A trial's check steps go into one buffer that every trial of c reuses: a trial's
+		// design is read (status, utilisation) before the next trial.
+		l.Steps = c.trialSteps[:0]
+		defer func() { c.trialSteps = l.Steps[:0] }()
 	}
 	link := c.linkFor(p.Dia)
 	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: link}

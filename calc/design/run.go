@@ -389,6 +389,7 @@ type common struct {
 	st           *model.Storey
 	p            code.Params
 	steps        []trace.Step
+	trialSteps   []trace.Step // the buffer of the trials' check steps
 	cautions     []string
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
@@ -448,9 +449,9 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	case dv != nil && dv.trial:
 		l = &trace.Log{Trial: true}
 	case dv == nil:
-		l = &trace.Log{Steps: make([]trace.Step, 0, 96+stepsPerPattern)}
+		l = &trace.Log{Steps: make([]trace.Step, 0, 64+stepsPerPattern)}
 	default:
-		l = &trace.Log{Steps: make([]trace.Step, 0, len(dv.Steps)+96+stepsPerPattern)}
+		l = &trace.Log{Steps: make([]trace.Step, 0, len(dv.Steps)+64+stepsPerPattern)}
 		if dv.hoist != nil {
 			l.Steps, dv.across = dv.hoist.filter(l.Steps, dv.Steps, col.ID+"/"+st.Name+"/")
 		} else {
