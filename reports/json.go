@@ -290,11 +290,7 @@ func (s *JSONStream) End(r *design.Result) error {
 		s.e.step(st, "", s.pk.form(st))
 	}
 	s.e.raw(`],"forms":`)
-	forms, err := s.pk.forms()
-	if err != nil {
-		return err
-	}
-	s.e.value(forms)
+	s.e.value(s.pk.forms())
 	s.e.raw("}\n")
 	return s.e.flush()
 }
@@ -461,17 +457,25 @@ func appendJSONFloat(b []byte, v float64) []byte {
 // invalid UTF-8 as U+FFFD.
 func appendJSONString(b []byte, a, s string) []byte {
 	b = append(b, '"')
-	b = appendJSONText(b, a)
-	b = appendJSONText(b, s)
+	b = appendJSONText(b, a, false)
+	b = appendJSONText(b, s, false)
 	return append(b, '"')
 }
 
-func appendJSONText(b []byte, s string) []byte {
+// appendJSONEscaped appends the JSON string of s as appendJSONString does, with "<", ">" and
+// "&" escaped as well when html is set (as json.Marshal writes them).
+func appendJSONEscaped(b []byte, s string, html bool) []byte {
+	b = append(b, '"')
+	b = appendJSONText(b, s, html)
+	return append(b, '"')
+}
+
+func appendJSONText(b []byte, s string, html bool) []byte {
 	const hex = "0123456789abcdef"
 	start := 0
 	for i := 0; i < len(s); {
 		if c := s[i]; c < utf8.RuneSelf {
-			if c >= 0x20 && c != '"' && c != '\\' {
+			if c >= 0x20 && c != '"' && c != '\\' && (!html || c != '<' && c != '>' && c != '&') {
 				i++
 				continue
 			}
@@ -701,49 +705,108 @@ func formKey(b []byte, s *trace.Step) []byte {
 	return b
 }
 
-// forms returns the forms collected: each step's JSON without its ID, value, residual and
-// verdict and without the values of its arguments, its keys in name order.
-func (p *packer) forms() ([]json.RawMessage, error) {
+// forms returns the forms collected (see formJSON).
+func (p *packer) forms() []json.RawMessage {
 	out := make([]json.RawMessage, len(p.reps))
-	for i, s := range p.reps {
-		if len(s.Args) > 0 {
-			s.Args = slices.Clone(s.Args)
-			for j := range s.Args {
-				s.Args[j].Value = 0
-			}
-		}
-		key, err := json.Marshal(s)
-		if err != nil {
-			return nil, err
-		}
-		var m map[string]json.RawMessage
-		if err := json.Unmarshal(key, &m); err != nil {
-			return nil, err
-		}
-		for _, k := range []string{"id", "value", "residual", "verdict"} {
-			delete(m, k)
-		}
-		if raw, ok := m["args"]; ok {
-			var args []map[string]json.RawMessage
-			if err := json.Unmarshal(raw, &args); err != nil {
-				return nil, err
-			}
-			for _, a := range args {
-				delete(a, "value")
-			}
-			b, err := json.Marshal(args)
-			if err != nil {
-				return nil, err
-			}
-			m["args"] = b
-		}
-		b, err := json.Marshal(m)
-		if err != nil {
-			return nil, err
-		}
-		out[i] = b
+	for i := range p.reps {
+		out[i] = formJSON(nil, &p.reps[i])
 	}
-	return out, nil
+	return out
+}
+
+// formJSON appends the form of step s: its JSON as encoding/json writes a trace.Step (with
+// HTML escapes), without its ID, value, residual and verdict and without the values of its
+// arguments, the keys of the step and of each argument in name order.
+func formJSON(b []byte, s *trace.Step) []byte {
+	first := true
+	key := func(k string) {
+		if !first {
+			b = append(b, ',')
+		}
+		first = false
+		b = append(b, '"')
+		b = append(b, k...)
+		b = append(b, '"', ':')
+	}
+	str := func(k, v string, omitEmpty bool) {
+		if omitEmpty && v == "" {
+			return
+		}
+		key(k)
+		b = appendJSONEscaped(b, v, true)
+	}
+	list := func(k string, vs []string) {
+		if len(vs) == 0 {
+			return
+		}
+		key(k)
+		b = append(b, '[')
+		for i, v := range vs {
+			if i > 0 {
+				b = append(b, ',')
+			}
+			b = appendJSONEscaped(b, v, true)
+		}
+		b = append(b, ']')
+	}
+	b = append(b, '{')
+	if len(s.Args) > 0 {
+		key("args")
+		b = append(b, '[')
+		for i := range s.Args {
+			a := &s.Args[i]
+			if i > 0 {
+				b = append(b, ',')
+			}
+			b = append(b, '{')
+			if a.From != "" {
+				b = append(b, `"from":`...)
+				b = appendJSONEscaped(b, a.From, true)
+				b = append(b, ',')
+			}
+			b = append(b, `"name":`...)
+			b = appendJSONEscaped(b, a.Name, true)
+			b = append(b, `,"symbol":`...)
+			b = appendJSONEscaped(b, a.Symbol, true)
+			if a.Unit != "" {
+				b = append(b, `,"unit":`...)
+				b = appendJSONEscaped(b, a.Unit, true)
+			}
+			b = append(b, '}')
+		}
+		b = append(b, ']')
+	}
+	list("cautions", s.Cautions)
+	str("clause", s.Clause, false)
+	str("expr", s.Expr, true)
+	str("group", s.Group, true)
+	str("kind", string(s.Kind), false)
+	str("method", s.Method, true)
+	list("notes", s.Notes)
+	str("relation", s.Relation, true)
+	str("row", s.Row, true)
+	if s.Show != nil {
+		// A struct inside: its keys in field order.
+		key("show")
+		b = append(b, '{')
+		if s.Show.Expr != "" {
+			b = append(b, `"expr":`...)
+			b = appendJSONEscaped(b, s.Show.Expr, true)
+		}
+		if s.Show.Result != "" {
+			if s.Show.Expr != "" {
+				b = append(b, ',')
+			}
+			b = append(b, `"result":`...)
+			b = appendJSONEscaped(b, s.Show.Result, true)
+		}
+		b = append(b, '}')
+	}
+	str("symbol", s.Symbol, true)
+	str("title", s.Title, false)
+	str("unit", s.Unit, true)
+	str("verify", s.Verify, true)
+	return append(b, '}')
 }
 
 // Unpacker reads the packed steps of results.json back into whole steps.

@@ -274,3 +274,60 @@ func TestFormKeyCoversStep(t *testing.T) {
 		t.Error("ID, value or verdict changed the form key")
 	}
 }
+
+// formByMaps is the form of a step made with encoding/json itself (the reference library):
+// the step marshalled, its varying keys deleted, the maps marshalled again in key order.
+func formByMaps(t *testing.T, s trace.Step) []byte {
+	t.Helper()
+	key, err := json.Marshal(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var m map[string]json.RawMessage
+	if err := json.Unmarshal(key, &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"id", "value", "residual", "verdict"} {
+		delete(m, k)
+	}
+	if raw, ok := m["args"]; ok {
+		var args []map[string]json.RawMessage
+		if err := json.Unmarshal(raw, &args); err != nil {
+			t.Fatal(err)
+		}
+		for _, a := range args {
+			delete(a, "value")
+		}
+		if m["args"], err = json.Marshal(args); err != nil {
+			t.Fatal(err)
+		}
+	}
+	b, err := json.Marshal(m)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return b
+}
+
+// formJSON writes the bytes encoding/json gives for a form, for every step of the building
+// form's results and for steps with every optional field, HTML characters and escapes.
+func TestFormJSONMatchesEncodingJSON(t *testing.T) {
+	r := runFile(t, "", packBuilding)
+	steps := slices.Clone(r.Basis)
+	for _, d := range r.Designs {
+		steps = append(steps, d.Steps...)
+	}
+	odd := trace.Solve("x", "A <b> & \"c\"\n", "EN 1992 & co", "σ_<", "N/mm2", 1, "m", "v < 1", 0.5,
+		trace.Arg{Name: "a", Symbol: "a&b", Unit: "", From: "/basis/x"}, trace.Arg{Name: "b", Symbol: "b", Unit: "mm"})
+	odd.Group, odd.Row, odd.Relation, odd.Notes, odd.Cautions = "G\u2028", "row <1>", "a ≤ b", []string{"n1", ""}, []string{"c\x01"}
+	for _, show := range []*trace.Display{nil, {}, {Expr: "a < b"}, {Result: "yes"}, {Expr: "e", Result: "r"}} {
+		s := odd
+		s.Show = show
+		steps = append(steps, s)
+	}
+	for _, s := range steps {
+		if got, want := formJSON(nil, &s), formByMaps(t, s); !bytes.Equal(got, want) {
+			t.Fatalf("step %s: form\n%s\nwant\n%s", s.ID, got, want)
+		}
+	}
+}
