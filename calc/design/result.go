@@ -26,7 +26,7 @@ type Result struct {
 	Input       *model.Input      // the input as read
 	Designs     []Design          // one per column and lift, in input order
 	Methods     []Method          // the methods and assumptions of the calculation, for the design basis
-	Building    *building.Derived // what was derived from the building form; nil for the actions form
+	Building    *building.Derived // what was derived from the building form (its lifts without their steps, which the designs hold); nil for the actions form
 	Sizes       []SizeResult      // the section-size finder, when asked for
 	// Basis holds the steps that hold for the whole project, each once, with IDs of the form
 	// basis/<part>/<name> (BasisPrefix): the code parameters, ψ factors, materials, cover

@@ -112,6 +112,8 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 				if emit != nil {
 					addInteraction(&r.Designs[k])
 				}
+				// Each design holds its derivation's steps now: the lift's own copy is let go.
+				d.Lifts[k].Steps, dvs[k] = nil, nil
 			}
 		})
 		if emit != nil {
