@@ -98,9 +98,10 @@ func document(r *design.Result, b *book, p place) docView {
 	printed := map[string]bool{}
 	for _, g := range gs {
 		i := g.governing
-		for k, s := range b.traces[i] {
-			if p.opt.full() || briefStep(r.Designs[i].Steps[k]) {
-				printed[s.ID] = true
+		prefix := b.prefix(i)
+		for _, s := range r.Designs[i].Steps {
+			if p.opt.full() || briefStep(s) {
+				printed[prefix+s.ID] = true
 			}
 		}
 	}

@@ -427,46 +427,6 @@ func sheet(b *book, i int, p place) sheetView {
 	return v
 }
 
-// book holds what every sheet of a result needs to link its steps: the sheets' names, each
-// design's trace with full step IDs, and where each step ID is.
-type book struct {
-	r      *design.Result
-	names  []string       // sheet base names, one per design
-	traces [][]trace.Step // each design's trace, IDs from the root
-	at     map[string]where
-}
-
-// where is a step's design and its number on that design's sheet; design is basisDesign for
-// a step of the project basis, numbered in the basis.
-type where struct{ design, number int }
-
-// basisDesign marks a step of the project basis in a where.
-const basisDesign = -1
-
-// stepAt returns the step (its own ID) at w.
-func (b *book) stepAt(w where) trace.Step {
-	if w.design == basisDesign {
-		return b.r.Basis[w.number-1]
-	}
-	return b.r.Designs[w.design].Steps[w.number-1]
-}
-
-func newBook(r *design.Result) *book {
-	b := &book{r: r, names: names(r), traces: make([][]trace.Step, len(r.Designs)), at: map[string]where{}}
-	for k, s := range r.Basis {
-		b.at[s.ID] = where{basisDesign, k + 1}
-	}
-	for i, d := range r.Designs {
-		b.traces[i] = d.Trace()
-		for k, s := range b.traces[i] {
-			if _, ok := b.at[s.ID]; !ok {
-				b.at[s.ID] = where{i, k + 1}
-			}
-		}
-	}
-	return b
-}
-
 // place says how one rendering links steps on other sheets and which steps it prints.
 type place struct {
 	onePage bool    // every design in one document
@@ -488,37 +448,26 @@ func (p place) shows(id string, s trace.Step) bool {
 	return p.opt.full() || briefStep(s)
 }
 
-// target returns where the link to step id (at w) from the sheet of design from leads: the
-// same page, another design's sheet, or the index sheet for the project basis.
-func (b *book) target(from int, w where, id string) target {
-	a := anchorName("s-", id)
-	switch {
-	case w.design == from:
-		return target{anchor: a}
-	case w.design == basisDesign:
-		return target{sheet: "index", anchor: a} // the index sheet holds the project basis
-	}
-	return target{sheet: b.names[w.design], anchor: a}
-}
-
 // groups gathers the steps of design i under their Step.Group, groups in order of first
 // appearance; each step keeps its number in the trace.
 func groups(b *book, i int, p place) ([]groupView, []stepView) {
-	steps := b.traces[i]
 	own := b.r.Designs[i].Steps
+	prefix := b.prefix(i)
+	f := b.finder(i)
 	var out []groupView
 	var margin []stepView
 	at := map[string]int{}
 	var sub []bool // per group: whether its last step is a folded sub-step
-	for k, s := range steps {
-		if !p.shows(s.ID, own[k]) {
+	for k := range own {
+		if !p.shows(prefix+own[k].ID, own[k]) {
 			continue
 		}
+		s := wholeStep(prefix, own[k])
 		n, added := groupIn(&out, at, s.Group, "Further steps")
 		if added {
 			sub = append(sub, false)
 		}
-		v := step(s, k+1, b, i, p)
+		v := step(s, k+1, f, p)
 		if wideMargin(s) && !p.opt.full() {
 			margin = append(margin, v)
 			continue
@@ -570,7 +519,9 @@ func wideMargin(s trace.Step) bool {
 	return s.Kind == trace.KindCheck && s.Verdict == trace.Pass && len(s.Args) > 0 && s.Value <= marginRatio
 }
 
-func step(s trace.Step, n int, b *book, from int, p place) stepView {
+// step lays out step s (whole IDs), number n on the sheet that f links from.
+func step(s trace.Step, n int, f finder, p place) stepView {
+	b, from := f.b, f.from
 	clause := s.Clause
 	if !p.opt.full() {
 		clause = shortClause(clause)
@@ -642,7 +593,7 @@ func step(s trace.Step, n int, b *book, from int, p place) stepView {
 	seen := map[where]bool{}
 	ids := map[where]string{}
 	for _, a := range s.Args {
-		w, ok := b.at[a.From]
+		w, ok := f.at(a.From)
 		if a.From == "" || !ok || seen[w] || w.design == from && w.number == n {
 			continue
 		}
@@ -721,9 +672,10 @@ func basisGroups(b *book, p place) []groupView {
 	p.opt.Detail = Brief // one line a step, clauses without the edition of EN 1992-1-1
 	var out []groupView
 	at := map[string]int{}
+	f := b.finder(basisDesign)
 	for k, s := range b.r.Basis {
 		n, _ := groupIn(&out, at, s.Group, "Project basis")
-		v := step(s, k+1, b, basisDesign, p)
+		v := step(s, k+1, f, p)
 		v.Prefix = "B."
 		out[n].Steps = append(out[n].Steps, v)
 	}

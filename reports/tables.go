@@ -42,9 +42,9 @@ type cells struct {
 
 // find returns the step of design i with the own ID local.
 func (c cells) find(i int, local string) (trace.Step, bool) {
-	for k, s := range c.b.r.Designs[i].Steps {
+	for _, s := range c.b.r.Designs[i].Steps {
 		if s.ID == local {
-			return c.b.traces[i][k], true
+			return wholeStep(c.b.prefix(i), s), true
 		}
 	}
 	return trace.Step{}, false
@@ -77,9 +77,10 @@ func (c cells) matching(i int, pattern func(id string) bool) inline {
 // " + "; "–" where none matches.
 func (c cells) joined(i int, pattern func(id string) bool, mark func(trace.Step) inline) inline {
 	var parts []inline
-	for k, s := range c.b.r.Designs[i].Steps {
+	prefix := c.b.prefix(i)
+	for _, s := range c.b.r.Designs[i].Steps {
 		if pattern(s.ID) {
-			parts = append(parts, mark(c.b.traces[i][k]))
+			parts = append(parts, mark(wholeStep(prefix, s)))
 		}
 	}
 	if len(parts) == 0 {

@@ -1,0 +1,149 @@
+package reports
+
+import (
+	"strings"
+
+	"colsheet/calc/design"
+	"colsheet/calc/trace"
+)
+
+// book holds what every sheet of a result needs to link its steps: the sheets' names and the
+// means to find where a whole step ID is. It is read only once made, so that sheets may be
+// built from it at the same time.
+type book struct {
+	r     *design.Result
+	names []string         // sheet base names, one per design
+	basis map[string]int   // whole ID of a step of the project basis → its number (the last of equal IDs)
+	lifts map[string][]int // start of a design's whole IDs, "COLUMN/LIFT/" → the designs so named, in order
+}
+
+// where is a step's design and its number on that design's sheet; design is basisDesign for
+// a step of the project basis, numbered in the basis.
+type where struct{ design, number int }
+
+// basisDesign marks a step of the project basis in a where.
+const basisDesign = -1
+
+// newBook indexes the sheets of r and the starts of its designs' step IDs.
+func newBook(r *design.Result) *book {
+	b := &book{r: r, names: names(r), basis: make(map[string]int, len(r.Basis)), lifts: make(map[string][]int, len(r.Designs))}
+	for k, s := range r.Basis {
+		b.basis[s.ID] = k + 1
+	}
+	for i := range r.Designs {
+		p := b.prefix(i)
+		b.lifts[p] = append(b.lifts[p], i)
+	}
+	return b
+}
+
+// prefix returns the start of the whole IDs of design i's steps, as Design.Trace makes them.
+func (b *book) prefix(i int) string {
+	d := &b.r.Designs[i]
+	return d.Column + "/" + d.Storey + "/"
+}
+
+// wholeStep returns step s of the design whose whole IDs start with prefix, with its ID and
+// references made whole as Design.Trace makes them.
+func wholeStep(prefix string, s trace.Step) trace.Step {
+	s.ID = prefix + s.ID
+	if len(s.Args) == 0 {
+		return s
+	}
+	args := make([]trace.Arg, len(s.Args))
+	for j, a := range s.Args {
+		switch {
+		case strings.HasPrefix(a.From, "/"):
+			a.From = a.From[1:]
+		case a.From != "":
+			a.From = prefix + a.From
+		}
+		args[j] = a
+	}
+	s.Args = args
+	return s
+}
+
+// stepAt returns the step (its own ID) at w.
+func (b *book) stepAt(w where) trace.Step {
+	if w.design == basisDesign {
+		return b.r.Basis[w.number-1]
+	}
+	return b.r.Designs[w.design].Steps[w.number-1]
+}
+
+// target returns where the link to step id (at w) from the sheet of design from leads: the
+// same page, another design's sheet, or the index sheet for the project basis.
+func (b *book) target(from int, w where, id string) target {
+	a := anchorName("s-", id)
+	switch {
+	case w.design == from:
+		return target{anchor: a}
+	case w.design == basisDesign:
+		return target{sheet: "index", anchor: a} // the index sheet holds the project basis
+	}
+	return target{sheet: b.names[w.design], anchor: a}
+}
+
+// finder finds whole step IDs for the sheet of one design (or the basis); it indexes that
+// design's own steps, which its steps use most, and is used by one goroutine.
+type finder struct {
+	b    *book
+	from int            // the design whose sheet links, or basisDesign
+	own  map[string]int // own ID of a step of design from → its number (the first of equal IDs)
+}
+
+// finder returns the finder for the sheet of design from (basisDesign: the project basis).
+func (b *book) finder(from int) finder {
+	f := finder{b: b, from: from}
+	if from == basisDesign {
+		return f
+	}
+	steps := b.r.Designs[from].Steps
+	f.own = make(map[string]int, len(steps))
+	for k, s := range steps {
+		if _, ok := f.own[s.ID]; !ok {
+			f.own[s.ID] = k + 1
+		}
+	}
+	return f
+}
+
+// at returns where the step of whole ID id is: a step of the project basis first, else the
+// first design, in the order of the result, that has a step of that whole ID, at its first.
+func (f finder) at(id string) (where, bool) {
+	if n, ok := f.b.basis[id]; ok {
+		return where{basisDesign, n}, true
+	}
+	// A column or lift name may hold a "/", so every split of id into a design's start and an
+	// own ID is tried; the first design that has the step wins.
+	best, found := where{}, false
+	for k := 0; k < len(id); k++ {
+		if id[k] != '/' {
+			continue
+		}
+		for _, i := range f.b.lifts[id[:k+1]] {
+			if found && i >= best.design {
+				break
+			}
+			if n := f.number(i, id[k+1:]); n > 0 {
+				best, found = where{i, n}, true
+				break
+			}
+		}
+	}
+	return best, found
+}
+
+// number returns the number of the first step of design i with the own ID local, 0 where none.
+func (f finder) number(i int, local string) int {
+	if i == f.from {
+		return f.own[local]
+	}
+	for k, s := range f.b.r.Designs[i].Steps {
+		if s.ID == local {
+			return k + 1
+		}
+	}
+	return 0
+}
