@@ -66,9 +66,10 @@ func restrainFace(n int, s, limit float64) FaceRestraint {
 	k := int(extraValue(float64(n), m))
 	f.Reach, f.Extra = int(m), k
 	f.Farthest = farthestValue(float64(n), float64(k), s)
-	for i := 0; i <= k+1; i++ {
+	f.Restrained = make([]int, k+2)
+	for i := range f.Restrained {
 		// round(i·(n − 1)/(k + 1)) in integers, halves up.
-		f.Restrained = append(f.Restrained, (2*i*(n-1)+k+1)/(2*(k+1)))
+		f.Restrained[i] = (2*i*(n-1) + k + 1) / (2 * (k + 1))
 	}
 	return f
 }
