@@ -1,7 +1,6 @@
 package reports
 
 import (
-	"strings"
 
 	"colsheet/calc/design"
 	"colsheet/calc/trace"
@@ -41,27 +40,6 @@ func newBook(r *design.Result) *book {
 func (b *book) prefix(i int) string {
 	d := &b.r.Designs[i]
 	return d.Column + "/" + d.Storey + "/"
-}
-
-// wholeStep returns step s of the design whose whole IDs start with prefix, with its ID and
-// references made whole as Design.Trace makes them.
-func wholeStep(prefix string, s trace.Step) trace.Step {
-	s.ID = prefix + s.ID
-	if len(s.Args) == 0 {
-		return s
-	}
-	args := make([]trace.Arg, len(s.Args))
-	for j, a := range s.Args {
-		switch {
-		case strings.HasPrefix(a.From, "/"):
-			a.From = a.From[1:]
-		case a.From != "":
-			a.From = prefix + a.From
-		}
-		args[j] = a
-	}
-	s.Args = args
-	return s
 }
 
 // stepAt returns the step (its own ID) at w.

@@ -67,7 +67,7 @@ func TestWholeStepIsTrace(t *testing.T) {
 		for i := range r.Designs {
 			tr := r.Designs[i].Trace()
 			for k, s := range r.Designs[i].Steps {
-				if got := wholeStep(b.prefix(i), s); !reflect.DeepEqual(got, tr[k]) {
+				if got := design.WholeStep(b.prefix(i), s); !reflect.DeepEqual(got, tr[k]) {
 					t.Fatalf("%s: design %d step %d: got %+v, want %+v", name, i, k+1, got, tr[k])
 				}
 			}

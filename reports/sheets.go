@@ -462,7 +462,7 @@ func groups(b *book, i int, p place) ([]groupView, []stepView) {
 		if !p.shows(prefix+own[k].ID, own[k]) {
 			continue
 		}
-		s := wholeStep(prefix, own[k])
+		s := design.WholeStep(prefix, own[k])
 		n, added := groupIn(&out, at, s.Group, "Further steps")
 		if added {
 			sub = append(sub, false)

@@ -44,7 +44,7 @@ type cells struct {
 func (c cells) find(i int, local string) (trace.Step, bool) {
 	for _, s := range c.b.r.Designs[i].Steps {
 		if s.ID == local {
-			return wholeStep(c.b.prefix(i), s), true
+			return design.WholeStep(c.b.prefix(i), s), true
 		}
 	}
 	return trace.Step{}, false
@@ -80,7 +80,7 @@ func (c cells) joined(i int, pattern func(id string) bool, mark func(trace.Step)
 	prefix := c.b.prefix(i)
 	for _, s := range c.b.r.Designs[i].Steps {
 		if pattern(s.ID) {
-			parts = append(parts, mark(wholeStep(prefix, s)))
+			parts = append(parts, mark(design.WholeStep(prefix, s)))
 		}
 	}
 	if len(parts) == 0 {

@@ -203,23 +203,30 @@ func (d *Design) Trace() []trace.Step {
 	prefix := d.Column + "/" + d.Storey + "/"
 	out := make([]trace.Step, len(d.Steps))
 	for i, s := range d.Steps {
-		s.ID = prefix + s.ID
-		if len(s.Args) > 0 {
-			args := make([]trace.Arg, len(s.Args))
-			for j, a := range s.Args {
-				switch {
-				case strings.HasPrefix(a.From, "/"):
-					a.From = a.From[1:]
-				case a.From != "":
-					a.From = prefix + a.From
-				}
-				args[j] = a
-			}
-			s.Args = args
-		}
-		out[i] = s
+		out[i] = WholeStep(prefix, s)
 	}
 	return out
+}
+
+// WholeStep returns step s of the design whose IDs start with prefix ("COLUMN/LIFT/") as Trace
+// gives it: its ID and its arguments' sources as whole IDs.
+func WholeStep(prefix string, s trace.Step) trace.Step {
+	s.ID = prefix + s.ID
+	if len(s.Args) == 0 {
+		return s
+	}
+	args := make([]trace.Arg, len(s.Args))
+	for j, a := range s.Args {
+		switch {
+		case strings.HasPrefix(a.From, "/"):
+			a.From = a.From[1:]
+		case a.From != "":
+			a.From = prefix + a.From
+		}
+		args[j] = a
+	}
+	s.Args = args
+	return s
 }
 
 // LiftLevel is the level of the foot and of the top of a lift, mm above the base of its column.
