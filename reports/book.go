@@ -1,7 +1,6 @@
 package reports
 
 import (
-
 	"colsheet/calc/design"
 	"colsheet/calc/trace"
 )
