@@ -99,7 +99,9 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 		if in.Options.Typical.On && b.Bars == nil {
 			typical = r.typicalUses()
 		}
-		each(len(cols), func(ci int) {
+		// Each column's typical pass, then its lifts handed on in order, column after column
+		// (the lifts of a column are contiguous and the columns in order).
+		finish := func(ci int) {
 			if typical != nil {
 				r.typicalColumn(in, dvs, typical, cols[ci])
 			}
@@ -112,16 +114,26 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 				if emit != nil {
 					addInteraction(&r.Designs[k])
 				}
-				// Each design holds its derivation's steps now: the lift's own copy is let go.
+			}
+		}
+		// Each design holds its derivation's steps now: the lifts' own copies are let go.
+		release := func(ci int) {
+			for k := cols[ci].lo; k < cols[ci].hi; k++ {
 				d.Lifts[k].Steps, dvs[k] = nil, nil
 			}
-		})
-		if emit != nil {
-			for k := range r.Designs {
+		}
+		if emit == nil {
+			each(len(cols), func(ci int) { finish(ci); release(ci) })
+		} else if err := eachInOrder(len(cols), finish, func(ci int) error {
+			release(ci)
+			for k := cols[ci].lo; k < cols[ci].hi; k++ {
 				if err := emit(k, &r.Designs[k]); err != nil {
-					return nil, err
+					return err
 				}
 			}
+			return nil
+		}); err != nil {
+			return nil, err
 		}
 	} else {
 		for ci := range in.Columns {
