@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"bytes"
 	"encoding/json"
+	"hash/maphash"
 	"fmt"
 	"io"
 	"math"
@@ -289,8 +290,14 @@ func (s *JSONStream) End(r *design.Result) error {
 		}
 		s.e.step(st, "", s.pk.form(st))
 	}
-	s.e.raw(`],"forms":`)
-	s.e.value(s.pk.forms())
+	s.e.raw(`],"forms":[`)
+	for i := range s.pk.reps {
+		if i > 0 {
+			s.e.raw(",")
+		}
+		s.e.form(&s.pk.reps[i])
+	}
+	s.e.raw("]")
 	s.e.raw("}\n")
 	return s.e.flush()
 }
@@ -433,6 +440,15 @@ func (e *jsonWriter) step(st *trace.Step, prefix string, k int) {
 	b = append(b, '}')
 	e.scratch = b
 	_, e.err = e.w.Write(b)
+}
+
+// form writes the form of step st (see formJSON).
+func (e *jsonWriter) form(st *trace.Step) {
+	if e.err != nil {
+		return
+	}
+	e.scratch = formJSON(e.scratch[:0], st)
+	_, e.err = e.w.Write(e.scratch)
 }
 
 // appendJSONFloat appends v as encoding/json writes a float64: the shortest form that reads
@@ -649,38 +665,39 @@ type jsonStep struct {
 
 // packer collects the distinct forms of the steps it packs, in the order of first use.
 type packer struct {
-	index map[string]int
-	reps  []trace.Step // one step of each form
-	key   []byte
+	seed  maphash.Seed
+	index map[uint64][]int // form hash to the forms with that hash
+	reps  []trace.Step     // one step of each form
 }
 
-func newPacker() *packer { return &packer{index: map[string]int{}} }
+func newPacker() *packer { return &packer{seed: maphash.MakeSeed(), index: map[uint64][]int{}} }
 
 // form returns the index of the form of step s, adding it at the end when it is new.
 func (p *packer) form(s *trace.Step) int {
-	p.key = formKey(p.key[:0], s)
-	if k, ok := p.index[string(p.key)]; ok {
-		return k
+	h := formHash(p.seed, s)
+	for _, k := range p.index[h] {
+		if sameForm(&p.reps[k], s) {
+			return k
+		}
 	}
 	k := len(p.reps)
-	p.index[string(p.key)] = k
+	p.index[h] = append(p.index[h], k)
 	p.reps = append(p.reps, *s)
 	return k
 }
 
-// formKey appends to b a key of the form of step s: every field of trace.Step but its ID,
-// value, residual and verdict and its arguments' values, each field with its length, so that
-// two steps share a key exactly when they share a form.
-func formKey(b []byte, s *trace.Step) []byte {
+// formHash returns a hash of the form of step s: every field of trace.Step but its ID, value,
+// residual and verdict and its arguments' values (see sameForm).
+func formHash(seed maphash.Seed, s *trace.Step) uint64 {
+	var h maphash.Hash
+	h.SetSeed(seed)
 	str := func(v string) {
-		b = strconv.AppendInt(b, int64(len(v)), 10)
-		b = append(b, ':')
-		b = append(b, v...)
+		h.WriteString(v)
+		h.WriteByte(0)
 	}
 	for _, v := range []string{s.Group, s.Title, s.Clause, string(s.Kind), s.Symbol, s.Expr, s.Unit, s.Row, s.Method, s.Verify, s.Relation} {
 		str(v)
 	}
-	b = strconv.AppendInt(b, int64(len(s.Args)), 10)
 	for i := range s.Args {
 		a := &s.Args[i]
 		str(a.Name)
@@ -688,30 +705,39 @@ func formKey(b []byte, s *trace.Step) []byte {
 		str(a.Unit)
 		str(a.From)
 	}
+	h.WriteByte(byte(len(s.Args)))
 	for _, l := range [][]string{s.Notes, s.Cautions} {
-		// nil and empty lists write alike (omitempty).
-		b = strconv.AppendInt(b, int64(len(l)), 10)
 		for _, v := range l {
 			str(v)
 		}
+		h.WriteByte(byte(len(l)))
 	}
-	if s.Show == nil {
-		b = append(b, '-')
-	} else {
-		b = append(b, '+')
+	if s.Show != nil {
 		str(s.Show.Expr)
 		str(s.Show.Result)
 	}
-	return b
+	return h.Sum64()
 }
 
-// forms returns the forms collected (see formJSON).
-func (p *packer) forms() []json.RawMessage {
-	out := make([]json.RawMessage, len(p.reps))
-	for i := range p.reps {
-		out[i] = formJSON(nil, &p.reps[i])
+// sameForm reports whether steps a and b share a form: they differ at most in their IDs,
+// values, residuals and verdicts and their arguments' values.
+func sameForm(a, b *trace.Step) bool {
+	if a.Group != b.Group || a.Title != b.Title || a.Clause != b.Clause || a.Kind != b.Kind || a.Symbol != b.Symbol ||
+		a.Expr != b.Expr || a.Unit != b.Unit || a.Row != b.Row || a.Method != b.Method || a.Verify != b.Verify ||
+		a.Relation != b.Relation || len(a.Args) != len(b.Args) || !slices.Equal(a.Notes, b.Notes) ||
+		!slices.Equal(a.Cautions, b.Cautions) || (a.Show == nil) != (b.Show == nil) {
+		return false
 	}
-	return out
+	if a.Show != nil && *a.Show != *b.Show {
+		return false
+	}
+	for i := range a.Args {
+		x, y := &a.Args[i], &b.Args[i]
+		if x.Name != y.Name || x.Symbol != y.Symbol || x.Unit != y.Unit || x.From != y.From {
+			return false
+		}
+	}
+	return true
 }
 
 // formJSON appends the form of step s: its JSON as encoding/json writes a trace.Step (with

@@ -1,6 +1,7 @@
 package building
 
 import (
+	"colsheet/calc/work"
 	"fmt"
 	"strings"
 
@@ -68,34 +69,41 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 	}
 	levels := Levels(b, g, panel)
 	d := &Derived{Grid: g, Levels: levels}
-	cols := map[[2]int][]Lift{}
+	// The columns are independent: each derived on a worker, kept in grid order.
 	var order [][2]int
 	for i := 0; i < g.NX; i++ {
 		for j := 0; j < g.NY; j++ {
 			if g.Has[i][j] {
-				cols[[2]int{i, j}] = columnLifts(in, g, levels, i, j)
 				order = append(order, [2]int{i, j})
 			}
 		}
 	}
-	var ends map[[2]int][][2]endQ
+	lifts := make([][]Lift, len(order))
+	work.Each(len(order), func(k int) { lifts[k] = columnLifts(in, g, levels, order[k][0], order[k][1]) })
+	ends := make([][][2]endQ, len(order))
 	if b.Analysis == model.AnalysisFrame {
-		var err error
-		if ends, err = frameEnds(in, g, levels, cols); err != nil {
+		cols := map[[2]int][]Lift{}
+		for k, at := range order {
+			cols[at] = lifts[k]
+		}
+		byCol, err := frameEnds(in, g, levels, cols)
+		if err != nil {
 			return nil, fmt.Errorf("%s:%d: building: %v", in.File, b.Line, err)
 		}
+		for k, at := range order {
+			ends[k] = byCol[at]
+		}
 	} else {
-		ends = map[[2]int][][2]endQ{}
-		for _, k := range order {
-			ends[k] = subframeEnds(in, levels, cols[k])
-		}
+		work.Each(len(order), func(k int) { ends[k] = subframeEnds(in, levels, lifts[k]) })
 	}
-	for _, k := range order {
-		assembleMoments(cols[k], ends[k])
+	work.Each(len(order), func(k int) {
+		assembleMoments(lifts[k], ends[k])
 		if b.Options.L0FromFrame {
-			effectiveLengths(in, levels, cols[k])
+			effectiveLengths(in, levels, lifts[k])
 		}
-		d.Lifts = append(d.Lifts, cols[k]...)
+	})
+	for k := range order {
+		d.Lifts = append(d.Lifts, lifts[k]...)
 	}
 	return d, nil
 }

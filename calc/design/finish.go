@@ -7,6 +7,7 @@ import (
 	"colsheet/calc/section"
 	"colsheet/calc/slender"
 	"colsheet/calc/trace"
+	"colsheet/calc/work"
 )
 
 // areaBound is the largest steel area, as a fraction of Ac, searched for the required area.
@@ -94,7 +95,7 @@ const (
 // AddInteraction computes, for every design with bars, the N–M diagrams about both axes and
 // the My–Mz contour at NEd of its section (EN 1992-1-1:2004 6.1), for plotting.
 func AddInteraction(r *Result) {
-	each(len(r.Designs), func(k int) { addInteraction(&r.Designs[k]) })
+	work.Each(len(r.Designs), func(k int) { addInteraction(&r.Designs[k]) })
 }
 
 // addInteraction computes the interaction data of design d, as AddInteraction.

@@ -6,18 +6,16 @@ import (
 	"colsheet/calc/creep"
 	"colsheet/calc/frame"
 	"math"
-	"runtime"
 	"slices"
 	"strconv"
 	"strings"
-	"sync"
-	"sync/atomic"
 
 	"colsheet/calc/code"
 	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/slender"
 	"colsheet/calc/trace"
+	"colsheet/calc/work"
 )
 
 // Version is the version Run writes into a result; the command replaces it with its build's
@@ -71,7 +69,7 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 		// only to steps of its own column, so each column has its own hoister: the take-down's
 		// steps that repeat a basis step (code parameters, ψ factors) are the basis's, and each
 		// lift refers to them.
-		each(len(cols), func(ci int) {
+		work.Each(len(cols), func(ci int) {
 			h := r.bs.hoister()
 			for k := cols[ci].hi - 1; k >= cols[ci].lo; k-- {
 				lf := &d.Lifts[k]
@@ -123,8 +121,8 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 			}
 		}
 		if emit == nil {
-			each(len(cols), func(ci int) { finish(ci); release(ci) })
-		} else if err := eachInOrder(len(cols), finish, func(ci int) error {
+			work.Each(len(cols), func(ci int) { finish(ci); release(ci) })
+		} else if err := work.EachInOrder(len(cols), finish, func(ci int) error {
 			release(ci)
 			for k := cols[ci].lo; k < cols[ci].hi; k++ {
 				if err := emit(k, &r.Designs[k]); err != nil {
@@ -151,8 +149,8 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 			}
 		}
 		if emit == nil {
-			each(len(r.cases), one)
-		} else if err := eachInOrder(len(r.cases), one, func(k int) error { return emit(k, &r.Designs[k]) }); err != nil {
+			work.Each(len(r.cases), one)
+		} else if err := work.EachInOrder(len(r.cases), one, func(k int) error { return emit(k, &r.Designs[k]) }); err != nil {
 			return nil, err
 		}
 	}
@@ -178,117 +176,6 @@ func columnSpans(lifts []building.Lift) []span {
 		lo = hi
 	}
 	return out
-}
-
-// each calls f(i) for every i in [0, n) on at most GOMAXPROCS goroutines and returns when all
-// are done; f(i) must write only what belongs to i. A panic in f is raised again in the caller.
-func each(n int, f func(i int)) {
-	w := min(runtime.GOMAXPROCS(0), n)
-	if w <= 1 {
-		for i := 0; i < n; i++ {
-			f(i)
-		}
-		return
-	}
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	var once sync.Once
-	var caught any
-	for range w {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			defer func() {
-				if p := recover(); p != nil {
-					once.Do(func() { caught = p })
-					next.Store(int64(n)) // the others stop at their next item
-				}
-			}()
-			for i := int(next.Add(1)) - 1; i < n; i = int(next.Add(1)) - 1 {
-				f(i)
-			}
-		}()
-	}
-	wg.Wait()
-	if caught != nil {
-		panic(caught)
-	}
-}
-
-// eachInOrder calls f(i) for every i in [0, n) as each does and emit(i) in the caller's
-// goroutine in order of i, as soon as f(i) and every emit before it are done; the workers keep
-// at most a bounded number of items ahead of emit, so that what f makes can be let go by emit.
-// An error from emit stops the work and is returned; a panic in f is raised again in the caller.
-func eachInOrder(n int, f func(i int), emit func(i int) error) error {
-	w := min(runtime.GOMAXPROCS(0), n)
-	if w <= 1 {
-		for i := 0; i < n; i++ {
-			f(i)
-			if err := emit(i); err != nil {
-				return err
-			}
-		}
-		return nil
-	}
-	window := make(chan struct{}, 8*w) // a slot per item between its start and its emit
-	ready := make(chan int, 8*w)
-	stop := make(chan struct{})
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	var once sync.Once
-	var caught any
-	for range w {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			defer func() {
-				if p := recover(); p != nil {
-					once.Do(func() { caught = p; close(stop) })
-				}
-			}()
-			for {
-				select {
-				case window <- struct{}{}:
-				case <-stop:
-					return
-				}
-				i := int(next.Add(1)) - 1
-				if i >= n {
-					return
-				}
-				f(i)
-				select {
-				case ready <- i:
-				case <-stop:
-					return
-				}
-			}
-		}()
-	}
-	var err error
-	done := make([]bool, n)
-	for emitted := 0; emitted < n && err == nil; {
-		select {
-		case i := <-ready:
-			done[i] = true
-		case <-stop:
-			wg.Wait()
-			panic(caught)
-		}
-		for emitted < n && done[emitted] && err == nil {
-			err = emit(emitted)
-			emitted++
-			<-window
-		}
-	}
-	if err != nil {
-		once.Do(func() { close(stop) })
-	}
-	wg.Wait()
-	if caught != nil {
-		panic(caught)
-	}
-	return err
 }
 
 // Derivation is the traced origin of a lift's actions when they come from the building form:

@@ -1,0 +1,121 @@
+// Package work runs independent items of a calculation on the machine's cores, results kept
+// in input order.
+package work
+
+import (
+	"runtime"
+	"sync"
+	"sync/atomic"
+)
+
+// Each calls f(i) for every i in [0, n) on at most GOMAXPROCS goroutines and returns when all
+// are done; f(i) must write only what belongs to i. A panic in f is raised again in the caller.
+func Each(n int, f func(i int)) {
+	w := min(runtime.GOMAXPROCS(0), n)
+	if w <= 1 {
+		for i := 0; i < n; i++ {
+			f(i)
+		}
+		return
+	}
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	var once sync.Once
+	var caught any
+	for range w {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			defer func() {
+				if p := recover(); p != nil {
+					once.Do(func() { caught = p })
+					next.Store(int64(n)) // the others stop at their next item
+				}
+			}()
+			for i := int(next.Add(1)) - 1; i < n; i = int(next.Add(1)) - 1 {
+				f(i)
+			}
+		}()
+	}
+	wg.Wait()
+	if caught != nil {
+		panic(caught)
+	}
+}
+
+// EachInOrder calls f(i) for every i in [0, n) as Each does and emit(i) in the caller's
+// goroutine in order of i, as soon as f(i) and every emit before it are done; the workers keep
+// at most a bounded number of items ahead of emit, so that what f makes can be let go by emit.
+// An error from emit stops the work and is returned; a panic in f is raised again in the caller.
+func EachInOrder(n int, f func(i int), emit func(i int) error) error {
+	w := min(runtime.GOMAXPROCS(0), n)
+	if w <= 1 {
+		for i := 0; i < n; i++ {
+			f(i)
+			if err := emit(i); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	window := make(chan struct{}, 8*w) // a slot per item between its start and its emit
+	ready := make(chan int, 8*w)
+	stop := make(chan struct{})
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	var once sync.Once
+	var caught any
+	for range w {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			defer func() {
+				if p := recover(); p != nil {
+					once.Do(func() { caught = p; close(stop) })
+				}
+			}()
+			for {
+				select {
+				case window <- struct{}{}:
+				case <-stop:
+					return
+				}
+				i := int(next.Add(1)) - 1
+				if i >= n {
+					return
+				}
+				f(i)
+				select {
+				case ready <- i:
+				case <-stop:
+					return
+				}
+			}
+		}()
+	}
+	var err error
+	done := make([]bool, n)
+	for emitted := 0; emitted < n && err == nil; {
+		select {
+		case i := <-ready:
+			done[i] = true
+		case <-stop:
+			wg.Wait()
+			panic(caught)
+		}
+		for emitted < n && done[emitted] && err == nil {
+			err = emit(emitted)
+			emitted++
+			<-window
+		}
+	}
+	if err != nil {
+		once.Do(func() { close(stop) })
+	}
+	wg.Wait()
+	if caught != nil {
+		panic(caught)
+	}
+	return err
+}
+
