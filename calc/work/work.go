@@ -118,4 +118,3 @@ func EachInOrder(n int, f func(i int), emit func(i int) error) error {
 	}
 	return err
 }
-
