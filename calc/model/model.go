@@ -20,6 +20,10 @@ type Input struct {
 	Options   Options     // method choices
 	Columns   []Column    // columns in input order (the actions form)
 	Building  *Building   // the building form; nil for the actions form
+	// MomentSigns is the sign convention of the end moments as given (SignsFace or
+	// SignsMemberEnds); the model holds them in the face convention whatever it says.
+	MomentSigns string
+	Actions     *ActionsTable // the table of cases of the actions form; nil when the YAML gives them
 }
 
 // Project is the title block of every sheet.
@@ -147,6 +151,37 @@ type Storey struct {
 	PhiEf  float64 // effective creep ratio
 	HasPhi bool    // whether PhiEf was given
 	Creep  *Creep  // data to compute φef by Annex B and (5.19); nil when not given
+	// Cases are the sets of design actions of the lift (the load combinations of an analysis),
+	// in input order: those of `cases:` or of the actions table, or the one case "1" of NEd and
+	// M. NEd, MY and MZ above are those of the first case.
+	Cases []Case
+}
+
+// Case is one set of design actions of a lift: a load combination of the frame analysis.
+type Case struct {
+	Name string
+	File string  // the file that gives it: the YAML file, or the actions table
+	Line int     // its line in File
+	NEd  float64 // design axial force, N, compression positive (negative: tension)
+	MY   Ends    // first-order end moments about y, N·mm, face convention (equal signs: tension on the same face)
+	MZ   Ends    // first-order end moments about z, N·mm, face convention
+	// V holds the design shear forces that accompany bending about y (acting along h) and about
+	// z (along b), N; HasV says which were given (without, VEd = |M_top − M_bottom|/l).
+	V    [2]float64
+	HasV [2]bool
+}
+
+// Moment sign conventions of the input (Input.MomentSigns).
+const (
+	SignsFace       = "face"        // the same sign is tension on the same face (the default)
+	SignsMemberEnds = "member-ends" // clockwise positive at both ends, as analysis programs export them
+)
+
+// ActionsTable is the table of cases given by `actions: FILE.csv`.
+type ActionsTable struct {
+	Name   string // the path as given, relative to the YAML file
+	Data   []byte // the file's bytes as read
+	SHA256 string // hex SHA-256 of Data
 }
 
 // Ends holds the first-order moments at the two ends of a lift; equal signs mean single curvature.
