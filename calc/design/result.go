@@ -79,6 +79,11 @@ type Design struct {
 	Reasons        []string     // why the design fails, in words; empty when it passes
 	Cautions       []string     // cautions particular to this design
 	Steps          []trace.Step // the full trace of this design; IDs relative to the design (see Trace)
+	// Cases holds every load case of the lift in input order (one, named "1", for a lift given
+	// by NEd and M, and in the building form); the design's own values are those of the
+	// governing case, GoverningCase, the one of the highest utilisation.
+	Cases         []CaseResult
+	GoverningCase string
 
 	Interaction *Interaction // curves for plotting, once AddInteraction has run
 

@@ -291,6 +291,7 @@ type common struct {
 	p            code.Params
 	steps        []trace.Step
 	trialSteps   []trace.Step // the buffer of the trials' check steps
+	cases        *caseSet     // the lift's load cases when it has several; nil for one
 	cautions     []string
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
@@ -499,13 +500,27 @@ func One(in *model.Input, col *model.Column, st *model.Storey) Design {
 
 // design designs or checks one column over one lift whose actions may come from a derivation.
 func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) Design {
+	if len(st.Cases) > 1 && dv == nil {
+		// Several load cases: one bar pattern for all, led by the case of the largest NEd.
+		cs := newCaseSet(in, col, st, bs)
+		c := cs.all[cs.lead]
+		if col.Bars != nil {
+			p := c.givenPattern()
+			return c.settleCases(c.evaluate(p, true, true), p, true, nil)
+		}
+		d := c.search(nil)
+		if d.Cases == nil {
+			d = oneCase(d, &cs.storeys[cs.lead]) // no pattern fits the section at all
+		}
+		return d
+	}
 	c := newCommon(in, col, st, dv, bs)
 	if col.Bars != nil {
 		d := c.evaluate(c.givenPattern(), true, true)
 		c.withArrangements(&d, dv)
-		return c.finish(d)
+		return oneCase(c.finish(d), st)
 	}
-	return c.search(dv)
+	return oneCase(c.search(dv), st)
 }
 
 // withArrangements checks the design's bars once more for each moment arrangement with the

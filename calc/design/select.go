@@ -170,6 +170,10 @@ func (c *common) try(p detail.Pattern, floor float64, dv *Derivation) trial {
 	}
 	d := c.evaluate(p, false, false)
 	t := trial{d: d, ran: true}
+	if c.cases != nil {
+		t.keep = c.cases.trial(&t.d, p)
+		return t
+	}
 	if d.Status == StatusPass || d.failsOnlyOnFixed() {
 		c.withArrangements(&t.d, dv)
 		t.keep = t.d.Status == StatusPass || t.d.failsOnlyOnFixed()
@@ -226,6 +230,9 @@ func (c *common) search(dv *Derivation) Design {
 		// Every pattern fails for certain: show the one with the most steel, which fails loudly.
 		last := slices.MaxFunc(most, func(x, y option) int { return cmp.Compare(x.p.Area(), y.p.Area()) })
 		d := c.evaluate(last.p, false, true)
+		if c.cases != nil {
+			d = c.settleCases(d, last.p, false, nil)
+		}
 		if c.nEd.V > d.NRdMax {
 			d.Reasons = append([]string{"NEd exceeds the resistance to pure compression even with the most steel that fits: enlarge the section or raise the concrete class."}, d.Reasons...)
 		} else {
@@ -234,9 +241,17 @@ func (c *common) search(dv *Derivation) Design {
 		if r.above != nil {
 			d.Reasons = append(d.Reasons, "The patterns tried continue the bars of the lift above.")
 		}
+		if c.cases != nil {
+			return d
+		}
 		return c.finish(d)
 	}
 	d := c.evaluate(best.pattern, false, true)
+	if c.cases != nil {
+		d = c.settleCases(d, best.pattern, false, nil)
+		d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check of every load case; the arrangement with the lowest utilisation is shown."}, d.Reasons...)
+		return d
+	}
 	c.withArrangements(&d, dv)
 	d.Reasons = append([]string{"No bar arrangement from the listed diameters passes every check; the arrangement with the lowest utilisation is shown."}, d.Reasons...)
 	if r.above != nil {
@@ -296,6 +311,9 @@ func (c *common) preferTypical(ch *choice, list []option, floor float64, dv *Der
 // continuity of the bars and the costs behind the choice, and settles the design.
 func (c *common) chosen(ch choice, r rules, dv *Derivation) Design {
 	d := c.evaluate(ch.o.p, false, true)
+	if c.cases != nil {
+		return c.settleCases(d, ch.o.p, false, func(g *common, d *Design) { g.practice(d, ch, r) })
+	}
 	c.withArrangements(&d, dv)
 	c.practice(&d, ch, r)
 	return c.finish(d)
