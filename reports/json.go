@@ -98,32 +98,45 @@ type jsonLinks struct {
 }
 
 type jsonDesign struct {
-	Column      string      `json:"column"`
-	Storey      string      `json:"storey"`
-	B           float64     `json:"b_mm"`
-	H           float64     `json:"h_mm"`
-	Cover       float64     `json:"cover_mm"`
-	Fck         float64     `json:"fck_MPa"`
-	Fyk         float64     `json:"fyk_MPa"`
-	NEd         float64     `json:"NEd_kN"`
-	Axes        jsonAxes    `json:"axes"`
-	Biaxial     jsonBiaxial `json:"biaxial"`
-	AsReq       float64     `json:"As_req_mm2"`
-	AsMin       float64     `json:"As_min_mm2"`
-	AsMax       float64     `json:"As_max_mm2"`
-	AsProv      float64     `json:"As_prov_mm2"`
-	Bars        jsonBars    `json:"bars"`
-	Links       jsonLinks   `json:"links"`
-	Utilization float64     `json:"utilization"`
-	Status      string      `json:"status"`
-	Governing   string      `json:"governing"`
-	Steps       int         `json:"steps"`
-	NRdMax      float64     `json:"NRd_max_kN"`
-	Exact       *jsonExact  `json:"biaxial_exact,omitempty"`
-	Interaction *jsonCurves `json:"interaction,omitempty"`
-	Reasons     []string    `json:"reasons"`
-	Cautions    []string    `json:"cautions"`
-	Trace       []jsonStep  `json:"trace,omitempty"` // written by JSONStream.Design after the rest
+	Column        string      `json:"column"`
+	Storey        string      `json:"storey"`
+	B             float64     `json:"b_mm"`
+	H             float64     `json:"h_mm"`
+	Cover         float64     `json:"cover_mm"`
+	Fck           float64     `json:"fck_MPa"`
+	Fyk           float64     `json:"fyk_MPa"`
+	NEd           float64     `json:"NEd_kN"`
+	Axes          jsonAxes    `json:"axes"`
+	Biaxial       jsonBiaxial `json:"biaxial"`
+	AsReq         float64     `json:"As_req_mm2"`
+	AsMin         float64     `json:"As_min_mm2"`
+	AsMax         float64     `json:"As_max_mm2"`
+	AsProv        float64     `json:"As_prov_mm2"`
+	Bars          jsonBars    `json:"bars"`
+	Links         jsonLinks   `json:"links"`
+	Utilization   float64     `json:"utilization"`
+	Status        string      `json:"status"`
+	Governing     string      `json:"governing"`
+	Steps         int         `json:"steps"`
+	NRdMax        float64     `json:"NRd_max_kN"`
+	Exact         *jsonExact  `json:"biaxial_exact,omitempty"`
+	Interaction   *jsonCurves `json:"interaction,omitempty"`
+	Reasons       []string    `json:"reasons"`
+	Cautions      []string    `json:"cautions"`
+	GoverningCase string      `json:"governing_case"`
+	Cases         []jsonCase  `json:"cases"`
+	Trace         []jsonStep  `json:"trace,omitempty"` // written by JSONStream.Design after the rest
+}
+
+// jsonCase is one load case of a design: its results with the design's bars.
+type jsonCase struct {
+	Name        string   `json:"name"`
+	NEd         float64  `json:"NEd_kN"`
+	Axes        jsonAxes `json:"axes"`
+	Utilization float64  `json:"utilization"`
+	Status      string   `json:"status"`
+	Governing   string   `json:"governing"`
+	Prefix      string   `json:"steps_prefix"` // what the IDs of its steps start with below COLUMN/LIFT/
 }
 
 // jsonExact is the exact biaxial resistance along the resultant design moment.
@@ -337,6 +350,12 @@ func designJSON(d design.Design) jsonDesign {
 			SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks},
 		Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
 		NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions),
+	}
+	out.GoverningCase = d.GoverningCase
+	out.Cases = []jsonCase{}
+	for _, c := range d.Cases {
+		out.Cases = append(out.Cases, jsonCase{Name: c.Name, NEd: c.NEd / 1e3, Axes: jsonAxes{Y: axisJSON(c.Y), Z: axisJSON(c.Z)},
+			Utilization: c.Utilization, Status: c.Status, Governing: c.Governing, Prefix: c.Prefix})
 	}
 	if e := d.Exact; e != nil {
 		out.Exact = &jsonExact{MRd: e.MRd / 1e6, MRdY: e.My / 1e6, MRdZ: e.Mz / 1e6, Ratio: e.Ratio, Angle: e.Angle * 180 / math.Pi}
@@ -608,6 +627,13 @@ func finiteDesign(d *design.Design) error {
 	for k, a := range []*design.Axis{&d.Y, &d.Z} {
 		if vs := []float64{a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd}; !finite(vs...) {
 			return notFinite("design "+id()+" axis "+[]string{"y", "z"}[k], vs...)
+		}
+	}
+	for _, c := range d.Cases {
+		for k, a := range []*design.Axis{&c.Y, &c.Z} {
+			if vs := []float64{c.NEd, c.Utilization, a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd}; !finite(vs...) {
+				return notFinite("design "+id()+" case "+c.Name+" axis "+[]string{"y", "z"}[k], vs...)
+			}
 		}
 	}
 	if e := d.Exact; e != nil && !finite(e.MRd, e.Ratio, e.Angle, e.My, e.Mz) {

@@ -154,6 +154,7 @@ type sheetView struct {
 	Governing      inline
 	Summary        []kv
 	Axes           []axisRow
+	Cases          *tableView   // the load cases of the lift, one row each, where it has several
 	Sketch         []figureView // the section sketch of the cage (none where the design holds no bars)
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
 	Groups         []groupView
@@ -416,6 +417,7 @@ func sheet(b *book, i int, p place) sheetView {
 		ax("Design moment M_Ed", func(a design.Axis) inline { return qty(a.MEd, "Nmm") }),
 		ax("Resistance M_Rd", func(a design.Axis) inline { return qty(a.MRd, "Nmm") }),
 	}
+	v.Cases = casesTable(d, p.opt)
 	if sk, ok := cageSketch(d); ok {
 		v.Sketch = []figureView{{Body: picture(sk), Caption: txt(sk.Caption())}}
 	}
@@ -695,4 +697,49 @@ func groupIn(out *[]groupView, at map[string]int, g, fallback string) (n int, ad
 	at[g] = n
 	*out = append(*out, groupView{Title: rich(g)})
 	return n, true
+}
+
+// casesTable returns the table of the load cases of design d, where it has several: per case its
+// NEd, design moments and resistances about y and z, utilisation and governing check, each
+// value marked where its step changed since the previous revision; nil for a lift of one case.
+func casesTable(d design.Design, o Options) *tableView {
+	if len(d.Cases) < 2 {
+		return nil
+	}
+	prefix := d.Column + "/" + d.Storey + "/"
+	cell := func(c design.CaseResult, ids []string, v float64, unit string) inline {
+		for _, id := range ids {
+			for _, s := range d.Steps {
+				if s.ID == c.Prefix+id {
+					// No anchor: the governing case's steps carry theirs below.
+					out := qty(v, unit)
+					if o.changed(prefix+s.ID, s.Value) {
+						out = changed(out)
+					}
+					return out
+				}
+			}
+		}
+		return qty(v, unit)
+	}
+	t := &tableView{Title: txt("Load cases"), Align: "llrrrrrrl",
+		Head: []inline{txt("Case"), txt(""), rich("N_Ed"), rich("M_Ed,y"), rich("M_Rd,y"), rich("M_Ed,z"), rich("M_Rd,z"), txt("Utilisation"), txt("Governing check")}}
+	for _, c := range d.Cases {
+		mark := txt("")
+		if c.Name == d.GoverningCase && c.Prefix == "" {
+			mark = txt("governs")
+		}
+		status := numv(fmtNum(c.Utilization))
+		if c.Status != design.StatusPass {
+			status = cat(status, txt(" FAIL"))
+		}
+		t.Rows = append(t.Rows, []inline{txt(c.Name), mark,
+			cell(c, []string{"act/NEd"}, c.NEd, "N"),
+			cell(c, []string{"y/MEd", "y/MEd_curv", "y/MEd_stiff"}, c.Y.MEd, "Nmm"),
+			cell(c, []string{"y/MRd", "y/sec/M_Rd"}, c.Y.MRd, "Nmm"),
+			cell(c, []string{"z/MEd", "z/MEd_curv", "z/MEd_stiff"}, c.Z.MEd, "Nmm"),
+			cell(c, []string{"z/MRd", "z/sec/M_Rd"}, c.Z.MRd, "Nmm"),
+			status, dash(c.Governing)})
+	}
+	return t
 }

@@ -44,7 +44,7 @@ func ties(d *resultsCase) []tie {
 		{"b_mm", d.B, 1, []string{"geo/b"}},
 		{"h_mm", d.H, 1, []string{"geo/h"}},
 		{"NEd_kN", d.NEd, 1e3, []string{"act/NEd", "td/NEd"}},
-		{"As_min_mm2", d.AsMin, 1, []string{"det/As_min"}},
+		{"As_min_mm2", d.AsMin, 1, []string{"cases/As_min", "det/As_min"}},
 		{"As_max_mm2", d.AsMax, 1, []string{"det/As_max"}},
 	}
 	for _, a := range []struct {
@@ -54,6 +54,18 @@ func ties(d *resultsCase) []tie {
 		ts = append(ts,
 			tie{"axes." + a.n + ".MEd_kNm", a.ax.MEd, 1e6, []string{a.n + "/MEd", a.n + "/MEd_curv", a.n + "/MEd_stiff"}},
 			tie{"axes." + a.n + ".MRd_kNm", a.ax.MRd, 1e6, []string{a.n + "/MRd", a.n + "/sec/M_Rd"}})
+	}
+	for k, c := range d.Cases {
+		key, pre := fmt.Sprintf("cases[%d].", k), c.Prefix
+		ts = append(ts, tie{key + "NEd_kN", c.NEd, 1e3, []string{pre + "act/NEd", pre + "td/NEd"}})
+		for _, a := range []struct {
+			n  string
+			ax *resultsAxis
+		}{{"y", &c.Axes.Y}, {"z", &c.Axes.Z}} {
+			ts = append(ts,
+				tie{key + "axes." + a.n + ".MEd_kNm", a.ax.MEd, 1e6, []string{pre + a.n + "/MEd", pre + a.n + "/MEd_curv", pre + a.n + "/MEd_stiff"}},
+				tie{key + "axes." + a.n + ".MRd_kNm", a.ax.MRd, 1e6, []string{pre + a.n + "/MRd", pre + a.n + "/sec/M_Rd"}})
+		}
 	}
 	return append(ts,
 		tie{"cover_mm", d.Cover, 1, []string{"space/c_nom"}},

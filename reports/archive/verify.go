@@ -107,6 +107,17 @@ type results struct {
 }
 
 // resultsCase is one design of results.json: the contract values and the trace.
+// resultsLoadCase is one load case of a design in results.json.
+type resultsLoadCase struct {
+	Name string  `json:"name"`
+	NEd  float64 `json:"NEd_kN"`
+	Axes struct {
+		Y resultsAxis `json:"y"`
+		Z resultsAxis `json:"z"`
+	} `json:"axes"`
+	Prefix string `json:"steps_prefix"`
+}
+
 type resultsCase struct {
 	Column string  `json:"column"`
 	Lift   string  `json:"storey"`
@@ -135,6 +146,7 @@ type resultsCase struct {
 	Utilization float64           `json:"utilization"`
 	Status      string            `json:"status"`
 	Governing   string            `json:"governing"`
+	Cases       []resultsLoadCase `json:"cases"`
 	RawTrace    []json.RawMessage `json:"trace"`
 	Trace       []trace.Step      `json:"-"` // read back whole (reports.Unpacker)
 	byID        map[string]int    // index of each step of Trace by its ID, built on first use
