@@ -184,6 +184,20 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		if k == 1 {
 			ax = &d.Z
 		}
+		if c.tension {
+			ax.L0, ax.Lambda, ax.M01, ax.M02, ax.M0Ed = a.l0.V, a.lambda.V, a.m01.V, a.m02.V, a.m02.V
+			l.Group = "Design moment about " + n + " (tension)"
+			mEd := l.Add(trace.Formula(n+"/MEd", "Design moment in tension: the larger end moment, no imperfection or second order", "EN 1992-1-1:2004 6.1(4); 5.8.2",
+				"M_Ed", "Nmm", a.m02.V, "M_02", trace.A("M_02", a.m02)).
+				Note("NEd is a tension: the imperfections of 5.2, the minimum eccentricity of 6.1(4) and the second-order effects of 5.8 concern members in compression and do not apply."))
+			ax.MEd = mEd.V
+			mEd.Symbol = "M_Ed," + n
+			if last := l.Last(); full && last != nil {
+				last.Symbol = mEd.Symbol
+			}
+			mEds[k] = mEd
+			continue
+		}
 		l.Group = "Slenderness limit about " + n
 		lim := l.Add(onAxis(n, slender.LambdaLim(n+"/lambda_lim", kLim, a.factorA, factB, a.factorC, c.nRel)))
 		sl := l.Add(onAxis(n, slender.IsSlender(n+"/slender", a.lambda, lim)))
@@ -269,8 +283,15 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	l.Group = "Resistance to axial force"
 	nRdMax := l.Add(sec.nRdMaxStep("sec/NRd_max"))
 	d.NRdMax = nRdMax.V
-	resistance(trace.Check("sec/check_N", "Axial force", "EN 1992-1-1:2004 6.1", "N_Ed ≤ N_Rd,max",
-		c.nEd.V/nRdMax.V, "N_Ed / N_Rd_max", trace.A("N_Ed", c.nEd), trace.A("N_Rd_max", nRdMax)))
+	if c.tension {
+		nRdT := l.Add(trace.Formula("sec/NRd_t", "Resistance to pure tension: every bar at its design yield strength", "EN 1992-1-1:2004 6.1; 3.2.7",
+			"N_Rd,t", "N", as.V*c.fyd.V, "A_s * f_yd", trace.A("A_s", as), trace.A("f_yd", c.fyd)))
+		resistance(trace.Check("sec/check_Nt", "Axial tension", "EN 1992-1-1:2004 6.1", "|N_Ed| ≤ N_Rd,t",
+			-c.nEd.V/nRdT.V, "-N_Ed / N_Rd_t", trace.A("N_Ed", c.nEd), trace.A("N_Rd_t", nRdT)))
+	} else {
+		resistance(trace.Check("sec/check_N", "Axial force", "EN 1992-1-1:2004 6.1", "N_Ed ≤ N_Rd,max",
+			c.nEd.V/nRdMax.V, "N_Ed / N_Rd_max", trace.A("N_Ed", c.nEd), trace.A("N_Rd_max", nRdMax)))
+	}
 	var mRd [2]trace.Q
 	for k := 0; k < 2; k++ {
 		n := c.ax[k].name
@@ -290,7 +311,11 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 
 	// Fire resistance, EN 1992-1-2:2004 5.3.2, Method A (Table 5.2a, or Eq. (5.7)), or a rating
 	// verified elsewhere and recorded as such.
-	if f := c.fire(); f != nil && f.Rating > 0 {
+	if f := c.fire(); f != nil && f.Rating > 0 && c.tension {
+		l.Group = "Fire resistance R" + strconv.Itoa(f.Rating)
+		l.Add(fire.RatingInput("fire/R_req", f.Rating).
+			Caution("NEd is a tension: EN 1992-1-2 5.3.2 (Method A) concerns columns in compression and is not applied to this case; verify the fire resistance of the member in tension by other means (EN 1992-1-2 Section 4 or 5.6 as for members in tension)."))
+	} else if f != nil && f.Rating > 0 {
 		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Fck: c.fck, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, NEd: c.nEd,
 			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", ""),
 			MuFixed: !f.UseMuFi}
@@ -331,7 +356,9 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	aExp := l.Add(slender.ExponentA("bi/a", c.nEd, nRd))
 	d.Biaxial.A = aExp.V
 	d.Biaxial.Checked = !(ca.V == 1 && cb.V == 1)
-	exact := c.in.Options.Biaxial == model.BiaxialExact
+	// In tension (5.39) does not apply (5.8.9 concerns compression members): the exact
+	// resistance with an inclined neutral axis is the check.
+	exact := c.in.Options.Biaxial == model.BiaxialExact || c.tension
 	if mRd[0].V > 0 && mRd[1].V > 0 {
 		s := slender.BiaxialRatio("bi/ratio", mEds[0], mRd[0], mEds[1], mRd[1], aExp)
 		d.Biaxial.Ratio = s.Value

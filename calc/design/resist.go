@@ -120,6 +120,7 @@ type quick struct {
 	biaxial     bool    // (5.38) calls for (5.39)
 	ratioB      float64 // (5.39), 0 when not called for
 	ok          bool    // the section has a moment resistance about both axes
+	nRdT        float64 // in tension, the resistance As·fyd
 }
 
 // ratio returns the largest ratio of action to resistance of the checks.
@@ -127,7 +128,11 @@ func (q quick) ratio() float64 {
 	if !q.ok {
 		return math.Inf(1)
 	}
-	return math.Max(math.Max(q.nEd/q.nRdMax, q.ratioB), math.Max(q.mEd[0]/q.mRd[0], q.mEd[1]/q.mRd[1]))
+	r := math.Max(math.Max(q.nEd/q.nRdMax, q.ratioB), math.Max(q.mEd[0]/q.mRd[0], q.mEd[1]/q.mRd[1]))
+	if q.nEd < 0 {
+		r = math.Max(r, -q.nEd/q.nRdT)
+	}
+	return r
 }
 
 // quickResist evaluates the resistance checks of the pattern at the axial force nEd by the same
@@ -147,6 +152,12 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 		return q
 	}
 	as := p.Area()
+	if nEd < 0 {
+		// In tension: the bars alone, as the traced check sec/check_Nt.
+		if q.nRdT = as * c.fyd.V; -nEd >= q.nRdT {
+			return q
+		}
+	}
 	n := nEd / (c.ac.V * c.fcd.V) // as slender.RelativeForce
 	omega := slender.MechanicalRatioValue(as, c.fyd.V, c.ac.V, c.fcd.V)
 	bFac := slender.FactorBValue(omega)
@@ -196,7 +207,7 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 	q.ok = true
 	q.biaxial = !(slender.SlendernessRatiosCloseValue(c.ax[0].lambda.V, c.ax[1].lambda.V) &&
 		slender.EccentricitiesApartValue(q.mEd[0], q.mEd[1], c.b.V, c.h.V))
-	if c.in.Options.Biaxial == model.BiaxialExact {
+	if c.in.Options.Biaxial == model.BiaxialExact || nEd < 0 {
 		// The exact resistance along the resultant moment is the check, as in evaluate.
 		st, err := r.sec.Biaxial(nEd, math.Atan2(q.mEd[1], q.mEd[0]))
 		if err != nil {

@@ -292,6 +292,7 @@ type common struct {
 	steps        []trace.Step
 	trialSteps   []trace.Step // the buffer of the trials' check steps
 	cases        *caseSet     // the lift's load cases when it has several; nil for one
+	tension      bool         // NEd < 0: no imperfection, e0, slenderness or second order
 	cautions     []string
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
@@ -378,7 +379,12 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		c.nEd = l.Add(trace.Input("act/NEd", "Design axial force (compression positive)", "input", "N_Ed", "N", st.NEd))
 	}
 	c.nRel = l.Add(slender.RelativeForce("act/n", c.nEd, c.ac, c.fcd))
-	phiCreep, hasCreep := c.creepRatio(l, dv)
+	c.tension = c.nEd.V < 0
+	var phiCreep trace.Q
+	hasCreep := false
+	if !c.tension {
+		phiCreep, hasCreep = c.creepRatio(l, dv)
+	}
 
 	theta0 := bs.param["theta_0"]
 	ends := [2]model.Ends{st.MY, st.MZ}
@@ -403,6 +409,18 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 			a.l0 = dv.L0[k]
 		} else {
 			a.l0 = l.Add(trace.Input(n+"/l0", "Effective length for buckling about "+n, "input", "l_0,"+n, "mm", l0s[k]))
+		}
+		if c.tension {
+			// In tension the member does not buckle: no imperfection (5.2 concerns members in
+			// compression), no minimum eccentricity (6.1(4) concerns compression) and no
+			// second order; λ is recorded for the biaxial rule only.
+			a.m02i, a.m01i = a.m02, a.m01
+			a.ei, a.e0 = trace.Const(0, "e_i", "mm"), trace.Const(0, "e_0", "mm")
+			l.Group = "Slenderness about " + n
+			i := l.Add(onAxis(n, slender.RadiusOfGyration(n+"/i", a.depth)))
+			a.lambda = l.Add(onAxis(n, slender.Slenderness(n+"/lambda", a.l0, i)))
+			a.phiEf = trace.Const(0, "φ_ef", "")
+			continue
 		}
 		if in.Options.Imperfection == model.ImperfL0Over400 {
 			a.ei = l.Add(onAxis(n, slender.EccentricityL0Over400(n+"/ei", a.l0)))

@@ -122,3 +122,30 @@ func TestContourMyMz(t *testing.T) {
 		}
 	}
 }
+
+// Pure tension by hand: with every bar yielding, N = −As·fyd (EN 1992-1-1:2004 3.2.7, the
+// horizontal top branch; the concrete carries no tension, 3.1.7). For eight 20 mm bars and
+// fyd = 500/1.15: As = 8·π·20²/4 = 2513.27 mm², −As·fyd = −1092.73 kN. Just inside that force
+// the symmetric section has (almost) no moment resistance, and the resistance grows towards
+// N = 0 (common practice, no source).
+func TestTensionByHand(t *testing.T) {
+	s := sym8(t, 30, ParabolaRectangle)
+	as := 8 * math.Pi * 20 * 20 / 4
+	if !relClose(s.NRdMin(), -as*testFyd, 1e-12, 0) || !relClose(-as*500/1.15, -1092.73e3, 1e-5, 0) {
+		t.Fatalf("NRd,min %g, by hand %g", s.NRdMin(), -as*testFyd)
+	}
+	prev := 0.0
+	for _, frac := range []float64{0.999, 0.8, 0.5, 0.2, 0.0} {
+		st, err := s.MRdAt(AxisY, Positive, frac*s.NRdMin())
+		if err != nil {
+			t.Fatal(err)
+		}
+		if frac == 0.999 && math.Abs(st.M) > 0.01*as*testFyd*200 {
+			t.Errorf("at 0.999·NRd,min: M = %g, want about 0", st.M)
+		}
+		if math.Abs(st.M) < prev {
+			t.Errorf("at %g·NRd,min: |M| = %g falls below %g nearer pure tension", frac, math.Abs(st.M), prev)
+		}
+		prev = math.Abs(st.M)
+	}
+}
