@@ -388,6 +388,9 @@ func sheet(b *book, i int, p place) sheetView {
 		{txt("Links"), cat(txt("Ø"+fmtNum(d.Links.Dia).plain()+" mm at "), qty(d.Links.Spacing, "mm"),
 			txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))},
 	}
+	if len(d.Cases) > 1 {
+		v.Summary = append(v.Summary, kv{txt("Load cases"), txt(fmt.Sprintf("%d; governing: %s (the values of this sheet)", len(d.Cases), d.GoverningCase))})
+	}
 	if d.Biaxial.Checked {
 		v.Summary = append(v.Summary, kv{txt("Biaxial bending (5.39)"),
 			cat(txt("checked, a = "), numv(fmtNum(d.Biaxial.A)), txt(", ratio "), numv(fmtNum(d.Biaxial.Ratio)))})
