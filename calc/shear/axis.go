@@ -10,6 +10,9 @@ type Params struct {
 	Nu1    trace.Q // ν_1 of Eq. (6.9), recommended ν of Eq. (6.6N)
 	CotMin trace.Q // least cot θ, recommended 1 (Eq. (6.7N))
 	CotMax trace.Q // largest cot θ, recommended 2.5 (Eq. (6.7N))
+	// AxialStress takes αcw from the mean axial stress by (6.11.aN)-(6.11.cN); false takes
+	// αcw = 1, the recommended value for non-prestressed structures (6.2.3(3), Note 3).
+	AxialStress bool
 }
 
 // Recommended records the EN recommended values of the shear parameters for the concrete of
@@ -89,8 +92,14 @@ func Concrete(l *trace.Log, prefix string, in Input, p Params) trace.Q {
 // check, and the largest spacing; it returns z, cot θ, VRd,max, the check ratio and the spacing.
 func Links(l *trace.Log, prefix string, in Input, p Params) (z, cot, vRdMax, check, sReq trace.Q) {
 	z = l.Add(LeverArm(prefix+"z", in.D))
-	sig := l.Add(SigmaCpMean(prefix+"sigma_cp_m", in.NEd, in.Ac))
-	acw := l.Add(AlphaCw(prefix+"alpha_cw", sig, in.Fcd))
+	var acw trace.Q
+	if p.AxialStress {
+		sig := l.Add(SigmaCpMean(prefix+"sigma_cp_m", in.NEd, in.Ac))
+		acw = l.Add(AlphaCw(prefix+"alpha_cw", sig, in.Fcd))
+	} else {
+		acw = l.Add(trace.Input(prefix+"alpha_cw", "Coefficient for the state of stress in the compression chord (non-prestressed member)",
+			ec2+"6.2.3(3), note", "α_cw", "", 1))
+	}
 	cot = l.Add(CotTheta(prefix+"cot_theta", acw, in.BW, z, p.Nu1, in.Fcd, in.VEd, p.CotMin, p.CotMax))
 	vRdMax = l.Add(VRdMax(prefix+"V_Rdmax", acw, in.BW, z, p.Nu1, in.Fcd, cot))
 	check = l.Add(MaxCheck(prefix+"check_V_Rdmax", in.VEd, vRdMax))

@@ -59,7 +59,7 @@ const (
 )
 
 func params() Params {
-	return Params{CRdc: q(cRdc), K1: q(k1), VMinC: q(cVmin), Nu1: q(0.6 * (1 - fck/250)), CotMin: q(cotMin), CotMax: q(cotMax)}
+	return Params{CRdc: q(cRdc), K1: q(k1), VMinC: q(cVmin), Nu1: q(0.6 * (1 - fck/250)), CotMin: q(cotMin), CotMax: q(cotMax), AxialStress: true}
 }
 
 func section(asl, nEd, vEd, s float64) Input {
@@ -343,4 +343,33 @@ func find(t *testing.T, l *trace.Log, id string) trace.Step {
 	}
 	t.Fatalf("no step %s", id)
 	return trace.Step{}
+}
+
+// Without AxialStress, αcw = 1, the recommended value for non-prestressed members
+// (EN 1992-1-1:2004 6.2.3(3), Note 3): VRd,max at cot θ = 1 is then bw·z·ν1·fcd/2 by hand
+// whatever the axial force, and the step's clause is in the one form.
+func TestAlphaCwNonPrestressed(t *testing.T) {
+	p := params()
+	p.AxialStress = false
+	in := section(942, 900e3, 700e3, 0) // VEd beyond VRd,max even at cot θ = 1
+	l := &trace.Log{}
+	r := Axis(l, "", in, p)
+	var acw trace.Step
+	for _, s := range l.Steps {
+		if s.ID == "alpha_cw" {
+			acw = s
+		}
+		if !trace.ClauseForm(s.Clause) {
+			t.Errorf("step %s: clause %q", s.ID, s.Clause)
+		}
+	}
+	if acw.Value != 1 {
+		t.Fatalf("αcw = %g, want 1", acw.Value)
+	}
+	z := 0.9 * in.D.V
+	want := in.BW.V * z * 0.6 * (1 - fck/250) * in.Fcd.V / 2
+	if !r.Needed || math.Abs(r.VRdMax.V-want) > 1e-9*want {
+		t.Errorf("VRd,max = %g, by hand %g", r.VRdMax.V, want)
+	}
+	recheck(t, l.Steps...)
 }
