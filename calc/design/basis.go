@@ -1,6 +1,7 @@
 package design
 
 import (
+	"colsheet/calc/shear"
 	"reflect"
 	"slices"
 	"strconv"
@@ -36,6 +37,7 @@ type projectBasis struct {
 	fyk, fyd, es, dg             trace.Q
 	m, alphaM                    trace.Q // the imperfection by inclination only
 	bond                         detail.LapBond
+	shear                        shear.Params // the parameters of 6.2.2 and 6.2.3
 	laps                         map[float64]trace.Q // l0 by bar diameter
 	covers                       []coverSet
 	creeps                       []creepSet
@@ -121,6 +123,9 @@ func newBasis(in *model.Input) *projectBasis {
 	b.fyk = l.Add(trace.Input("mat/steel/f_yk", "Characteristic yield strength of reinforcement", "EN 1992-1-1:2004 3.2.2(3)P", "f_yk", "MPa", in.Materials.Fyk))
 	b.fyd = l.Add(material.Fyd("mat/steel/f_yd", b.fyk, b.param["gamma_s"]))
 	b.es = b.param["Es"]
+
+	l.Group = "Shear (EN 1992-1-1 6.2)"
+	b.shear = shear.Recommended(l, "shear/", b.param["gamma_c"], b.fck)
 
 	if in.Options.Imperfection != model.ImperfL0Over400 {
 		l.Group = "Geometric imperfection"

@@ -92,11 +92,29 @@ type caseDesign struct {
 // the index of the governing case, the one of the highest utilisation (the first of equals),
 // and every case's design.
 func (cs *caseSet) governing(lead Design, p detail.Pattern, given bool) (int, []caseDesign) {
+	// One link arrangement for every case: where another case's shear needs closer links,
+	// a case takes them over (and is evaluated again if it is the lead).
+	demand := make([]float64, len(cs.all))
+	least := math.Inf(1)
+	for k, c := range cs.all {
+		if demand[k] = c.shearDemand(p); demand[k] < least {
+			least = demand[k]
+		}
+	}
 	out := make([]caseDesign, len(cs.all))
 	g := cs.lead
 	for k, c := range cs.all {
+		c.shearCap = nil
+		if least < demand[k] {
+			for j := range cs.all {
+				if demand[j] == least {
+					c.shearCap = &shearCap{s: least, name: cs.storeys[j].Cases[0].Name}
+					break
+				}
+			}
+		}
 		d := lead
-		if k != cs.lead {
+		if k != cs.lead || c.shearCap != nil {
 			d = c.evaluate(p, given, true)
 		}
 		out[k] = caseDesign{c, d}

@@ -143,3 +143,40 @@ func TestTensionCase(t *testing.T) {
 		t.Errorf("MRd,y at NEd = −400 kN %g not below %g at NEd = 0", d.Y.MRd, dz.Y.MRd)
 	}
 }
+
+// Shear: VEd from the end moments over the length is |M_top − M_bot|/l (face convention,
+// double curvature adds); a case with a large given V needs links closer than 9.5.3, and the
+// lift's links serve every case: each case's provided spacing is the same, within the spacing
+// that Eq. (6.8) allows, and a case that needs none of its own takes it over from the other
+// (EN 1992-1-1:2004 6.2.3; the resistances themselves are checked by hand in calc/shear).
+func TestCasesShear(t *testing.T) {
+	st := withCases(lift(3000, 3000, 0, 0, 0, 0, 0), [5]float64{1800, 60, -30, 10, 10}, [5]float64{1500, 50, 40, 5, 5})
+	st.Length = 3000
+	st.Cases[1].V, st.Cases[1].HasV = [2]float64{300e3, 0}, [2]bool{true, false}
+	col := model.Column{ID: "V", B: 350, H: 350, Cover: 35, Storeys: []model.Storey{st}}
+	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
+	checkTrace(t, d)
+	if d.Status != StatusPass {
+		t.Fatalf("status %s: %v", d.Status, d.Reasons)
+	}
+	// Case C1 (no V given): VEd,y = |60 − (−30)| kNm / 3 m = 30 kN.
+	c1 := d.Cases[0]
+	pre := c1.Prefix
+	near(t, "VEd,y of C1", stepValue(t, d, pre+"y/shear/V_Ed"), 90e6/3000, 1e-12)
+	near(t, "VEd,y of C2", stepValue(t, d, d.Cases[1].Prefix+"y/shear/V_Ed"), 300e3, 1e-12)
+	sReq := stepValue(t, d, d.Cases[1].Prefix+"y/shear/s_req")
+	if d.Links.SpacingShear != sReq || d.Links.Spacing > sReq+1e-9 {
+		t.Errorf("links at %g, shear spacing %g, s_req %g", d.Links.Spacing, d.Links.SpacingShear, sReq)
+	}
+	s1 := stepValue(t, d, pre+"links/s")
+	s2 := stepValue(t, d, d.Cases[1].Prefix+"links/s")
+	if s1 != s2 || s1 != d.Links.Spacing {
+		t.Errorf("case spacings %g and %g, design %g", s1, s2, d.Links.Spacing)
+	}
+	if stepValue(t, d, pre+"links/s_cases") != sReq {
+		t.Errorf("C1 does not take over the spacing of C2")
+	}
+	if !d.Cases[1].Y.LinksShear || d.Cases[1].Y.VRdMax <= 300e3 || d.Cases[0].Y.LinksShear {
+		t.Errorf("shear results %+v / %+v", d.Cases[1].Y, d.Cases[0].Y)
+	}
+}

@@ -95,9 +95,6 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	sMax := l.Add(detail.MaxLinkSpacing("links/s_max", phi, bMin, param(prm, "link_spacing_bars", ""), param(prm, "link_spacing_max", "mm")))
 	sRed := l.Add(detail.ReducedLinkSpacing("links/s_red", sMax, param(prm, "link_spacing_zone", "")))
 	step := trace.Const(c.in.Options.LinkStep, "Δs", "mm")
-	s1 := l.Add(detail.RoundDown("links/s", "Link spacing provided", "s_t", sMax, step))
-	s2 := l.Add(detail.RoundDown("links/s_zone", "Link spacing provided near beams, slabs and laps", "s_t,red", sRed, step))
-	d.Links = Links{Dia: link, Spacing: s1.V, SpacingReduced: s2.V}
 	zone := l.Add(trace.Formula("links/zone", "Length of the zones with the reduced spacing above and below beams and slabs", "EN 1992-1-1:2004 9.5.3(4)", "l_zone", "mm",
 		math.Max(col.B, col.H), "max(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
 	d.Detailing.ZoneLength = zone.V
@@ -138,6 +135,24 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		checks = append(checks, checked{"cover/check_link", false}, checked{"cover/check_bar", false})
 		d.Detailing.CoverRequired = cl.V
 	}
+	// Shear, EN 1992-1-1:2004 6.2: the links provided are the closer of 9.5.3 and of the shear.
+	plan := c.shearSteps(l, tensionBars(pos), phi, phiT, cnom)
+	l.Group = "Links"
+	sGen, sZone := sMax, sRed
+	if plan.limit {
+		sGen = l.Add(trace.Formula("links/s_lim", "Largest link spacing: 9.5.3(3) and the shear", "EN 1992-1-1:2004 9.5.3(3); 6.2.3(3)", "s_t,lim", "mm",
+			math.Min(sMax.V, plan.sReq.V), "min(s_max, s_V)", trace.A("s_max", sMax), trace.A("s_V", plan.sReq)))
+		sZone = l.Add(trace.Formula("links/s_zone_lim", "Largest link spacing near beams, slabs and laps: 9.5.3(4) and the shear", "EN 1992-1-1:2004 9.5.3(4); 6.2.3(3)", "s_t,red,lim", "mm",
+			math.Min(sRed.V, plan.sReq.V), "min(s_red, s_V)", trace.A("s_red", sRed), trace.A("s_V", plan.sReq)))
+		if plan.sReq.V < sMax.V {
+			d.Links.SpacingShear = plan.sReq.V
+		}
+	}
+	s1 := l.Add(detail.RoundDown("links/s", "Link spacing provided", "s_t", sGen, step))
+	s2 := l.Add(detail.RoundDown("links/s_zone", "Link spacing provided near beams, slabs and laps", "s_t,red", sZone, step))
+	d.Links.Dia, d.Links.Spacing, d.Links.SpacingReduced = link, s1.V, s2.V
+	checks = append(checks, c.shearChecks(l, plan, s1, &d)...)
+
 	// Laps of the bars, EN 1992-1-1:2004 8.4, 8.7; all bars lapped at one section above the floor.
 	// The lap checks are cheap arithmetic: trials make them too (their check steps alone are kept).
 	l.Group = "Laps (EN 1992-1-1 8.4, 8.7)"

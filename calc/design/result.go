@@ -108,6 +108,12 @@ type Axis struct {
 	PhiEf     float64 // effective creep ratio used
 	MEd       float64 // N·mm, design moment
 	MRd       float64 // N·mm, resistance at NEd with the provided bars
+	// Shear along the lever arm of this bending (EN 1992-1-1:2004 6.2): VEd, VRd,c and, where
+	// VEd > VRd,c and links are designed for it (6.2.3), VRd,max; Shear false where not checked.
+	Shear      bool
+	VEd, VRdc  float64 // N
+	VRdMax     float64 // N
+	LinksShear bool    // VEd > VRd,c: VRdMax holds
 }
 
 // Biaxial holds the check of EN 1992-1-1 5.8.9.
@@ -197,6 +203,7 @@ type Links struct {
 	Dia            float64 // mm
 	Spacing        float64 // mm, general spacing
 	SpacingReduced float64 // mm, within the zones of 9.5.3(4)
+	SpacingShear   float64 // mm, the largest spacing the shear allows where it is below that of 9.5.3; 0 where shear does not govern
 }
 
 // Trace returns the design's steps with their IDs and references made whole,

@@ -293,6 +293,7 @@ type common struct {
 	trialSteps   []trace.Step // the buffer of the trials' check steps
 	cases        *caseSet     // the lift's load cases when it has several; nil for one
 	tension      bool         // NEd < 0: no imperfection, e0, slenderness or second order
+	shearCap     *shearCap    // the link spacing that another load case's shear allows; nil: none
 	cautions     []string
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
@@ -315,6 +316,7 @@ type common struct {
 type axisCommon struct {
 	name     string  // "y" or "z"
 	depth    trace.Q // section dimension along the lever arm
+	top, bot trace.Q // first-order end moments, face convention
 	l0       trace.Q
 	m01, m02 trace.Q
 	ei       trace.Q
@@ -403,6 +405,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 			top = l.Add(trace.Input(n+"/M_top", "First-order moment at the top about "+n, "input", "M_top,"+n, "Nmm", ends[k].Top))
 			bot = l.Add(trace.Input(n+"/M_bot", "First-order moment at the bottom about "+n, "input", "M_bot,"+n, "Nmm", ends[k].Bottom))
 		}
+		a.top, a.bot = top, bot
 		a.m02 = l.Add(onAxis(n, slender.M02(n+"/M02", top, bot)))
 		a.m01 = l.Add(onAxis(n, slender.M01(n+"/M01", top, bot, a.m02)))
 		if dv != nil && dv.L0[k].From != "" {

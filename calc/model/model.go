@@ -145,6 +145,7 @@ type Storey struct {
 	L0Y    float64 // effective length for buckling about y, mm
 	L0Z    float64 // effective length for buckling about z, mm
 	Length float64 // member length l for αh, mm; 0 when not given
+	Clear  float64 // clear height between the beams, mm, for the shear from the end moments; 0 when not known
 	NEd    float64 // design axial force, N, compression positive
 	MY     Ends    // first-order end moments about y, N·mm
 	MZ     Ends    // first-order end moments about z, N·mm

@@ -23,24 +23,25 @@ var (
 const (
 	ClauseChosen = "chosen: "                 // prefix: a choice the design made among candidates
 	ClauseAbove  = "design of the lift above" // a value taken over from another sheet
+	ClauseCases  = "the load cases of the lift" // a value taken over from another load case of the same lift
 )
 
 // Given reports whether s is a value given to the calculation (an input or a table value), not
 // one the calculation chose or took over from another design.
 func Given(s Step) bool {
-	return (s.Kind == KindInput || s.Kind == KindTable) && !strings.HasPrefix(s.Clause, ClauseChosen) && s.Clause != ClauseAbove
+	return (s.Kind == KindInput || s.Kind == KindTable) && !strings.HasPrefix(s.Clause, ClauseChosen) && s.Clause != ClauseAbove && s.Clause != ClauseCases
 }
 
 // Chosen reports whether s records a value the design chose among candidates or took over from
 // another design (an input or table step marked so): a result of the calculation, not an input.
 func Chosen(s Step) bool {
-	return (s.Kind == KindInput || s.Kind == KindTable) && (strings.HasPrefix(s.Clause, ClauseChosen) || s.Clause == ClauseAbove)
+	return (s.Kind == KindInput || s.Kind == KindTable) && (strings.HasPrefix(s.Clause, ClauseChosen) || s.Clause == ClauseAbove || s.Clause == ClauseCases)
 }
 
 // ClauseForm reports whether c is a clause reference in the one form the sheets use.
 func ClauseForm(c string) bool {
 	switch {
-	case c == "input", c == ClauseAbove:
+	case c == "input", c == ClauseAbove, c == ClauseCases:
 		return true
 	case strings.HasPrefix(c, "common practice"):
 		rest := strings.TrimPrefix(c, "common practice")
