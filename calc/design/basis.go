@@ -37,7 +37,7 @@ type projectBasis struct {
 	fyk, fyd, es, dg             trace.Q
 	m, alphaM                    trace.Q // the imperfection by inclination only
 	bond                         detail.LapBond
-	shear                        shear.Params // the parameters of 6.2.2 and 6.2.3
+	shear                        shear.Params        // the parameters of 6.2.2 and 6.2.3
 	laps                         map[float64]trace.Q // l0 by bar diameter
 	covers                       []coverSet
 	creeps                       []creepSet

@@ -21,8 +21,8 @@ var (
 
 // The clauses of values a calculation found rather than was given.
 const (
-	ClauseChosen = "chosen: "                 // prefix: a choice the design made among candidates
-	ClauseAbove  = "design of the lift above" // a value taken over from another sheet
+	ClauseChosen = "chosen: "                   // prefix: a choice the design made among candidates
+	ClauseAbove  = "design of the lift above"   // a value taken over from another sheet
 	ClauseCases  = "the load cases of the lift" // a value taken over from another load case of the same lift
 )
 
