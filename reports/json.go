@@ -70,6 +70,11 @@ type jsonAxis struct {
 	PhiEf     float64 `json:"phi_ef"`
 	MEd       float64 `json:"MEd_kNm"`
 	MRd       float64 `json:"MRd_kNm"`
+	// Shear along the lever arm of this bending (6.2); null where not checked, and VRd,max
+	// where VEd ≤ VRd,c (no links designed for the shear).
+	VEd    *float64 `json:"VEd_kN"`
+	VRdC   *float64 `json:"VRd_c_kN"`
+	VRdMax *float64 `json:"VRd_max_kN"`
 }
 
 type jsonAxes struct {
@@ -90,11 +95,12 @@ type jsonBars struct {
 }
 
 type jsonLinks struct {
-	Dia            float64 `json:"dia_mm"`
-	Spacing        float64 `json:"spacing_mm"`
-	SpacingReduced float64 `json:"spacing_reduced_mm"`
-	SpacingLap     float64 `json:"spacing_lap_mm"` // over the laps, 8.7.4 and 9.5.3(4); 0 where not detailed
-	LapCount       int     `json:"lap_count"`      // links within the lap length; one more lies beyond each end
+	Dia            float64  `json:"dia_mm"`
+	Spacing        float64  `json:"spacing_mm"`
+	SpacingReduced float64  `json:"spacing_reduced_mm"`
+	SpacingShear   *float64 `json:"spacing_shear_mm"` // the largest spacing the shear allows, where below that of 9.5.3; null where shear does not govern
+	SpacingLap     float64  `json:"spacing_lap_mm"`   // over the laps, 8.7.4 and 9.5.3(4); 0 where not detailed
+	LapCount       int      `json:"lap_count"`        // links within the lap length; one more lies beyond each end
 }
 
 type jsonDesign struct {
@@ -181,9 +187,25 @@ type jsonSize struct {
 }
 
 func axisJSON(a design.Axis) jsonAxis {
-	return jsonAxis{L0M: a.L0 / 1e3, Lambda: a.Lambda, LambdaLim: a.LambdaLim, Slender: a.Slender,
+	out := jsonAxis{L0M: a.L0 / 1e3, Lambda: a.Lambda, LambdaLim: a.LambdaLim, Slender: a.Slender,
 		M01: a.M01 / 1e6, M02: a.M02 / 1e6, Ei: a.Ei, M0Ed: a.M0Ed / 1e6, M2: a.M2 / 1e6,
 		PhiEf: a.PhiEf, MEd: a.MEd / 1e6, MRd: a.MRd / 1e6}
+	kN := func(v float64) *float64 { v /= 1e3; return &v }
+	if a.Shear {
+		out.VEd, out.VRdC = kN(a.VEd), kN(a.VRdc)
+		if a.LinksShear {
+			out.VRdMax = kN(a.VRdMax)
+		}
+	}
+	return out
+}
+
+// positive returns v, or nil where it is not above 0 (null in results.json).
+func positive(v float64) *float64 {
+	if v > 0 {
+		return &v
+	}
+	return nil
 }
 
 func nonNil(s []string) []string {
@@ -347,7 +369,7 @@ func designJSON(d design.Design) jsonDesign {
 		AsReq:   d.AsReq, AsMin: d.AsMin, AsMax: d.AsMax, AsProv: d.AsProv,
 		Bars: jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
 		Links: jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
-			SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks},
+			SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks, SpacingShear: positive(d.Links.SpacingShear)},
 		Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
 		NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions),
 	}
@@ -621,17 +643,17 @@ func finiteDesign(d *design.Design) error {
 	id := func() string { return d.Column + "/" + d.Storey }
 	if vs := []float64{d.B, d.H, d.Cover, d.Fck, d.Fyk, d.NEd, d.AsReq, d.AsMin, d.AsMax,
 		d.AsProv, d.NRdMax, d.Utilization, d.Biaxial.A, d.Biaxial.Ratio, d.Bars.Dia, d.Links.Dia,
-		d.Links.Spacing, d.Links.SpacingReduced, d.Detailing.LapLinkSpacing}; !finite(vs...) {
+		d.Links.Spacing, d.Links.SpacingReduced, d.Links.SpacingShear, d.Detailing.LapLinkSpacing}; !finite(vs...) {
 		return notFinite("design "+id(), vs...)
 	}
 	for k, a := range []*design.Axis{&d.Y, &d.Z} {
-		if vs := []float64{a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd}; !finite(vs...) {
+		if vs := []float64{a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd, a.VEd, a.VRdc, a.VRdMax}; !finite(vs...) {
 			return notFinite("design "+id()+" axis "+[]string{"y", "z"}[k], vs...)
 		}
 	}
 	for _, c := range d.Cases {
 		for k, a := range []*design.Axis{&c.Y, &c.Z} {
-			if vs := []float64{c.NEd, c.Utilization, a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd}; !finite(vs...) {
+			if vs := []float64{c.NEd, c.Utilization, a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd, a.VEd, a.VRdc, a.VRdMax}; !finite(vs...) {
 				return notFinite("design "+id()+" case "+c.Name+" axis "+[]string{"y", "z"}[k], vs...)
 			}
 		}
