@@ -37,7 +37,24 @@
 //	            a column's durability and fire override design.durability and design.fire key
 //	            by key, so that what the column leaves out (the exposure, the rating) is inherited
 //	storeys:   list of {name, l0: {y, z} or one value, length, NEd,
-//	            M: {y: {top, bottom}, z: {top, bottom}}, phi_ef or creep}
+//	            M: {y: {top, bottom}, z: {top, bottom}}, cases, phi_ef or creep};
+//	            NEd and M are the one case "1" of the lift; or instead
+//	cases:     list of {name, NEd, M: {y: {top, bottom}, z: {top, bottom}}, V: {y, z}}, the load
+//	            cases of the lift in order, names unique in the lift; M optional (0), V optional
+//	            (each of y and z), V.y the shear that goes with bending about y
+//	moment_signs: face (the default: equal signs are tension on the same face) or member-ends
+//	            (clockwise positive at both ends, the column's bottom the start of the member, as
+//	            analysis programs export them); for every end moment of the YAML file and the
+//	            actions table alike, held in the model in the face convention (see FaceEnds)
+//	actions:   FILE.csv, a table of the cases of every lift of columns:, relative to the folder
+//	            of the input file; its lifts then give no NEd, M or cases. The header names the
+//	            columns in any order: column, lift, case, NEd_kN, My_top_kNm, My_bottom_kNm,
+//	            Mz_top_kNm, Mz_bottom_kNm (required), Vy_kN, Vz_kN (optional; empty: not given);
+//	            others are warned of and left unread. Cells are separated by "," or ";" (with ";",
+//	            decimal commas are read); a UTF-8 byte order mark, CRLF and quoted cells too.
+//
+// NEd is compression positive; a negative NEd is tension.
+//
 //	creep:     {rh (%, 10 to 100), t0 (days: 28, "28 d" or "28 days"), cement: N (S, N or R),
 //	            ratio (M0Eqp/M0Ed, 0 to 1; 0 when not given)}
 //
@@ -101,20 +118,50 @@ const (
 var yamlLine = regexp.MustCompile(`^yaml: line (\d+): (.*)$`)
 
 // Parse reads the input file called file with contents data. On any fault it returns nil and
-// Errors listing every fault found, in line order.
+// Errors listing every fault found, in line order. It reads no other file: an input that names
+// an actions table (actions: FILE.csv) is refused with a fault at that key; use ParseWith.
 func Parse(file string, data []byte) (*model.Input, error) {
+	return ParseWith(file, data, nil)
+}
+
+// ParseWith reads the input file called file with contents data, and the actions table it
+// names, if any, through read; it drops the warnings (see ParseWarn).
+func ParseWith(file string, data []byte, read func(name string) ([]byte, error)) (*model.Input, error) {
+	in, _, err := ParseWarn(file, data, read)
+	return in, err
+}
+
+// ParseWarn reads the input file called file with contents data, and the actions table it
+// names, if any, through read; it returns the input, the warnings and, on any fault, a nil input
+// and Errors listing every fault of both files (the input file's first, each in line order).
+//
+// read is given the table's name as written under actions: (a path relative to the folder of
+// the input file) and returns the file's bytes; calc/ opens no files, so the caller decides how.
+// The command line passes os.ReadFile(filepath.Join(filepath.Dir(inputPath), name)). A nil read
+// reads nothing: an input with an actions table is then refused with a fault at actions.
+func ParseWarn(file string, data []byte, read func(name string) ([]byte, error)) (*model.Input, []Warning, error) {
 	sum := sha256.Sum256(data)
-	r := &reader{file: file}
+	if read == nil {
+		read = readNothing
+	}
+	r := &reader{file: file, read: read, signs: model.SignsFace}
 	in := r.parse(data)
+	sortWarnings(r.warns, file)
 	if len(r.errs) > 0 {
-		r.errs.sort()
-		return nil, r.errs
+		r.errs.sortFrom(file)
+		return nil, r.warns, r.errs
 	}
 	in.File = file
 	in.SHA256 = hex.EncodeToString(sum[:])
 	in.Source = string(data)
-	return in, nil
+	return in, r.warns, nil
 }
+
+// errReadNothing is what readNothing answers.
+var errReadNothing = errors.New("this program reads no file beside the input file (the command line does)")
+
+// readNothing is the reader of Parse: it reads no file.
+func readNothing(string) ([]byte, error) { return nil, errReadNothing }
 
 func (r *reader) yamlError(err error) {
 	line, msg := 1, strings.TrimPrefix(err.Error(), "yaml: ")
@@ -125,7 +172,7 @@ func (r *reader) yamlError(err error) {
 	r.errs = append(r.errs, Error{File: r.file, Line: line, Msg: "the file is not valid YAML: " + msg})
 }
 
-var topKeys = []string{"project", "code", "materials", "design", "vars", "columns", "building"}
+var topKeys = []string{"project", "code", "materials", "design", "vars", "moment_signs", "actions", "columns", "building"}
 
 // tabs reports the lines of data that indent with a tab, which YAML does not allow and its
 // parser reports at a later line; where tabs stand elsewhere, only when the parse fails. It
@@ -203,6 +250,14 @@ func (r *reader) parse(data []byte) *model.Input {
 	in.Options = r.design(top)
 	bp, hasBuilding := top["building"]
 	cp, hasColumns := top["columns"]
+	in.MomentSigns = r.momentSigns(top, hasBuilding && !hasColumns)
+	ap, hasTable := top["actions"]
+	if hasTable && hasColumns {
+		r.tableAsked, r.tableLine = true, ap.key.Line
+		r.tableName, hasTable = r.tableNameOf(ap)
+	} else if hasTable && hasBuilding {
+		r.fail(ap.key, "actions", "an actions table gives the cases of the actions form (columns:); the building form derives its actions")
+	}
 	switch {
 	case hasBuilding && hasColumns:
 		r.fail(bp.key, "building", "a file gives either columns (the actions form, line %d) or building (the building form, line %d), not both", cp.key.Line, bp.key.Line)
@@ -210,6 +265,9 @@ func (r *reader) parse(data []byte) *model.Input {
 		in.Building = r.building(bp.key, bp.val, in)
 	case hasColumns:
 		in.Columns = r.columns(cp.val, in.Options)
+		if hasTable {
+			in.Actions = r.actionsTable(ap, in.Columns)
+		}
 	default:
 		r.fail(root, "columns", "is required but missing (give the columns with their actions under columns, or the building form under building)")
 	}
@@ -513,6 +571,7 @@ func (r *reader) columns(n *yaml.Node, opt model.Options) []model.Column {
 	for i, it := range items {
 		path := index("columns", i)
 		c, ok := r.column(it, path, opt)
+		r.declare(c, path)
 		if c.ID != "" {
 			if first, dup := ids[c.ID]; dup {
 				r.fail(it, path+".id", "column id %q is used twice (first at columns[%d])", c.ID, first)
@@ -642,15 +701,8 @@ func (r *reader) storeys(n *yaml.Node, path string, side float64) []model.Storey
 	var out []model.Storey
 	names := map[string]int{}
 	for i, it := range items {
-		p := index(path, i)
-		s := r.storey(it, p, side)
-		if s.Name != "" {
-			if first, dup := names[s.Name]; dup {
-				r.fail(it, p+".name", "storey name %q is used twice in this column (first at %s)", s.Name, index(path, first))
-			} else {
-				names[s.Name] = i
-			}
-		}
+		s := r.storey(it, index(path, i), side)
+		r.unique(names, s.Name, it, path, i, "storey name", "column")
 		out = append(out, s)
 	}
 	return out
@@ -659,7 +711,7 @@ func (r *reader) storeys(n *yaml.Node, path string, side float64) []model.Storey
 func (r *reader) storey(item *yaml.Node, path string, side float64) model.Storey {
 	n := resolve(item)
 	s := model.Storey{Line: item.Line}
-	f := r.fields(n, path, "name", "l0", "length", "NEd", "M", "phi_ef", "creep")
+	f := r.fields(n, path, "name", "l0", "length", "NEd", "M", "cases", "phi_ef", "creep")
 	if f == nil {
 		return s
 	}
@@ -678,20 +730,7 @@ func (r *reader) storey(item *yaml.Node, path string, side float64) model.Storey
 	if e, ok := f["length"]; ok {
 		s.Length, _ = r.plausible(e.val, join(path, "length"), LimitHeight)
 	}
-	if e, ok := f["NEd"]; ok {
-		if v, ok := r.number(e.val, join(path, "NEd"), "kN"); ok {
-			if v < 0 {
-				r.fail(e.val, join(path, "NEd"), "tension columns are out of scope (NEd = %s; compression is positive)", show(v, "kN"))
-			} else if r.inside(e.val, join(path, "NEd"), v, LimitNEd) {
-				s.NEd = v
-			}
-		}
-	} else {
-		r.fail(n, join(path, "NEd"), "is required but missing (the design axial force, e.g. NEd: 2150 kN)")
-	}
-	if e, ok := f["M"]; ok {
-		s.MY, s.MZ = r.moments(e.val, join(path, "M"))
-	}
+	r.liftActions(n, f, path, &s)
 	if e, ok := f["phi_ef"]; ok {
 		if v, ok := r.number(e.val, join(path, "phi_ef"), ""); ok {
 			if v < 0 || v > 10 {
@@ -739,7 +778,8 @@ func (r *reader) l0(n *yaml.Node, path string, side float64) (y, z float64) {
 	return y, z
 }
 
-// moments reads the first-order end moments {y: {top, bottom}, z: {top, bottom}}; missing ones are 0.
+// moments reads the first-order end moments {y: {top, bottom}, z: {top, bottom}}; missing ones
+// are 0. They are returned in the face convention, converted from the input's moment_signs.
 func (r *reader) moments(n *yaml.Node, path string) (my, mz model.Ends) {
 	f := r.fields(n, path, "y", "z")
 	ends := func(e pair, path string) model.Ends {
@@ -751,7 +791,7 @@ func (r *reader) moments(n *yaml.Node, path string) (my, mz model.Ends) {
 		if e, ok := g["bottom"]; ok {
 			out.Bottom, _ = r.plausible(e.val, join(path, "bottom"), LimitMoment)
 		}
-		return out
+		return FaceEnds(out, r.signs)
 	}
 	if e, ok := f["y"]; ok {
 		my = ends(e, join(path, "y"))

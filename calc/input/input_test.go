@@ -196,13 +196,13 @@ func TestParseErrors(t *testing.T) {
 		{"empty", "", []string{"in.yaml:1: the file is empty; expected a mapping with at least materials and columns or building"}},
 		{"comments only", "# nothing\n", []string{"in.yaml:1: the file is empty; expected a mapping with at least materials and columns or building"}},
 		{"null document", "---\n", []string{"in.yaml:1: the file is empty; expected a mapping with at least materials and columns or building"}},
-		{"top-level list", "- a\n- b\n", []string{"in.yaml:1: the top level must be a mapping with the keys project, code, materials, design, vars, columns, building, found a list"}},
+		{"top-level list", "- a\n- b\n", []string{"in.yaml:1: the top level must be a mapping with the keys project, code, materials, design, vars, moment_signs, actions, columns, building, found a list"}},
 		{"tab in the indentation", "materials: {concrete: C30/37}\ncolumns:\n\t- id: K1\n", []string{"in.yaml:3: tab character: use spaces"}},
 		{"two documents", head + "        NEd: 10\n---\nx: 1\n", []string{"in.yaml:11: the file holds more than one YAML document; give one per file"}},
 		{"NEd with a length", head + "        NEd: 10\n      - name: L2\n        l0: 3 m\n        NEd: 3.6 m\n",
 			[]string{`in.yaml:13: columns[0].storeys[1].NEd: "3.6 m" is a length, expected a force`}},
-		{"tension", head + "        NEd: -150 kN\n",
-			[]string{"in.yaml:10: columns[0].storeys[0].NEd: tension columns are out of scope (NEd = -150 kN; compression is positive)"}},
+		{"tension beyond the limit", head + "        NEd: -150000 kN\n",
+			[]string{"in.yaml:10: columns[0].storeys[0].NEd: -150000 kN is outside the plausible range of the design axial force, -100000 kN to 100000 kN (see the input limits in the README)"}},
 		{"NEd missing", head, []string{"in.yaml:8: columns[0].storeys[0].NEd: is required but missing (the design axial force, e.g. NEd: 2150 kN)"}},
 		{"NEd not finite", head + "        NEd: .inf\n", []string{"in.yaml:10: columns[0].storeys[0].NEd: +Inf is not a finite number"}},
 		{"NEd boolean", head + "        NEd: yes\n", []string{`in.yaml:10: columns[0].storeys[0].NEd: "yes": undefined name yes`}},
@@ -212,11 +212,11 @@ func TestParseErrors(t *testing.T) {
 			[]string{`in.yaml:10: columns[0].storeys[0].NEd: "2 ^ 10": ^ is not a power here; use ** for powers (a ** 2)`}},
 		{"division by zero", head + "        NEd: 10 kN / 0\n", []string{`in.yaml:10: columns[0].storeys[0].NEd: "10 kN / 0": division by zero`}},
 		{"unknown key", head + "        NEd: 10\n        Ned: 10\n",
-			[]string{"in.yaml:11: columns[0].storeys[0].Ned: unknown key (known here: name, l0, length, NEd, M, phi_ef, creep)"}},
+			[]string{"in.yaml:11: columns[0].storeys[0].Ned: unknown key (known here: name, l0, length, NEd, M, cases, phi_ef, creep)"}},
 		{"repeated key", head + "        NEd: 10\n        NEd: 20\n", []string{"in.yaml:11: columns[0].storeys[0].NEd: the key is given twice"}},
 		{"unknown top key", "materials: {concrete: C30/37}\ncolums: []\n", []string{
 			"in.yaml:1: columns: is required but missing (give the columns with their actions under columns, or the building form under building)",
-			"in.yaml:2: colums: unknown key (known here: project, code, materials, design, vars, columns, building)"}},
+			"in.yaml:2: colums: unknown key (known here: project, code, materials, design, vars, moment_signs, actions, columns, building)"}},
 		{"columns and building", head + "        NEd: 10\nbuilding:\n  storeys: []\n",
 			[]string{"in.yaml:11: building: a file gives either columns (the actions form, line 2) or building (the building form, line 11), not both"}},
 		{"materials missing", "columns:\n  - {id: K1, b: 300, h: 300, cover: 30, storeys: [{name: L1, l0: 3000, NEd: 1}]}\n",
@@ -293,19 +293,24 @@ func TestParseErrors(t *testing.T) {
 	}
 	for _, c := range cases {
 		_, err := Parse("in.yaml", []byte(c.text))
-		if err == nil {
-			t.Errorf("%s: no error, want %q", c.name, c.want)
-			continue
-		}
-		var es Errors
-		if !errors.As(err, &es) {
-			t.Errorf("%s: error %T is not Errors", c.name, err)
-			continue
-		}
-		got := strings.Split(err.Error(), "\n")
-		if strings.Join(got, "\n") != strings.Join(c.want, "\n") {
-			t.Errorf("%s:\n got: %s\nwant: %s", c.name, strings.Join(got, "\n      "), strings.Join(c.want, "\n      "))
-		}
+		checkErrors(t, c.name, err, c.want)
+	}
+}
+
+// checkErrors fails t unless err is Errors reading want, one fault a line.
+func checkErrors(t *testing.T, name string, err error, want []string) {
+	t.Helper()
+	if err == nil {
+		t.Errorf("%s: no error, want %q", name, want)
+		return
+	}
+	var es Errors
+	if !errors.As(err, &es) {
+		t.Errorf("%s: error %T is not Errors", name, err)
+		return
+	}
+	if got := err.Error(); got != strings.Join(want, "\n") {
+		t.Errorf("%s:\n got: %s\nwant: %s", name, strings.ReplaceAll(got, "\n", "\n      "), strings.Join(want, "\n      "))
 	}
 }
 
@@ -402,6 +407,8 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte(head + "        NEd: 10\n        creep: {rh: 50 %, t0: 28 d, cement: r, ratio: 0.5}\n" +
 		"design: {second_order: both, biaxial: 5.39, size_search: {step: 25, min: 250, max: 500, square: true}}\n"))
 	f.Add([]byte(building + "  effective_length: frame\n  creep: {rh: 60, t0: 7 days}\n"))
+	f.Add([]byte("moment_signs: member-ends\n" + head + "        cases: [{name: A, NEd: -10, M: {y: {top: 1, bottom: 2}}, V: {y: 3}}, {name: B, NEd: 20}]\n"))
+	f.Add([]byte("actions: t.csv\n" + head))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		in, err := Parse("f.yaml", data)
 		if err != nil {
@@ -435,8 +442,23 @@ func FuzzParse(f *testing.F) {
 						t.Fatalf("non-finite value accepted: %+v", s)
 					}
 				}
-				if !(s.L0Y > 0 && s.L0Z > 0 && s.NEd >= 0) || s.HasPhi && s.Creep != nil {
+				if !(s.L0Y > 0 && s.L0Z > 0) || s.HasPhi && s.Creep != nil || len(s.Cases) == 0 {
 					t.Fatalf("invalid storey accepted: %+v", s)
+				}
+				if first := s.Cases[0]; s.NEd != first.NEd || s.MY != first.MY || s.MZ != first.MZ {
+					t.Fatalf("the storey's actions are not those of its first case: %+v", s)
+				}
+				names := map[string]bool{}
+				for _, c := range s.Cases {
+					for _, v := range []float64{c.NEd, c.MY.Top, c.MY.Bottom, c.MZ.Top, c.MZ.Bottom, c.V[0], c.V[1]} {
+						if math.IsNaN(v) || math.IsInf(v, 0) {
+							t.Fatalf("non-finite value accepted: %+v", c)
+						}
+					}
+					if c.Name == "" || names[c.Name] || c.File != "f.yaml" || c.Line < 1 {
+						t.Fatalf("invalid case accepted: %+v", c)
+					}
+					names[c.Name] = true
 				}
 				checkCreep(t, s.Creep)
 			}

@@ -1,6 +1,7 @@
 package input
 
 import (
+	"fmt"
 	"math"
 
 	"gopkg.in/yaml.v3"
@@ -47,6 +48,15 @@ var (
 		"the laps start within the storey, at most the tallest storey (12 m)"}
 )
 
+// LimitShear is the range of a design shear force given with a load case (V of cases: or the
+// Vy_kN and Vz_kN of the actions table), either sign. It is not yet a row of the README table,
+// so it stays out of Limits until the README lists it.
+var LimitShear = Limit{"design shear force", "kN", -1e8, 1e8,
+	"common practice: a shear of 1e5 kN either way is beyond any building column"}
+
+// limitAxial is LimitNEd on either side of zero: the actions form takes tension as a negative NEd.
+var limitAxial = Limit{LimitNEd.What, LimitNEd.Unit, -LimitNEd.Max, LimitNEd.Max, LimitNEd.Reason}
+
 // Limits lists every limit, in the order of the README table.
 var Limits = []Limit{LimitSide, LimitCover, LimitBar, LimitLink, LimitAggregate, LimitL0, LimitHeight,
 	LimitBay, LimitNEd, LimitMoment, LimitAreaLoad, LimitLineLoad, LimitStep, LimitLapStart}
@@ -66,7 +76,7 @@ func (r *reader) plausible(n *yaml.Node, path string, l Limit) (float64, bool) {
 
 // inside reports whether v, read from n, lies within l, and reports a fault when it does not.
 func (r *reader) inside(n *yaml.Node, path string, v float64, l Limit) bool {
-	if v >= l.Min && v <= l.Max {
+	if l.within(v) {
 		return true
 	}
 	rn := resolve(n)
@@ -76,8 +86,17 @@ func (r *reader) inside(n *yaml.Node, path string, v float64, l Limit) bool {
 			rn.Value, show(v, "mm"), l.What, show(l.Min, l.Unit), rn.Value)
 		return false
 	}
-	r.fail(n, path, "%s is outside the plausible range of the %s, %s to %s (see the input limits in the README)", show(v, l.Unit), l.What, show(l.Min, l.Unit), show(l.Max, l.Unit))
+	r.fail(n, path, "%s", l.outside(v))
 	return false
+}
+
+// within reports whether v lies within l, both ends included.
+func (l Limit) within(v float64) bool { return v >= l.Min && v <= l.Max }
+
+// outside returns the message for a value v (engine units) outside l.
+func (l Limit) outside(v float64) string {
+	return fmt.Sprintf("%s is outside the plausible range of the %s, %s to %s (see the input limits in the README)",
+		show(v, l.Unit), l.What, show(l.Min, l.Unit), show(l.Max, l.Unit))
 }
 
 // finite reports whether v is a finite number.

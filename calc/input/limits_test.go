@@ -30,7 +30,7 @@ func TestInputLimits(t *testing.T) {
 		{"section of 1e9 m", col("1e9 m", "500 mm", "40 mm", "3 m", "2150 kN"), []string{
 			`in.yaml:4: columns[0].b: 1e+12 mm is outside the plausible range of the section side, 150 mm to 3000 mm (see the input limits in the README)`}},
 		{"1e300 kN", col("350 mm", "500 mm", "40 mm", "3 m", "1e300 kN"), []string{
-			`in.yaml:10: columns[0].storeys[0].NEd: 1e+300 kN is outside the plausible range of the design axial force, 0 kN to 100000 kN (see the input limits in the README)`}},
+			`in.yaml:10: columns[0].storeys[0].NEd: 1e+300 kN is outside the plausible range of the design axial force, -100000 kN to 100000 kN (see the input limits in the README)`}},
 		{"overflow to infinity", col("350 mm", "500 mm", "40 mm", "3 m", "1e308 MN"), []string{
 			`in.yaml:10: columns[0].storeys[0].NEd: "1e308 MN" is not a finite number`}},
 		{"cover too small", col("350 mm", "500 mm", "5 mm", "3 m", "2150 kN"), []string{

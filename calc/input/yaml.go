@@ -14,9 +14,18 @@ import (
 
 // reader walks a YAML node tree and collects the faults it meets.
 type reader struct {
-	file string
-	errs Errors
-	env  *quantity.Env
+	file  string
+	errs  Errors
+	warns []Warning
+	env   *quantity.Env
+	read  func(name string) ([]byte, error) // opens a file beside the input file
+
+	signs      string     // the convention of the end moments as given: model.SignsFace or model.SignsMemberEnds
+	tableAsked bool       // actions: names a table of cases for the lifts of columns:
+	tableName  string     // the actions table as named under actions:
+	tableLine  int        // the line of actions:
+	declared   []declared // every column of columns: with its lifts, for the actions table
+	unnamed    bool       // some column of columns: has no readable id
 }
 
 func (r *reader) fail(n *yaml.Node, field, format string, args ...any) {
