@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path"
 	"path/filepath"
 	"sort"
 	"strings"
@@ -61,6 +62,22 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 		job.progress.end()
 		fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
 		return 2
+	}
+	if t := job.res.Input.Actions; t != nil {
+		// The actions table beside the input, as the input names it.
+		rel := path.Clean(filepath.ToSlash(t.Name))
+		if !filepath.IsLocal(filepath.FromSlash(rel)) || rel == inName {
+			job.st.discard()
+			job.progress.end()
+			fmt.Fprintf(stderr, "colsheet: the actions table %s lies outside the input's folder and cannot be archived beside it; nothing written\n", t.Name)
+			return 2
+		}
+		if err := job.st.put("input/"+rel, t.Data); err != nil {
+			job.st.discard()
+			job.progress.end()
+			fmt.Fprintf(stderr, "colsheet: %v; nothing written\n", err)
+			return 2
+		}
 	}
 	exe, err := executableSum()
 	if err != nil {

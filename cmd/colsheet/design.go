@@ -220,7 +220,12 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 	if err != nil {
 		return nil, fmt.Errorf("colsheet: %v", err)
 	}
-	in, err := input.Parse(o.input, data)
+	in, warns, err := input.ParseWarn(o.input, data, func(name string) ([]byte, error) {
+		return os.ReadFile(filepath.Join(filepath.Dir(o.input), filepath.FromSlash(name)))
+	})
+	for _, w := range warns {
+		fmt.Fprintf(stderr, "colsheet: warning: %s\n", w)
+	}
 	if err != nil {
 		return nil, err
 	}

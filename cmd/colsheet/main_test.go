@@ -151,7 +151,7 @@ columns:
     h: 300
     cover: 30
     storeys:
-      - {name: L1, l0: 3 m, NEd: -5 kN}
+      - {name: L1, l0: 3 m, NEd: -2e5 kN}
 `
 	path := writeFile(t, "bad.yaml", bad)
 	dir := filepath.Join(t.TempDir(), "out")

@@ -240,8 +240,8 @@ func (r *Report) checkStatus(d *resultsCase) {
 // checkInputs reads the archived input again, designs it, and compares every input step
 // (kind input, clause "input") of each design with the steps the input gives, by ID and value,
 // and the project basis step by step; the status, utilisation and governing check as well.
-func (r *Report) checkInputs(res *results, name string, data []byte) {
-	in, err := input.Parse(name, data)
+func (r *Report) checkInputs(res *results, name string, data []byte, read func(string) ([]byte, error)) {
+	in, err := input.ParseWith(name, data, read)
 	if err != nil {
 		r.problem(nil, "input", "the archived input cannot be read again: %v", err)
 		return

@@ -254,7 +254,14 @@ func VerifyKey(dir string, pub ed25519.PublicKey) (*Report, error) {
 	}
 	in := path.Join("input", m.Input.Name)
 	if data, ok := files[in]; ok {
-		r.checkInputs(res, filepath.Join(dir, filepath.FromSlash(in)), data)
+		read := func(name string) ([]byte, error) {
+			// The actions table, archived beside the input under the name the input gives.
+			if t, ok := files[path.Join("input", path.Clean(filepath.ToSlash(name)))]; ok {
+				return t, nil
+			}
+			return nil, fmt.Errorf("%s is not in the bundle's input folder", name)
+		}
+		r.checkInputs(res, filepath.Join(dir, filepath.FromSlash(in)), data, read)
 	} else {
 		r.problem(nil, "input", "the archived input %s cannot be read, so the input steps cannot be checked", in)
 	}
