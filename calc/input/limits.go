@@ -49,8 +49,7 @@ var (
 )
 
 // LimitShear is the range of a design shear force given with a load case (V of cases: or the
-// Vy_kN and Vz_kN of the actions table), either sign. It is not yet a row of the README table,
-// so it stays out of Limits until the README lists it.
+// Vy_kN and Vz_kN of the actions table), either sign.
 var LimitShear = Limit{"design shear force", "kN", -1e8, 1e8,
 	"common practice: a shear of 1e5 kN either way is beyond any building column"}
 
@@ -59,7 +58,7 @@ var limitAxial = Limit{LimitNEd.What, LimitNEd.Unit, -LimitNEd.Max, LimitNEd.Max
 
 // Limits lists every limit, in the order of the README table.
 var Limits = []Limit{LimitSide, LimitCover, LimitBar, LimitLink, LimitAggregate, LimitL0, LimitHeight,
-	LimitBay, LimitNEd, LimitMoment, LimitAreaLoad, LimitLineLoad, LimitStep, LimitLapStart}
+	LimitBay, LimitNEd, LimitShear, LimitMoment, LimitAreaLoad, LimitLineLoad, LimitStep, LimitLapStart}
 
 // plausible reads a quantity that must lie within l. A plain number for a length that is too
 // small in millimetres but plausible in metres is refused with the hint to write the unit.
