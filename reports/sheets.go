@@ -388,6 +388,9 @@ func sheet(b *book, i int, p place) sheetView {
 		{txt("Links"), cat(txt("Ø"+fmtNum(d.Links.Dia).plain()+" mm at "), qty(d.Links.Spacing, "mm"),
 			txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))},
 	}
+	if in.MomentSigns == model.SignsMemberEnds {
+		v.Summary = append(v.Summary, kv{txt("End moments as given"), txt("member ends, clockwise positive at both ends (moment_signs: member-ends); shown here with the sign changed at the bottom, so that equal signs mean tension on the same face")})
+	}
 	if len(d.Cases) > 1 {
 		v.Summary = append(v.Summary, kv{txt("Load cases"), txt(fmt.Sprintf("%d; governing: %s (the values of this sheet)", len(d.Cases), d.GoverningCase))})
 	}
