@@ -2,10 +2,12 @@ package input
 
 import (
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 
 	"colsheet/calc/code"
+	"colsheet/calc/material"
 	"colsheet/calc/model"
 
 	"gopkg.in/yaml.v3"
@@ -22,6 +24,17 @@ const (
 	DefaultBuildingCover = 40     // nominal cover to the links of the columns, mm
 	DefaultDensity       = 2.5e-5 // weight density of reinforced concrete, N/mm³ (25 kN/m³)
 	DefaultL0Factor      = 1.0    // effective length over storey height
+	DefaultSpanRatio     = 1.5    // adjacent spans' ratio above which the subframe is cautioned, common practice
+)
+
+// Plausibility limits of quantities only the building form takes.
+var (
+	limitPointLoad = Limit{"point load", "kN", 0, 1e7,
+		"common practice: a concentrated load of more than 10 000 kN on a floor (a tank, a transfer) needs a structure of its own"}
+	limitCantilever = Limit{"cantilever length", "mm", 300, 5000,
+		"common practice: a slab cantilever shorter than 0.3 m is a nib; over 5 m it needs a structure of its own"}
+	limitSlab = Limit{"slab thickness", "mm", 50, 1000,
+		"common practice: a cast floor slab is 50 mm (a topping) to 1000 mm (a transfer slab) thick"}
 )
 
 // densityParam is the code parameter of the weight density of reinforced concrete, when catalogued.
@@ -40,8 +53,9 @@ func densityInForce(p code.Params) float64 {
 var categories = []string{"A", "B", "C", "D", "E", "F", "G", "H"}
 
 var buildingKeys = []string{"storeys", "grid", "columns", "beams", "column_sizes", "beam_sizes", "floors",
-	"line_loads", "omit", "base", "analysis", "beam_stiffness", "combination", "imposed_reduction",
-	"density", "l0_factor", "effective_length", "creep", "bars", "fire_levels"}
+	"line_loads", "point_loads", "area_loads", "cantilevers", "omit", "concrete", "beam_concrete", "base",
+	"analysis", "beam_stiffness", "span_ratio", "combination", "imposed_reduction", "density", "l0_factor",
+	"effective_length", "creep", "bars", "fire_levels"}
 
 // buildingMisplaced answers keys that belong elsewhere than under building.
 var buildingMisplaced = map[string]string{
@@ -56,6 +70,7 @@ type site struct {
 	levelsOK bool           // every storey name was read, so references can be checked
 	nx, ny   int            // grid lines: lettered (at x positions) and numbered (at y positions)
 	gridOK   bool           // both directions were read, so grid names can be checked
+	lengths  [2]float64     // the grid's length along x and along y, mm, when gridOK
 	omitted  map[string]bool
 }
 
@@ -226,6 +241,7 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 		Analysis: model.AnalysisSubframe,
 		Options: model.BuildingOptions{
 			BeamStiffness: "half",
+			SpanRatio:     DefaultSpanRatio,
 			Combination:   model.Comb610,
 			Reduction:     model.ReduceNone,
 			Density:       densityInForce(in.Code),
@@ -256,73 +272,11 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	if e, ok := required("grid", "the bay widths, e.g. grid: {x: [6.6 m, 6.6 m], y: [7.8 m]}"); ok {
 		b.GridX, b.GridY, s.gridOK = r.grid(e.val, join(top, "grid"))
 		s.nx, s.ny = len(b.GridX)+1, len(b.GridY)+1
+		s.lengths = [2]float64{sum(b.GridX), sum(b.GridY)}
 	}
 
 	// Method choices and the given bars come first: the room check of the columns uses the bars.
-	if e, ok := f["base"]; ok {
-		if v, ok := r.oneOf(e.val, join(top, "base"), model.BaseFixed, model.BasePinned); ok {
-			b.Base = v
-		}
-	}
-	if e, ok := f["analysis"]; ok {
-		if v, ok := r.oneOf(e.val, join(top, "analysis"), model.AnalysisSubframe, model.AnalysisFrame); ok {
-			b.Analysis = v
-		}
-	}
-	if e, ok := f["beam_stiffness"]; ok {
-		if v, ok := r.oneOf(e.val, join(top, "beam_stiffness"), "half", "full"); ok {
-			b.Options.BeamStiffness = v
-		}
-	}
-	if e, ok := f["combination"]; ok {
-		if v, ok := r.combination(e.val, join(top, "combination")); ok {
-			b.Options.Combination = v
-		}
-	}
-	if e, ok := f["imposed_reduction"]; ok {
-		if v, ok := r.oneOf(e.val, join(top, "imposed_reduction"), model.ReduceNone, model.ReduceArea, model.ReduceStoreys); ok {
-			b.Options.Reduction = v
-		}
-	}
-	if e, ok := f["density"]; ok {
-		path := join(top, "density")
-		if v, ok := r.positive(e.val, path, "kN/m3"); ok {
-			c, catalogued := code.Lookup(densityParam)
-			switch {
-			case catalogued && in.Code.IsOverridden(densityParam):
-				r.fail(e.val, path, "the density is also given as code.overrides.%s; give it once", densityParam)
-			case catalogued && (v < c.Min || v > c.Max):
-				r.fail(e.val, path, "%s is outside the accepted range %s to %s", show(v, "kN/m3"), show(c.Min, "kN/m3"), show(c.Max, "kN/m3"))
-			default:
-				// The one density in force: for the beams here and, through the parameter, for the columns.
-				b.Options.Density = v
-				if catalogued {
-					if pc, err := in.Code.Override(densityParam, v); err == nil {
-						in.Code = pc
-					}
-				}
-			}
-		}
-	}
-	if e, ok := f["effective_length"]; ok {
-		if v, ok := r.oneOf(e.val, join(top, "effective_length"), "frame", "factor"); ok {
-			b.Options.L0FromFrame = v == "frame"
-		}
-	}
-	if e, ok := f["l0_factor"]; ok {
-		if v, ok := r.number(e.val, join(top, "l0_factor"), ""); ok {
-			if b.Options.L0FromFrame {
-				r.fail(e.key, join(top, "l0_factor"), "applies to effective_length: factor; with frame the effective lengths come from EN 1992-1-1 Eq. (5.15)")
-			} else if v < 0.5 || v > 2 {
-				r.fail(e.val, join(top, "l0_factor"), "the effective length factor must lie between 0.5 and 2, found %s", show(v, ""))
-			} else {
-				b.Options.L0Factor = v
-			}
-		}
-	}
-	if e, ok := f["creep"]; ok {
-		b.Options.Creep = r.creep(e.val, join(top, "creep"), false)
-	}
+	r.buildingChoices(f, b, in)
 	barsOK := true
 	if e, ok := f["bars"]; ok {
 		b.Bars, barsOK = r.bars(e.val, join(top, "bars"))
@@ -332,7 +286,7 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	}
 
 	if e, ok := f["omit"]; ok {
-		b.Omit = r.omit(s, e.val, join(top, "omit"))
+		b.Omit, b.OmitAt = r.omit(s, e.val, join(top, "omit"))
 	}
 	if e, ok := required("columns", "the default column size, e.g. columns: {b: 350 mm, h: 450 mm}"); ok {
 		path := join(top, "columns")
@@ -366,16 +320,147 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	if e, ok := f["beam_sizes"]; ok {
 		b.Beams = r.beamSizes(s, e.val, join(top, "beam_sizes"))
 	}
+	r.concretes(s, f, b)
 	if e, ok := required("floors", "the area loads of every level, e.g. floors: [{gk: 5.8 kN/m2, qk: 2.5 kN/m2, category: B, spans: y}]"); ok {
-		b.Floors = r.floors(s, e.key, e.val, join(top, "floors"))
+		b.Floors = r.floors(s, b, e.key, e.val, join(top, "floors"))
 	}
-	if e, ok := f["line_loads"]; ok {
-		b.Lines = r.lineLoads(s, e.val, join(top, "line_loads"))
-	}
+	r.buildingLoads(s, f, b)
 	if e, ok := f["fire_levels"]; ok {
 		b.Fires = r.fireLevels(s, e.val, join(top, "fire_levels"), opt.Fire)
 	}
 	return b
+}
+
+// sum returns the sum of vs.
+func sum(vs []float64) float64 {
+	t := 0.0
+	for _, v := range vs {
+		t += v
+	}
+	return t
+}
+
+// buildingChoices reads the method choices of the building form into b: base, analysis and the
+// options, the density also into the code parameters of in.
+func (r *reader) buildingChoices(f map[string]pair, b *model.Building, in *model.Input) {
+	const top = "building"
+	if e, ok := f["base"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "base"), model.BaseFixed, model.BasePinned); ok {
+			b.Base = v
+		}
+	}
+	analysisOK := true
+	if e, ok := f["analysis"]; ok {
+		var v string
+		if v, analysisOK = r.oneOf(e.val, join(top, "analysis"), model.AnalysisSubframe, model.AnalysisFrame, model.AnalysisBoth); analysisOK {
+			b.Analysis = v
+		}
+	}
+	if e, ok := f["beam_stiffness"]; ok {
+		path := join(top, "beam_stiffness")
+		if v, ok := r.oneOf(e.val, path, "half", "full"); ok {
+			b.Options.BeamStiffness, b.Options.BeamStiffnessGiven = v, true
+			if analysisOK && b.Analysis == model.AnalysisFrame {
+				r.fail(e.val, path, "the frame analysis takes each beam's own stiffness; beam_stiffness applies to the subframe only (analysis: subframe or both)")
+			}
+		}
+	}
+	if e, ok := f["span_ratio"]; ok {
+		path := join(top, "span_ratio")
+		if v, ok := r.number(e.val, path, ""); ok {
+			if v > 1 {
+				b.Options.SpanRatio = v
+			} else {
+				r.fail(e.val, path, "the ratio of adjacent spans that draws a caution must be greater than 1, found %s", show(v, ""))
+			}
+		}
+	}
+	if e, ok := f["combination"]; ok {
+		if v, ok := r.combination(e.val, join(top, "combination")); ok {
+			b.Options.Combination = v
+		}
+	}
+	if e, ok := f["imposed_reduction"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "imposed_reduction"), model.ReduceNone, model.ReduceArea, model.ReduceStoreys); ok {
+			b.Options.Reduction = v
+		}
+	}
+	if e, ok := f["density"]; ok {
+		r.density(e.val, join(top, "density"), b, in)
+	}
+	if e, ok := f["effective_length"]; ok {
+		if v, ok := r.oneOf(e.val, join(top, "effective_length"), "frame", "factor"); ok {
+			b.Options.L0FromFrame = v == "frame"
+		}
+	}
+	if e, ok := f["l0_factor"]; ok {
+		if v, ok := r.number(e.val, join(top, "l0_factor"), ""); ok {
+			if b.Options.L0FromFrame {
+				r.fail(e.key, join(top, "l0_factor"), "applies to effective_length: factor; with frame the effective lengths come from EN 1992-1-1 Eq. (5.15)")
+			} else if v < 0.5 || v > 2 {
+				r.fail(e.val, join(top, "l0_factor"), "the effective length factor must lie between 0.5 and 2, found %s", show(v, ""))
+			} else {
+				b.Options.L0Factor = v
+			}
+		}
+	}
+	if e, ok := f["creep"]; ok {
+		b.Options.Creep = r.creep(e.val, join(top, "creep"), false)
+	}
+}
+
+// density reads the weight density of reinforced concrete at n into b and, where the code
+// catalogues it, into the code parameters of in, so that beams and columns take the same one.
+func (r *reader) density(n *yaml.Node, path string, b *model.Building, in *model.Input) {
+	v, ok := r.positive(n, path, "kN/m3")
+	if !ok {
+		return
+	}
+	c, catalogued := code.Lookup(densityParam)
+	switch {
+	case catalogued && in.Code.IsOverridden(densityParam):
+		r.fail(n, path, "the density is also given as code.overrides.%s; give it once", densityParam)
+	case catalogued && (v < c.Min || v > c.Max):
+		r.fail(n, path, "%s is outside the accepted range %s to %s", show(v, "kN/m3"), show(c.Min, "kN/m3"), show(c.Max, "kN/m3"))
+	default:
+		b.Options.Density = v
+		if catalogued {
+			if pc, err := in.Code.Override(densityParam, v); err == nil {
+				in.Code = pc
+			}
+		}
+	}
+}
+
+// concretes reads the concrete classes of the building: by level and column, and of the beams.
+func (r *reader) concretes(s *site, f map[string]pair, b *model.Building) {
+	const top = "building"
+	if e, ok := f["concrete"]; ok {
+		b.Concrete = r.concreteZones(s, e.val, join(top, "concrete"))
+	}
+	if e, ok := f["beam_concrete"]; ok {
+		if c, ok := r.concreteClass(e.val, join(top, "beam_concrete")); ok {
+			b.BeamConcrete = &c
+		}
+	}
+}
+
+// buildingLoads reads the loads of the building besides its floors: line loads, point loads,
+// zoned area loads and cantilevers.
+func (r *reader) buildingLoads(s *site, f map[string]pair, b *model.Building) {
+	const top = "building"
+	if e, ok := f["line_loads"]; ok {
+		b.Lines = r.lineLoads(s, e.val, join(top, "line_loads"))
+	}
+	if e, ok := f["point_loads"]; ok {
+		b.PointLoads = r.pointLoads(s, e.val, join(top, "point_loads"))
+	}
+	if e, ok := f["area_loads"]; ok {
+		b.AreaLoads = r.areaLoads(s, e.val, join(top, "area_loads"))
+	}
+	if e, ok := f["cantilevers"]; ok {
+		b.Cantilevers = r.cantilevers(s, e.val, join(top, "cantilevers"))
+	}
 }
 
 // levels reads the storeys; it reports whether every name was read.
@@ -527,14 +612,29 @@ func (r *reader) clauseOf(n *yaml.Node, path string, x float64, choices ...strin
 	return r.oneOf(n, path, choices...)
 }
 
-// omit reads the grid points without a column.
-func (r *reader) omit(s *site, n *yaml.Node, path string) []string {
-	its, paths, ok := r.items(n, path, "grid points")
-	if !ok {
-		return nil
+// omit reads the grid points without a column: a plain id is absent at every level, an entry
+// {columns, levels} names columns absent at those levels only (mixed in the one list).
+func (r *reader) omit(s *site, n *yaml.Node, path string) ([]string, []model.OmitLevels) {
+	var its []*yaml.Node
+	var paths []string
+	if rn := resolve(n); rn.Kind == yaml.MappingNode {
+		its, paths = []*yaml.Node{rn}, []string{path}
+	} else {
+		var ok bool
+		if its, paths, ok = r.items(n, path, "grid points"); !ok {
+			return nil, nil
+		}
 	}
+	// The plain ids first, so that an entry with levels can be checked against them all.
 	var out []string
 	for i, it := range its {
+		switch resolve(it).Kind {
+		case yaml.MappingNode:
+			continue
+		case yaml.SequenceNode:
+			r.fail(it, paths[i], "expected a column id such as B2 or an entry {columns: [B2], levels: [L1]}, found a list")
+			continue
+		}
 		id, ok := r.point(s, it, paths[i])
 		switch {
 		case !ok:
@@ -545,40 +645,105 @@ func (r *reader) omit(s *site, n *yaml.Node, path string) []string {
 			out = append(out, id)
 		}
 	}
-	if s.gridOK && len(s.omitted) == s.nx*s.ny {
-		r.fail(n, path, "every grid point is omitted; at least one column must remain")
+	var at []model.OmitLevels
+	absent := map[string]map[string]bool{} // levels at which each column of the entries is absent
+	for i, it := range its {
+		if resolve(it).Kind != yaml.MappingNode {
+			continue
+		}
+		o, ok := r.omitLevels(s, it, paths[i])
+		if !ok {
+			continue
+		}
+		at = append(at, o)
+		r.omitEverywhere(s, absent, o, it, join(paths[i], "columns"))
 	}
-	return out
+	switch {
+	case !s.gridOK:
+	case len(s.omitted) == s.nx*s.ny:
+		r.fail(n, path, "every grid point is omitted; at least one column must remain")
+	case s.levelsOK:
+		r.omitLevelWhole(s, absent, n, path)
+	}
+	return out, at
+}
+
+// omitLevels reads an entry {columns, levels} of omit: both required, the columns not in the
+// plain list of omit.
+func (r *reader) omitLevels(s *site, n *yaml.Node, path string) (model.OmitLevels, bool) {
+	o := model.OmitLevels{Line: n.Line}
+	f := r.fields(n, path, "columns", "levels")
+	if f == nil {
+		return o, false
+	}
+	colsOK, levelsOK := false, false
+	if e, ok := f["columns"]; ok {
+		o.Columns, colsOK = r.refs(e.val, join(path, "columns"), "column ids", "column %s is listed twice", func(it *yaml.Node, p string) (string, bool) {
+			id, ok := r.point(s, it, p)
+			if ok && s.omitted[id] {
+				r.fail(it, p, "%s is in the plain list of omit, absent at every level already; give it once", id)
+				return "", false
+			}
+			return id, ok
+		})
+	} else {
+		r.fail(n, join(path, "columns"), "is required but missing (the columns absent at these levels, e.g. columns: [B2])")
+	}
+	if e, ok := f["levels"]; ok {
+		o.Levels, levelsOK = r.levelRefs(s, e.val, join(path, "levels"))
+	} else {
+		r.fail(n, join(path, "levels"), "is required but missing (the levels without these columns, e.g. levels: [L1]; a column absent at every level goes in the plain list, e.g. omit: [B2])")
+	}
+	return o, colsOK && levelsOK
+}
+
+// omitEverywhere adds the levels of entry o to absent, the levels at which each column is
+// absent, and refuses a column the entries so leave out at every level.
+func (r *reader) omitEverywhere(s *site, absent map[string]map[string]bool, o model.OmitLevels, n *yaml.Node, path string) {
+	for _, id := range o.Columns {
+		if absent[id] == nil {
+			absent[id] = map[string]bool{}
+		}
+		before := len(absent[id])
+		for _, l := range o.Levels {
+			absent[id][l] = true
+		}
+		if s.levelsOK && before < len(s.levels) && len(absent[id]) == len(s.levels) {
+			r.fail(n, path, "%s is absent at every level (%s); use the plain list, e.g. omit: [%s]", id, strings.Join(s.levels, ", "), id)
+		}
+	}
+}
+
+// omitLevelWhole refuses a level at which the plain list and the entries of omit leave no column.
+func (r *reader) omitLevelWhole(s *site, absent map[string]map[string]bool, n *yaml.Node, path string) {
+	for _, l := range s.levels {
+		gone := len(s.omitted)
+		for _, ls := range absent {
+			if ls[l] {
+				gone++
+			}
+		}
+		if gone == s.nx*s.ny {
+			r.fail(n, path, "every grid point is omitted at level %s; at least one column must remain", l)
+		}
+	}
 }
 
 // columnSizes reads the column size overrides; where two cover a column and level, the later one holds.
 func (r *reader) columnSizes(s *site, n *yaml.Node, path string, b *model.Building, barsOK bool, opt model.Options) []model.ColumnSize {
-	items, ok := r.list(n, path, "column size overrides")
-	if !ok {
-		return nil
-	}
-	var out []model.ColumnSize
-	for i, it := range items {
-		p := index(path, i)
+	return listOf(r, n, path, "column size overrides", []string{"columns", "levels", "b", "h"}, func(f map[string]pair, it *yaml.Node, p string) (model.ColumnSize, bool) {
 		c := model.ColumnSize{Line: it.Line}
-		f := r.fields(it, p, "columns", "levels", "b", "h")
-		if f == nil {
-			continue
-		}
 		if e, ok := f["columns"]; ok {
 			c.IDs, _ = r.columnRefs(s, e.val, join(p, "columns"))
 		}
-		if e, ok := f["levels"]; ok {
-			c.Levels, _ = r.levelRefs(s, e.val, join(p, "levels"))
-		}
+		c.Levels = r.levelsOf(s, f, p)
 		var sizeOK bool
 		c.Size, sizeOK = r.size(f, it, p, "column")
 		if sizeOK && barsOK && b.Cover > 0 {
 			r.room(f["b"].val, join(p, "b"), c.Size, b.Cover, b.Bars, opt)
 		}
-		out = append(out, c)
-	}
-	return out
+		return c, true
+	})
 }
 
 // columnRefs reads a list of column ids: grid points with a column, each given once.
@@ -595,21 +760,8 @@ func (r *reader) columnRefs(s *site, n *yaml.Node, path string) ([]string, bool)
 
 // beamSizes reads the beam size overrides; where two cover a beam, the later one holds.
 func (r *reader) beamSizes(s *site, n *yaml.Node, path string) []model.BeamSize {
-	items, ok := r.list(n, path, "beam size overrides")
-	if !ok {
-		return nil
-	}
-	var out []model.BeamSize
-	for i, it := range items {
-		p := index(path, i)
-		c := model.BeamSize{Line: it.Line}
-		f := r.fields(it, p, "levels", "dir", "lines", "b", "h")
-		if f == nil {
-			continue
-		}
-		if e, ok := f["levels"]; ok {
-			c.Levels, _ = r.levelRefs(s, e.val, join(p, "levels"))
-		}
+	return listOf(r, n, path, "beam size overrides", []string{"levels", "dir", "lines", "b", "h"}, func(f map[string]pair, it *yaml.Node, p string) (model.BeamSize, bool) {
+		c := model.BeamSize{Line: it.Line, Levels: r.levelsOf(s, f, p)}
 		if e, ok := f["dir"]; ok {
 			c.Dir, _ = r.oneOf(e.val, join(p, "dir"), "x", "y")
 		}
@@ -617,9 +769,8 @@ func (r *reader) beamSizes(s *site, n *yaml.Node, path string) []model.BeamSize 
 			c.Lines, _ = r.beamLines(s, e.val, join(p, "lines"), c.Dir)
 		}
 		c.Size, _ = r.size(f, it, p, "beam")
-		out = append(out, c)
-	}
-	return out
+		return c, true
+	})
 }
 
 // beamLines reads the grid lines of a beam override; with dir x only numbered lines fit, with dir y only lettered ones.
@@ -675,8 +826,9 @@ func (r *reader) nonNegative(n *yaml.Node, path, unit string) (float64, bool) {
 	return v, true
 }
 
-// floors reads the area loads under key; every level must be covered by exactly one entry.
-func (r *reader) floors(s *site, key, n *yaml.Node, path string) []model.Floor {
+// floors reads the area loads under key; every level must be covered by exactly one entry. A
+// floor's slab must be thinner than the beams of b at its levels.
+func (r *reader) floors(s *site, b *model.Building, key, n *yaml.Node, path string) []model.Floor {
 	items, ok := r.list(n, path, "floors")
 	if !ok {
 		return nil
@@ -687,7 +839,7 @@ func (r *reader) floors(s *site, key, n *yaml.Node, path string) []model.Floor {
 	for i, it := range items {
 		p := index(path, i)
 		fl := model.Floor{Line: it.Line}
-		f := r.fields(it, p, "levels", "gk", "qk", "category", "spans")
+		f := r.fields(it, p, "levels", "gk", "qk", "category", "spans", "slab")
 		if f == nil {
 			complete = false
 			continue
@@ -730,6 +882,9 @@ func (r *reader) floors(s *site, key, n *yaml.Node, path string) []model.Floor {
 		} else {
 			r.fail(it, join(p, "spans"), "is required but missing (how the slab carries its load: x, y or two-way)")
 		}
+		if e, ok := f["slab"]; ok {
+			fl.Thickness = r.slab(s, b, e.val, join(p, "slab"), levels)
+		}
 		out = append(out, fl)
 	}
 	if s.levelsOK && complete {
@@ -744,21 +899,8 @@ func (r *reader) floors(s *site, key, n *yaml.Node, path string) []model.Floor {
 
 // lineLoads reads the loads on the beams of grid lines.
 func (r *reader) lineLoads(s *site, n *yaml.Node, path string) []model.LineLoad {
-	items, ok := r.list(n, path, "line loads")
-	if !ok {
-		return nil
-	}
-	var out []model.LineLoad
-	for i, it := range items {
-		p := index(path, i)
-		ll := model.LineLoad{Line: it.Line}
-		f := r.fields(it, p, "levels", "line", "from", "to", "gk", "qk", "category")
-		if f == nil {
-			continue
-		}
-		if e, ok := f["levels"]; ok {
-			ll.Levels, _ = r.levelRefs(s, e.val, join(p, "levels"))
-		}
+	return listOf(r, n, path, "line loads", []string{"levels", "line", "from", "to", "gk", "qk", "category"}, func(f map[string]pair, it *yaml.Node, p string) (model.LineLoad, bool) {
+		ll := model.LineLoad{Line: it.Line, Levels: r.levelsOf(s, f, p)}
 		kind := lineKind(0)
 		if e, ok := f["line"]; ok {
 			var good bool
@@ -769,68 +911,222 @@ func (r *reader) lineLoads(s *site, n *yaml.Node, path string) []model.LineLoad 
 		} else {
 			r.fail(it, join(p, "line"), "is required but missing (the grid line of the beams, e.g. line: A)")
 		}
-		from, to, bad := -1, -1, false
-		for _, k := range []string{"from", "to"} {
-			e, ok := f[k]
-			if !ok || kind == 0 {
+		ll.From, ll.To = r.crossRange(s, f, p, kind, ll.GridLine)
+		ll.Gk, ll.Qk, ll.Category = r.loadPair(f, it, p, LimitLineLoad, "gk: 8.5 kN/m")
+		return ll, true
+	})
+}
+
+// crossRange reads the optional from and to of entry f at p: lines crossing grid line name of
+// kind kind (0: the line is unread, and they are left unread). With one end given the other is
+// the end of the line, so that both are set or both empty.
+func (r *reader) crossRange(s *site, f map[string]pair, p string, kind lineKind, name string) (string, string) {
+	from, to, bad := -1, -1, false
+	var fromName, toName string
+	for _, k := range []string{"from", "to"} {
+		e, ok := f[k]
+		if !ok || kind == 0 {
+			continue
+		}
+		ck, ci, cname, good := r.gridLine(s, e.val, join(p, k))
+		switch {
+		case !good:
+			bad = true
+		case ck == kind:
+			cross := "a numbered"
+			if kind == numbered {
+				cross = "a lettered"
+			}
+			r.fail(e.val, join(p, k), "line %s runs parallel to line %s and does not cross it; give %s line", cname, name, cross)
+			bad = true
+		case k == "from":
+			from, fromName = ci, cname
+		default:
+			to, toName = ci, cname
+		}
+	}
+	if kind == 0 || bad || !s.gridOK || from < 0 && to < 0 {
+		return fromName, toName
+	}
+	last := s.ny - 1
+	if kind == numbered {
+		last = s.nx - 1
+	}
+	at, atPath := f["from"], join(p, "from")
+	if from < 0 {
+		from, fromName = 0, crossName(kind, 0)
+	}
+	if to < 0 {
+		to, toName = last, crossName(kind, last)
+	} else {
+		at, atPath = f["to"], join(p, "to")
+	}
+	if from >= to {
+		r.fail(at.val, atPath, "the range from line %s to line %s along line %s is empty; give from before to", fromName, toName, name)
+	}
+	return fromName, toName
+}
+
+// loadPair reads the gk and qk of load entry f (mapping n at p), each within l and at least one
+// given, and the category that an imposed load needs; example is a load for the message.
+func (r *reader) loadPair(f map[string]pair, n *yaml.Node, p string, l Limit, example string) (gk, qk float64, category string) {
+	qOK := false
+	eg, hasG := f["gk"]
+	if hasG {
+		gk, _ = r.plausible(eg.val, join(p, "gk"), l)
+	}
+	eq, hasQ := f["qk"]
+	if hasQ {
+		qk, qOK = r.plausible(eq.val, join(p, "qk"), l)
+	}
+	if !hasG && !hasQ {
+		r.fail(n, p, "give the load: gk, qk or both (e.g. %s)", example)
+	}
+	if e, ok := f["category"]; ok {
+		category, _ = r.category(e.val, join(p, "category"))
+	} else if qOK && qk > 0 {
+		r.fail(n, join(p, "category"), "is required but missing with an imposed load (the category of EN 1991-1-1 Table 6.1, e.g. category: B)")
+	}
+	return gk, qk, category
+}
+
+// The grid's axes for messages: their names and the grid line each is measured from.
+var (
+	axisNames = [2]string{"x", "y"}
+	axisFrom  = [2]string{"A", "1"}
+)
+
+// pointLoads reads the concentrated loads on the floors, each at a point of the grid.
+func (r *reader) pointLoads(s *site, n *yaml.Node, path string) []model.PointLoad {
+	return listOf(r, n, path, "point loads", []string{"levels", "at", "gk", "qk", "category"}, func(f map[string]pair, it *yaml.Node, p string) (model.PointLoad, bool) {
+		pl := model.PointLoad{Line: it.Line, Levels: r.levelsOf(s, f, p)}
+		if e, ok := f["at"]; ok {
+			pl.X, pl.Y = r.at(s, e.val, join(p, "at"))
+		} else {
+			r.fail(it, join(p, "at"), "is required but missing (the point from grid lines A and 1, e.g. at: {x: 9.6 m, y: 3.0 m})")
+		}
+		pl.Gk, pl.Qk, pl.Category = r.loadPair(f, it, p, limitPointLoad, "gk: 45 kN")
+		return pl, true
+	})
+}
+
+// at reads a point {x, y} of the grid, mm from grid lines A and 1.
+func (r *reader) at(s *site, n *yaml.Node, path string) (x, y float64) {
+	f := r.fields(n, path, "x", "y")
+	if f == nil {
+		return 0, 0
+	}
+	var v [2]float64
+	for i, axis := range axisNames {
+		e, ok := f[axis]
+		if !ok {
+			r.fail(n, join(path, axis), "is required but missing (the distance along %s from line %s, e.g. %s: 3.0 m)", axis, axisFrom[i], axis)
+			continue
+		}
+		v[i], _ = r.onGrid(s, e.val, join(path, axis), i)
+	}
+	return v[0], v[1]
+}
+
+// onGrid reads a distance along axis i of the grid (0: x from line A, 1: y from line 1), mm,
+// that must lie on the grid.
+func (r *reader) onGrid(s *site, n *yaml.Node, path string, i int) (float64, bool) {
+	v, ok := r.number(n, path, "mm")
+	if !ok || !s.gridOK {
+		return v, ok
+	}
+	end := s.lengths[i]
+	switch {
+	case v < 0 || v > end*(1+1e-9): // the sum of the bays may round
+		r.fail(n, path, "%s lies off the grid, which runs from 0 to %s along %s (from line %s)", show(v, "mm"), show(end, "mm"), axisNames[i], axisFrom[i])
+		return 0, false
+	case v > end:
+		v = end
+	}
+	return v, true
+}
+
+// areaLoads reads the area loads over rectangular zones of some floors.
+func (r *reader) areaLoads(s *site, n *yaml.Node, path string) []model.AreaLoad {
+	return listOf(r, n, path, "area loads", []string{"levels", "x", "y", "gk", "qk", "category"}, func(f map[string]pair, it *yaml.Node, p string) (model.AreaLoad, bool) {
+		al := model.AreaLoad{Line: it.Line, Levels: r.levelsOf(s, f, p)}
+		for j, axis := range axisNames {
+			e, ok := f[axis]
+			if !ok {
+				r.fail(it, join(p, axis), "is required but missing (the zone's extent along %s from line %s, e.g. %s: [6.6 m, 13.2 m])", axis, axisFrom[j], axis)
 				continue
 			}
-			ck, ci, name, good := r.gridLine(s, e.val, join(p, k))
-			switch {
-			case !good:
-				bad = true
-			case ck == kind:
-				cross := "a numbered"
-				if kind == numbered {
-					cross = "a lettered"
-				}
-				r.fail(e.val, join(p, k), "line %s runs parallel to line %s and does not cross it; give %s line", name, ll.GridLine, cross)
-				bad = true
-			case k == "from":
-				from, ll.From = ci, name
-			default:
-				to, ll.To = ci, name
-			}
-		}
-		if kind != 0 && !bad && s.gridOK && (from >= 0 || to >= 0) {
-			// With one end given the other is the end of the line, so From and To are both set.
-			last := s.ny - 1
-			if kind == numbered {
-				last = s.nx - 1
-			}
-			at, atPath := f["from"], join(p, "from")
-			if from < 0 {
-				from, ll.From = 0, crossName(kind, 0)
-			}
-			if to < 0 {
-				to, ll.To = last, crossName(kind, last)
+			ends := r.zone(s, e.val, join(p, axis), j)
+			if j == 0 {
+				al.X = ends
 			} else {
-				at, atPath = f["to"], join(p, "to")
-			}
-			if from >= to {
-				r.fail(at.val, atPath, "the range from line %s to line %s along line %s is empty; give from before to", ll.From, ll.To, ll.GridLine)
+				al.Y = ends
 			}
 		}
-		qOK := false
-		eg, hasG := f["gk"]
-		if hasG {
-			ll.Gk, _ = r.plausible(eg.val, join(p, "gk"), LimitLineLoad)
-		}
-		eq, hasQ := f["qk"]
-		if hasQ {
-			ll.Qk, qOK = r.plausible(eq.val, join(p, "qk"), LimitLineLoad)
-		}
-		if !hasG && !hasQ {
-			r.fail(it, p, "give the load: gk, qk or both (e.g. gk: 8.5 kN/m)")
-		}
-		if e, ok := f["category"]; ok {
-			ll.Category, _ = r.category(e.val, join(p, "category"))
-		} else if qOK && ll.Qk > 0 {
-			r.fail(it, join(p, "category"), "is required but missing with an imposed load (the category of EN 1991-1-1 Table 6.1, e.g. category: B)")
-		}
-		out = append(out, ll)
+		al.Gk, al.Qk, al.Category = r.loadPair(f, it, p, LimitAreaLoad, "gk: 2.0 kN/m2")
+		return al, true
+	})
+}
+
+// zone reads the extent [from, to] of a zone along axis i of the grid: on the grid, ordered
+// and not empty.
+func (r *reader) zone(s *site, n *yaml.Node, path string, i int) [2]float64 {
+	var v [2]float64
+	its, ok := r.list(n, path, "zone ends")
+	if !ok {
+		return v
 	}
-	return out
+	if len(its) != 2 {
+		r.fail(n, path, "expected the two ends of the zone, [from, to], found %d values", len(its))
+		return v
+	}
+	good := true
+	for j, it := range its {
+		var ok bool
+		v[j], ok = r.onGrid(s, it, index(path, j), i)
+		good = good && ok
+	}
+	if good && !(v[0] < v[1]) {
+		r.fail(n, path, "the zone from %s to %s along %s is empty; give from before to", show(v[0], "mm"), show(v[1], "mm"), axisNames[i])
+	}
+	return v
+}
+
+// cantilevers reads the slabs that continue beyond an edge grid line.
+func (r *reader) cantilevers(s *site, n *yaml.Node, path string) []model.Cantilever {
+	return listOf(r, n, path, "cantilevers", []string{"levels", "line", "from", "to", "length"}, func(f map[string]pair, it *yaml.Node, p string) (model.Cantilever, bool) {
+		c := model.Cantilever{Line: it.Line, Levels: r.levelsOf(s, f, p)}
+		kind := lineKind(0)
+		if e, ok := f["line"]; ok {
+			kind, c.GridLine = r.edgeLine(s, e.val, join(p, "line"))
+		} else {
+			r.fail(it, join(p, "line"), "is required but missing (the edge grid line the slab continues beyond, e.g. line: A)")
+		}
+		c.From, c.To = r.crossRange(s, f, p, kind, c.GridLine)
+		if e, ok := f["length"]; ok {
+			c.Length, _ = r.plausible(e.val, join(p, "length"), limitCantilever)
+		} else {
+			r.fail(it, join(p, "length"), "is required but missing (how far the slab continues beyond the line, e.g. length: 1.5 m)")
+		}
+		return c, true
+	})
+}
+
+// edgeLine reads a grid line that must be an edge of the grid: the first or last lettered line
+// or the first or last numbered one. It returns kind 0 when the name is unread.
+func (r *reader) edgeLine(s *site, n *yaml.Node, path string) (lineKind, string) {
+	k, i, name, ok := r.gridLine(s, n, path)
+	if !ok {
+		return 0, ""
+	}
+	last := s.nx - 1
+	if k == numbered {
+		last = s.ny - 1
+	}
+	if s.gridOK && i != 0 && i != last {
+		r.fail(n, path, "line %s is not an edge of the grid; a cantilever continues beyond an edge line (A or %s, 1 or %d)", name, letters(s.nx-1), s.ny)
+	}
+	return k, name
 }
 
 // crossName names cross line i of a line of kind k: numbered lines cross lettered ones and back.
@@ -839,4 +1135,138 @@ func crossName(k lineKind, i int) string {
 		return strconv.Itoa(i + 1)
 	}
 	return letters(i)
+}
+
+// slab reads a floor's slab {thickness}, which must be less than the depth of every beam at
+// levels; it returns 0 when the thickness is not read.
+func (r *reader) slab(s *site, b *model.Building, n *yaml.Node, path string, levels []string) float64 {
+	f := r.fields(n, path, "thickness")
+	if f == nil {
+		return 0
+	}
+	p := join(path, "thickness")
+	e, ok := f["thickness"]
+	if !ok {
+		r.fail(n, p, "is required but missing (the slab thickness, e.g. slab: {thickness: 225 mm})")
+		return 0
+	}
+	t, ok := r.plausible(e.val, p, limitSlab)
+	if !ok {
+		return 0
+	}
+	least, level, from := 0.0, "", ""
+	for _, l := range levels {
+		if d, src := leastBeamDepth(s, b, l); d > 0 && (least == 0 || d < least) {
+			least, level, from = d, l, src
+		}
+	}
+	if least > 0 && !(t < least) {
+		r.fail(e.val, p, "%s is not less than the depth of the shallowest beam at level %s, %s (%s); the beams must reach below the slab",
+			show(t, "mm"), level, show(least, "mm"), from)
+		return 0
+	}
+	return t
+}
+
+// leastBeamDepth returns the depth of the shallowest beams at level and the field that gives
+// it, the beams of each grid line taking the last size override that covers them; 0 when a
+// depth is unknown.
+func leastBeamDepth(s *site, b *model.Building, level string) (float64, string) {
+	if !s.gridOK {
+		return 0, ""
+	}
+	least, from := 0.0, ""
+	for _, dir := range []string{"x", "y"} {
+		// Beams along x lie on the numbered lines, beams along y on the lettered ones.
+		name, count := func(i int) string { return strconv.Itoa(i + 1) }, s.ny
+		if dir == "y" {
+			name, count = letters, s.nx
+		}
+		for i := range count {
+			d, src := beamDepth(b, level, dir, name(i))
+			if d <= 0 {
+				return 0, ""
+			}
+			if least == 0 || d < least {
+				least, from = d, src
+			}
+		}
+	}
+	return least, from
+}
+
+// beamDepth returns the depth of the beams along dir on grid line line at level, and the field
+// that gives it.
+func beamDepth(b *model.Building, level, dir, line string) (float64, string) {
+	d, from := b.Beam.H, "building.beams.h"
+	for i, o := range b.Beams {
+		if covers(o.Levels, level) && (o.Dir == "" || o.Dir == dir) && covers(o.Lines, line) {
+			d, from = o.H, index("building.beam_sizes", i)+".h"
+		}
+	}
+	return d, from
+}
+
+// covers reports whether a list of names that is empty for all holds name.
+func covers(names []string, name string) bool {
+	return len(names) == 0 || slices.Contains(names, name)
+}
+
+// concreteZones reads the concrete classes of some columns at some levels; later entries win.
+func (r *reader) concreteZones(s *site, n *yaml.Node, path string) []model.ConcreteZone {
+	return listOf(r, n, path, "concrete zones", []string{"levels", "columns", "class"}, func(f map[string]pair, it *yaml.Node, p string) (model.ConcreteZone, bool) {
+		z := model.ConcreteZone{Line: it.Line, Levels: r.levelsOf(s, f, p)}
+		if e, ok := f["columns"]; ok {
+			z.Columns, _ = r.columnRefs(s, e.val, join(p, "columns"))
+		}
+		e, ok := f["class"]
+		if !ok {
+			r.fail(it, join(p, "class"), "is required but missing (the strength class of EN 1992-1-1 Table 3.1, e.g. class: C45/55)")
+			return z, false
+		}
+		z.Class, ok = r.concreteClass(e.val, join(p, "class"))
+		return z, ok
+	})
+}
+
+// listOf reads list n of mappings with the given keys, each by one from its fields, node and
+// path, and keeps what one accepts; what names the entries in messages.
+func listOf[T any](r *reader, n *yaml.Node, path, what string, keys []string, one func(f map[string]pair, it *yaml.Node, p string) (T, bool)) []T {
+	items, ok := r.list(n, path, what)
+	if !ok {
+		return nil
+	}
+	var out []T
+	for i, it := range items {
+		p := index(path, i)
+		if f := r.fields(it, p, keys...); f != nil {
+			if v, ok := one(f, it, p); ok {
+				out = append(out, v)
+			}
+		}
+	}
+	return out
+}
+
+// levelsOf reads the optional levels of entry f at p; nil stands for every level.
+func (r *reader) levelsOf(s *site, f map[string]pair, p string) []string {
+	e, ok := f["levels"]
+	if !ok {
+		return nil
+	}
+	levels, _ := r.levelRefs(s, e.val, join(p, "levels"))
+	return levels
+}
+
+// concreteClass reads a strength class of EN 1992-1-1 Table 3.1 such as C30/37.
+func (r *reader) concreteClass(n *yaml.Node, path string) (material.Concrete, bool) {
+	s, ok := r.str(n, path)
+	if !ok {
+		return material.Concrete{}, false
+	}
+	c, found := material.Lookup(s)
+	if !found {
+		r.fail(n, path, "%q is not a strength class of EN 1992-1-1 Table 3.1 (classes: %s)", s, material.ClassNames())
+	}
+	return c, found
 }
