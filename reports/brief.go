@@ -79,15 +79,81 @@ var chain = []string{
 // briefStep reports whether a brief sheet prints step s (its ID without column and lift):
 // every check, and the steps of the chain.
 func briefStep(s trace.Step) bool {
-	if s.Kind == trace.KindCheck {
-		return true
+	return s.Kind == trace.KindCheck || chainIndex.match(s.ID)
+}
+
+// chainIndex is chain compiled once, for briefStep.
+var chainIndex = compileChain(chain)
+
+// chainMatcher matches step IDs against a list of path patterns, as path.Match does with each
+// in turn, without parsing the patterns again for every ID.
+type chainMatcher struct {
+	byLast map[string][]segPattern // patterns whose last segment is literal, by that segment
+	other  []string                // patterns matched with path.Match
+}
+
+// segPattern is a pattern of '/'-separated segments, each literal or "*" (one segment of any
+// text without '/', empty included).
+type segPattern []string
+
+// compileChain compiles the patterns: those made of literal and "*" segments only are indexed
+// by their last segment; any other is kept for path.Match.
+func compileChain(patterns []string) chainMatcher {
+	m := chainMatcher{byLast: map[string][]segPattern{}}
+	for _, p := range patterns {
+		segs := strings.Split(p, "/")
+		last := segs[len(segs)-1]
+		if !plainSegments(segs) || last == "*" {
+			m.other = append(m.other, p)
+			continue
+		}
+		m.byLast[last] = append(m.byLast[last], segPattern(segs))
 	}
-	for _, p := range chain {
-		if ok, _ := path.Match(p, s.ID); ok {
+	return m
+}
+
+// plainSegments reports whether every segment is "*" or free of pattern syntax.
+func plainSegments(segs []string) bool {
+	for _, s := range segs {
+		if s != "*" && strings.ContainsAny(s, `*?[\`) {
+			return false
+		}
+	}
+	return true
+}
+
+// match reports whether id matches any of the patterns.
+func (m chainMatcher) match(id string) bool {
+	last := id[strings.LastIndexByte(id, '/')+1:]
+	for _, p := range m.byLast[last] {
+		if p.match(id) {
+			return true
+		}
+	}
+	for _, p := range m.other {
+		if ok, _ := path.Match(p, id); ok {
 			return true
 		}
 	}
 	return false
+}
+
+// match reports whether id has as many segments as p, each equal to p's or matched by "*".
+func (p segPattern) match(id string) bool {
+	for k, seg := range p {
+		i := strings.IndexByte(id, '/')
+		if (i < 0) != (k == len(p)-1) {
+			return false
+		}
+		part := id
+		if i >= 0 {
+			part, id = id[:i], id[i+1:]
+		}
+		if seg != "*" && seg != part {
+			return false
+		}
+	}
+	return true
 }
 
 // localID returns a full step ID without its column and lift.

@@ -3,12 +3,14 @@ package reports
 import (
 	"errors"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"colsheet/calc/trace"
 )
 
 // pieceKind says what a piece of a displayed formula is.
-type pieceKind int
+type pieceKind int8
 
 const (
 	pSym        pieceKind = iota // a display symbol such as "f_cd"
@@ -31,12 +33,12 @@ const (
 
 // piece is one element of a formula laid out for display.
 type piece struct {
-	kind  pieceKind
 	text  string // symbol, identifier, operator or function name; literal number text
 	n     num    // formatted number, for a pNum from an argument value
-	lit   bool   // pNum written literally in the expression
 	unit  string // display unit of a pNum, "" for none
-	unary bool   // pOp used as a unary sign
+	kind  pieceKind
+	lit   bool // pNum written literally in the expression
+	unary bool // pOp used as a unary sign
 }
 
 type token struct {
@@ -137,16 +139,22 @@ var opDisplay = map[string]string{
 // is shown by its symbol; with values true by its value in display units. Identifiers that
 // are not arguments are left as written.
 func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
-	toks, err := tokenize(expr)
-	if err != nil {
-		return nil, err
+	ps, err := layoutTo(nil, readExpr(expr), args, values)
+	if len(ps) == 0 {
+		return nil, err // as for an expression of no tokens
 	}
-	if toks, err = ternaries(toks); err != nil {
-		return nil, err
+	return ps, err
+}
+
+// layoutTo appends the display pieces of the expression pe (as layout lays them out) to out;
+// nil on error.
+func layoutTo(out []piece, pe parsedExpr, args []trace.Arg, values bool) ([]piece, error) {
+	if pe.err != nil {
+		return nil, pe.err
 	}
-	byName := make(map[string]trace.Arg, len(args))
-	for _, a := range args {
-		byName[a.Name] = a
+	toks := pe.read
+	if out == nil {
+		out = make([]piece, 0, len(toks)+4)
 	}
 	type group struct {
 		kind     pieceKind // pOp for plain parentheses, pSqrtOpen, pAbsOpen, pFloorOpen, pCeilOpen, pWord (rounddown)
@@ -155,9 +163,9 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		up       bool      // pWord: roundup rather than rounddown
 	}
 	var (
-		out   []piece
 		stack []group
 		sup   bool // the next operand is an exponent
+		start = len(out)
 	)
 	operandStart := func() bool { // emits pSupOpen when an exponent starts here; reports whether one did
 		if sup {
@@ -168,7 +176,7 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		return false
 	}
 	prevIsOperand := func() bool {
-		if len(out) == 0 {
+		if len(out) == start {
 			return false
 		}
 		p := out[len(out)-1]
@@ -181,7 +189,7 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		return false
 	}
 	afterOperator := func() bool { // a signed number here needs parentheses
-		if len(out) == 0 {
+		if len(out) == start {
 			return false
 		}
 		p := out[len(out)-1]
@@ -227,7 +235,7 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 				continue
 			}
 			opened := operandStart()
-			a, ok := byName[t.text]
+			a, ok := argNamed(args, t.text)
 			switch {
 			case !ok && t.text == "pi":
 				out = append(out, piece{kind: pSym, text: "π"})
@@ -342,6 +350,51 @@ func layout(expr string, args []trace.Arg, values bool) ([]piece, error) {
 		return nil, errExpr
 	}
 	return out, nil
+}
+
+// argNamed returns the argument called name, the last of several.
+func argNamed(args []trace.Arg, name string) (trace.Arg, bool) {
+	for k := len(args) - 1; k >= 0; k-- {
+		if args[k].Name == name {
+			return args[k], true
+		}
+	}
+	return trace.Arg{}, false
+}
+
+// parsedExpr is an expression split into tokens: as written, and with its ternaries read out
+// (ternaries); never changed once made, as it is shared by every sheet.
+type parsedExpr struct {
+	toks []token // the tokens as written; nil where tokenize failed
+	read []token // the tokens with the ternaries read out
+	err  error   // why the expression could not be read, nil if it could
+}
+
+// maxParsed bounds the entries that each shared store (readExpr's, formBySymbols') keeps.
+const maxParsed = 1 << 14
+
+var (
+	parsedExprs sync.Map     // expression text → parsedExpr
+	parsedCount atomic.Int64 // entries in parsedExprs
+)
+
+// readExpr returns expr split into tokens and with its ternaries read out; each expression text
+// is read once (up to maxParsed of them) and shared by every sheet, safe for concurrent use.
+func readExpr(expr string) parsedExpr {
+	if v, ok := parsedExprs.Load(expr); ok {
+		return v.(parsedExpr)
+	}
+	var pe parsedExpr
+	pe.toks, pe.err = tokenize(expr)
+	if pe.err == nil {
+		pe.read, pe.err = ternaries(pe.toks)
+	}
+	if parsedCount.Load() < maxParsed {
+		if _, loaded := parsedExprs.LoadOrStore(expr, pe); !loaded {
+			parsedCount.Add(1)
+		}
+	}
+	return pe
 }
 
 // ternaries reads out every "c ? a : b" of the tokens as "a if c, otherwise b", the way a hand
@@ -465,12 +518,6 @@ func showStep(s trace.Step) shown {
 	if s.Kind == trace.KindCheck && symbol == "" {
 		symbol = "η"
 	}
-	lead := func() []piece {
-		if symbol == "" {
-			return nil
-		}
-		return []piece{{kind: pSym, text: symbol}, {kind: pOp, text: "="}}
-	}
 	expr, words := s.Expr, ""
 	if s.Show != nil {
 		expr, words = s.Show.Expr, s.Show.Result
@@ -479,40 +526,141 @@ func showStep(s trace.Step) shown {
 	case words != "" && s.Kind == trace.KindCheck:
 		out.Result = []piece{{kind: pWord, text: words}}
 	case words != "":
-		out.Result = append(lead(), piece{kind: pWord, text: words})
+		out.Result = led(symbol, 0, piece{kind: pWord, text: words})
 	default:
 		n, u := quantityOf(s.Value, s.Unit, s.Symbol)
-		out.Result = append(lead(), piece{kind: pNum, n: n, unit: u})
+		out.Result = led(symbol, 0, piece{kind: pNum, n: n, unit: u})
 	}
 	if expr == "" || s.Kind == trace.KindInput || s.Kind == trace.KindTable {
 		return out
 	}
-	ps, err := layout(expr, s.Args, false)
-	if err != nil {
+	f := formBySymbols(expr, symbol, s.Args)
+	switch {
+	case f.failed:
 		out.Text = expr
 		return out
-	}
-	if len(ps) == 1 && ps[0].kind == pNum {
+	case f.alone:
 		return out // a number alone ("r_m = 1"): the result says it
 	}
-	out.Formula = append(lead(), ps...)
-	vs, err := layout(expr, s.Args, true)
-	if err != nil || !usesArgs(expr, s.Args) {
+	out.Formula = f.formula
+	if !f.usesArgs {
 		return out // nothing to substitute: the values would repeat the formula
 	}
-	if words != "" {
-		vs = append(vs, piece{kind: pOp, text: "→"}, piece{kind: pWord, text: words})
+	var scratch [64]piece // laid out here first, then kept at its own length
+	vs, err := layoutTo(scratch[:0], f.pe, s.Args, true)
+	if err != nil {
+		return out
 	}
-	out.Values = vs
+	if words != "" {
+		out.Values = led("", 2, vs...)
+		out.Values = append(out.Values, piece{kind: pOp, text: "→"}, piece{kind: pWord, text: words})
+	} else {
+		out.Values = led("", 0, vs...)
+	}
 	return out
 }
 
-// usesArgs reports whether expr names any of the arguments.
-func usesArgs(expr string, args []trace.Arg) bool {
-	toks, err := tokenize(expr)
-	if err != nil {
-		return false
+// led returns the pieces "symbol =" (none for no symbol) followed by ps, in a slice of its own
+// with room for more pieces.
+func led(symbol string, more int, ps ...piece) []piece {
+	if symbol == "" {
+		return append(make([]piece, 0, len(ps)+more), ps...)
 	}
+	out := append(make([]piece, 0, 2+len(ps)+more), piece{kind: pSym, text: symbol}, piece{kind: pOp, text: "="})
+	return append(out, ps...)
+}
+
+// symbolForm is the formula of a step by symbols, laid out once for every step whose
+// expression, result symbol and arguments' symbols are the same.
+type symbolForm struct {
+	pe       parsedExpr // the expression read
+	uses     []argUse   // what each identifier of the expression stood for
+	usesArgs bool       // some identifier is an argument (usesArgs)
+	failed   bool       // the expression could not be laid out
+	alone    bool       // the expression is a number alone
+	formula  []piece    // led by the result's symbol; nil for none; shared, so never changed
+}
+
+// argUse is what an identifier of an expression stood for: the symbol of the argument of that
+// name, or no argument.
+type argUse struct {
+	name, symbol string
+	found        bool
+}
+
+// formKey names a symbolForm: the expression and the result's symbol.
+type formKey struct{ expr, symbol string }
+
+var (
+	symbolForms    sync.Map     // formKey → *symbolForm, the first laid out for that key
+	symbolFormSize atomic.Int64 // entries in symbolForms
+)
+
+// formBySymbols returns the formula by symbols of the expression expr of a step whose result is
+// called symbol, with arguments args: the one laid out before for the same expression, symbol
+// and argument symbols (up to maxParsed of them), else laid out now. Safe for concurrent use.
+func formBySymbols(expr, symbol string, args []trace.Arg) *symbolForm {
+	key := formKey{expr, symbol}
+	if v, ok := symbolForms.Load(key); ok {
+		if f := v.(*symbolForm); f.fits(args) {
+			return f
+		}
+		return newSymbolForm(readExpr(expr), symbol, args)
+	}
+	f := newSymbolForm(readExpr(expr), symbol, args)
+	if symbolFormSize.Load() < maxParsed {
+		if _, loaded := symbolForms.LoadOrStore(key, f); !loaded {
+			symbolFormSize.Add(1)
+		}
+	}
+	return f
+}
+
+// newSymbolForm lays out the formula by symbols of the expression pe, led by symbol.
+func newSymbolForm(pe parsedExpr, symbol string, args []trace.Arg) *symbolForm {
+	f := &symbolForm{pe: pe, usesArgs: usesArgs(pe.toks, args)}
+	for _, t := range pe.read {
+		if t.kind == tIdent && !f.has(t.text) {
+			a, ok := argNamed(args, t.text)
+			f.uses = append(f.uses, argUse{name: t.text, symbol: a.Symbol, found: ok})
+		}
+	}
+	var scratch [64]piece // laid out here first, then kept at its own length
+	ps, err := layoutTo(scratch[:0], pe, args, false)
+	switch {
+	case err != nil:
+		f.failed = true
+	case len(ps) == 1 && ps[0].kind == pNum:
+		f.alone = true
+	case symbol != "" || len(ps) > 0: // else nil: nothing is shown
+		f.formula = led(symbol, 0, ps...)
+	}
+	return f
+}
+
+// has reports whether the form records the identifier name.
+func (f *symbolForm) has(name string) bool {
+	for _, u := range f.uses {
+		if u.name == name {
+			return true
+		}
+	}
+	return false
+}
+
+// fits reports whether every identifier stands in args for what it stood for when f was laid out.
+func (f *symbolForm) fits(args []trace.Arg) bool {
+	for _, u := range f.uses {
+		a, ok := argNamed(args, u.name)
+		if ok != u.found || ok && a.Symbol != u.symbol {
+			return false
+		}
+	}
+	return true
+}
+
+// usesArgs reports whether the tokens of an expression name any of the arguments.
+func usesArgs(toks []token, args []trace.Arg) bool {
 	for _, t := range toks {
 		if t.kind != tIdent {
 			continue

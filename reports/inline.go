@@ -30,14 +30,13 @@ const (
 
 type span struct {
 	kind   spanKind
-	text   string
-	n      num
-	v      float64
-	unit   string
-	pieces []piece
-	inner  inline
-	to     target
-	fig    drawing
+	text   string  // the text; for sNum the mantissa (num.m), for sQty the engine unit
+	e      int     // sNum: the power of ten (num.e)
+	v      float64 // sQty: the value in engine units
+	pieces []piece // sFormula
+	inner  inline  // sLink, sChanged
+	to     *target // sLink
+	fig    drawing // sPicture
 }
 
 // drawing is a picture that prints itself for each format: an inline SVG element, or TikZ
@@ -58,20 +57,27 @@ type target struct {
 func txt(s string) inline     { return inline{{kind: sText, text: s}} }
 func rich(s string) inline    { return inline{{kind: sRich, text: s}} }
 func sym(s string) inline     { return inline{{kind: sSym, text: s}} }
-func numv(n num) inline       { return inline{{kind: sNum, n: n}} }
+func numv(n num) inline       { return inline{{kind: sNum, text: n.m, e: n.e}} }
 func listing(s string) inline { return inline{{kind: sListing, text: s}} }
 func anchor(name string) inline {
 	return inline{{kind: sAnchor, text: name}}
 }
-func qty(v float64, u string) inline      { return inline{{kind: sQty, v: v, unit: u}} }
+func qty(v float64, u string) inline      { return inline{{kind: sQty, v: v, text: u}} }
 func formula(ps []piece) inline           { return inline{{kind: sFormula, pieces: ps}} }
-func link(label inline, to target) inline { return inline{{kind: sLink, inner: label, to: to}} }
+func link(label inline, to target) inline { return inline{{kind: sLink, inner: label, to: &to}} }
 func changed(in inline) inline            { return inline{{kind: sChanged, inner: in}} }
 func picture(g drawing) inline            { return inline{{kind: sPicture, fig: g}} }
 
 // cat joins runs.
 func cat(parts ...inline) inline {
-	var out inline
+	n := 0
+	for _, p := range parts {
+		n += len(p)
+	}
+	if n == 0 {
+		return nil
+	}
+	out := make(inline, 0, n)
 	for _, p := range parts {
 		out = append(out, p...)
 	}
@@ -80,7 +86,17 @@ func cat(parts ...inline) inline {
 
 // join joins runs with a separator.
 func join(parts []inline, sep inline) inline {
-	var out inline
+	n := 0
+	for i, p := range parts {
+		if i > 0 {
+			n += len(sep)
+		}
+		n += len(p)
+	}
+	if n == 0 {
+		return nil
+	}
+	out := make(inline, 0, n)
 	for i, p := range parts {
 		if i > 0 {
 			out = append(out, sep...)
@@ -104,34 +120,46 @@ type printer struct {
 
 // inline prints a run.
 func (p printer) inline(in inline) string {
+	switch len(in) {
+	case 0:
+		return ""
+	case 1:
+		return p.printSpan(in[0])
+	}
 	var b strings.Builder
 	for _, s := range in {
-		switch s.kind {
-		case sText:
-			b.WriteString(p.m.text(s.text))
-		case sRich:
-			b.WriteString(p.m.rich(s.text))
-		case sSym:
-			b.WriteString(p.m.sym(s.text))
-		case sNum:
-			b.WriteString(p.m.num(s.n))
-		case sQty:
-			b.WriteString(p.m.qty(s.v, s.unit))
-		case sFormula:
-			b.WriteString(p.m.formula(s.pieces))
-		case sLink:
-			b.WriteString(p.m.link(p.inline(s.inner), p.link(s.to)))
-		case sAnchor:
-			b.WriteString(p.m.anchor(s.text))
-		case sChanged:
-			b.WriteString(p.m.changed(p.inline(s.inner)))
-		case sPicture:
-			b.WriteString(p.m.picture(s.fig))
-		case sListing:
-			b.WriteString(p.m.listing(s.text))
-		}
+		b.WriteString(p.printSpan(s))
 	}
 	return b.String()
+}
+
+// printSpan prints one span of a run.
+func (p printer) printSpan(s span) string {
+	switch s.kind {
+	case sText:
+		return p.m.text(s.text)
+	case sRich:
+		return p.m.rich(s.text)
+	case sSym:
+		return p.m.sym(s.text)
+	case sNum:
+		return p.m.num(num{m: s.text, e: s.e})
+	case sQty:
+		return p.m.qty(s.v, s.text)
+	case sFormula:
+		return p.m.formula(s.pieces)
+	case sLink:
+		return p.m.link(p.inline(s.inner), p.link(*s.to))
+	case sAnchor:
+		return p.m.anchor(s.text)
+	case sChanged:
+		return p.m.changed(p.inline(s.inner))
+	case sPicture:
+		return p.m.picture(s.fig)
+	case sListing:
+		return p.m.listing(s.text)
+	}
+	return ""
 }
 
 // inlines prints a list of runs.

@@ -1,10 +1,10 @@
 package reports
 
 import (
-	"regexp"
 	"strconv"
 	"strings"
 	"unicode"
+	"unicode/utf8"
 )
 
 // markup escapes text and lays out symbols, numbers and formulas for one output format.
@@ -26,32 +26,136 @@ type markup interface {
 // '.' and '-' only, the same in every format and distinct for distinct IDs: '/' becomes '.',
 // any other character outside [A-Za-z0-9] becomes "-XX-" with its hex code.
 func anchorName(prefix, id string) string {
+	n := len(prefix) // the length of the name, to make it in one piece
+	for i := 0; i < len(id); {
+		r, w := anchorRune(id, i)
+		i += w
+		if anchorKept(r) {
+			n++
+		} else {
+			n += anchorHexLen(r)
+		}
+	}
 	var b strings.Builder
+	b.Grow(n)
 	b.WriteString(prefix)
-	for _, r := range id {
+	for i := 0; i < len(id); {
+		r, w := anchorRune(id, i)
+		i += w
 		switch {
-		case r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9':
-			b.WriteRune(r)
 		case r == '/':
 			b.WriteByte('.')
+		case anchorKept(r):
+			b.WriteByte(byte(r))
 		default:
-			b.WriteString("-" + strings.ToLower(strconv.FormatInt(int64(r), 16)) + "-")
+			var hex [16]byte
+			b.WriteByte('-')
+			b.Write(strconv.AppendInt(hex[:0], int64(r), 16)) // lower case already
+			b.WriteByte('-')
 		}
 	}
 	return b.String()
 }
 
-// symbolRE finds symbols with a subscript, such as "f_cd", "λ_lim", "M_Ed,y", in running text.
-var symbolRE = regexp.MustCompile(`\pL[\pL\pN]*_[\pL\pN]+(?:,[\pL\pN]+)*`)
+// anchorRune returns the character at byte i of id and its width, as ranging over id gives it.
+func anchorRune(id string, i int) (rune, int) {
+	if id[i] < utf8.RuneSelf {
+		return rune(id[i]), 1
+	}
+	return utf8.DecodeRuneInString(id[i:])
+}
+
+// anchorKept reports whether anchorName writes r as one byte: an ASCII letter or digit, or '/'.
+func anchorKept(r rune) bool {
+	return r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9' || r == '/'
+}
+
+// anchorHexLen is the length of "-XX-", the hex code of r between dashes.
+func anchorHexLen(r rune) int {
+	n := 3
+	for r >= 16 {
+		r >>= 4
+		n++
+	}
+	return n
+}
+
+// nextSymbol returns the byte range [i, j) of the first symbol with a subscript, such as
+// "f_cd", "λ_lim" or "M_Ed,y", in s at or after byte from: a letter and letters or digits, '_',
+// letters or digits, then any number of ',' and letters or digits, each run as long as it goes
+// (the regular expression \pL[\pL\pN]*_[\pL\pN]+(?:,[\pL\pN]+)* finds the same); i < 0 for none.
+func nextSymbol(s string, from int) (i, j int) {
+	for k := from; k < len(s); {
+		end, start := symbolRun(s, k)
+		if end == k { // not a letter or digit
+			_, w := utf8.DecodeRuneInString(s[k:])
+			k += w
+			continue
+		}
+		if start >= 0 && end < len(s) && s[end] == '_' {
+			if e, _ := symbolRun(s, end+1); e > end+1 {
+				for e < len(s) && s[e] == ',' {
+					f, _ := symbolRun(s, e+1)
+					if f == e+1 {
+						break
+					}
+					e = f
+				}
+				return start, e
+			}
+		}
+		k = end
+	}
+	return -1, -1
+}
+
+// symbolRun returns the end of the run of letters and digits that starts at byte k of s, and
+// where its first letter is (-1 for none).
+func symbolRun(s string, k int) (end, letter int) {
+	letter = -1
+	for k < len(s) {
+		if c := s[k]; c < utf8.RuneSelf { // ASCII: the letters and digits are the only ones
+			switch {
+			case c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z':
+				if letter < 0 {
+					letter = k
+				}
+			case c < '0' || c > '9':
+				return k, letter
+			}
+			k++
+			continue
+		}
+		r, w := utf8.DecodeRuneInString(s[k:])
+		switch {
+		case unicode.IsLetter(r):
+			if letter < 0 {
+				letter = k
+			}
+		case !unicode.IsNumber(r):
+			return k, letter
+		}
+		k += w
+	}
+	return k, letter
+}
 
 // richWith escapes s with text and shows every symbol in it with sym.
 func richWith(s string, text, sym func(string) string) string {
+	if strings.IndexByte(s, '_') < 0 {
+		return text(s) // no subscript, no symbol
+	}
+	i, j := nextSymbol(s, 0)
+	if i < 0 {
+		return text(s)
+	}
 	var b strings.Builder
 	last := 0
-	for _, m := range symbolRE.FindAllStringIndex(s, -1) {
-		b.WriteString(text(s[last:m[0]]))
-		b.WriteString(sym(s[m[0]:m[1]]))
-		last = m[1]
+	for i >= 0 {
+		b.WriteString(text(s[last:i]))
+		b.WriteString(sym(s[i:j]))
+		last = j
+		i, j = nextSymbol(s, j)
 	}
 	b.WriteString(text(s[last:]))
 	return b.String()
@@ -67,12 +171,20 @@ func splitSymbol(s string) (base, sub string) {
 
 // oneLine replaces line breaks, tabs and other control characters by spaces.
 func oneLine(s string) string {
-	return strings.Map(func(r rune) rune {
-		if unicode.IsControl(r) || r == '\u2028' || r == '\u2029' {
-			return ' '
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c < 0x20 || c >= 0x7f {
+			return strings.Map(oneLineRune, s)
 		}
-		return r
-	}, s)
+	}
+	return s // printable ASCII only
+}
+
+// oneLineRune is the character oneLine puts for r.
+func oneLineRune(r rune) rune {
+	if unicode.IsControl(r) || r == '\u2028' || r == '\u2029' {
+		return ' '
+	}
+	return r
 }
 
 // ---- Markdown ----
@@ -85,22 +197,42 @@ type md struct{}
 // mdSpecial lists the characters escaped anywhere in Markdown text.
 const mdSpecial = "\\`*_{}[]<>&|~$#!"
 
+// mdEscaped marks the characters of mdSpecial.
+var mdEscaped = func() (t [utf8.RuneSelf]bool) {
+	for _, c := range mdSpecial {
+		t[c] = true
+	}
+	return t
+}()
+
 func (md) text(s string) string { return mdEscape(s, true) }
 
 // mdEscape backslash-escapes the Markdown specials in s; with leading, also the characters
 // that would start a list or heading at the start of a line.
 func mdEscape(s string, leading bool) string {
-	s = oneLine(s)
-	var b strings.Builder
-	for i, r := range s {
-		if r < 0x80 && strings.ContainsRune(mdSpecial, r) {
-			b.WriteByte('\\')
-		} else if leading && i == 0 && (r == '-' || r == '+' || r == '=') {
-			b.WriteByte('\\')
-		}
-		b.WriteRune(r)
+	s = oneLine(s) // valid UTF-8 from here on: a byte below 0x80 is a character
+	escape := func(i int) bool {
+		c := s[i]
+		return c < utf8.RuneSelf && mdEscaped[c] || leading && i == 0 && (c == '-' || c == '+' || c == '=')
 	}
-	out := b.String()
+	n := 0
+	for i := 0; i < len(s); i++ {
+		if escape(i) {
+			n++
+		}
+	}
+	out := s
+	if n > 0 {
+		var b strings.Builder
+		b.Grow(len(s) + n)
+		for i := 0; i < len(s); i++ {
+			if escape(i) {
+				b.WriteByte('\\')
+			}
+			b.WriteByte(s[i])
+		}
+		out = b.String()
+	}
 	// a leading "1." or "1)" would start an ordered list
 	j := 0
 	for j < len(out) && out[j] >= '0' && out[j] <= '9' {
@@ -137,7 +269,21 @@ func (m md) sym(s string) string {
 	if sub == "" {
 		return m.text(base)
 	}
-	return m.text(base) + "<sub>" + m.text(sub) + "</sub>"
+	var b strings.Builder
+	b.Grow(len(s) + len("<sub></sub>"))
+	m.writeSym(&b, s)
+	return b.String()
+}
+
+// writeSym writes the symbol s as sym returns it.
+func (m md) writeSym(b *strings.Builder, s string) {
+	base, sub := splitSymbol(oneLine(s))
+	b.WriteString(m.text(base))
+	if sub != "" {
+		b.WriteString("<sub>")
+		b.WriteString(m.text(sub))
+		b.WriteString("</sub>")
+	}
 }
 
 func (md) num(n num) string {
@@ -158,6 +304,7 @@ func (m md) qty(v float64, u string) string {
 
 func (m md) formula(ps []piece) string {
 	var b strings.Builder
+	b.Grow(12 * len(ps))
 	sup := 0
 	for _, p := range ps {
 		switch p.kind {
@@ -166,7 +313,8 @@ func (m md) formula(ps []piece) string {
 			if b.Len() > 0 && !strings.HasSuffix(b.String(), " ") && !strings.HasPrefix(p.text, ",") {
 				b.WriteString(" ")
 			}
-			b.WriteString(m.text(p.text) + " ")
+			b.WriteString(m.text(p.text))
+			b.WriteByte(' ')
 		case pFloorOpen:
 			b.WriteString("⌊")
 		case pFloorClose:
@@ -176,7 +324,7 @@ func (m md) formula(ps []piece) string {
 		case pCeilClose:
 			b.WriteString("⌉")
 		case pSym:
-			b.WriteString(m.sym(p.text))
+			m.writeSym(&b, p.text)
 		case pText:
 			b.WriteString(mdEscape(p.text, false))
 		case pNum:
@@ -186,7 +334,8 @@ func (m md) formula(ps []piece) string {
 				b.WriteString(m.num(p.n))
 			}
 			if p.unit != "" {
-				b.WriteString("\u00a0" + m.text(p.unit))
+				b.WriteString("\u00a0")
+				b.WriteString(m.text(p.unit))
 			}
 		case pOp:
 			op := mdEscape(p.text, false)
@@ -196,12 +345,16 @@ func (m md) formula(ps []piece) string {
 			case p.text == ",":
 				b.WriteString(", ")
 			case strings.HasSuffix(b.String(), " "):
-				b.WriteString(op + " ")
+				b.WriteString(op)
+				b.WriteByte(' ')
 			default:
-				b.WriteString(" " + op + " ")
+				b.WriteByte(' ')
+				b.WriteString(op)
+				b.WriteByte(' ')
 			}
 		case pFunc:
-			b.WriteString(m.text(p.text) + "(")
+			b.WriteString(m.text(p.text))
+			b.WriteByte('(')
 		case pSupOpen:
 			sup++
 			b.WriteString("<sup>")
@@ -289,69 +442,111 @@ func texLatin(r rune) bool {
 	return true
 }
 
-func (tex) text(s string) string {
-	s = oneLine(s)
+func (tex) text(s string) string { return texEscape(oneLine(s), &texTextASCII, texTextRune) }
+
+// texTextRune writes r as text mode sets it.
+func texTextRune(b *strings.Builder, r rune) {
+	switch {
+	case texTextRunes[r] != "":
+		b.WriteString(texTextRunes[r])
+	case r >= 0x20 && r < 0x7f:
+		b.WriteRune(r)
+	case texMathRunes[r] != "":
+		b.WriteString(`\ensuremath{` + texMathRunes[r] + `}`)
+	case texLatin(r):
+		b.WriteRune(r)
+	default:
+		b.WriteByte('?')
+	}
+}
+
+// texASCII is what text or math mode writes for each ASCII character; plain marks those
+// written as they are.
+type texASCII struct {
+	out   [utf8.RuneSelf]string
+	plain [utf8.RuneSelf]bool
+}
+
+var (
+	texTextASCII = asciiOf(texTextRune)
+	texMathASCII = asciiOf(texMathRune)
+)
+
+// asciiOf tabulates what write writes for each ASCII character.
+func asciiOf(write func(*strings.Builder, rune)) (t texASCII) {
+	for c := range utf8.RuneSelf {
+		var b strings.Builder
+		write(&b, rune(c))
+		t.out[c] = b.String()
+		t.plain[c] = t.out[c] == string(rune(c))
+	}
+	return t
+}
+
+// texEscape writes every character of s (valid UTF-8) as write does, the ASCII ones from the
+// table ascii; s itself where every character is written as it is.
+func texEscape(s string, ascii *texASCII, write func(*strings.Builder, rune)) string {
+	k := 0
+	for k < len(s) && s[k] < utf8.RuneSelf && ascii.plain[s[k]] {
+		k++
+	}
+	if k == len(s) {
+		return s
+	}
 	var b strings.Builder
-	for _, r := range s {
-		switch {
-		case texTextRunes[r] != "":
-			b.WriteString(texTextRunes[r])
-		case r >= 0x20 && r < 0x7f:
-			b.WriteRune(r)
-		case texMathRunes[r] != "":
-			b.WriteString(`\ensuremath{` + texMathRunes[r] + `}`)
-		case texLatin(r):
-			b.WriteRune(r)
-		default:
-			b.WriteByte('?')
+	b.Grow(len(s) + 16)
+	b.WriteString(s[:k])
+	for _, r := range s[k:] {
+		if r < utf8.RuneSelf {
+			b.WriteString(ascii.out[r])
+		} else {
+			write(&b, r)
 		}
 	}
 	return b.String()
 }
 
 // mathText escapes s for math mode.
-func (tex) mathText(s string) string {
-	s = oneLine(s)
-	var b strings.Builder
-	for _, r := range s {
-		switch {
-		case texMathRunes[r] != "":
-			b.WriteString(texMathRunes[r])
-			if strings.HasPrefix(texMathRunes[r], `\`) {
-				b.WriteString("{}")
-			}
-		case r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9':
-			b.WriteRune(r)
-		case strings.ContainsRune(".,;:!?()[]/+-*=<>|' @", r):
-			if r == ' ' {
-				b.WriteString(`\ `)
-			} else if r == '*' {
-				b.WriteString(`\ast{}`)
-			} else {
-				b.WriteRune(r)
-			}
-		case strings.ContainsRune(`{}$&%#_`, r):
-			b.WriteString(`\` + string(r))
-		case r == '\\':
-			b.WriteString(`\backslash{}`)
-		case r == '~':
-			b.WriteString(`\sim{}`)
-		case r == '^':
-			b.WriteString(`\wedge{}`)
-		case r == '"':
-			b.WriteString(`\text{\textquotedbl}`)
-		case r == '`':
-			b.WriteString(`\text{\textasciigrave}`)
-		case r >= 0x80 && texTextRunes[r] != "":
-			// A character that text mode spells out, such as the en dash of "A1–B1".
-			b.WriteString(`\text{` + texTextRunes[r] + `}`)
-		case texLatin(r):
-			b.WriteString(`\text{` + string(r) + `}`)
-		default:
-			b.WriteByte('?')
+func (tex) mathText(s string) string { return texEscape(oneLine(s), &texMathASCII, texMathRune) }
+
+// texMathRune writes r as math mode sets it.
+func texMathRune(b *strings.Builder, r rune) {
+	switch {
+	case texMathRunes[r] != "":
+		b.WriteString(texMathRunes[r])
+		if strings.HasPrefix(texMathRunes[r], `\`) {
+			b.WriteString("{}")
 		}
+	case r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9':
+		b.WriteRune(r)
+	case strings.ContainsRune(".,;:!?()[]/+-*=<>|' @", r):
+		if r == ' ' {
+			b.WriteString(`\ `)
+		} else if r == '*' {
+			b.WriteString(`\ast{}`)
+		} else {
+			b.WriteRune(r)
+		}
+	case strings.ContainsRune(`{}$&%#_`, r):
+		b.WriteString(`\` + string(r))
+	case r == '\\':
+		b.WriteString(`\backslash{}`)
+	case r == '~':
+		b.WriteString(`\sim{}`)
+	case r == '^':
+		b.WriteString(`\wedge{}`)
+	case r == '"':
+		b.WriteString(`\text{\textquotedbl}`)
+	case r == '`':
+		b.WriteString(`\text{\textasciigrave}`)
+	case r >= 0x80 && texTextRunes[r] != "":
+		// A character that text mode spells out, such as the en dash of "A1–B1".
+		b.WriteString(`\text{` + texTextRunes[r] + `}`)
+	case texLatin(r):
+		b.WriteString(`\text{` + string(r) + `}`)
+	default:
+		b.WriteByte('?')
 	}
-	return b.String()
 }
 
 // mathSym lays a symbol out for math mode: the base in math italic, the subscript upright.
@@ -360,7 +555,24 @@ func (t tex) mathSym(s string) string {
 	if sub == "" {
 		return t.mathText(base)
 	}
-	return "{" + t.mathText(base) + `}_{\mathrm{` + t.mathText(sub) + "}}"
+	var b strings.Builder
+	b.Grow(len(s) + len(`{}_{\mathrm{}}`))
+	t.writeMathSym(&b, s)
+	return b.String()
+}
+
+// writeMathSym writes the symbol s as mathSym returns it.
+func (t tex) writeMathSym(b *strings.Builder, s string) {
+	base, sub := splitSymbol(s)
+	if sub == "" {
+		b.WriteString(t.mathText(base))
+		return
+	}
+	b.WriteString("{")
+	b.WriteString(t.mathText(base))
+	b.WriteString(`}_{\mathrm{`)
+	b.WriteString(t.mathText(sub))
+	b.WriteString("}}")
 }
 
 // mathNum lays a number out for math mode.
@@ -438,17 +650,19 @@ func (t tex) qty(v float64, u string) string {
 
 func (t tex) formula(ps []piece) string {
 	var b strings.Builder
+	b.Grow(16 * len(ps))
 	b.WriteString("$")
 	prev := pieceKind(-1)
 	for _, p := range ps {
 		switch p.kind {
 		case pWord:
 			// Words are spaced from their neighbours; an operator before them spaces itself.
-			if strings.HasPrefix(p.text, ",") || prev == pOp || prev == -1 {
-				b.WriteString(`\text{` + t.text(p.text) + `}\ `)
-			} else {
-				b.WriteString(`\ \text{` + t.text(p.text) + `}\ `)
+			if !strings.HasPrefix(p.text, ",") && prev != pOp && prev != -1 {
+				b.WriteString(`\ `)
 			}
+			b.WriteString(`\text{`)
+			b.WriteString(t.text(p.text))
+			b.WriteString(`}\ `)
 		case pFloorOpen:
 			b.WriteString(`\lfloor `)
 		case pFloorClose:
@@ -458,9 +672,11 @@ func (t tex) formula(ps []piece) string {
 		case pCeilClose:
 			b.WriteString(`\rceil `)
 		case pSym:
-			b.WriteString(t.mathSym(p.text))
+			t.writeMathSym(&b, p.text)
 		case pText:
-			b.WriteString(`\mathrm{` + t.mathText(p.text) + "}")
+			b.WriteString(`\mathrm{`)
+			b.WriteString(t.mathText(p.text))
+			b.WriteByte('}')
 		case pNum:
 			if p.lit {
 				b.WriteString(t.mathText(p.text))
@@ -481,7 +697,9 @@ func (t tex) formula(ps []piece) string {
 					b.WriteString("-")
 				}
 			case "≤", "≥", "≠", "→":
-				b.WriteString(texMathRunes[[]rune(p.text)[0]] + " ")
+				r, _ := utf8.DecodeRuneInString(p.text)
+				b.WriteString(texMathRunes[r])
+				b.WriteByte(' ')
 			case "and", "or", "not":
 				b.WriteString(`\ \text{` + p.text + `}\ `)
 			case ",":

@@ -1,6 +1,7 @@
 package reports
 
 import (
+	"bytes"
 	"math"
 	"strconv"
 	"strings"
@@ -37,38 +38,40 @@ func fmtNum(v float64) num {
 	if a == 0 {
 		return num{m: "0"}
 	}
+	var buf [32]byte // the digits, formatted without a string of their own
 	if a >= 1e-4 && a < 1e12 {
-		var s string
+		var s []byte
 		if a >= 1000 {
 			p := math.Pow(10, math.Floor(math.Log10(a))-(sigFigs-1))
 			if p < 1 {
 				p = 1
 			}
-			s = strconv.FormatFloat(math.Round(v/p)*p, 'f', 0, 64)
+			s = strconv.AppendFloat(buf[:0], math.Round(v/p)*p, 'f', 0, 64)
 		} else {
 			dec := sigFigs - 1 - int(math.Floor(math.Log10(a)))
 			if dec < 0 {
 				dec = 0
 			}
-			s = trimZeros(strconv.FormatFloat(v, 'f', dec, 64))
+			s = trimZeros(strconv.AppendFloat(buf[:0], v, 'f', dec, 64))
 		}
-		if s == "-0" {
-			s = "0"
+		if string(s) == "-0" {
+			return num{m: "0"}
 		}
-		return num{m: s}
+		return num{m: string(s)}
 	}
-	s := strconv.FormatFloat(v, 'e', sigFigs-1, 64)
-	i := strings.IndexByte(s, 'e')
-	e, _ := strconv.Atoi(s[i+1:])
-	return num{m: trimZeros(s[:i]), e: e}
+	s := strconv.AppendFloat(buf[:0], v, 'e', sigFigs-1, 64)
+	i := bytes.IndexByte(s, 'e')
+	e, _ := strconv.Atoi(string(s[i+1:]))
+	return num{m: string(trimZeros(s[:i])), e: e}
 }
 
-func trimZeros(s string) string {
-	if !strings.Contains(s, ".") {
+// trimZeros drops the trailing zeros of a decimal fraction, and its point if nothing follows.
+func trimZeros(s []byte) []byte {
+	if bytes.IndexByte(s, '.') < 0 {
 		return s
 	}
-	s = strings.TrimRight(s, "0")
-	return strings.TrimSuffix(s, ".")
+	s = bytes.TrimRight(s, "0")
+	return bytes.TrimSuffix(s, []byte("."))
 }
 
 // DisplayUnit maps an engine unit to the unit shown on the sheets and the factor that
