@@ -20,7 +20,7 @@ func effectiveLengths(in *model.Input, levels []Level, lifts []Lift) {
 	if !(kcr > 0) {
 		kcr = 0.5
 	}
-	e := in.Materials.Concrete.Ecm
+	eCol, eBeam := memberClasses(in, lifts)
 	i, j := lifts[0].I, lifts[0].J
 	// clear returns the clear height of lift c in the plane of direction d: the storey less the
 	// deeper beam framing in at its top.
@@ -53,10 +53,10 @@ func effectiveLengths(in *model.Input, levels []Level, lifts []Lift) {
 						continue
 					}
 					lf := lifts[c]
-					ei := e * inPlaneI(lf.Size, d)
+					ei := eCol[c].Ecm * inPlaneI(lf.Size, d)
 					hc, _ := clear(c, d)
 					cols = append(cols, l.Add(trace.Formula(pre+name+"/col"+itoa(c+1), "Stiffness EI/l of the column over lift "+lf.Name, "EN 1992-1-1:2004 5.8.3.2(3)", "EI/l", "Nmm",
-						ei/hc, "E * I / l", trace.A("E", trace.Const(e, "E_cm", "MPa")), trace.A("I", trace.Const(inPlaneI(lf.Size, d), "I_c", "mm4")), trace.A("l", trace.Const(hc, "l", "mm")))))
+						ei/hc, "E * I / l", trace.A("E", ecmConst(in, eCol[c])), trace.A("I", trace.Const(inPlaneI(lf.Size, d), "I_c", "mm4")), trace.A("l", trace.Const(hc, "l", "mm")))))
 				}
 				var beams []trace.Q
 				bl, br := levels[at].beamsAt(d, i, j)
@@ -67,7 +67,7 @@ func effectiveLengths(in *model.Input, levels []Level, lifts []Lift) {
 					bm := levels[at].Beams[k]
 					ib := bm.Size.B * math.Pow(bm.Size.H, 3) / 12
 					beams = append(beams, l.Add(trace.Formula(pre+name+"/"+bm.Name(), "Restraint k_cr·2EI/l of beam "+bm.Name()+", cracked", "EN 1992-1-1:2004 5.8.3.2(3)", "k_cr·2EI/l", "Nmm",
-						kcr*2*e*ib/bm.L, "k_cr * 2 * E * I / L", trace.A("k_cr", kc), trace.A("E", trace.Const(e, "E_cm", "MPa")), trace.A("I", trace.Const(ib, "I_b", "mm4")), trace.A("L", trace.Const(bm.L, "L", "mm")))))
+						kcr*2*eBeam.Ecm*ib/bm.L, "k_cr * 2 * E * I / L", trace.A("k_cr", kc), trace.A("E", ecmConst(in, eBeam)), trace.A("I", trace.Const(ib, "I_b", "mm4")), trace.A("L", trace.Const(bm.L, "L", "mm")))))
 				}
 				sc := l.Add(Sum(pre+name+"/Sc", "Columns at the joint", "EN 1992-1-1:2004 5.8.3.2(3)", "ΣEI/l", "Nmm", cols))
 				if len(beams) == 0 {

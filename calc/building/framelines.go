@@ -69,7 +69,9 @@ func (sp superposed) under(loaded []bool) [][2]float64 {
 // axial force.
 func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift) (map[[2]int][][2]endQ, error) {
 	b := in.Building
-	e := in.Materials.Concrete.Ecm
+	if b.Analysis == model.AnalysisFrame && b.Options.BeamStiffnessGiven {
+		return nil, fmt.Errorf("beam_stiffness is for the simplified subframe; the frame analysis takes the beams' own stiffness: leave it out, or use analysis: subframe or both")
+	}
 	sets := loadSets(in)
 	n := len(b.Storeys)
 	out := map[[2]int][][2]endQ{}
@@ -104,11 +106,14 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 				f.Nodes[node(ci, -1)] = frame.Node{Fixed: b.Base != model.BasePinned}
 			}
 			colMember := map[[2]int]int{} // (ci, m) → member index
+			var eBeam float64
 			for ci, c := range colsOn {
 				lifts := cols[at(c)]
+				eCol, beam := memberClasses(in, lifts)
+				eBeam = beam.Ecm
 				for m := 0; m < n; m++ {
 					colMember[[2]int{ci, m}] = len(f.Members)
-					f.Members = append(f.Members, frame.Member{I: node(ci, m-1), J: node(ci, m), EI: e * inPlaneI(lifts[m].Size, d), L: lifts[m].Height})
+					f.Members = append(f.Members, frame.Member{I: node(ci, m-1), J: node(ci, m), EI: eCol[m].Ecm * inPlaneI(lifts[m].Size, d), L: lifts[m].Height})
 				}
 			}
 			type beamRef struct{ member, beam, level int }
@@ -125,7 +130,7 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					}
 					beams = append(beams, beamRef{len(f.Members), bi, m})
 					f.Members = append(f.Members, frame.Member{I: node(ci0, m), J: node(ci1, m),
-						EI: e * bm.Size.B * math.Pow(bm.Size.H, 3) / 12, L: bm.L})
+						EI: eBeam * bm.Size.B * math.Pow(bm.Size.H, 3) / 12, L: bm.L})
 				}
 			}
 			lineName := g.lineName(d, line)
@@ -198,6 +203,7 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					l := &trace.Log{Steps: lifts[m].Steps}
 					axis := d.Axis()
 					l.Group = "Column moments about " + axis + ": frame along " + d.String() + " on line " + lineName
+					classes := classesNote(in, lifts[m])
 					// record adds the solve step of one end (0 bottom, 1 top) with the given
 					// member end moments of one arrangement.
 					record := func(endIdx int, ends [][2]float64, suffix, extra, note string) trace.Q {
@@ -232,6 +238,12 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 							"common practice (braced frame analysis)", "M_"+where[:1]+","+axis, "Nmm", ends[mem][endIdx], frameMethod, expr, sum, args...).
 							Note(note).
 							Note("The residual is the sum of the end moments of the members meeting at the joint (equilibrium).")
+						if classes != "" {
+							st = st.Note(classes)
+						}
+						if b.Options.BeamStiffnessGiven {
+							st = st.Note("The frame takes the beams' own stiffness EI: beam_stiffness applies to the simplified subframe only.")
+						}
 						return l.Add(st)
 					}
 					var q [2]trace.Q

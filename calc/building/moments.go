@@ -94,7 +94,7 @@ func governingSet(lv *Level, d Dir, i, j, m int, sets []loadSet) (set, side int)
 // gives the larger unbalanced moment. Where both sides give the same, the sense that bends the
 // lifts in single curvature is taken (alternating up the column, conservative). It records the
 // same joint with γG,inf on every span as well (the least axial force with these moments).
-func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d Dir, i, j int, e trace.Q, sets []loadSet) jointResult {
+func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d Dir, i, j int, e stiffness, sets []loadSet) jointResult {
 	b := in.Building
 	p := in.Code
 	lv := &levels[m]
@@ -102,11 +102,7 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 	axis := d.Axis()
 	l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + " (frame along " + d.String() + ")"
 	left, right := lv.beamsAt(d, i, j)
-	factor := 0.5
-	if b.Options.BeamStiffness == "full" {
-		factor = 1
-	}
-	kBeam := trace.Const(factor, "k_b", "")
+	kBeam := e.kBeam
 	type side struct {
 		k, L  trace.Q
 		end   frame.Side
@@ -127,12 +123,15 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 		L := l.Add(trace.Input(pre+name+"/L", "Span of beam "+name, "input", "L_"+name, "mm", bm.L))
 		ib := l.Add(trace.Formula(pre+name+"/I", "Second moment of area of beam "+name, "common practice", "I_"+name, "mm4",
 			bm.Size.B*math.Pow(bm.Size.H, 3)/12, "b * h ** 3 / 12", trace.A("b", trace.Const(bm.Size.B, "b_b", "mm")), trace.A("h", trace.Const(bm.Size.H, "h_b", "mm"))))
-		ks := frame.StiffnessStep(pre+name+"/k", "Stiffness of beam "+name+" at the joint", kBeam, e, ib, L)
+		ks := frame.StiffnessStep(pre+name+"/k", "Stiffness of beam "+name+" at the joint", kBeam, e.beam, ib, L)
 		ks.Symbol = "k_" + name
 		sides[s] = &side{k: l.Add(ks), L: L, end: end, beam: k, label: name}
 	}
+	if sides[0] != nil && sides[1] != nil {
+		spanRatioCaution(l, pre, in.Building.Options.SpanRatio, sides[0].L, sides[1].L)
+	}
 	// Columns above and below the joint.
-	colK := func(lift int, name string, pinnedFar bool) *trace.Q {
+	colK := func(lift int, name string, pinnedFar bool, e trace.Q) *trace.Q {
 		lf := lifts[lift]
 		iq := l.Add(trace.Formula(pre+name+"/I", "Second moment of area of the column "+name+" in the frame's plane", "common practice", "I_c,"+name, "mm4",
 			inPlaneI(lf.Size, d), iExpr(d), trace.A("b", trace.Const(lf.Size.B, "b", "mm")), trace.A("h", trace.Const(lf.Size.H, "h", "mm"))))
@@ -151,9 +150,9 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 	}
 	var above, below *trace.Q
 	if m+1 < len(lifts) {
-		above = colK(m+1, "above", false)
+		above = colK(m+1, "above", false, e.above)
 	}
-	below = colK(m, "below", m == 0 && b.Base == model.BasePinned)
+	below = colK(m, "below", m == 0 && b.Base == model.BasePinned, e.below)
 	factorSteps(l, pre, p, sets)
 
 	// solve records the fixed-end moments of set s and the distribution at the joint under the
@@ -275,7 +274,8 @@ func subframeEnds(in *model.Input, levels []Level, lifts []Lift) [][2]endQ {
 	results := make([][2]jointResult, len(lifts))
 	for m := range lifts {
 		l := &trace.Log{Steps: lifts[m].Steps}
-		e := modulusStep(l, in)
+		e := moduliSteps(l, in, lifts, m)
+		e.kBeam = beamFactor(l, in)
 		for d := DirX; d <= DirY; d++ {
 			results[m][d] = joint(l, in, levels, lifts, m, d, i, j, e, sets)
 		}
@@ -304,13 +304,6 @@ func subframeEnds(in *model.Input, levels []Level, lifts []Lift) [][2]endQ {
 		}
 	}
 	return out
-}
-
-// modulusStep records the modulus of elasticity used for the member stiffnesses.
-func modulusStep(l *trace.Log, in *model.Input) trace.Q {
-	l.Group = "Column moments: stiffness"
-	return l.Add(trace.Input("sub/E", "Modulus of elasticity for the member stiffnesses (Ecm)", "EN 1992-1-1:2004 Table 3.1", "E", "MPa", in.Materials.Concrete.Ecm).
-		Note("The same modulus for beams and columns: the distribution depends only on I/L."))
 }
 
 // assembleMoments records the first-order end moments of every lift of one column in the

@@ -42,6 +42,10 @@ type projectBasis struct {
 	covers                       []coverSet
 	creeps                       []creepSet
 	near                         map[likeKey][]int // basis steps by title, symbol and value, for the hoister
+	// classes holds the basis of each concrete class of the building's columns by class name,
+	// the project's class the basis itself (see forLift); nil where every lift is of the
+	// project's class.
+	classes map[string]*projectBasis
 }
 
 // coverSet is the cover allowances of one set of durability data.
@@ -100,24 +104,13 @@ func newBasis(in *model.Input) *projectBasis {
 
 	conc := in.Materials.Concrete
 	l.Group = "Concrete " + conc.Class
-	mat := "mat/" + idPart(conc.Class) + "/"
-	b.fck = l.Add(material.FckStep(mat+"f_ck", conc))
-	b.fcd = l.Add(material.Fcd(mat+"f_cd", b.param["alpha_cc"], b.fck, b.param["gamma_c"]))
-	if in.Options.StressBlock == model.Rectangular {
-		b.lam = l.Add(material.LambdaStep(mat+"lambda", conc, b.fck))
-		b.eta = l.Add(material.EtaStep(mat+"eta", conc, b.fck))
-		b.epsC2 = l.Add(material.EpsC3Step(mat+"eps_c3", conc, b.fck))
-		b.epsCu = l.Add(material.EpsCu3Step(mat+"eps_cu3", conc, b.fck))
-	} else {
-		b.epsC2 = l.Add(material.EpsC2Step(mat+"eps_c2", conc, b.fck))
-		b.epsCu = l.Add(material.EpsCu2Step(mat+"eps_cu2", conc, b.fck))
-		b.nExp = l.Add(material.NStep(mat+"n", conc, b.fck))
-	}
-	b.fctm = l.Add(material.FctmStep(mat+"f_ctm", conc))
-	if so := in.Options.SecondOrder; so == model.SecondOrderStiffness || so == model.SecondOrderBoth {
-		b.ecm = l.Add(material.Ecm(mat+"E_cm", b.fck))
-	}
+	b.use(concreteSteps(l, "mat/"+idPart(conc.Class)+"/", in, conc, b.param))
 	b.dg = l.Add(trace.Input("mat/d_g", "Maximum aggregate size", "input", "d_g", "mm", in.Materials.Aggregate))
+	others := otherClasses(in)
+	for _, o := range others {
+		l.Group = "Concrete " + o.conc.Class
+		o.mat = concreteSteps(l, "mat/"+o.part+"/", in, o.conc, b.param)
+	}
 
 	l.Group = "Reinforcing steel"
 	b.fyk = l.Add(trace.Input("mat/steel/f_yk", "Characteristic yield strength of reinforcement", "EN 1992-1-1:2004 3.2.2(3)P", "f_yk", "MPa", in.Materials.Fyk))
@@ -126,6 +119,9 @@ func newBasis(in *model.Input) *projectBasis {
 
 	l.Group = "Shear (EN 1992-1-1 6.2)"
 	b.shear = shear.Recommended(l, "shear/", b.param["gamma_c"], b.fck)
+	for _, o := range others {
+		o.nu1 = l.Add(shear.Nu1("shear/"+o.part+"/nu_1", o.mat.fck))
+	}
 
 	if in.Options.Imperfection != model.ImperfL0Over400 {
 		l.Group = "Geometric imperfection"
@@ -143,21 +139,40 @@ func newBasis(in *model.Input) *projectBasis {
 		}
 		l.Group = "Cover for durability: " + strings.Join(d.Exposure, ", ")
 		b.covers = append(b.covers, coverSet{name: name, d: d, a: cover.Exposure(l, "cover/"+name+"/", d, b.fck)})
+		for _, o := range others {
+			l.Group = "Cover for durability: " + strings.Join(d.Exposure, ", ") + ", concrete " + o.conc.Class
+			o.covers = append(o.covers, coverOf(l, name, d, o))
+		}
 	}
 
 	for _, k := range creepKeys(in) {
 		l.Group = "Creep data (EN 1992-1-1 Annex B): RH " + num(k.rh) + " %, t0 " + num(k.t0) + " days, cement class " + k.cement
-		b.creeps = append(b.creeps, b.creepSteps(l, "creep/RH"+num(k.rh)+"-t"+num(k.t0)+"-"+idPart(k.cement)+"/", k))
+		pre := "creep/RH" + num(k.rh) + "-t" + num(k.t0) + "-" + idPart(k.cement) + "/"
+		b.creeps = append(b.creeps, creepSteps(l, pre, k, b.fck))
+		for _, o := range others {
+			l.Group = "Creep data (EN 1992-1-1 Annex B): RH " + num(k.rh) + " %, t0 " + num(k.t0) + " days, cement class " + k.cement + ", concrete " + o.conc.Class
+			o.creeps = append(o.creeps, classCreep(l, pre+o.part+"/", b.creeps[len(b.creeps)-1], o.mat.fck))
+		}
 	}
 
 	l.Group = "Laps of the bars (EN 1992-1-1 8.4, 8.7)"
 	sigma := l.Add(detail.FullStress("lap/sigma_sd", b.fyd))
 	b.bond = detail.LapBondSteps(l, "lap/", b.fctm, b.param["gamma_c"], sigma, true, 100)
 	l.Group = "Lap lengths by bar diameter (EN 1992-1-1 8.7.3)"
+	phis := map[float64]trace.Q{}
 	for _, dia := range diameters(in) {
 		pre := "lap/phi" + num(dia) + "/"
-		phi := l.Add(trace.Input(pre+"phi", "Bar diameter listed for the design", "input", "φ", "mm", dia))
-		b.laps[dia] = detail.LapFor(l, pre, phi, b.bond)
+		phis[dia] = l.Add(trace.Input(pre+"phi", "Bar diameter listed for the design", "input", "φ", "mm", dia))
+		b.laps[dia] = detail.LapFor(l, pre, phis[dia], b.bond)
+	}
+	for _, o := range others {
+		l.Group = "Laps of the bars (EN 1992-1-1 8.4, 8.7), concrete " + o.conc.Class
+		o.bond = b.bond
+		fctk := l.Add(detail.Fctk005("lap/"+o.part+"/fctk005", o.mat.fctm))
+		o.bond.Fctd = l.Add(detail.Fctd("lap/"+o.part+"/fctd", trace.Const(detail.AlphaCt, "α_ct", ""), fctk, b.param["gamma_c"]).Note("αct = 1.0, the recommended value (3.1.6(2)P)."))
+		for _, dia := range diameters(in) {
+			o.laps[dia] = detail.LapFor(l, "lap/"+o.part+"/phi"+num(dia)+"/", phis[dia], o.bond)
+		}
 	}
 
 	b.steps = l.Steps
@@ -166,14 +181,21 @@ func newBasis(in *model.Input) *projectBasis {
 		k := likeKey{s.Title, s.Symbol, s.Value}
 		b.near[k] = append(b.near[k], i)
 	}
+	if len(others) > 0 {
+		b.classes = map[string]*projectBasis{conc.Class: b}
+		for _, o := range others {
+			b.classes[o.conc.Class] = b.classView(o)
+		}
+	}
 	return b
 }
 
-// creepSteps records the creep data of one set and what Annex B derives from it alone: fcm, RH,
-// t0,T, the cement exponent and, as creep.Coefficient records them, α1, α2, β(fcm), t0 and β(t0).
-func (b *projectBasis) creepSteps(l *trace.Log, pre string, k creepKey) creepSet {
+// creepSteps records the creep data of one set for concrete of strength fck and what Annex B
+// derives from it alone: fcm, RH, t0,T, the cement exponent and, as creep.Coefficient records
+// them, α1, α2, β(fcm), t0 and β(t0).
+func creepSteps(l *trace.Log, pre string, k creepKey, fck trace.Q) creepSet {
 	cs := creepSet{key: k}
-	cs.fcm, cs.rh, cs.t0, cs.alpha = creepData(l, pre, &model.Creep{RH: k.rh, T0: k.t0, Cement: k.cement}, b.fck)
+	cs.fcm, cs.rh, cs.t0, cs.alpha = creepData(l, pre, &model.Creep{RH: k.rh, T0: k.t0, Cement: k.cement}, fck)
 	if cs.fcm.V > 35 {
 		l.Add(creep.Alpha1(pre+"alpha_1", cs.fcm))
 		l.Add(creep.Alpha2(pre+"alpha_2", cs.fcm))
@@ -187,8 +209,7 @@ func (b *projectBasis) creepSteps(l *trace.Log, pre string, k creepKey) creepSet
 // creepData records fcm, RH, the age at loading t0,T and the cement exponent of the creep data
 // cr under IDs pre+"fcm", "RH", "t0T" and "alpha".
 func creepData(l *trace.Log, pre string, cr *model.Creep, fck trace.Q) (fcm, rh, t0T, alpha trace.Q) {
-	fcm = l.Add(trace.Formula(pre+"fcm", "Mean compressive strength of concrete", "EN 1992-1-1:2004 Table 3.1", "f_cm", "MPa",
-		fck.V+8, "f_ck + 8", trace.A("f_ck", fck)))
+	fcm = l.Add(fcmStep(pre+"fcm", fck))
 	rh = l.Add(trace.Input(pre+"RH", "Relative humidity of the ambient environment", "input", "RH", "%", cr.RH))
 	t0T = l.Add(trace.Input(pre+"t0T", "Age of the concrete at loading", "input", "t_0,T", "d", cr.T0))
 	cls := cementClass(cr)

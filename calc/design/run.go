@@ -346,6 +346,7 @@ var paramFrom = func() map[string]string {
 }()
 
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) *common {
+	in, bs = bs.forLift(in, col, st) // the lift's concrete class and the basis of that class
 	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv, bs: bs}
 	// Room for every step of the design, so that evaluate and finish append in place, allocated
 	// once; a trial derivation (withArrangements) keeps no trace: its log keeps no step.
@@ -365,7 +366,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	}
 	p := in.Code
 
-	// The materials and the code parameters are the project basis's.
+	// The materials (of the lift's class) and the code parameters are the project basis's.
 	c.fck, c.fcd, c.lam, c.eta = bs.fck, bs.fcd, bs.lam, bs.eta
 	c.epsC2, c.epsCu, c.nExp = bs.epsC2, bs.epsCu, bs.nExp
 	c.fyd, c.es, c.ecm = bs.fyd, bs.es, bs.ecm
