@@ -65,11 +65,14 @@ var chain = []string{
 	"*/M02", "*/M01", "*/ei", "*/M02i", "*/l0", "*/phi_ef",
 	"*/lambda", "*/lambda_lim", "*/M0e",
 	"*/e2", "*/M2", "*/MEd_curv", "*/NB", "*/MEd_stiff", "*/MEd",
-	"sec/NRd_max", "*/sec/x", "*/sec/M_Rd",
+	"sec/NRd_max", "sec/NRd_t", "*/sec/x", "*/sec/M_Rd",
 	"bi/a", "bi/ratio", "bi/exact/check", "bi/exact/none",
 	// Steel, links, laps, ties.
 	"bars/As",
 	"links/s", "links/s_zone",
+	// Shear and the load cases.
+	"*/shear/V_Ed", "*/shear/V_Rdc", "*/shear/V_Rdmax", "*/shear/s_req", "links/s_shear", "links/s_cases",
+	"cases/As_min",
 	"lap/l0",
 	// Fire.
 	"fire/mu_fi", "fire/a", "fire/eq57/R", "fire/method", "fire/note",
