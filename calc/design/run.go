@@ -235,6 +235,9 @@ func methods(in *model.Input) []Method {
 		if b.Analysis == model.AnalysisFrame {
 			analysis = Method{"Column moments", "each frame line solved whole, braced (joint rotations only); at each column end the envelope of every arrangement of loaded (γG·Gk + γQ·Qk) and lightly loaded (γG,light·Gk) spans, by superposition of single-span load cases, with the spans that give it named on the sheet", "common practice; EN 1992-1-1:2004 5.1.3(1)P"}
 		}
+		if b.Analysis == model.AnalysisBoth {
+			analysis = Method{"Column moments", "both the simplified subframe at each level (beams at " + b.Options.BeamStiffness + " stiffness) and each frame line solved whole (envelope of every arrangement of loaded and lightly loaded spans); at each column end, per axis, the larger end moment governs and both are on the sheet", "common practice; EN 1992-1-1:2004 5.1.3(1)P"}
+		}
 		comb := "Eq. (6.10)"
 		if b.Options.Combination == model.Comb610ab {
 			comb = "the less favourable of Eq. (6.10a) and (6.10b); the moment arrangements with the factors of the one that gives the larger moment, and their NEd by the same expression"
