@@ -252,6 +252,9 @@ func basis(r *design.Result) basisView {
 			Value: numv(fmtNum(o.Value)), Default: numv(fmtNum(o.Default)), Clause: txt(o.Clause), What: rich(o.What)})
 	}
 	if c := in.Materials.Concrete.Class; c != "" {
+		if in.Building != nil && len(in.Building.Concrete) > 0 {
+			c += " (the default; building.concrete gives other classes by level and column, each sheet names its lift's)"
+		}
 		b.Choices = append(b.Choices, kv{txt("Concrete"), txt(c)})
 	}
 	for _, me := range r.Methods {
@@ -377,7 +380,7 @@ func sheet(b *book, i int, p place) sheetView {
 	v.Summary = []kv{
 		{txt("Section b × h"), times(qty(d.B, "mm"), qty(d.H, "mm"))},
 		{txt("Nominal cover to links"), qty(d.Cover, "mm")},
-		{rich("Concrete f_ck"), qty(d.Fck, "MPa")},
+		{rich("Concrete f_ck"), cat(qty(d.Fck, "MPa"), txt(classNote(d.Class)))},
 		{rich("Reinforcement f_yk"), qty(d.Fyk, "MPa")},
 		{rich("Design axial force N_Ed"), qty(d.NEd, "N")},
 		{rich("Axial resistance N_Rd,max"), qty(d.NRdMax, "N")},
@@ -748,4 +751,12 @@ func casesTable(d design.Design, o Options) *tableView {
 			status, dash(c.Governing)})
 	}
 	return t
+}
+
+// classNote returns " (C32/40)" for a design's concrete class, or "" where it is not known.
+func classNote(class string) string {
+	if class == "" {
+		return ""
+	}
+	return " (" + class + ")"
 }

@@ -40,7 +40,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	pos := g.Positions(p)
 
 	d := Design{Column: col.ID, Storey: st.Name, B: col.B, H: col.H, Cover: col.Cover,
-		Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: st.NEd, pattern: p}
+		Class: c.in.Materials.Concrete.Class, Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: st.NEd, pattern: p}
 	d.Cautions = append(d.Cautions, c.cautions...)
 	d.Bars = Bars{Count: p.Count(), Dia: p.Dia, Positions: pos, Given: given}
 	var checks []checked // check steps, for the utilisation and the status

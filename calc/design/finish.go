@@ -64,7 +64,7 @@ func (c *common) biaxial(as, mEdY, mRdY, mEdZ, mRdZ float64) float64 {
 // noArrangement returns a failed design when no bar pattern fits the section at all.
 func (c *common) noArrangement() Design {
 	d := Design{Column: c.col.ID, Storey: c.st.Name, B: c.col.B, H: c.col.H, Cover: c.col.Cover,
-		Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: c.st.NEd, AsMin: c.asMin.V, AsMax: c.asMax.V,
+		Class: c.in.Materials.Concrete.Class, Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: c.st.NEd, AsMin: c.asMin.V, AsMax: c.asMax.V,
 		Status: StatusFail, Governing: "no bar arrangement fits", bs: c.bs}
 	axes := [2]*Axis{&d.Y, &d.Z}
 	for k, a := range c.ax {

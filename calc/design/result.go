@@ -60,6 +60,7 @@ func (r *Result) Failed() int {
 type Design struct {
 	Column, Storey string
 	B, H, Cover    float64 // mm
+	Class          string  // concrete strength class of the lift, e.g. "C32/40"
 	Fck, Fyk       float64 // MPa
 	NEd            float64 // N
 	Y, Z           Axis    // bending about y and about z
