@@ -2,8 +2,10 @@ package main
 
 import (
 	"crypto/ed25519"
+	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"path"
 	"path/filepath"
@@ -15,42 +17,49 @@ import (
 
 // runArchive runs the design of an input and writes it, with the input, the PDF if asked and a manifest, as a package folder.
 func runArchive(args []string, stdout, stderr io.Writer) int {
+	o := newOptions("archive")
+	f := designFlags(&o)
 	for _, a := range args {
-		if a == "--formats" || strings.HasPrefix(a, "--formats=") {
-			fmt.Fprintf(stderr, "colsheet archive: --formats is not taken: a package holds every format\n\n%s", usage)
-			return 2
+		for _, name := range []string{"formats", "only"} {
+			if a == "--"+name || a == "-"+name || strings.HasPrefix(a, "--"+name+"=") || strings.HasPrefix(a, "-"+name+"=") {
+				return failUsage(stderr, "archive", usagef("--%s is not taken: an archive holds every design in every format, so that recheck can design its input again", name))
+			}
 		}
 	}
-	args, keyFile, err := takeFlag(args, "--sign")
-	if err != nil {
-		fmt.Fprintf(stderr, "colsheet archive: %v\n\n%s", err, usage)
-		return 2
+	rest, code, done := parseCommand("archive", f, args, stdout, stderr)
+	if done {
+		return code
+	}
+	if err := o.inputAndOut(rest); err != nil {
+		return failUsage(stderr, "archive", err)
 	}
 	var key ed25519.PrivateKey
-	if keyFile != "" {
-		if key, err = archive.ReadPrivateKey(keyFile); err != nil {
+	if o.sign != "" {
+		if _, err := readFileAs("the key file", o.sign); err != nil {
+			fmt.Fprintf(stderr, "colsheet archive: --sign: %v; nothing written\n", err)
+			return 2
+		}
+		var err error
+		if key, err = archive.ReadPrivateKey(o.sign); err != nil {
 			fmt.Fprintf(stderr, "colsheet archive: --sign: %v; nothing written\n", err)
 			return 2
 		}
 	}
-	o, err := parseDesignArgs(args)
+	in, data, err := loadInput(o.input, stderr)
 	if err != nil {
-		fmt.Fprintf(stderr, "colsheet archive: %v\n\n%s", err, usage)
+		fmt.Fprintln(stderr, err)
 		return 2
 	}
-	o.formats = map[string]bool{"md": true, "tex": true, "html": true}
 	inName := filepath.Base(o.input)
 	inPath := "input/" + inName
 	o.extra = []string{"input", archive.ManifestName}
 	if key != nil {
 		o.extra = append(o.extra, archive.SignatureName)
 	}
-	job, err := produce(o, stderr)
+	job, err := produce(o, in, data, stderr)
 	if err != nil {
-		fmt.Fprintln(stderr, err)
-		return 2
+		return failRun(stderr, "archive", err)
 	}
-	o.command = "archive"
 	if job.st.has(inPath) {
 		job.st.discard()
 		job.progress.end()
@@ -114,27 +123,42 @@ func runArchive(args []string, stdout, stderr io.Writer) int {
 	return deliver(o, job, seal, stdout, stderr)
 }
 
+// recheckFlags returns the flags of recheck, setting key.
+func recheckFlags(key *string) *flagSet {
+	f := newFlagSet("recheck")
+	f.Var(fileFlag(key), "key", "check the manifest's signature with the Ed25519 public key in `PUBFILE`")
+	return f
+}
+
 // runRecheck verifies a package folder against its manifest and re-evaluates its trace.
 func runRecheck(args []string, stdout, stderr io.Writer) int {
-	args, keyFile, err := takeFlag(args, "--key")
-	if err != nil {
-		fmt.Fprintf(stderr, "colsheet recheck: %v\n\n%s", err, usage)
-		return 2
+	keyFile := ""
+	rest, code, done := parseCommand("recheck", recheckFlags(&keyFile), args, stdout, stderr)
+	if done {
+		return code
 	}
-	if len(args) != 1 || strings.HasPrefix(args[0], "-") {
-		fmt.Fprintf(stderr, "colsheet recheck: give one package folder\n\n%s", usage)
+	if len(rest) != 1 {
+		return failUsage(stderr, "recheck", usagef("give one package folder (got %d arguments)", len(rest)))
+	}
+	dir := rest[0]
+	if err := isArchive(dir); err != nil {
+		fmt.Fprintf(stderr, "colsheet recheck: %v\n", err)
 		return 2
 	}
 	var pub ed25519.PublicKey
 	if keyFile != "" {
-		if pub, err = archive.ReadPublicKey(keyFile); err != nil {
+		_, err := readFileAs("the key file", keyFile)
+		if err == nil {
+			pub, err = archive.ReadPublicKey(keyFile)
+		}
+		if err != nil {
 			fmt.Fprintf(stderr, "colsheet recheck: --key: %v\n", err)
 			return 2
 		}
 	}
-	rep, err := archive.VerifyKey(args[0], pub)
+	rep, err := archive.VerifyKey(dir, pub)
 	if err != nil {
-		fmt.Fprintf(stderr, "colsheet recheck: %v\n", err)
+		fmt.Fprintf(stderr, "colsheet recheck: %v\n", plainErr(err))
 		return 2
 	}
 	if err := rep.WriteText(stdout); err != nil {
@@ -142,7 +166,7 @@ func runRecheck(args []string, stdout, stderr io.Writer) int {
 		return 2
 	}
 	// Provenance: the program that made the package, beside the one that rechecks it.
-	if m, err := archive.ReadManifest(filepath.Join(args[0], archive.ManifestName)); err == nil {
+	if m, err := archive.ReadManifest(filepath.Join(dir, archive.ManifestName)); err == nil {
 		fmt.Fprint(stdout, provenanceNote(m.Tool, version(), executableSumOrEmpty()))
 	}
 	if !rep.OK() {
@@ -151,67 +175,59 @@ func runRecheck(args []string, stdout, stderr io.Writer) int {
 	return 0
 }
 
-// takeFlag removes the option name with its value ("--name VALUE" or "--name=VALUE") from args
-// and returns the rest and the value, "" where the option is not given.
-func takeFlag(args []string, name string) ([]string, string, error) {
-	var rest []string
-	value, seen := "", false
-	for i := 0; i < len(args); i++ {
-		a := args[i]
-		v, has := strings.CutPrefix(a, name+"=")
-		switch {
-		case a != name && !has:
-			rest = append(rest, a)
-			continue
-		case seen:
-			return nil, "", fmt.Errorf("%s given twice", name)
-		case !has:
-			if i+1 >= len(args) {
-				return nil, "", fmt.Errorf("%s needs a key file", name)
-			}
-			i++
-			v = args[i]
-		}
-		if v == "" {
-			return nil, "", fmt.Errorf("%s needs a key file", name)
-		}
-		value, seen = v, true
+// isArchive says why dir is not a package written by colsheet archive: missing, not a folder,
+// or without a manifest (an output of colsheet design, say).
+func isArchive(dir string) error {
+	if err := folderProblem("the package", dir); err != nil {
+		return err
 	}
-	return rest, value, nil
+	_, err := os.Lstat(filepath.Join(dir, archive.ManifestName))
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		what := "a folder"
+		if m, err := readMarker(dir); err == nil && m != nil {
+			what = "an output of 'colsheet " + m.Command + "'"
+		}
+		return fmt.Errorf("%s is %s without %s: recheck wants a package written by 'colsheet archive INPUT.yaml -o BUNDLE'", dir, what, archive.ManifestName)
+	case err != nil:
+		return fmt.Errorf("%s of %s cannot be read: %v", archive.ManifestName, dir, plainErr(err))
+	}
+	return nil
 }
 
-// runCompare prints, or writes to a new file, the revision table between two package folders.
+// compareFlags returns the flags of compare, setting out.
+func compareFlags(out *string) *flagSet {
+	f := newFlagSet("compare")
+	f.Var(fileFlag(out), "out", "write the table to the new file `FILE.md` instead of stdout")
+	f.aka("out", "o")
+	return f
+}
+
+// runCompare prints, or writes to a new file, the revision table between two package folders;
+// it exits 1 when they differ.
 func runCompare(args []string, stdout, stderr io.Writer) int {
-	var dirs []string
 	out := ""
-	for i := 0; i < len(args); i++ {
-		switch a := args[i]; {
-		case a == "-o" || a == "--out":
-			if i+1 >= len(args) {
-				fmt.Fprintf(stderr, "colsheet compare: %s needs a value\n\n%s", a, usage)
-				return 2
-			}
-			i++
-			out = args[i]
-		case strings.HasPrefix(a, "-o="):
-			out = strings.TrimPrefix(a, "-o=")
-		case strings.HasPrefix(a, "--out="):
-			out = strings.TrimPrefix(a, "--out=")
-		case strings.HasPrefix(a, "-"):
-			fmt.Fprintf(stderr, "colsheet compare: unknown option %s\n\n%s", a, usage)
-			return 2
-		default:
-			dirs = append(dirs, a)
-		}
+	dirs, code, done := parseCommand("compare", compareFlags(&out), args, stdout, stderr)
+	if done {
+		return code
 	}
 	if len(dirs) != 2 {
-		fmt.Fprintf(stderr, "colsheet compare: give two package folders, the old one first\n\n%s", usage)
-		return 2
+		return failUsage(stderr, "compare", usagef("give two package folders, the old one first (got %d)", len(dirs)))
+	}
+	for _, d := range dirs {
+		if err := isPackage(d); err != nil {
+			fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
+			return 2
+		}
 	}
 	ch, err := archive.Compare(dirs[0], dirs[1])
 	if err != nil {
-		fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
+		fmt.Fprintf(stderr, "colsheet compare: %v\n", plainErr(err))
 		return 2
+	}
+	differ := 0
+	if !ch.Empty() {
+		differ = 1
 	}
 	md := ch.Markdown()
 	if out == "" {
@@ -219,14 +235,29 @@ func runCompare(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
 			return 2
 		}
-		return 0
+		return differ
 	}
 	if err := writeNewFile(out, md); err != nil {
 		fmt.Fprintf(stderr, "colsheet compare: %v\n", err)
 		return 2
 	}
 	fmt.Fprintf(stdout, "colsheet: revision table written to %s\n", out)
-	return 0
+	return differ
+}
+
+// isPackage says why dir is not an output or archive of colsheet: missing, not a folder, or
+// without results.json.
+func isPackage(dir string) error {
+	if err := folderProblem("the package", dir); err != nil {
+		return err
+	}
+	if _, err := os.Lstat(filepath.Join(dir, archive.ResultsName)); err != nil {
+		if errors.Is(err, fs.ErrNotExist) {
+			return fmt.Errorf("%s holds no %s: give output folders of 'colsheet design' or 'colsheet archive'", dir, archive.ResultsName)
+		}
+		return fmt.Errorf("%s of %s cannot be read: %v", archive.ResultsName, dir, plainErr(err))
+	}
+	return nil
 }
 
 // writeNewFile writes data as the file name through a temporary file renamed into place; it refuses an existing name.
@@ -237,7 +268,7 @@ func writeNewFile(name string, data []byte) error {
 		return err
 	}
 	if err := writeAtomic(name, data); err != nil {
-		return fmt.Errorf("%s: %v", name, err)
+		return fmt.Errorf("%s: %v", name, plainErr(err))
 	}
 	return nil
 }

@@ -8,7 +8,6 @@ import (
 	"path/filepath"
 	"runtime"
 	"strings"
-	"time"
 
 	"colsheet/calc/design"
 	"colsheet/calc/input"
@@ -17,7 +16,7 @@ import (
 	"colsheet/reports/archive"
 )
 
-// options are the flags of the design command.
+// options are the flags of the design command (and of archive, column and watch).
 type options struct {
 	command string // design or archive
 	input   string
@@ -27,116 +26,138 @@ type options struct {
 	replace bool // replace an earlier output folder
 	pdf     bool // run pdflatex over the calc document
 	detail  reports.Detail
-	against string   // a previous package to mark the changes against
-	extra   []string // top-level entries of the output besides those of the design (the archive's)
-	quiet   bool     // no progress line
+	against string    // a previous package to mark the changes against
+	only    selection // the designs to write, all when empty
+	sign    string    // archive: the private key file to sign the manifest with
+	extra   []string  // top-level entries of the output besides those of the design (the archive's)
+	quiet   bool      // no progress line
 }
 
-func parseDesignArgs(args []string) (options, error) {
-	o := options{formats: map[string]bool{"md": true, "tex": true, "html": true}}
-	for i := 0; i < len(args); i++ {
-		a := args[i]
-		val := func() (string, error) {
-			if k := strings.IndexByte(a, '='); k >= 0 {
-				return a[k+1:], nil
-			}
-			if i+1 >= len(args) {
-				return "", fmt.Errorf("%s needs a value", a)
-			}
-			i++
-			return args[i], nil
-		}
-		name := a
-		if k := strings.IndexByte(a, '='); k >= 0 {
-			name = a[:k]
-		}
-		switch name {
-		case "-o", "--out":
-			v, err := val()
-			if err != nil {
-				return o, err
-			}
-			o.out = v
-		case "--formats":
-			v, err := val()
-			if err != nil {
-				return o, err
-			}
-			o.formats = map[string]bool{}
-			for _, f := range strings.Split(v, ",") {
-				f = strings.TrimSpace(f)
-				switch f {
-				case "md", "tex", "html":
-					o.formats[f] = true
-				case "":
-				default:
-					return o, fmt.Errorf("--formats: unknown format %q (md, tex, html)", f)
-				}
-			}
-		case "--detail":
-			v, err := val()
-			if err != nil {
-				return o, err
-			}
-			switch reports.Detail(v) {
-			case reports.Brief, reports.Full:
-				o.detail = reports.Detail(v)
-			default:
-				return o, fmt.Errorf("--detail: %q is neither brief nor full", v)
-			}
-		case "--against":
-			v, err := val()
-			if err != nil {
-				return o, err
-			}
-			o.against = v
-		case "--replace":
-			o.replace = true
-		case "-q", "--quiet":
-			o.quiet = true
-		case "--pdf":
-			o.pdf = true
-		case "--date":
-			v, err := val()
-			if err != nil {
-				return o, err
-			}
-			if _, err := time.Parse("2006-01-02", v); err != nil {
-				return o, fmt.Errorf("--date: %q is not a date of the form 2026-12-01", v)
-			}
-			o.date = v
-		default:
-			if strings.HasPrefix(a, "-") {
-				return o, fmt.Errorf("unknown option %s", a)
-			}
-			if o.input != "" {
-				return o, fmt.Errorf("one input file only (got %s and %s)", o.input, a)
-			}
-			o.input = a
-		}
+// newOptions returns the defaults of the command cmd (design or archive).
+func newOptions(cmd string) options {
+	return options{command: cmd, formats: map[string]bool{"md": true, "tex": true, "html": true}, detail: reports.Brief}
+}
+
+// designFlags returns the flags of design and archive (o.command), setting o.
+func designFlags(o *options) *flagSet {
+	f := newFlagSet(o.command)
+	outputFlags(f, o, "write the package into the folder `DIR` (required)", true)
+	if o.command == "archive" {
+		f.Var(fileFlag(&o.sign), "sign", "sign the manifest with the Ed25519 private key in `KEYFILE` (manifest.sig)")
+	} else {
+		f.Var(formatsFlag{&o.formats}, "formats", "the sheet `FORMATS`, a comma-separated list of md, tex and html; '' for results.json and the CSV files only")
+		f.Var(onlyFlag{&o.only}, "only", "write only these `IDS`: columns (B2,C3) or lifts (B2/L1), comma-separated")
 	}
-	if o.input == "" {
-		return o, fmt.Errorf("no input file given")
+	f.StringVar(&o.against, "against", "", "mark every value that changed since the earlier output folder or archive `PREVIOUS`")
+	f.BoolVar(&o.pdf, "pdf", false, "run pdflatex over the calc document: doc/calc.pdf")
+	return f
+}
+
+// outputFlags adds to f the flags of every command that writes a package: -o with the usage
+// out, --detail and --date; with replace also --replace and -q.
+func outputFlags(f *flagSet, o *options, out string, replace bool) {
+	f.StringVar(&o.out, "out", "", out)
+	f.aka("out", "o")
+	f.Var(detailFlag{&o.detail}, "detail", "how much of the trace the sheets print, `brief|full` (results.json holds it all)")
+	f.Var(dateFlag(&o.date), "date", "the date `YYYY-MM-DD` on the sheets, instead of the input's project.date")
+	if replace {
+		f.BoolVar(&o.replace, "replace", false, "replace an earlier output of colsheet in the folder")
+		f.BoolVar(&o.quiet, "quiet", false, "no progress line on the terminal")
+		f.aka("quiet", "q")
 	}
-	if o.out == "" {
-		return o, fmt.Errorf("no output folder given (-o DIR)")
+}
+
+// inputAndOut takes the input file from the arguments rest and checks that -o was given.
+func (o *options) inputAndOut(rest []string) error {
+	switch {
+	case len(rest) == 0:
+		return usagef("no input file given")
+	case len(rest) > 1:
+		return usagef("one input file only (got %s and %s)", rest[0], rest[1])
+	case o.out == "":
+		return usagef("no output folder given (-o DIR)")
 	}
-	return o, nil
+	o.input = rest[0]
+	return nil
 }
 
 func runDesign(args []string, stdout, stderr io.Writer) int {
-	o, err := parseDesignArgs(args)
-	if err != nil {
-		fmt.Fprintf(stderr, "colsheet design: %v\n\n%s", err, usage)
-		return 2
+	o := newOptions("design")
+	rest, code, done := parseCommand("design", designFlags(&o), args, stdout, stderr)
+	if done {
+		return code
 	}
-	o.command = "design"
-	job, err := produce(o, stderr)
+	if err := o.inputAndOut(rest); err != nil {
+		return failUsage(stderr, "design", err)
+	}
+	in, data, err := loadInput(o.input, stderr)
 	if err != nil {
 		fmt.Fprintln(stderr, err)
 		return 2
 	}
+	job, err := produce(o, in, data, stderr)
+	if err != nil {
+		return failRun(stderr, "design", err)
+	}
 	return deliver(o, job, nil, stdout, stderr)
+}
+
+// failRun prints the error of a run of the command cmd, a usage error as one line with the
+// pointer to the usage, and returns 2.
+func failRun(stderr io.Writer, cmd string, err error) int {
+	var ue usageError
+	if errors.As(err, &ue) {
+		return failUsage(stderr, cmd, err)
+	}
+	fmt.Fprintln(stderr, err)
+	return 2
+}
+
+// loadInput reads the input file name and the actions table it names, and prints the input's
+// warnings; the error lists the input's faults, or says why the file cannot be read.
+func loadInput(name string, stderr io.Writer) (*model.Input, []byte, error) {
+	data, err := readFileAs("the input file", name)
+	if err != nil {
+		return nil, nil, fmt.Errorf("colsheet: %v", err)
+	}
+	in, warns, err := input.ParseWarn(name, data, func(table string) ([]byte, error) {
+		return os.ReadFile(filepath.Join(filepath.Dir(name), filepath.FromSlash(table)))
+	})
+	printWarnings(stderr, warns, nil)
+	return in, data, err
+}
+
+// printWarnings prints the input's warnings, each as "colsheet: warning: ..." (with its text
+// from say when given).
+func printWarnings(stderr io.Writer, warns []input.Warning, say func(input.Warning) string) {
+	for _, w := range warns {
+		text := w.String()
+		if say != nil {
+			text = say(w)
+		}
+		fmt.Fprintf(stderr, "colsheet: warning: %s\n", text)
+	}
+}
+
+// inputLifts lists the column and lift of every lift of the actions form of in; nil for the
+// building form, whose lifts the take-down finds.
+func inputLifts(in *model.Input) [][2]string {
+	var out [][2]string
+	for _, c := range in.Columns {
+		for _, st := range c.Storeys {
+			out = append(out, [2]string{c.ID, st.Name})
+		}
+	}
+	return out
+}
+
+// checkOnly refuses, before the design, the ids of --only that name no lift of the actions form
+// of in; those of the building form are checked once the take-down has found its lifts.
+func checkOnly(in *model.Input, only selection) error {
+	if len(only) == 0 || in.Building != nil {
+		return nil
+	}
+	return only.check(inputLifts(in))
 }
 
 // deliver makes the PDF when asked, adds the marker, lets seal add the archive's manifest,
@@ -160,7 +181,7 @@ func deliver(o options, j *job, seal func(st *stage) error, stdout, stderr io.Wr
 		err = j.st.put(markerName, mark)
 	}
 	if err != nil {
-		fmt.Fprintf(stderr, "colsheet: %s: %v; nothing written\n", markerName, err)
+		fmt.Fprintf(stderr, "colsheet: %s: %v; nothing written\n", markerName, plainErr(err))
 		return 2
 	}
 	if seal != nil {
@@ -171,7 +192,7 @@ func deliver(o options, j *job, seal func(st *stage) error, stdout, stderr io.Wr
 	}
 	j.progress.end()
 	if err := publish(o.out, j.st, o.replace, stderr); err != nil {
-		fmt.Fprintf(stderr, "colsheet: %v\n", err)
+		fmt.Fprintf(stderr, "colsheet: %v\n", outputProblem(o.out, err))
 		return 2
 	}
 	code := j.report(o.out, stdout, stderr)
@@ -209,29 +230,19 @@ func outputTops(o options) []string {
 // produce reads and designs the input of o and writes every output file into a stage; nothing
 // is put in place. It checks the output folder first, as publish will, so that a refusal comes
 // before the work.
-func produce(o options, stderr io.Writer) (j *job, err error) {
+func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job, err error) {
+	if err := checkOnly(in, o.only); err != nil {
+		return nil, err
+	}
 	prog := newProgress(stderr, o.quiet)
 	defer func() {
 		if err != nil {
 			prog.end()
 		}
 	}()
-	data, err := os.ReadFile(o.input)
-	if err != nil {
-		return nil, fmt.Errorf("colsheet: %v", err)
-	}
-	in, warns, err := input.ParseWarn(o.input, data, func(name string) ([]byte, error) {
-		return os.ReadFile(filepath.Join(filepath.Dir(o.input), filepath.FromSlash(name)))
-	})
-	for _, w := range warns {
-		fmt.Fprintf(stderr, "colsheet: warning: %s\n", w)
-	}
-	if err != nil {
-		return nil, err
-	}
 	where, err := checkOut(o.out, o.replace, outputTops(o), stderr)
 	if err != nil {
-		return nil, fmt.Errorf("colsheet: %v", err)
+		return nil, fmt.Errorf("colsheet: %v", outputProblem(o.out, err))
 	}
 	if o.date != "" {
 		in.Project.Date = o.date
@@ -242,7 +253,7 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 		in.Project.Date = "undated"
 	}
 	if err := os.MkdirAll(where, 0o755); err != nil {
-		return nil, fmt.Errorf("colsheet: %v", err)
+		return nil, fmt.Errorf("colsheet: the output folder %s cannot be made: %v", where, plainErr(err))
 	}
 	name := filepath.Base(o.out)
 	if abs, err := filepath.Abs(o.out); err == nil && abs == where {
@@ -250,7 +261,7 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 	}
 	st, err := newStage(where, name)
 	if err != nil {
-		return nil, fmt.Errorf("colsheet: %v", err)
+		return nil, fmt.Errorf("colsheet: no temporary folder for the output in %s: %v", where, plainErr(err))
 	}
 	defer func() {
 		if err != nil {
@@ -262,18 +273,26 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 	sheets := o.formats["md"] || o.formats["tex"] || o.formats["html"]
 	prog.phase("designing", lifts(in))
 	var res *design.Result
-	var runErr error
+	var runErr, onlyErr error
 	err = st.create("results.json", func(w io.Writer) error {
 		js, err := reports.NewJSONStream(w, "colsheet", version(), in)
 		if err != nil {
 			return err
 		}
+		// With --only, the designs of the others are made (the take-down and the typical bars
+		// need the whole building) but neither written nor kept.
 		res, runErr = design.Stream(in, sheets, func(_ int, d *design.Design) error {
 			prog.step()
+			if !o.only.has(d) {
+				return nil
+			}
 			return js.Design(d)
 		})
 		if runErr != nil {
 			return runErr
+		}
+		if onlyErr = o.only.apply(res); onlyErr != nil {
+			return onlyErr
 		}
 		// The build's own version, in results.json, the manifest and every title block.
 		res.ToolVersion = version()
@@ -282,15 +301,17 @@ func produce(o options, stderr io.Writer) (j *job, err error) {
 	switch {
 	case runErr != nil:
 		return nil, runErr // a fault of the building, named by the engine
+	case onlyErr != nil:
+		return nil, onlyErr
 	case err != nil:
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
 	opt := reports.Options{Detail: o.detail}
 	if o.against != "" {
 		// The revision marks: every value compared with the previous package's.
-		js, err := os.ReadFile(filepath.Join(st.dir, "results.json"))
+		js, err := st.read("results.json")
 		if err != nil {
-			return nil, fmt.Errorf("colsheet: %v", err)
+			return nil, fmt.Errorf("colsheet: results.json written a moment ago cannot be read back: %v", plainErr(err))
 		}
 		changes, old, err := archive.Against(o.against, js, filepath.Base(o.input), in.SHA256)
 		if err != nil {
@@ -321,9 +342,14 @@ func lifts(in *model.Input) int {
 
 // report prints the count of passing and failing designs and returns the exit status.
 func (j *job) report(out string, stdout, stderr io.Writer) int {
-	res := j.res
+	return tally(j.res, "written to "+out, stdout, stderr)
+}
+
+// tally prints the count of passing and failing designs of res and then where, names each
+// failure with its reasons on stderr and returns the exit status (0 all pass, 1 some fail).
+func tally(res *design.Result, where string, stdout, stderr io.Writer) int {
 	failed := res.Failed()
-	fmt.Fprintf(stdout, "colsheet: %d designs, %d pass, %d fail; written to %s\n", len(res.Designs), len(res.Designs)-failed, failed, out)
+	fmt.Fprintf(stdout, "colsheet: %d designs, %d pass, %d fail; %s\n", len(res.Designs), len(res.Designs)-failed, failed, where)
 	for _, d := range res.Designs {
 		if d.Status != design.StatusPass {
 			fmt.Fprintf(stderr, "FAIL %s/%s: %s\n", d.Column, d.Storey, strings.Join(d.Reasons, "; "))

@@ -203,7 +203,7 @@ func publish(dir string, st *stage, replace bool, notes io.Writer) error {
 	}
 	old, err := readMarker(dir)
 	if err != nil {
-		return fmt.Errorf("%s: %v; nothing written", dir, err)
+		return fmt.Errorf("%s: %v; nothing written", dir, plainErr(err))
 	}
 	names, err := dirNames(dir)
 	if err != nil {
@@ -264,7 +264,7 @@ func checkOut(dir string, replace bool, tops []string, notes io.Writer) (string,
 	}
 	old, err := readMarker(dir)
 	if err != nil {
-		return "", fmt.Errorf("%s: %v; nothing written", dir, err)
+		return "", fmt.Errorf("%s: %v; nothing written", dir, plainErr(err))
 	}
 	names, err := dirNames(dir)
 	if err != nil {

@@ -34,7 +34,7 @@ func TestRecheckKeyAndForgery(t *testing.T) {
 	if code, out, _ := runCLI("recheck", "--key="+filepath.Join(keys, "other.hex"), dir); code != 1 || !strings.Contains(out, "FAIL manifest.sig") {
 		t.Errorf("recheck --key, another key: exit %d\n%s", code, out)
 	}
-	if code, _, errs := runCLI("recheck", dir, "--key"); code != 2 || !strings.Contains(errs, "--key needs a key file") {
+	if code, _, errs := runCLI("recheck", dir, "--key"); code != 2 || !strings.Contains(errs, "--key needs a value (PUBFILE)") {
 		t.Errorf("recheck --key without a file: exit %d\n%s", code, errs)
 	}
 

@@ -80,7 +80,7 @@ func (s *stage) create(name string, fill func(w io.Writer) error) error {
 		err = os.Chmod(p, 0o644)
 	}
 	if err != nil {
-		return fmt.Errorf("writing %s: %v", name, err)
+		return fmt.Errorf("writing %s: %v", name, plainErr(err))
 	}
 	s.files[name] = stagedFile{size: n.n, sum: hex.EncodeToString(h.Sum(nil))}
 	if s.written != nil {
