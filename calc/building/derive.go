@@ -22,8 +22,15 @@ type Lift struct {
 	MY, MZ model.Ends // first-order end moments about section axes y and z, N·mm (same sign: single curvature)
 	Src    Sources    // the steps that give NEd and the end moments
 	Steps  []trace.Step
-	narr   [2][]trace.Q       // the axial force of the moment arrangements about y and z, by load set
-	alphaN map[string]trace.Q // αn applied to NEd, by category
+	// Cantilever holds, for the frames along x and y (about section axes y and z), the moment
+	// that cantilever slabs beyond edge beams apply to the joint at the top of the lift (see
+	// EdgeMoment for its sign), for the column-moment analysis to add.
+	Cantilever [2]EdgeMoment
+	narr       [2][]trace.Q       // the axial force of the moment arrangements about y and z, by load set
+	alphaN     map[string]trace.Q // αn applied to NEd, by category
+	gCum       trace.Q            // the cumulative characteristic loads at the foot of the lift
+	qCum       map[string]trace.Q
+	run        int // the index of the lift within its run of lifts that stand one on another, from the lowest
 }
 
 // Sources names the traced quantities that the column design takes from the derivation.
@@ -67,9 +74,14 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 	if err != nil {
 		return nil, fmt.Errorf("%s:%d: %v", in.File, b.Line, err)
 	}
+	if err := checkLoads(b, g); err != nil {
+		return nil, fmt.Errorf("%s:%v", in.File, err)
+	}
+	if g.Partial() && (b.Analysis == model.AnalysisFrame || b.Analysis == model.AnalysisBoth) {
+		return nil, fmt.Errorf("%s:%d: building: the frame analysis does not model columns absent at some levels yet: use analysis: subframe", in.File, b.Line)
+	}
 	levels := Levels(b, g, panel)
 	d := &Derived{Grid: g, Levels: levels}
-	// The columns are independent: each derived on a worker, kept in grid order.
 	var order [][2]int
 	for i := 0; i < g.NX; i++ {
 		for j := 0; j < g.NY; j++ {
@@ -78,114 +90,280 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 			}
 		}
 	}
-	lifts := make([][]Lift, len(order))
-	work.Each(len(order), func(k int) { lifts[k] = columnLifts(in, g, levels, order[k][0], order[k][1]) })
-	ends := make([][][2]endQ, len(order))
-	if b.Analysis == model.AnalysisFrame {
-		cols := map[[2]int][]Lift{}
-		for k, at := range order {
-			cols[at] = lifts[k]
-		}
-		byCol, err := frameEnds(in, g, levels, cols)
+	lifts := takeDown(in, g, levels, order)
+	fillTransfers(levels, order, lifts)
+	if !g.Partial() {
+		ends, err := columnEnds(in, g, levels, order, lifts)
 		if err != nil {
 			return nil, fmt.Errorf("%s:%d: building: %v", in.File, b.Line, err)
 		}
-		for k, at := range order {
-			ends[k] = byCol[at]
+		work.Each(len(order), func(k int) {
+			assembleMoments(lifts[k], ends[k])
+			if b.Options.L0FromFrame {
+				effectiveLengths(in, levels, lifts[k])
+			}
+		})
+		for k := range order {
+			d.Lifts = append(d.Lifts, lifts[k]...)
 		}
-	} else {
-		work.Each(len(order), func(k int) { ends[k] = subframeEnds(in, levels, lifts[k]) })
+		return d, nil
 	}
+	// Columns absent at some levels: each run of lifts that stand one on another is a column of
+	// its own for the subframe, whose foot is the base or the beams it stands on.
 	work.Each(len(order), func(k int) {
-		assembleMoments(lifts[k], ends[k])
-		if b.Options.L0FromFrame {
-			effectiveLengths(in, levels, lifts[k])
+		for _, r := range runs(g, order[k][0], order[k][1], len(levels)) {
+			ends := subframeEnds(in, levels[r[0]:r[1]], lifts[k][r[0]:r[1]])
+			assembleMoments(lifts[k][r[0]:r[1]], ends)
+			if b.Options.L0FromFrame {
+				effectiveLengths(in, levels[r[0]:r[1]], lifts[k][r[0]:r[1]])
+			}
 		}
 	})
-	for k := range order {
-		d.Lifts = append(d.Lifts, lifts[k]...)
+	for k, at := range order {
+		for m := range lifts[k] {
+			if g.Stands(at[0], at[1], m) {
+				d.Lifts = append(d.Lifts, lifts[k][m])
+			}
+		}
 	}
 	return d, nil
 }
 
-// columnLifts derives the lifts of the column at (i, j), from the top down so that each lift
-// takes the cumulative loads of the lift above.
-func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
-	b := in.Building
-	p := in.Code
-	id := ColumnID(i, j)
-	n := len(b.Storeys)
-	lifts := make([]Lift, n)
-	var gAbove trace.Q
-	var dAbove [2][]arrAbove // cumulative loads the moment arrangements leave off, from the lift above
+// runs returns the runs [lo, hi) of the lifts of the column at (i, j) that stand one on another,
+// lowest first.
+func runs(g *Grid, i, j, n int) [][2]int {
+	var out [][2]int
+	for m := 0; m < n; m++ {
+		if !g.Stands(i, j, m) {
+			continue
+		}
+		if len(out) > 0 && out[len(out)-1][1] == m {
+			out[len(out)-1][1] = m + 1
+		} else {
+			out = append(out, [2]int{m, m + 1})
+		}
+	}
+	return out
+}
+
+// runIndex returns the index of lift m of the column at (i, j) within its run of lifts that
+// stand one on another, counted from the run's lowest lift.
+func runIndex(g *Grid, i, j, m int) int {
+	lo := m
+	for lo > 0 && g.Stands(i, j, lo-1) {
+		lo--
+	}
+	return m - lo
+}
+
+// columnState is the take-down of one column between its lifts: the cumulative loads at the
+// foot of the lift above, and what the moment arrangements leave off above.
+type columnState struct {
+	i, j  int
+	id    string
+	lifts []Lift // by level; Column empty where the column is absent
+	above foot   // zero g.From where no lift stands above
+	arr   [2][]arrAbove
+}
+
+// takeDown derives the take-down of the columns at the grid points of order, level by level from
+// the top, so that a column that stops on the beams of a level hands its load to the columns
+// that carry those beams before they are derived; the columns of one level are independent and
+// each is derived on a worker. It returns the lifts of each column by level, with an empty
+// Column where the column is absent.
+func takeDown(in *model.Input, g *Grid, levels []Level, order [][2]int) [][]Lift {
+	n := len(in.Building.Storeys)
 	sets := loadSets(in)
-	qAbove := map[string]trace.Q{}
-	for k := n - 1; k >= 0; k-- {
-		st := b.Storeys[k]
-		lv := &levels[k]
-		size := columnSize(b, id, st.Name)
-		l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 192)}
-		rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
-		gk, qk, area, byBeam := levelTakeDown(l, lv, i, j, rho)
-		alphaA := map[string]trace.Q{}
-		if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
-			aq := l.Add(trace.Input("td/"+st.Name+"/A", "Floor area at level "+st.Name+" that drains to the column", "common practice", "A", "mm2", area).
-				Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
-			for _, c := range keys(qk) {
-				psi0 := l.Add(actions.PsiStep("td/"+st.Name+"/psi0_"+c, 0, c))
-				aa := l.Add(actions.AlphaA("td/"+st.Name+"/alpha_A_"+c, c, psi0, aq))
-				if aa.V < 1 {
-					qk[c] = l.Add(actions.Reduced("td/"+st.Name+"/Q_red_"+c, aa, qk[c]))
-					alphaA[c] = aa
+	cols := make([]columnState, len(order))
+	index := make(map[[2]int]int, len(order))
+	for k, at := range order {
+		cols[k] = columnState{i: at[0], j: at[1], id: ColumnID(at[0], at[1]), lifts: make([]Lift, n)}
+		index[at] = k
+	}
+	// footAt gives the load at the foot of the lowest lift above of a column absent at the level
+	// being derived: it stands on the level's beams.
+	footAt := func(i, j int) foot {
+		if k, ok := index[[2]int{i, j}]; ok {
+			return cols[k].above
+		}
+		return foot{}
+	}
+	for m := n - 1; m >= 0; m-- {
+		work.Each(len(cols), func(k int) {
+			if c := &cols[k]; g.Stands(c.i, c.j, m) {
+				c.lift(in, g, levels, m, sets, footAt)
+			}
+		})
+		for k := range cols {
+			if c := &cols[k]; !g.Stands(c.i, c.j, m) {
+				c.above, c.arr = foot{}, [2][]arrAbove{}
+			}
+		}
+	}
+	out := make([][]Lift, len(cols))
+	for k := range cols {
+		out[k] = cols[k].lifts
+	}
+	return out
+}
+
+// columnLifts derives the lifts of the column at (i, j) alone, from the top down: for a column
+// on which no other column stops (takeDown derives them all together).
+func columnLifts(in *model.Input, g *Grid, levels []Level, i, j int) []Lift {
+	return takeDown(in, g, levels, [][2]int{{i, j}})[0]
+}
+
+// fillTransfers records on the beams that carry a column absent below their level the loads the
+// column puts on them, from the cumulative loads at the foot of its lowest lift above, for the
+// column-moment analysis (BeamLoad.Concentrated).
+func fillTransfers(levels []Level, order [][2]int, lifts [][]Lift) {
+	index := make(map[[2]int]int, len(order))
+	for k, at := range order {
+		index[at] = k
+	}
+	for m := range levels {
+		for bk := range levels[m].Loads {
+			ts := levels[m].Loads[bk].Transfers
+			for x := range ts {
+				k, ok := index[[2]int{ts[x].I, ts[x].J}]
+				if !ok || m+1 >= len(lifts[k]) {
+					continue
+				}
+				src := lifts[k][m+1]
+				ts[x].G = ts[x].K * src.gCum.V
+				ts[x].Q = map[string]float64{}
+				for c, q := range src.qCum {
+					ts[x].Q[c] = ts[x].K * q.V
 				}
 			}
 		}
-		bq := l.Add(trace.Input("td/b", "Column width (along building y)", "input", "b", "mm", size.B))
-		hq := l.Add(trace.Input("td/h", "Column depth (along building x)", "input", "h", "mm", size.H))
-		hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", st.Height))
-		sw := l.Add(ColumnSelfWeight("td/G_col", rho, bq, hq, hgt))
-		l.Group = "Cumulative characteristic loads at the bottom of lift " + st.Name
-		parts := []trace.Q{gk, sw}
-		if k < n-1 {
-			parts = append(parts, gAbove)
-		}
-		gCum := l.Add(Sum("td/G_cum", "Permanent load at the bottom of the lift", "common practice", "G_k", "N", parts))
-		qCum := map[string]trace.Q{}
-		cats := map[string]bool{}
-		for c := range qk {
-			cats[c] = true
-		}
-		for c := range qAbove {
-			cats[c] = true
-		}
-		for _, c := range keys(cats) {
-			var ps []trace.Q
-			if q, ok := qk[c]; ok {
-				ps = append(ps, q)
-			}
-			if q, ok := qAbove[c]; ok {
-				ps = append(ps, q)
-			}
-			qCum[c] = l.Add(Sum("td/Q_cum_"+c, "Imposed load (category "+c+") at the bottom of the lift", "common practice", "Q_k,"+c, "N", ps))
-		}
-		lifts[k] = Lift{Column: id, I: i, J: j, Level: k, Name: st.Name, Size: size, Height: st.Height}
-		lifts[k].combine(in, l, levels, k, qCum, gCum)
-		for d := DirX; d <= DirY; d++ {
-			dAbove[d] = lifts[k].arrangementForce(in, l, lv, d, sets, byBeam, alphaA, gCum, qCum, dAbove[d])
-		}
-		lifts[k].Steps = l.Steps
-		// Cumulative values for the lift below, referred to across sheets.
-		gAbove = absolute(gCum, id, st.Name)
-		gAbove.Symbol = "G_k,above"
-		next := map[string]trace.Q{}
-		for c, q := range qCum {
-			a := absolute(q, id, st.Name)
-			a.Symbol = "Q_k," + c + ",above"
-			next[c] = a
-		}
-		qAbove = next
 	}
-	return lifts
+}
+
+// lift derives lift k of the column: the reactions of the beams of its level, its self-weight
+// and the cumulative loads of the lift above and of the columns standing on its beams, their
+// combination and the axial forces of the moment arrangements.
+func (c *columnState) lift(in *model.Input, g *Grid, levels []Level, k int, sets []loadSet, footAt func(i, j int) foot) {
+	b := in.Building
+	p := in.Code
+	i, j, id := c.i, c.j, c.id
+	st := b.Storeys[k]
+	lv := &levels[k]
+	size := columnSize(b, id, st.Name)
+	l := &trace.Log{Group: "Load take-down at level " + st.Name, Steps: make([]trace.Step, 0, 192)}
+	rho := l.Add(actions.ParamStep("td/rho", p, "density_rc", "N/mm3"))
+	ll := levelTakeDown(l, b, lv, i, j, rho, footAt)
+	qk, alphaA := ll.q, map[string]trace.Q{}
+	if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
+		alphaA = reduceForArea(l, st.Name, ll, qk)
+	}
+	bq := l.Add(trace.Input("td/b", "Column width (along building y)", "input", "b", "mm", size.B))
+	hq := l.Add(trace.Input("td/h", "Column depth (along building x)", "input", "h", "mm", size.H))
+	hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", st.Height))
+	sw := l.Add(ColumnSelfWeight("td/G_col", rho, bq, hq, hgt))
+	l.Group = "Cumulative characteristic loads at the bottom of lift " + st.Name
+	parts := []trace.Q{ll.g, sw}
+	if c.above.g.From != "" {
+		parts = append(parts, c.above.g)
+	}
+	if ll.xferG.From != "" {
+		parts = append(parts, ll.xferG)
+	}
+	gCum := l.Add(Sum("td/G_cum", "Permanent load at the bottom of the lift", "common practice", "G_k", "N", parts))
+	qCum := map[string]trace.Q{}
+	cats := map[string]bool{}
+	for _, m := range []map[string]trace.Q{qk, c.above.q, ll.xferQ} {
+		for c := range m {
+			cats[c] = true
+		}
+	}
+	for _, cat := range keys(cats) {
+		var ps []trace.Q
+		for _, m := range []map[string]trace.Q{qk, c.above.q, ll.xferQ} {
+			if q, ok := m[cat]; ok {
+				ps = append(ps, q)
+			}
+		}
+		qCum[cat] = l.Add(Sum("td/Q_cum_"+cat, "Imposed load (category "+cat+") at the bottom of the lift", "common practice", "Q_k,"+cat, "N", ps))
+	}
+	storeys := c.storeys(k, lv, ll)
+	lf := Lift{Column: id, I: i, J: j, Level: k, Name: st.Name, Size: size, Height: st.Height, Cantilever: ll.edge, gCum: gCum, qCum: qCum, run: runIndex(g, i, j, k)}
+	lf.combine(in, l, storeys, qCum, gCum)
+	for d := DirX; d <= DirY; d++ {
+		c.arr[d] = lf.arrangementForce(in, l, lv, d, sets, ll.byBeam, alphaA, gCum, qCum, c.arr[d])
+	}
+	lf.Steps = l.Steps
+	c.lifts[k] = lf
+	// Cumulative values for the lift below, referred to across sheets.
+	c.above.g = absolute(gCum, id, st.Name)
+	c.above.g.Symbol = "G_k,above"
+	next := map[string]trace.Q{}
+	for cat, q := range qCum {
+		a := absolute(q, id, st.Name)
+		a.Symbol = "Q_k," + cat + ",above"
+		next[cat] = a
+	}
+	c.above.q = next
+	c.above.storeys = storeys
+}
+
+// reduceForArea records the reduction factor αA of each category of imposed load that the level
+// delivers to the column (EN 1991-1-1:2002 6.3.1.2(10)), over the area of the floor that drains
+// to the column, or of the category's zones where its zones are of a category other than the
+// floor's, and none where the category comes by point loads alone; it reduces qk in place and
+// returns the factors below 1 by category.
+func reduceForArea(l *trace.Log, level string, ll levelLoads, qk map[string]trace.Q) map[string]trace.Q {
+	alphaA := map[string]trace.Q{}
+	pre := "td/" + level + "/"
+	aq := l.Add(trace.Input(pre+"A", "Floor area at level "+level+" that drains to the column", "common practice", "A", "mm2", ll.area).
+		Note("The slab areas of the beams' panels, shared between the beam ends as their loads are."))
+	for _, c := range keys(qk) {
+		if !ll.areal[c] {
+			l.Add(trace.Input(pre+"alpha_A_"+c, "Reduction factor of the imposed load for the loaded area", en1991+"6.3.1.2(10)", "α_A", "", 1).
+				Note("Category " + c + " reaches the column at this level by point loads only, which load no area: no reduction (conservative)."))
+			continue
+		}
+		a := aq
+		if za, ok := ll.zoneArea[c]; ok {
+			a = l.Add(trace.Input(pre+"A_"+c, "Area of the zones of category "+c+" at level "+level+" that drains to the column", "common practice", "A_"+c, "mm2", za).
+				Note("The zoned area loads of the category, shared between the beam ends as their loads are: the loaded area of the category."))
+		}
+		psi0 := l.Add(actions.PsiStep(pre+"psi0_"+c, 0, c))
+		aa := l.Add(actions.AlphaA(pre+"alpha_A_"+c, c, psi0, a))
+		if aa.V < 1 {
+			qk[c] = l.Add(actions.Reduced(pre+"Q_red_"+c, aa, qk[c]))
+			alphaA[c] = aa
+		}
+	}
+	return alphaA
+}
+
+// storeys returns, by category, the storeys from level k up whose imposed loads the column
+// carries at the foot of lift k, for αn: those of the lift above, level k where its floor is of
+// the category or where zones or point loads of the category reach the column, and those of the
+// columns standing on its beams.
+func (c *columnState) storeys(k int, lv *Level, ll levelLoads) map[string]map[int]bool {
+	out := map[string]map[int]bool{}
+	add := func(cat string, m int) {
+		if out[cat] == nil {
+			out[cat] = map[int]bool{}
+		}
+		out[cat][m] = true
+	}
+	for _, from := range []map[string]map[int]bool{c.above.storeys, ll.storeys} {
+		for cat, set := range from {
+			for m := range set {
+				add(cat, m)
+			}
+		}
+	}
+	if lv.Floor.Qk > 0 {
+		add(lv.Floor.Category, k)
+	}
+	for cat := range ll.counted {
+		add(cat, k)
+	}
+	return out
 }
 
 // absolute returns q with its producing step named from the building's root, so that a step of
@@ -198,19 +376,14 @@ func absolute(q trace.Q, column, lift string) trace.Q {
 // combine records the design axial force of the lift from its cumulative characteristic
 // loads, EN 1990:2002 6.4.3.2, with the imposed-load reduction by the number of storeys
 // where the input asks for it.
-func (lf *Lift) combine(in *model.Input, l *trace.Log, levels []Level, k int, q map[string]trace.Q, g trace.Q) {
+func (lf *Lift) combine(in *model.Input, l *trace.Log, storeys map[string]map[int]bool, q map[string]trace.Q, g trace.Q) {
 	b := in.Building
 	l.Group = "Design axial force at the bottom of lift " + lf.Name
 	var vs []actions.Variable
 	for _, c := range keys(q) {
 		v := actions.Variable{Category: c, Q: q[c]}
 		if b.Options.Reduction == model.ReduceStoreys {
-			n := 0
-			for m := k; m < len(levels); m++ {
-				if levels[m].Floor.Category == c && levels[m].Floor.Qk > 0 {
-					n++
-				}
-			}
+			n := len(storeys[c])
 			psi0 := l.Add(actions.PsiStep("td/psi0_"+c, 0, c))
 			nq := l.Add(trace.Input("td/n_"+c, "Storeys of category "+c+" above the lift's bottom", "EN 1991-1-1:2002 6.3.1.2(11)", "n", "", float64(n)))
 			an := l.Add(actions.AlphaN("td/alpha_n_"+c, c, psi0, nq))
@@ -265,7 +438,7 @@ func (lf *Lift) arrangementForce(in *model.Input, l *trace.Log, lv *Level, d Dir
 	for si, s := range sets {
 		pre := "arr/" + d.String() + "/" + strings.ReplaceAll(s.expr, ".", "") + "/"
 		l.Group = "Design axial force with the moment arrangement about " + axis + ", " + s.label
-		k := lightBeam(lv, d, lf.I, lf.J, lf.Level, s)
+		k := lightBeam(lv, d, lf.I, lf.J, lf.run, s)
 		var ab arrAbove
 		if si < len(above) {
 			ab = above[si]

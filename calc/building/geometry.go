@@ -18,6 +18,8 @@ type Grid struct {
 	NX    int       // number of x lines (lettered)
 	NY    int       // number of y lines (numbered)
 	Names []string  // x line names A, B, ...
+	// absent holds the lifts (by storey index) that a column leaves out (model.Building.OmitAt).
+	absent map[[2]int][]bool
 }
 
 // LetterName returns the name of x line i: A … Z, then AA, AB, ….
@@ -62,8 +64,65 @@ func NewGrid(b *model.Building) (*Grid, error) {
 		}
 		g.Has[i][j] = false
 	}
+	if err := g.omitAt(b); err != nil {
+		return nil, err
+	}
 	return g, nil
 }
+
+// omitAt records the columns absent at some levels only; like omitted points, they must lie
+// inside the grid, where the beams of both lines can span across them.
+func (g *Grid) omitAt(b *model.Building) error {
+	level := map[string]int{}
+	for k, st := range b.Storeys {
+		level[st.Name] = k
+	}
+	for _, o := range b.OmitAt {
+		for _, id := range o.Columns {
+			i, j, ok := g.Point(id)
+			if !ok {
+				return fmt.Errorf("line %d: column %s absent at some levels is not a grid point", o.Line, id)
+			}
+			if i == 0 || j == 0 || i == g.NX-1 || j == g.NY-1 {
+				return fmt.Errorf("line %d: column %s, absent at some levels, lies on the edge of the grid; only inner columns may be left out at some levels (the edge beams need their supports)", o.Line, id)
+			}
+			if g.absent == nil {
+				g.absent = map[[2]int][]bool{}
+			}
+			gone := g.absent[[2]int{i, j}]
+			if gone == nil {
+				gone = make([]bool, len(b.Storeys))
+				g.absent[[2]int{i, j}] = gone
+			}
+			if len(o.Levels) == 0 {
+				for k := range gone {
+					gone[k] = true
+				}
+			}
+			for _, name := range o.Levels {
+				k, ok := level[name]
+				if !ok {
+					return fmt.Errorf("line %d: column %s is left out at level %s, which is not a storey", o.Line, id, name)
+				}
+				gone[k] = true
+			}
+		}
+	}
+	return nil
+}
+
+// Stands reports whether the column at x line i, y line j has its lift m (from level m−1, or
+// the base, up to level m): the grid point is not omitted and the column not absent there.
+func (g *Grid) Stands(i, j, m int) bool {
+	if !g.Has[i][j] {
+		return false
+	}
+	gone := g.absent[[2]int{i, j}]
+	return gone == nil || !gone[m]
+}
+
+// Partial reports whether some column is absent at some levels only.
+func (g *Grid) Partial() bool { return len(g.absent) > 0 }
 
 // Point returns the line indices of a column id such as "B2".
 func (g *Grid) Point(id string) (i, j int, ok bool) {
@@ -131,9 +190,22 @@ func (b Beam) Name() string {
 	return ColumnID(b.Line, b.From) + "–" + ColumnID(b.Line, b.To)
 }
 
-// Beams returns the beams of one level: on each grid line, one beam between each pair of
-// neighbouring columns (a beam spans across an omitted grid point).
+// Beams returns the beams of one level where every column stands: on each grid line, one beam
+// between each pair of neighbouring columns (a beam spans across an omitted grid point).
 func (g *Grid) Beams(sizeOf func(d Dir, line int) model.Size) []Beam {
+	return g.beamsWhere(sizeOf, func(i, j int) bool { return g.Has[i][j] })
+}
+
+// LevelBeams returns the beams of level m: on each grid line, one beam between each pair of
+// neighbouring columns whose lift m stands (a beam spans across an omitted grid point and across
+// a column absent below the level, which then stands on it).
+func (g *Grid) LevelBeams(m int, sizeOf func(d Dir, line int) model.Size) []Beam {
+	return g.beamsWhere(sizeOf, func(i, j int) bool { return g.Stands(i, j, m) })
+}
+
+// beamsWhere returns the beams between neighbouring supports on every grid line, a support
+// standing at (i, j) where stands says so.
+func (g *Grid) beamsWhere(sizeOf func(d Dir, line int) model.Size, stands func(i, j int) bool) []Beam {
 	var out []Beam
 	// lines runs the beams of direction d: along each line, between neighbouring columns at the
 	// cross-line coordinates cross; has tells whether a column stands at (line, cross line).
@@ -151,8 +223,8 @@ func (g *Grid) Beams(sizeOf func(d Dir, line int) model.Size) []Beam {
 			}
 		}
 	}
-	lines(DirX, g.NY, g.X, func(j, i int) bool { return g.Has[i][j] }) // along x on the numbered lines
-	lines(DirY, g.NX, g.Y, func(i, j int) bool { return g.Has[i][j] }) // along y on the lettered lines
+	lines(DirX, g.NY, g.X, func(j, i int) bool { return stands(i, j) }) // along x on the numbered lines
+	lines(DirY, g.NX, g.Y, func(i, j int) bool { return stands(i, j) }) // along y on the lettered lines
 	return out
 }
 

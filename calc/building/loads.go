@@ -12,6 +12,15 @@ type BeamLoad struct {
 	Slab  []frame.Piece            // the slab area draining to the beam per unit length (a unit area load), mm
 	LineG []LinePiece              // the permanent line loads on the beam
 	LineQ map[string][]LinePiece   // the imposed line loads on the beam by category
+	// Zones, Cants and Points are the zoned area loads, cantilever slabs and point loads of the
+	// input that the beam carries; the first two are in G and Q as pieces too, the point loads
+	// only here (a piece cannot hold a concentrated load).
+	Zones  []ZoneOn
+	Cants  []CantOn
+	Points []PointOn
+	// Transfers are the columns that stand on the beam, absent below its level; their loads are
+	// known once the take-down of the levels above is done (Derive fills them in).
+	Transfers []TransferOn
 }
 
 // LinePiece is the stretch of one line load of the input that lies on a beam.
@@ -92,7 +101,7 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 	for li, st := range b.Storeys {
 		lv := Level{Index: li, Name: st.Name, Density: b.Options.Density}
 		lv.Floor, _ = floorOf(b, st.Name)
-		lv.Beams = g.Beams(func(d Dir, line int) model.Size { return beamSize(b, st.Name, d, g.lineName(d, line)) })
+		lv.Beams = g.LevelBeams(li, func(d Dir, line int) model.Size { return beamSize(b, st.Name, d, g.lineName(d, line)) })
 		lv.Loads = make([]BeamLoad, len(lv.Beams))
 		for k := range lv.Loads {
 			lv.Loads[k].Q = map[string][]frame.Piece{}
@@ -107,38 +116,18 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 			for j := 0; j+1 < g.NY; j++ {
 				lx, ly := g.X[i+1]-g.X[i], g.Y[j+1]-g.Y[j]
 				s, n, w, e := panel(lx, ly, f.Spans)
-				edges := []struct {
-					d      Dir
-					line   int
-					a, b   float64
-					pieces []frame.Piece
-				}{
-					{DirX, j, g.X[i], g.X[i+1], s}, {DirX, j + 1, g.X[i], g.X[i+1], n},
-					{DirY, i, g.Y[j], g.Y[j+1], w}, {DirY, i + 1, g.Y[j], g.Y[j+1], e},
-				}
-				for _, ed := range edges {
-					if len(ed.pieces) == 0 {
-						continue
+				lv.onEdges(g, i, j, [4][]frame.Piece{s, n, w, e}, func(k int, p frame.Piece) {
+					lv.Loads[k].Slab = append(lv.Loads[k].Slab, p)
+					lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(f.Gk))
+					if f.Qk > 0 {
+						addQ(k, f.Category, []frame.Piece{p.Scale(f.Qk)})
 					}
-					k := beamAt(lv.Beams, ed.d, ed.line, ed.a, ed.b)
-					if k < 0 {
-						continue
-					}
-					shift := ed.a - lv.Beams[k].Start
-					for _, p := range ed.pieces {
-						p = p.Shift(shift)
-						lv.Loads[k].Slab = append(lv.Loads[k].Slab, p)
-						lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(f.Gk))
-						if f.Qk > 0 {
-							addQ(k, f.Category, []frame.Piece{p.Scale(f.Qk)})
-						}
-					}
-				}
+				})
 			}
 		}
-		// Self-weight of the beams, density × b × h.
+		// Self-weight of the beams, density × b × h, or × (h − t) below a slab of thickness t.
 		for k, bm := range lv.Beams {
-			lv.Loads[k].G = append(lv.Loads[k].G, frame.Uniform(b.Options.Density*bm.Size.B*bm.Size.H, bm.L))
+			lv.Loads[k].G = append(lv.Loads[k].G, frame.Uniform(b.Options.Density*bm.Size.B*downstand(bm.Size.H, f.Thickness), bm.L))
 		}
 		// Line loads on grid lines.
 		for li, ll := range b.Lines {
@@ -149,15 +138,7 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 			if !ok {
 				continue
 			}
-			for k, bm := range lv.Beams {
-				if bm.Dir != d || bm.Line != line {
-					continue
-				}
-				a, c := maxf(lo, bm.Start), minf(hi, bm.Start+bm.L)
-				if c-a <= 1e-6 {
-					continue
-				}
-				p := frame.Piece{X0: a - bm.Start, X1: c - bm.Start, W0: 1, W1: 1}
+			lv.alongLine(d, line, lo, hi, func(k int, p frame.Piece) {
 				lp := LinePiece{X0: p.X0, X1: p.X1, Load: li, Line: ll.GridLine}
 				if ll.Gk > 0 {
 					lv.Loads[k].G = append(lv.Loads[k].G, p.Scale(ll.Gk))
@@ -169,11 +150,66 @@ func Levels(b *model.Building, g *Grid, panel panelLoader) []Level {
 					lp.W = ll.Qk
 					lv.Loads[k].LineQ[ll.Category] = append(lv.Loads[k].LineQ[ll.Category], lp)
 				}
-			}
+			})
 		}
+		lv.addZones(b, g)
+		lv.addCantilevers(b, g)
+		lv.addPoints(b, g)
+		lv.addTransfers(g, len(b.Storeys))
 		out[li] = lv
 	}
 	return out
+}
+
+// alongLine hands add each beam of direction d on the grid line that the coordinate range
+// [lo, hi] overlaps, with the overlap as a unit piece measured from the beam's start.
+func (lv *Level) alongLine(d Dir, line int, lo, hi float64, add func(k int, p frame.Piece)) {
+	for k, bm := range lv.Beams {
+		if bm.Dir != d || bm.Line != line {
+			continue
+		}
+		a, c := maxf(lo, bm.Start), minf(hi, bm.Start+bm.L)
+		if c-a <= 1e-6 {
+			continue
+		}
+		add(k, frame.Piece{X0: a - bm.Start, X1: c - bm.Start, W0: 1, W1: 1})
+	}
+}
+
+// downstand returns the depth of a beam below a slab of thickness t (0: the whole depth h), not
+// less than zero.
+func downstand(h, t float64) float64 {
+	if t > 0 {
+		return max(h-t, 0)
+	}
+	return h
+}
+
+// onEdges hands each piece that the panel of bay (i, j) gives its south, north, west and east
+// edge (pieces[0..3], measured from the edge's lower end) to add, with the beam of the level
+// that carries that edge and the piece measured from the beam's start.
+func (lv *Level) onEdges(g *Grid, i, j int, pieces [4][]frame.Piece, add func(k int, p frame.Piece)) {
+	edges := [4]struct {
+		d    Dir
+		line int
+		a, b float64
+	}{
+		{DirX, j, g.X[i], g.X[i+1]}, {DirX, j + 1, g.X[i], g.X[i+1]},
+		{DirY, i, g.Y[j], g.Y[j+1]}, {DirY, i + 1, g.Y[j], g.Y[j+1]},
+	}
+	for e, ed := range edges {
+		if len(pieces[e]) == 0 {
+			continue
+		}
+		k := beamAt(lv.Beams, ed.d, ed.line, ed.a, ed.b)
+		if k < 0 {
+			continue
+		}
+		shift := ed.a - lv.Beams[k].Start
+		for _, p := range pieces[e] {
+			add(k, p.Shift(shift))
+		}
+	}
 }
 
 // lineRange returns the direction, line index and coordinate range of a line load.
