@@ -14,20 +14,20 @@ func checkLoads(b *model.Building, g *Grid) error {
 		i, _ := g.cell(g.X, p.X)
 		j, _ := g.cell(g.Y, p.Y)
 		if i < 0 || j < 0 {
-			return fmt.Errorf("%d: building: point load %d stands outside the grid; a point load must stand on a floor between the grid's edge lines", p.Line, k+1)
+			return lineError{p.Line, fmt.Sprintf("point load %d stands outside the grid; a point load must stand on a floor between the grid's edge lines", k+1)}
 		}
 	}
 	for k, z := range b.AreaLoads {
 		if !(z.X[0] != z.X[1] && z.Y[0] != z.Y[1]) {
-			return fmt.Errorf("%d: building: zone %d has no area", z.Line, k+1)
+			return lineError{z.Line, fmt.Sprintf("zone %d has no area", k+1)}
 		}
 	}
 	for k, c := range b.Cantilevers {
 		if _, _, _, _, _, ok := g.cantileverEdge(c); !ok {
-			return fmt.Errorf("%d: building: cantilever %d: grid line %s is not an edge of the grid; a cantilever slab continues beyond an edge beam", c.Line, k+1, c.GridLine)
+			return lineError{c.Line, fmt.Sprintf("cantilever %d: grid line %s is not an edge of the grid; a cantilever slab continues beyond an edge beam", k+1, c.GridLine)}
 		}
 		if !(c.Length > 0) {
-			return fmt.Errorf("%d: building: cantilever %d has no length", c.Line, k+1)
+			return lineError{c.Line, fmt.Sprintf("cantilever %d has no length", k+1)}
 		}
 	}
 	return nil

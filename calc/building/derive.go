@@ -71,11 +71,14 @@ func columnSize(b *model.Building, id, level string) model.Size {
 func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 	b := in.Building
 	g, err := NewGrid(b)
+	if err == nil {
+		err = checkLoads(b, g)
+	}
+	if le, ok := err.(lineError); ok {
+		return nil, fmt.Errorf("%s:%d: building: %v", in.File, le.line, le)
+	}
 	if err != nil {
 		return nil, fmt.Errorf("%s:%d: %v", in.File, b.Line, err)
-	}
-	if err := checkLoads(b, g); err != nil {
-		return nil, fmt.Errorf("%s:%v", in.File, err)
 	}
 	if g.Partial() && (b.Analysis == model.AnalysisFrame || b.Analysis == model.AnalysisBoth) {
 		return nil, fmt.Errorf("%s:%d: building: the frame analysis does not model columns absent at some levels yet: use analysis: subframe", in.File, b.Line)

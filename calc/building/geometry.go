@@ -81,10 +81,10 @@ func (g *Grid) omitAt(b *model.Building) error {
 		for _, id := range o.Columns {
 			i, j, ok := g.Point(id)
 			if !ok {
-				return fmt.Errorf("line %d: column %s absent at some levels is not a grid point", o.Line, id)
+				return lineError{o.Line, "column " + id + ", absent at some levels, is not a grid point"}
 			}
 			if i == 0 || j == 0 || i == g.NX-1 || j == g.NY-1 {
-				return fmt.Errorf("line %d: column %s, absent at some levels, lies on the edge of the grid; only inner columns may be left out at some levels (the edge beams need their supports)", o.Line, id)
+				return lineError{o.Line, "column " + id + ", absent at some levels, lies on the edge of the grid; only inner columns may be left out at some levels (the beams that end on the edge need their supports)"}
 			}
 			if g.absent == nil {
 				g.absent = map[[2]int][]bool{}
@@ -102,7 +102,7 @@ func (g *Grid) omitAt(b *model.Building) error {
 			for _, name := range o.Levels {
 				k, ok := level[name]
 				if !ok {
-					return fmt.Errorf("line %d: column %s is left out at level %s, which is not a storey", o.Line, id, name)
+					return lineError{o.Line, "column " + id + " is left out at level " + name + ", which is not a storey"}
 				}
 				gone[k] = true
 			}
@@ -110,6 +110,14 @@ func (g *Grid) omitAt(b *model.Building) error {
 	}
 	return nil
 }
+
+// lineError is an error in the building entry at an input line.
+type lineError struct {
+	line int
+	msg  string
+}
+
+func (e lineError) Error() string { return e.msg }
 
 // Stands reports whether the column at x line i, y line j has its lift m (from level m−1, or
 // the base, up to level m): the grid point is not omitted and the column not absent there.

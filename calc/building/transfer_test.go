@@ -143,7 +143,7 @@ func TestTransferRefusals(t *testing.T) {
 	}
 	in = contractBuilding()
 	in.Building.OmitAt = []model.OmitLevels{{Columns: []string{"A2"}, Levels: []string{"L1"}, Line: 7}}
-	if _, err := Derive(in, panel); err == nil || !strings.Contains(err.Error(), "edge") {
+	if _, err := Derive(in, panel); err == nil || !strings.Contains(err.Error(), "contract.yaml:7: building: column A2") || !strings.Contains(err.Error(), "edge") {
 		t.Errorf("edge column absent: %v", err)
 	}
 }
