@@ -107,20 +107,40 @@ func takeDownTables(c cells) []tableView {
 			Align:   "lrrrrrrr",
 			Formula: rich("Per lift, top down: ΣG_k = G_level + G_col + ΣG_k of the lift above; ΣQ_k = Q_level + ΣQ_k of the lift above (by category); N_Ed by the combination of the design basis, with the reduction α where asked."),
 		}
+		// A column that receives the load of a column stopping on its beams: the transferred loads
+		// in columns of their own.
+		xfer := false
+		for _, i := range col.designs {
+			for _, st := range r.Designs[i].Steps {
+				if strings.HasPrefix(st.ID, "td/"+r.Designs[i].Storey+"/xfer/") {
+					xfer = true
+				}
+			}
+		}
+		if xfer {
+			t.Head = append(t.Head[:3:3], append([]inline{rich("G_xfer (kN)"), rich("Q_xfer (kN)")}, t.Head[3:]...)...)
+			t.Align = "lrrrrrrrrr"
+			t.Formula = rich("Per lift, top down: ΣG_k = G_level + G_xfer + G_col + ΣG_k of the lift above; ΣQ_k = Q_level + Q_xfer + ΣQ_k of the lift above (by category), xfer the loads of columns stopping on the beams of the level; N_Ed by the combination of the design basis, with the reduction α where asked.")
+		}
 		for k := len(col.designs) - 1; k >= 0; k-- {
 			i := col.designs[k]
 			d := r.Designs[i]
 			lv := "td/" + d.Storey + "/"
-			t.Rows = append(t.Rows, []inline{txt(d.Storey),
+			row := []inline{txt(d.Storey),
 				c.cell(i, lv+"G"),
-				c.matching(i, func(id string) bool { return strings.HasPrefix(id, lv+"Q") && !strings.HasPrefix(id, lv+"Q_") }),
+				c.matching(i, func(id string) bool { return strings.HasPrefix(id, lv+"Q") && !strings.HasPrefix(id, lv+"Q_") })}
+			if xfer {
+				row = append(row, c.matching(i, func(id string) bool { return id == lv+"xfer/G" }),
+					c.matching(i, func(id string) bool { return strings.HasPrefix(id, lv+"xfer/Q") }))
+			}
+			t.Rows = append(t.Rows, append(row,
 				c.cell(i, "td/G_col"),
 				c.cell(i, "td/G_cum"),
 				c.matching(i, func(id string) bool { return strings.HasPrefix(id, "td/Q_cum_") }),
 				c.matching(i, func(id string) bool {
 					return strings.HasPrefix(id, lv+"alpha_A_") || strings.HasPrefix(id, "td/alpha_n_")
 				}),
-				c.cell(i, "td/NEd")})
+				c.cell(i, "td/NEd")))
 		}
 		out = append(out, t)
 		foot := col.designs[0]

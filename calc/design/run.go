@@ -164,12 +164,14 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 // span is the lifts [lo, hi) of one column in the derived lifts, lowest first.
 type span struct{ lo, hi int }
 
-// columnSpans returns the runs of lifts of one column, in order.
+// columnSpans returns the runs of lifts that stand one on another, in order: the lifts of one
+// column at consecutive levels (a column absent at some levels, standing on a transfer beam
+// above them, starts a run of its own).
 func columnSpans(lifts []building.Lift) []span {
 	var out []span
 	for lo := 0; lo < len(lifts); {
 		hi := lo + 1
-		for hi < len(lifts) && lifts[hi].Column == lifts[lo].Column {
+		for hi < len(lifts) && lifts[hi].Column == lifts[lo].Column && lifts[hi].Level == lifts[hi-1].Level+1 {
 			hi++
 		}
 		out = append(out, span{lo, hi})
