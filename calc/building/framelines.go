@@ -13,12 +13,17 @@ import (
 
 const frameMethod = "direct stiffness method (slope-deflection equations, joint rotations only: braced, no sway), banded Cholesky factorisation (gonum)"
 
-// superposed holds the solutions of one frame line under one load set: every beam lightly
-// loaded (base), and each beam's added load alone (one case per beam), whose sums give the
-// end moments of any arrangement (linear elasticity: superposition).
+// superposed holds the solutions of one frame line under one load set: every beam and
+// cantilever lightly loaded (base), and each one's added load alone (one case per beam, then one
+// per cantilever), whose sums give the end moments of any arrangement (linear elasticity:
+// superposition). The moments of the cantilevers on their joints go with each solution.
 type superposed struct {
 	base  frame.Result
-	extra []frame.Result // by beam of the line
+	extra []frame.Result // by beam of the line, then by cantilever
+	// baseJoint and extraJoint hold the cantilevers' moments on their joints (by cantilever of
+	// the line) of the base and of each case; nil where the line has none.
+	baseJoint  []float64
+	extraJoint [][]float64
 }
 
 // envelope returns the end moment endIdx of member mem that is largest in magnitude over every
@@ -46,17 +51,32 @@ func (sp superposed) envelope(mem, endIdx int) (float64, []bool) {
 	return neg, loaded
 }
 
-// under returns the end moments of every member with the given beams loaded.
-func (sp superposed) under(loaded []bool) [][2]float64 {
-	out := make([][2]float64, len(sp.base.End))
-	copy(out, sp.base.End)
+// arrangement is the solution of a frame line under one arrangement: the end moments of every
+// member and the moments of the cantilevers on their joints.
+type arrangement struct {
+	ends  [][2]float64
+	joint []float64
+}
+
+// under returns the solution with the given beams and cantilevers loaded.
+func (sp superposed) under(loaded []bool) arrangement {
+	out := arrangement{ends: make([][2]float64, len(sp.base.End))}
+	copy(out.ends, sp.base.End)
+	if sp.baseJoint != nil {
+		out.joint = append([]float64(nil), sp.baseJoint...)
+	}
 	for k, r := range sp.extra {
 		if !loaded[k] {
 			continue
 		}
-		for m := range out {
-			out[m][0] += r.End[m][0]
-			out[m][1] += r.End[m][1]
+		for m := range out.ends {
+			out.ends[m][0] += r.End[m][0]
+			out.ends[m][1] += r.End[m][1]
+		}
+		if sp.extraJoint != nil {
+			for c, v := range sp.extraJoint[k] {
+				out.joint[c] += v
+			}
 		}
 	}
 	return out
@@ -116,8 +136,7 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					f.Members = append(f.Members, frame.Member{I: node(ci, m-1), J: node(ci, m), EI: eCol[m].Ecm * inPlaneI(lifts[m].Size, d), L: lifts[m].Height})
 				}
 			}
-			type beamRef struct{ member, beam, level int }
-			var beams []beamRef
+			var beams []lineBeam
 			for m := 0; m < n; m++ {
 				lv := &levels[m]
 				for bi, bm := range lv.Beams {
@@ -128,7 +147,7 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					if ci0 < 0 || ci1 < 0 {
 						continue
 					}
-					beams = append(beams, beamRef{len(f.Members), bi, m})
+					beams = append(beams, lineBeam{len(f.Members), bi, m})
 					f.Members = append(f.Members, frame.Member{I: node(ci0, m), J: node(ci1, m),
 						EI: eBeam * bm.Size.B * math.Pow(bm.Size.H, 3) / 12, L: bm.L})
 				}
@@ -141,26 +160,57 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 				}
 				return r, nil
 			}
-			// Solve each set: every beam light, then each beam's added load alone.
+			// Cantilever slabs beyond the line's ends act on the joints of the edge columns.
+			var cants []cantJoint
+			for ci, c := range colsOn {
+				lifts := cols[at(c)]
+				for m := 0; m < n; m++ {
+					if e := lifts[m].Cantilever[d]; e.Clockwise != 0 {
+						cants = append(cants, cantJoint{node: node(ci, m), member: colMember[[2]int{ci, m}], level: m, column: lifts[m].Column, load: edgeOf(e)})
+					}
+				}
+			}
+			lineNotes := concentratedNotes(levels, beams)
+			// Solve each set: every beam and cantilever light, then each one's added load alone.
 			sols := make([]superposed, len(sets))
 			for si, st := range sets {
 				for _, br := range beams {
-					f.Members[br.member].Loads = st.pieces(levels[br.level].Loads[br.beam], false)
+					ld := levels[br.level].Loads[br.beam]
+					f.Members[br.member].Loads = st.pieces(ld, false)
+					f.Members[br.member].FEM = pointFEM(f.Members[br.member].L, st.points(ld, false))
 				}
-				base, err := solve()
+				base, jl, err := solveJoint(f, cants, func(k int) float64 { return cants[k].load.moment(st, false) }, solve)
 				if err != nil {
 					return nil, err
 				}
-				sols[si] = superposed{base: base, extra: make([]frame.Result, len(beams))}
+				sols[si] = superposed{base: base, baseJoint: jl, extra: make([]frame.Result, len(beams)+len(cants))}
+				if len(cants) > 0 {
+					sols[si].extraJoint = make([][]float64, len(beams)+len(cants))
+				}
 				for _, br := range beams {
-					f.Members[br.member].Loads = nil
+					f.Members[br.member].Loads, f.Members[br.member].FEM = nil, [2]float64{}
 				}
 				for k, br := range beams {
-					f.Members[br.member].Loads = st.extra(levels[br.level].Loads[br.beam])
-					if sols[si].extra[k], err = solve(); err != nil {
+					ld := levels[br.level].Loads[br.beam]
+					f.Members[br.member].Loads = st.extra(ld)
+					f.Members[br.member].FEM = pointFEM(f.Members[br.member].L, st.extraPoints(ld))
+					if sols[si].extra[k], _, err = solveJoint(f, nil, nil, solve); err != nil {
 						return nil, err
 					}
-					f.Members[br.member].Loads = nil
+					f.Members[br.member].Loads, f.Members[br.member].FEM = nil, [2]float64{}
+				}
+				for k := range cants {
+					one := func(c int) float64 {
+						if c == k {
+							return cants[k].load.extra(st)
+						}
+						return 0
+					}
+					r, jl, err := solveJoint(f, cants, one, solve)
+					if err != nil {
+						return nil, err
+					}
+					sols[si].extra[len(beams)+k], sols[si].extraJoint[len(beams)+k] = r, jl
 				}
 			}
 			// describe names the loaded spans of an arrangement: those at the levels of the
@@ -177,6 +227,16 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 						continue
 					}
 					byLevel[br.level] = append(byLevel[br.level], levels[br.level].Beams[br.beam].Name())
+				}
+				for k, cj := range cants {
+					if !loaded[len(beams)+k] {
+						continue
+					}
+					if cj.level < m-2 || cj.level > m+1 {
+						others++
+						continue
+					}
+					byLevel[cj.level] = append(byLevel[cj.level], "the cantilever slabs at "+cj.column)
 				}
 				var parts []string
 				for lv := 0; lv < n; lv++ {
@@ -206,7 +266,8 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 					classes := classesNote(in, lifts[m])
 					// record adds the solve step of one end (0 bottom, 1 top) with the given
 					// member end moments of one arrangement.
-					record := func(endIdx int, ends [][2]float64, suffix, extra, note string) trace.Q {
+					record := func(endIdx int, arr arrangement, suffix, extra, note string) trace.Q {
+						ends := arr.ends
 						nd := f.Members[mem].I
 						where := "bottom"
 						if endIdx == 1 {
@@ -231,6 +292,13 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 								args = append(args, trace.A(name, trace.Const(v, "M_"+itoa(len(args)+1), "Nmm")))
 							}
 						}
+						for k, cj := range cants {
+							if cj.node == nd {
+								expr += " + M_cant"
+								sum += arr.joint[k]
+								args = append(args, trace.A("M_cant", trace.Const(arr.joint[k], "M_cant", "Nmm")))
+							}
+						}
 						if f.Nodes[nd].Fixed {
 							expr, sum = "0", 0 // a fixed base takes any moment: no equilibrium to state
 						}
@@ -238,6 +306,12 @@ func frameEnds(in *model.Input, g *Grid, levels []Level, cols map[[2]int][]Lift)
 							"common practice (braced frame analysis)", "M_"+where[:1]+","+axis, "Nmm", ends[mem][endIdx], frameMethod, expr, sum, args...).
 							Note(note).
 							Note("The residual is the sum of the end moments of the members meeting at the joint (equilibrium).")
+						if strings.Contains(expr, "M_cant") {
+							st = st.Note("M_cant is the moment of the cantilever slabs beyond the edge on the joint, clockwise, as a beam on their side: c·(f_G·M_G + Σf_Q·M_Q) loaded, c·f_L·M_G lightly loaded (c = +1 beyond the first grid line, −1 beyond the last).")
+						}
+						for _, n := range lineNotes {
+							st = st.Note(n)
+						}
 						if classes != "" {
 							st = st.Note(classes)
 						}
@@ -289,4 +363,67 @@ func indexOf(xs []int, v int) int {
 		}
 	}
 	return -1
+}
+
+// lineBeam is a beam of a frame line: its member in the frame, its index in its level, the level.
+type lineBeam struct{ member, beam, level int }
+
+// cantJoint is a joint of a frame line on which cantilever slabs act: its node, the column
+// member below it (which carries the moment into the solution), its level and column.
+type cantJoint struct {
+	node, member, level int
+	column              string
+	load                edgeLoad
+}
+
+// pointFEM returns the fixed-end moments of concentrated loads on a member of length l.
+func pointFEM(l float64, ps []Point) [2]float64 {
+	a, b := PointFixedEnd(l, ps)
+	return [2]float64{a, b}
+}
+
+// solveJoint solves the frame with the moment load(k) of each cantilever k on its joint (none
+// where load is nil) and returns the solution, with the column members' end moments free of
+// them, and the moments on the joints. A moment on a joint enters the solution as a fixed-end
+// moment added to one member end there (the column below), taken off again after the solution:
+// the joint's equilibrium is then the members' end moments and the applied moment together.
+func solveJoint(f frame.Frame, cants []cantJoint, load func(k int) float64, solve func() (frame.Result, error)) (frame.Result, []float64, error) {
+	var jl []float64
+	if load != nil && len(cants) > 0 {
+		jl = make([]float64, len(cants))
+		for k, c := range cants {
+			jl[k] = load(k)
+			f.Members[c.member].FEM[1] += jl[k]
+		}
+	}
+	r, err := solve()
+	for k, c := range cants {
+		if jl == nil {
+			break
+		}
+		f.Members[c.member].FEM[1] -= jl[k]
+		if err == nil {
+			r.End[c.member][1] -= jl[k]
+		}
+	}
+	return r, jl, err
+}
+
+// concentratedNotes returns the notes that the frame's column moments carry where the beams of a
+// line carry point loads of the input or columns stopping on them.
+func concentratedNotes(levels []Level, beams []lineBeam) []string {
+	var points, xfer bool
+	for _, br := range beams {
+		ld := levels[br.level].Loads[br.beam]
+		points = points || len(ld.Points) > 0
+		xfer = xfer || len(ld.Transfers) > 0
+	}
+	var out []string
+	if points {
+		out = append(out, "The point loads of the input on the beams enter as fixed-end moments P·a·b²/L² and P·a²·b/L² (handbook formula), factored as their span.")
+	}
+	if xfer {
+		out = append(out, "The columns stopping on the beams enter as fixed-end moments P·a·b²/L² and P·a²·b/L² (handbook formula). "+transferNote)
+	}
+	return out
 }

@@ -14,7 +14,7 @@ import (
 type jointResult struct {
 	set          int               // the main load set (index into loadSets) whose arrangement governs
 	below, above frame.JointColumn // the columns below and above the joint
-	aboveAlt     frame.JointColumn // the column above under the other side's arrangement, when both sides have a beam
+	aboveAlt     frame.JointColumn // the column above under the other side's arrangement, when both sides carry load
 	// The columns below and above with the least-axial-force set (γG,inf on every span).
 	minBelow, minAbove frame.JointColumn
 }
@@ -50,8 +50,10 @@ func inPlaneI(s model.Size, d Dir) float64 {
 	return s.H * s.B * s.B * s.B / 12
 }
 
-// jointFEMs returns the fixed-end moments at the joint (left, right; 0 where there is no beam)
-// of the beams of direction d at the column (i, j), loaded and light under set s.
+// jointFEMs returns the fixed-end moments at the joint (left, right; 0 where there is none) of
+// the beams of direction d at the column (i, j), loaded and light under set s: of their
+// distributed and concentrated loads, and on the side beyond the edge the moment of cantilever
+// slabs there, which acts as a beam on that side would.
 func jointFEMs(lv *Level, d Dir, i, j int, s loadSet) (loaded, light [2]float64, ok [2]bool) {
 	left, right := lv.beamsAt(d, i, j)
 	for side, k := range []int{left, right} {
@@ -59,8 +61,8 @@ func jointFEMs(lv *Level, d Dir, i, j int, s loadSet) (loaded, light [2]float64,
 			continue
 		}
 		bm := lv.Beams[k]
-		a0, a1 := frame.FixedEnd(bm.L, s.pieces(lv.Loads[k], true))
-		b0, b1 := frame.FixedEnd(bm.L, s.pieces(lv.Loads[k], false))
+		a0, a1 := s.beamFixedEnd(bm.L, lv.Loads[k], true)
+		b0, b1 := s.beamFixedEnd(bm.L, lv.Loads[k], false)
 		ok[side] = true
 		if side == 0 { // the joint is at the left beam's end
 			loaded[side], light[side] = a1, b1
@@ -68,7 +70,22 @@ func jointFEMs(lv *Level, d Dir, i, j int, s loadSet) (loaded, light [2]float64,
 			loaded[side], light[side] = a0, b0
 		}
 	}
+	if e := levelEdge(lv, d, i, j); e.clockwise != 0 {
+		side := cantileverSide(e.clockwise)
+		loaded[side] += e.moment(s, true)
+		light[side] += e.moment(s, false)
+		ok[side] = true
+	}
 	return
+}
+
+// cantileverSide returns the side of the joint (0 left, 1 right) that a cantilever of the given
+// sense (EdgeMoment.Clockwise) lies on.
+func cantileverSide(clockwise float64) int {
+	if clockwise < 0 {
+		return 1
+	}
+	return 0
 }
 
 // governingSet returns the index of the main load set whose arrangement gives the largest
@@ -103,13 +120,7 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 	l.Group = "Column moments about " + axis + ": subframe at level " + lv.Name + " (frame along " + d.String() + ")"
 	left, right := lv.beamsAt(d, i, j)
 	kBeam := e.kBeam
-	type side struct {
-		k, L  trace.Q
-		end   frame.Side
-		beam  int
-		label string
-	}
-	var sides [2]*side
+	var sides [2]*jointSide
 	for s, k := range []int{left, right} {
 		if k < 0 {
 			continue
@@ -125,10 +136,18 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 			bm.Size.B*math.Pow(bm.Size.H, 3)/12, "b * h ** 3 / 12", trace.A("b", trace.Const(bm.Size.B, "b_b", "mm")), trace.A("h", trace.Const(bm.Size.H, "h_b", "mm"))))
 		ks := frame.StiffnessStep(pre+name+"/k", "Stiffness of beam "+name+" at the joint", kBeam, e.beam, ib, L)
 		ks.Symbol = "k_" + name
-		sides[s] = &side{k: l.Add(ks), L: L, end: end, beam: k, label: name}
+		sides[s] = &jointSide{k: l.Add(ks), L: L, end: end, beam: k, label: name}
 	}
 	if sides[0] != nil && sides[1] != nil {
 		spanRatioCaution(l, pre, in.Building.Options.SpanRatio, sides[0].L, sides[1].L)
+	}
+	// Cantilever slabs beyond the edge act on the joint as a beam on their side, without stiffness.
+	if cant := lifts[m].Cantilever[d]; cant.Clockwise != 0 && cant.G.From != "" {
+		s := cantileverSide(cant.Clockwise)
+		if sides[s] == nil {
+			sides[s] = &jointSide{k: trace.Const(0, "k_cant", "Nmm"), beam: -1, label: "cant"}
+		}
+		sides[s].cant = &cant
 	}
 	// Columns above and below the joint.
 	colK := func(lift int, name string, pinnedFar bool, e trace.Q) *trace.Q {
@@ -163,17 +182,8 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 			if sd == nil {
 				continue
 			}
-			ld := lv.Loads[sd.beam]
 			loaded := k == choice || sides[1-k] == nil
-			title, sym, pieces := "Fixed-end moment at the column, beam "+sd.label+" loaded ("+s.loaded+")", "M_F,"+sd.label+",max", s.pieces(ld, true)
-			id := pre + sub + sd.label + "/FEM_loaded"
-			if !loaded {
-				title, sym, pieces = "Fixed-end moment at the column, beam "+sd.label+" lightly loaded ("+s.light+")", "M_F,"+sd.label+",min", s.pieces(ld, false)
-				id = pre + sub + sd.label + "/FEM_light"
-			}
-			st := frame.FEMStep(id, title, sd.end, sd.L, pieces)
-			st.Symbol = sym
-			fem[k] = l.Add(st.Note("Loads: slab, self-weight and line loads on the beam, factored; clockwise positive."))
+			fem[k] = sideFEM(l, lv, pre+sub, sd, s, loaded)
 		}
 		jt := frame.Joint{Above: above, Below: below}
 		for k, sd := range sides {
@@ -190,7 +200,7 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 		js := jt.Steps(pre + sub)
 		for idx := range js.Steps {
 			if idx == 0 {
-				js.Steps[idx] = js.Steps[idx].Note(arrangementNote(choice, sides[0] != nil, sides[1] != nil) + " Factors of " + s.label + why)
+				js.Steps[idx] = js.Steps[idx].Note(sidesNote(choice, sides) + " Factors of " + s.label + why)
 			}
 			l.Add(js.Steps[idx])
 		}
@@ -387,15 +397,81 @@ func chooseLoaded(loaded, light [2]float64, m int) int {
 
 // lightBeam returns the beam of direction d at the column (i, j) on level m that the moment
 // arrangement of set s leaves lightly loaded, or -1 when the column has a beam on one side only
-// (then that beam is loaded) or none.
+// and no cantilever slabs beyond it (then that beam is loaded), none, or when the arrangement
+// leaves the cantilever slabs lightly loaded (their load reaches the column through the beams of
+// the other direction and stays in the axial force).
 func lightBeam(lv *Level, d Dir, i, j, m int, s loadSet) int {
 	left, right := lv.beamsAt(d, i, j)
-	if left < 0 || right < 0 {
+	loaded, light, ok := jointFEMs(lv, d, i, j, s)
+	if !ok[0] || !ok[1] {
 		return -1
 	}
-	loaded, light, _ := jointFEMs(lv, d, i, j, s)
 	if chooseLoaded(loaded, light, m) == 0 {
 		return right
 	}
 	return left
+}
+
+// jointSide is one side of a subframe joint: a beam, or cantilever slabs beyond the edge (beam
+// −1), which act as a beam there without stiffness; or both.
+type jointSide struct {
+	k, L  trace.Q
+	end   frame.Side
+	beam  int // index of the beam in the level, −1 where only cantilever slabs lie on this side
+	label string
+	cant  *EdgeMoment // the cantilever slabs on this side; nil where none
+}
+
+// sideFEM records the fixed-end moment at the joint of one side under set s, loaded or lightly
+// loaded, with step IDs under pre: the beam's distributed loads, and where the side carries
+// more, each concentrated load and the cantilever's moment with their sum.
+func sideFEM(l *trace.Log, lv *Level, pre string, sd *jointSide, s loadSet, loaded bool) trace.Q {
+	var parts []trace.Q
+	id, title, sym := pre+sd.label+"/FEM_loaded", "Fixed-end moment at the column, beam "+sd.label+" loaded ("+s.loaded+")", "M_F,"+sd.label+",max"
+	if !loaded {
+		id, title, sym = pre+sd.label+"/FEM_light", "Fixed-end moment at the column, beam "+sd.label+" lightly loaded ("+s.light+")", "M_F,"+sd.label+",min"
+	}
+	if sd.beam >= 0 {
+		ld := lv.Loads[sd.beam]
+		st := frame.FEMStep(id, title, sd.end, sd.L, s.pieces(ld, loaded))
+		st.Symbol = sym
+		st = st.Note("Loads: slab, self-weight and line loads on the beam, factored; clockwise positive.")
+		conc := concentratedFEMs(id, sd.label, sd.end, sd.L, ld, s, loaded)
+		if len(conc) == 0 && sd.cant == nil {
+			return l.Add(st)
+		}
+		st.ID, st.Title, st.Symbol = id+"/lines", title+": distributed loads", sym+",line"
+		parts = append(parts, l.Add(st))
+		for _, c := range conc {
+			parts = append(parts, l.Add(c))
+		}
+	}
+	if sd.cant != nil {
+		cid, ctitle := pre+"cant/M_loaded", "Moment of the cantilever slabs on the joint, loaded ("+s.loaded+")"
+		if !loaded {
+			cid, ctitle = pre+"cant/M_light", "Moment of the cantilever slabs on the joint, lightly loaded ("+s.light+")"
+		}
+		parts = append(parts, l.Add(cantileverJointMoment(cid, ctitle, *sd.cant, s, loaded)))
+		if sd.beam < 0 {
+			return parts[0]
+		}
+	}
+	return l.Add(Sum(id, title, "common practice", sym, "Nmm", parts).
+		Note("The fixed-end moments of the distributed loads and of each concentrated load (and the cantilever's moment on this side) added: superposition."))
+}
+
+// sidesNote describes the arrangement at a joint that loads side choice: arrangementNote where
+// only beams frame in, otherwise naming the cantilever slabs.
+func sidesNote(choice int, sides [2]*jointSide) string {
+	cantOnly := func(sd *jointSide) bool { return sd != nil && sd.beam < 0 }
+	if !cantOnly(sides[0]) && !cantOnly(sides[1]) {
+		return arrangementNote(choice, sides[0] != nil, sides[1] != nil)
+	}
+	if sides[0] == nil || sides[1] == nil {
+		return "Cantilever slabs only: loaded."
+	}
+	if cantOnly(sides[choice]) {
+		return "Arrangement (EN 1992-1-1 5.1.3): the cantilever slabs beyond the edge loaded, the beam lightly loaded."
+	}
+	return "Arrangement (EN 1992-1-1 5.1.3): the beam loaded, the cantilever slabs beyond the edge lightly loaded."
 }
