@@ -19,27 +19,43 @@ func Each(n int, f func(i int)) {
 		return
 	}
 	var next atomic.Int64
-	var wg sync.WaitGroup
-	var once sync.Once
-	var caught any
+	var c crew
 	for range w {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			defer func() {
-				if p := recover(); p != nil {
-					once.Do(func() { caught = p })
-					next.Store(int64(n)) // the others stop at their next item
-				}
-			}()
+		c.start(func() {
 			for i := int(next.Add(1)) - 1; i < n; i = int(next.Add(1)) - 1 {
 				f(i)
 			}
-		}()
+		}, func() { next.Store(int64(n)) }) // after a panic the others stop at their next item
 	}
-	wg.Wait()
-	if caught != nil {
-		panic(caught)
+	c.wait()
+}
+
+// crew is a set of goroutines whose first panic is raised again in the caller by wait.
+type crew struct {
+	wg     sync.WaitGroup
+	once   sync.Once
+	caught any
+}
+
+// start runs body on a goroutine of the crew; on the crew's first panic stopped is called.
+func (c *crew) start(body, stopped func()) {
+	c.wg.Add(1)
+	go func() {
+		defer c.wg.Done()
+		defer func() {
+			if p := recover(); p != nil {
+				c.once.Do(func() { c.caught = p; stopped() })
+			}
+		}()
+		body()
+	}()
+}
+
+// wait waits for the crew and raises its first panic again, if any.
+func (c *crew) wait() {
+	c.wg.Wait()
+	if c.caught != nil {
+		panic(c.caught)
 	}
 }
 
@@ -62,18 +78,9 @@ func EachInOrder(n int, f func(i int), emit func(i int) error) error {
 	ready := make(chan int, 8*w)
 	stop := make(chan struct{})
 	var next atomic.Int64
-	var wg sync.WaitGroup
-	var once sync.Once
-	var caught any
+	var c crew
 	for range w {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			defer func() {
-				if p := recover(); p != nil {
-					once.Do(func() { caught = p; close(stop) })
-				}
-			}()
+		c.start(func() {
 			for {
 				select {
 				case window <- struct{}{}:
@@ -91,7 +98,7 @@ func EachInOrder(n int, f func(i int), emit func(i int) error) error {
 					return
 				}
 			}
-		}()
+		}, func() { close(stop) })
 	}
 	var err error
 	done := make([]bool, n)
@@ -100,8 +107,7 @@ func EachInOrder(n int, f func(i int), emit func(i int) error) error {
 		case i := <-ready:
 			done[i] = true
 		case <-stop:
-			wg.Wait()
-			panic(caught)
+			c.wait() // a worker panicked: raised again here
 		}
 		for emitted < n && done[emitted] && err == nil {
 			err = emit(emitted)
@@ -110,11 +116,8 @@ func EachInOrder(n int, f func(i int), emit func(i int) error) error {
 		}
 	}
 	if err != nil {
-		once.Do(func() { close(stop) })
+		c.once.Do(func() { close(stop) })
 	}
-	wg.Wait()
-	if caught != nil {
-		panic(caught)
-	}
+	c.wait()
 	return err
 }
