@@ -71,7 +71,7 @@ var chain = []string{
 	"bars/As",
 	"links/s", "links/s_zone",
 	// Shear and the load cases.
-	"*/shear/V_Ed", "*/shear/V_Rdc", "*/shear/V_Rdmax", "*/shear/s_req", "links/s_shear", "links/s_cases",
+	"*/shear/V_Rdmax", "*/shear/s_req", "links/s_shear", "links/s_cases", // VEd and VRd,c stand in their check
 	"cases/As_min",
 	"lap/l0",
 	// Fire.
