@@ -191,7 +191,14 @@ func takeDown(in *model.Input, g *Grid, levels []Level, order [][2]int) [][]Lift
 		}
 		return foot{}
 	}
+	all := make([][]Lift, len(cols)) // the lifts as they are derived, for the transfers
+	for k := range cols {
+		all[k] = cols[k].lifts
+	}
 	for m := n - 1; m >= 0; m-- {
+		// The loads of the columns that stop on this level's beams are known (their lifts above
+		// are derived): on the beams before the arrangements of this level are chosen.
+		fillLevel(&levels[m], m, index, all)
 		work.Each(len(cols), func(k int) {
 			if c := &cols[k]; g.Stands(c.i, c.j, m) {
 				c.lift(in, g, levels, m, sets, footAt)
@@ -225,19 +232,24 @@ func fillTransfers(levels []Level, order [][2]int, lifts [][]Lift) {
 		index[at] = k
 	}
 	for m := range levels {
-		for bk := range levels[m].Loads {
-			ts := levels[m].Loads[bk].Transfers
-			for x := range ts {
-				k, ok := index[[2]int{ts[x].I, ts[x].J}]
-				if !ok || m+1 >= len(lifts[k]) {
-					continue
-				}
-				src := lifts[k][m+1]
-				ts[x].G = ts[x].K * src.gCum.V
-				ts[x].Q = map[string]float64{}
-				for c, q := range src.qCum {
-					ts[x].Q[c] = ts[x].K * q.V
-				}
+		fillLevel(&levels[m], m, index, lifts)
+	}
+}
+
+// fillLevel is fillTransfers for the beams of level m, whose columns above are derived.
+func fillLevel(lv *Level, m int, index map[[2]int]int, lifts [][]Lift) {
+	for bk := range lv.Loads {
+		ts := lv.Loads[bk].Transfers
+		for x := range ts {
+			k, ok := index[[2]int{ts[x].I, ts[x].J}]
+			if !ok || m+1 >= len(lifts[k]) {
+				continue
+			}
+			src := lifts[k][m+1]
+			ts[x].G = ts[x].K * src.gCum.V
+			ts[x].Q = map[string]float64{}
+			for c, q := range src.qCum {
+				ts[x].Q[c] = ts[x].K * q.V
 			}
 		}
 	}
