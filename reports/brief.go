@@ -53,8 +53,10 @@ func (o Options) full() bool { return o.Detail == Full }
 // chain lists the steps a brief sheet prints besides every check: each entry is a path
 // pattern (path.Match) over the step's own ID, without the column and lift.
 var chain = []string{
-	// Actions from the take-down and the moment analysis.
+	// Actions from the take-down and the moment analysis; the loads of columns stopping on the
+	// level's beams (transfers), each with its source and caution.
 	"td/NEd",
+	"td/*/xfer/G", "td/*/xfer/Q*", "td/*/xfer/*/*/G", "td/*/xfer/*/*/Q*",
 	"mom/*/top", "mom/*/bot", "mom/*/bot_alt",
 	"frm/*/top", "frm/*/bottom", "frm/*/bottom_alt",
 	"l0/*/l0",
