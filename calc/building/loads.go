@@ -3,6 +3,7 @@ package building
 import (
 	"colsheet/calc/frame"
 	"colsheet/calc/model"
+	"math"
 )
 
 // BeamLoad holds the characteristic loads on one beam at one level.
@@ -289,4 +290,11 @@ func minf(a, b float64) float64 {
 		return a
 	}
 	return b
+}
+
+// BeamDepthAt returns the depth of the deeper of the beams that run through grid point (i, j)
+// at a level: along x on its numbered line and along y on its lettered line (the default beam
+// and the overrides that match), for the clear height of the column below.
+func BeamDepthAt(b *model.Building, level string, i, j int) float64 {
+	return math.Max(beamSize(b, level, DirX, itoa(j+1)).H, beamSize(b, level, DirY, LetterName(i)).H)
 }

@@ -41,7 +41,7 @@ func (c *common) shearSteps(l *trace.Log, tension [2]int, phi, phiT, cnom trace.
 	var length trace.Q
 	switch {
 	case st.Clear > 0:
-		length = l.Add(trace.Formula("shear/l", "Clear height between the beams, over which the end moments change", "common practice", "l_v", "mm",
+		length = l.Add(trace.Formula("shear/l", "Clear height below the beams at the top of the lift (the deeper of the two directions), over which the end moments change", "common practice", "l_v", "mm",
 			st.Clear, "l_clear", trace.A("l_clear", trace.Const(st.Clear, "l_clear", "mm"))))
 	case st.Length > 0:
 		length = l.Add(trace.Formula("shear/l", "Member length, over which the end moments change", "common practice", "l_v", "mm",
