@@ -481,3 +481,53 @@ func (c *Circle) solve(theta, NEd float64, buf []cbar) (ring, float64, error) {
 	}
 	return g, p, nil
 }
+
+// CurveNM returns points (at least 2) of the N–M interaction diagram for bending in direction
+// theta (rad, as CircleState.Theta), at axial forces evenly spaced from the tension resistance
+// −As·fyd to NRd,max: M is the moment along θ with the side of θ compressed, MNeg the moment
+// along θ with the opposite side compressed (EN 1992-1-1:2004 6.1(5), Fig. 6.1). The first
+// point is the limit of full tension yield, M = −fyd·Σ As·s; the last is uniform strain. It
+// returns nil for an invalid section or direction; points whose solution fails are left out,
+// so every value is finite.
+func (c *Circle) CurveNM(theta float64, points int) []NMPoint {
+	if c.Validate() != nil || !finite(theta) {
+		return nil
+	}
+	if points < 2 {
+		points = 2
+	}
+	opp := normAngle(theta + math.Pi)
+	nmin, nmax := c.NRdMin(), c.NRdMax()
+	out := make([]NMPoint, 0, points)
+	out = append(out, NMPoint{N: nmin, M: c.tensionMoment(theta), MNeg: -c.tensionMoment(opp)})
+	for i := 1; i < points-1; i++ {
+		n := nmin + (nmax-nmin)*float64(i)/float64(points-1)
+		mp, err1 := c.Resistance(theta, n)
+		mn, err2 := c.Resistance(opp, n)
+		if err1 != nil || err2 != nil || !finite(mp) || !finite(mn) {
+			continue
+		}
+		out = append(out, NMPoint{N: n, M: mp, MNeg: -mn})
+	}
+	return append(out, NMPoint{N: nmax, M: c.uniformMoment(theta), MNeg: -c.uniformMoment(opp)})
+}
+
+// tensionMoment returns the moment along theta with every bar yielding in tension and no
+// concrete, −fyd·Σ As·s, N·mm.
+func (c *Circle) tensionMoment(theta float64) float64 {
+	var buf [maxPoints]cbar
+	g := c.ring(theta, buf[:])
+	m := 0.0
+	for _, b := range g.bars {
+		m -= c.Fyd * b.a * b.s
+	}
+	return m
+}
+
+// uniformMoment returns the moment along theta at uniform strain, that of MRdAt at NRd,max, N·mm.
+func (c *Circle) uniformMoment(theta float64) float64 {
+	var buf [maxPoints]cbar
+	g := c.ring(theta, buf[:])
+	_, m := g.nm(2)
+	return m
+}
