@@ -638,6 +638,11 @@ func finiteStep(s *trace.Step) error {
 	return nil
 }
 
+// axisValues lists the numbers of axis a that results.json holds.
+func axisValues(a *design.Axis) []float64 {
+	return []float64{a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd, a.VEd, a.VRdc, a.VRdMax}
+}
+
 // finiteDesign reports the first number of design d that is NaN or infinite, naming where it is.
 func finiteDesign(d *design.Design) error {
 	id := func() string { return d.Column + "/" + d.Storey }
@@ -647,13 +652,13 @@ func finiteDesign(d *design.Design) error {
 		return notFinite("design "+id(), vs...)
 	}
 	for k, a := range []*design.Axis{&d.Y, &d.Z} {
-		if vs := []float64{a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd, a.VEd, a.VRdc, a.VRdMax}; !finite(vs...) {
+		if vs := axisValues(a); !finite(vs...) {
 			return notFinite("design "+id()+" axis "+[]string{"y", "z"}[k], vs...)
 		}
 	}
 	for _, c := range d.Cases {
 		for k, a := range []*design.Axis{&c.Y, &c.Z} {
-			if vs := []float64{c.NEd, c.Utilization, a.L0, a.Lambda, a.LambdaLim, a.M01, a.M02, a.Ei, a.M0Ed, a.M2, a.PhiEf, a.MEd, a.MRd, a.VEd, a.VRdc, a.VRdMax}; !finite(vs...) {
+			if vs := append([]float64{c.NEd, c.Utilization}, axisValues(a)...); !finite(vs...) {
 				return notFinite("design "+id()+" case "+c.Name+" axis "+[]string{"y", "z"}[k], vs...)
 			}
 		}

@@ -716,20 +716,22 @@ func casesTable(d design.Design, o Options) *tableView {
 		return nil
 	}
 	prefix := d.Column + "/" + d.Storey + "/"
+	at := make(map[string]int, len(d.Steps)) // the design's steps by their own IDs
+	for i := range d.Steps {
+		at[d.Steps[i].ID] = i
+	}
 	cell := func(c design.CaseResult, ids []string, v float64, unit string) inline {
+		out := qty(v, unit)
 		for _, id := range ids {
-			for _, s := range d.Steps {
-				if s.ID == c.Prefix+id {
-					// No anchor: the governing case's steps carry theirs below.
-					out := qty(v, unit)
-					if o.changed(prefix+s.ID, s.Value) {
-						out = changed(out)
-					}
-					return out
+			if i, ok := at[c.Prefix+id]; ok {
+				// No anchor: the governing case's steps carry theirs below.
+				if s := &d.Steps[i]; o.changed(prefix+s.ID, s.Value) {
+					out = changed(out)
 				}
+				break
 			}
 		}
-		return qty(v, unit)
+		return out
 	}
 	t := &tableView{Title: txt("Load cases"), Align: "llrrrrrrl",
 		Head: []inline{txt("Case"), txt(""), rich("N_Ed"), rich("M_Ed,y"), rich("M_Rd,y"), rich("M_Ed,z"), rich("M_Rd,z"), txt("Utilisation"), txt("Governing check")}}

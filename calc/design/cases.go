@@ -137,12 +137,13 @@ func (cs *caseSet) attach(d Design, g int, all []caseDesign) Design {
 	asMin := make([]trace.Arg, len(all))
 	for k, cd := range all {
 		c := cs.storeys[k].Cases[0]
-		r := CaseResult{Name: c.Name, File: c.File, Line: c.Line, NEd: c.NEd, Y: cd.d.Y, Z: cd.d.Z,
-			Utilization: cd.d.Utilization, Status: cd.d.Status, Governing: cd.d.Governing}
+		own := &cd.d
 		if k == g {
-			r = CaseResult{Name: c.Name, File: c.File, Line: c.Line, NEd: c.NEd, Y: d.Y, Z: d.Z,
-				Utilization: d.Utilization, Status: d.Status, Governing: d.Governing}
-		} else {
+			own = &d // the governing case's design, finished
+		}
+		r := CaseResult{Name: c.Name, File: c.File, Line: c.Line, NEd: c.NEd, Y: own.Y, Z: own.Z,
+			Utilization: own.Utilization, Status: own.Status, Governing: own.Governing}
+		if k != g {
 			r.Prefix = CasePrefix(k)
 			for _, s := range cd.d.Steps {
 				l.Steps = append(l.Steps, prefixed(s, r.Prefix, "Case "+c.Name+": "))
@@ -157,20 +158,8 @@ func (cs *caseSet) attach(d Design, g int, all []caseDesign) Design {
 		d.Cases = append(d.Cases, r)
 		asMin[k] = trace.A("A_s_min_"+strconv.Itoa(k+1), trace.Q{V: cd.c.asMin.V, Symbol: "A_s,min," + c.Name, Unit: "mm2", From: r.Prefix + "det/As_min"})
 	}
-	most := 0.0
-	for _, a := range asMin {
-		most = math.Max(most, a.Value)
-	}
-	expr := "max(" + asMin[0].Name
-	for _, a := range asMin[1:] {
-		expr += ", " + a.Name
-	}
-	expr += ")"
-	if len(asMin) == 1 {
-		expr = asMin[0].Name
-	}
-	d.AsMin = l.Add(trace.Formula("cases/As_min", "Minimum reinforcement, the largest of the load cases", "EN 1992-1-1:2004 9.5.2(2)",
-		"A_s,min", "mm2", most, expr, asMin...)).V
+	d.AsMin = l.Add(extremeStep("cases/As_min", "Minimum reinforcement, the largest of the load cases", "EN 1992-1-1:2004 9.5.2(2)",
+		"A_s,min", "mm2", true, asMin)).V
 	d.Steps = l.Steps
 	return d
 }
@@ -178,18 +167,8 @@ func (cs *caseSet) attach(d Design, g int, all []caseDesign) Design {
 // prefixed returns step s of a case that does not govern as the design's trace holds it: its ID
 // and the sources of its arguments within the lift under prefix, its section headed by group.
 func prefixed(s trace.Step, prefix, group string) trace.Step {
-	s.ID = prefix + s.ID
+	s = underPrefix(s, prefix, false)
 	s.Group = group + s.Group
-	if len(s.Args) > 0 {
-		args := make([]trace.Arg, len(s.Args))
-		for i, a := range s.Args {
-			if a.From != "" && a.From[0] != '/' {
-				a.From = prefix + a.From
-			}
-			args[i] = a
-		}
-		s.Args = args
-	}
 	return s
 }
 

@@ -4,6 +4,7 @@
 package design
 
 import (
+	"math"
 	"colsheet/calc/building"
 	"strings"
 
@@ -223,7 +224,11 @@ func (d *Design) Trace() []trace.Step {
 
 // WholeStep returns step s of the design whose IDs start with prefix ("COLUMN/LIFT/") as Trace
 // gives it: its ID and its arguments' sources as whole IDs.
-func WholeStep(prefix string, s trace.Step) trace.Step {
+func WholeStep(prefix string, s trace.Step) trace.Step { return underPrefix(s, prefix, true) }
+
+// underPrefix returns step s with its ID and the sources of its arguments within the design put
+// under prefix; a source from the root ("/…") keeps its "/" unless whole, which drops it.
+func underPrefix(s trace.Step, prefix string, whole bool) trace.Step {
 	s.ID = prefix + s.ID
 	if len(s.Args) == 0 {
 		return s
@@ -232,7 +237,9 @@ func WholeStep(prefix string, s trace.Step) trace.Step {
 	for j, a := range s.Args {
 		switch {
 		case strings.HasPrefix(a.From, "/"):
-			a.From = a.From[1:]
+			if whole {
+				a.From = a.From[1:]
+			}
 		case a.From != "":
 			a.From = prefix + a.From
 		}
@@ -240,6 +247,25 @@ func WholeStep(prefix string, s trace.Step) trace.Step {
 	}
 	s.Args = args
 	return s
+}
+
+// extremeStep returns the formula step whose value is the largest (most) or least of args, as
+// max(…) or min(…) over them; one argument stands alone.
+func extremeStep(id, title, clause, symbol, unit string, most bool, args []trace.Arg) trace.Step {
+	fn, pick := "min", math.Min
+	if most {
+		fn, pick = "max", math.Max
+	}
+	v := args[0].Value
+	names := make([]string, len(args))
+	for i, a := range args {
+		v, names[i] = pick(v, a.Value), a.Name
+	}
+	expr := names[0]
+	if len(args) > 1 {
+		expr = fn + "(" + strings.Join(names, ", ") + ")"
+	}
+	return trace.Formula(id, title, clause, symbol, unit, v, expr, args...)
 }
 
 // LiftLevel is the level of the foot and of the top of a lift, mm above the base of its column.

@@ -81,32 +81,20 @@ func (c *common) shearSteps(l *trace.Log, tension [2]int, phi, phiT, cnom trace.
 	// The spacing the shear allows: the least of the axes that need links, and of the other
 	// load cases of the lift.
 	var args []trace.Arg
-	expr := ""
 	for k := 0; k < 2; k++ {
 		if r := plan.res[k]; r.Needed {
-			name := "s_" + c.ax[k].name
-			args = append(args, trace.A(name, r.SReq))
-			expr += ", " + name
+			args = append(args, trace.A("s_"+c.ax[k].name, r.SReq))
 		}
 	}
 	if cp := c.shearCap; cp != nil {
 		q := l.Add(trace.Input("links/s_cases", "Largest link spacing for the shear of load case "+cp.name, trace.ClauseCases, "s_cases", "mm", cp.s))
 		args = append(args, trace.A("s_cases", q))
-		expr += ", s_cases"
 	}
 	if len(args) == 0 {
 		return plan
 	}
 	l.Group = "Links"
-	v := math.Inf(1)
-	for _, a := range args {
-		v = math.Min(v, a.Value)
-	}
-	e := args[0].Name
-	if len(args) > 1 {
-		e = "min(" + expr[2:] + ")"
-	}
-	plan.sReq = l.Add(trace.Formula("links/s_shear", "Largest link spacing for the shear", "EN 1992-1-1:2004 6.2.3(3), Eq. (6.8)", "s_V", "mm", v, e, args...))
+	plan.sReq = l.Add(extremeStep("links/s_shear", "Largest link spacing for the shear", "EN 1992-1-1:2004 6.2.3(3), Eq. (6.8)", "s_V", "mm", false, args))
 	plan.limit = true
 	return plan
 }
