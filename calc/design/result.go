@@ -4,8 +4,8 @@
 package design
 
 import (
-	"math"
 	"colsheet/calc/building"
+	"math"
 	"strings"
 
 	"colsheet/calc/detail"
