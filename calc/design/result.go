@@ -60,7 +60,8 @@ func (r *Result) Failed() int {
 // Design is the design or check of one column over one lift. Quantities in engine units.
 type Design struct {
 	Column, Storey string
-	B, H, Cover    float64 // mm
+	B, H, Cover    float64 // mm; B = H = D for a circle
+	Shape          string  // model.ShapeRect or model.ShapeCircle
 	Class          string  // concrete strength class of the lift, e.g. "C32/40"
 	Fck, Fyk       float64 // MPa
 	NEd            float64 // N
@@ -202,11 +203,19 @@ type Mark struct {
 
 // Links is the transverse reinforcement provided.
 type Links struct {
+	Type           string  // LinksRect, LinksCircular or LinksHelix
 	Dia            float64 // mm
 	Spacing        float64 // mm, general spacing
 	SpacingReduced float64 // mm, within the zones of 9.5.3(4)
 	SpacingShear   float64 // mm, the largest spacing the shear allows where it is below that of 9.5.3; 0 where shear does not govern
 }
+
+// Kinds of transverse reinforcement.
+const (
+	LinksRect     = "rectangular" // closed rectangular links round the bars of the faces
+	LinksCircular = "circular"    // closed circular links
+	LinksHelix    = "helix"       // a continuous helix whose pitch is the spacing
+)
 
 // Trace returns the design's steps with their IDs and references made whole,
 // column/lift/part/name, as results.json and the sheets print them. A reference that

@@ -145,9 +145,12 @@ type Level struct {
 	Line   int
 }
 
-// Size is a rectangular member section.
+// Size is a member section: rectangular B × H, or for a column circular of diameter B = H
+// with Shape ShapeCircle.
 type Size struct {
-	B, H float64 // mm
+	B, H  float64 // mm
+	Shape string  // ShapeRect (the zero value) or ShapeCircle (columns only)
+	Helix bool    // a circular column's transverse bars are a helix
 }
 
 // ColumnSize overrides the section of some columns over some lifts.

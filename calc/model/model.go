@@ -123,14 +123,22 @@ type Creep struct {
 type Column struct {
 	ID         string
 	Line       int         // input line of the column entry
-	B, H       float64     // section width along y and depth along z, mm
+	B, H       float64     // section width along y and depth along z, mm; both the diameter D for a circle
+	Shape      string      // ShapeRect (the zero value) or ShapeCircle
 	Cover      float64     // nominal cover to the links, mm
+	Helix      bool        // a circle's transverse bars are a helix rather than circular links
 	Bars       *BarSpec    // given bars to check; nil to design them
 	LinkDia    float64     // given link diameter, mm; 0 to choose
 	Durability *Durability // overrides Options.Durability; nil to inherit
 	Fire       *Fire       // overrides Options.Fire; nil to inherit
 	Storeys    []Storey
 }
+
+// Section shapes of a column.
+const (
+	ShapeRect   = ""       // rectangular b × h, bars on the four faces
+	ShapeCircle = "circle" // circular of diameter D (B = H = D), bars evenly on a circle
+)
 
 // BarSpec is a given set of longitudinal bars: a count of one diameter, laid out symmetrically.
 type BarSpec struct {
