@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"colsheet/calc/design"
+	"colsheet/calc/model"
 )
 
 // sketch is the cross-section of a design's cage drawn to scale from the design's data alone:
@@ -27,6 +28,10 @@ type sketch struct {
 	Indicative bool     // the ties are placed by the sketch from their count alone
 	Label      string   // "8 Ø20, links Ø8"
 	Scale      float64  // the drawing scale is 1:Scale
+	Circle     bool     // a circular section of diameter B = H, bars on a circle
+	Helix      bool     // a circle's transverse bar is a helix
+	Spacing    float64  // the link spacing, or the helix's pitch, mm
+	Left       float64  // SVG: px from the left edge to the section where not skLeft (room for the helix's label)
 }
 
 // sketchScales are the drawing scales the sketch chooses from, largest first (common practice,
@@ -59,6 +64,10 @@ func cageSketch(d design.Design) (sketch, bool) {
 	}
 	s := sketch{Name: "section", B: d.B, H: d.H, Cover: d.Cover, Link: d.Links.Dia, Dia: d.Bars.Dia,
 		TieCount: d.Detailing.ExtraTies, Scale: sketchScale(d.B, d.H)}
+	if d.Shape == model.ShapeCircle {
+		// Circular links or a helix hold every bar: no extra ties to draw.
+		s.Circle, s.Helix, s.Spacing, s.TieCount = true, d.Links.Type == design.LinksHelix, d.Links.Spacing, 0
+	}
 	for _, p := range d.Bars.Positions {
 		if q := (pt{p[0], p[1]}); finitePt(q) {
 			s.Bars = append(s.Bars, q)
@@ -67,8 +76,16 @@ func cageSketch(d design.Design) (sketch, bool) {
 	if len(s.Bars) == 0 {
 		return sketch{}, false
 	}
+	if s.Helix && s.Link > 0 {
+		s.Left = s.helixLeft()
+	}
 	s.Label = barsText(d)
-	if s.Link > 0 {
+	switch {
+	case s.Link > 0 && s.Helix:
+		s.Label += ", helix Ø" + fmtNum(s.Link).plain()
+	case s.Link > 0 && s.Circle:
+		s.Label += ", circular links Ø" + fmtNum(s.Link).plain()
+	case s.Link > 0:
 		s.Label += ", links Ø" + fmtNum(s.Link).plain()
 	}
 	if s.TieCount > 0 {
@@ -230,6 +247,9 @@ func (s sketch) bendRadius() float64 { return math.Min(2*s.Link, s.Dia/2) }
 
 // Caption returns a plain-text caption of the sketch, naming its scale.
 func (s sketch) Caption() string {
+	if s.Circle {
+		return "Section of the cage to scale 1:" + fmtNum(s.Scale).plain() + ", dimensions in mm: " + s.circleText()
+	}
 	c := "Section of the cage to scale 1:" + fmtNum(s.Scale).plain() + ", dimensions in mm: " + s.Label
 	switch {
 	case s.TieCount == 1:
@@ -268,22 +288,33 @@ const (
 	skCentre  = "#7a7a7a" // centre lines
 )
 
+// left returns the px from the left edge of the SVG sketch to the section.
+func (s sketch) left() float64 {
+	if s.Left > 0 {
+		return s.Left
+	}
+	return skLeft
+}
+
 // k returns the px per mm of the column.
 func (s sketch) k() float64 { return skPxPerMm / s.Scale }
 
 // size returns the width and height of the SVG sketch in px.
 func (s sketch) size() (w, h float64) {
-	return skLeft + s.B*s.k() + skRight, skTop + s.H*s.k() + skBottom
+	return s.left() + s.B*s.k() + skRight, skTop + s.H*s.k() + skBottom
 }
 
 // px maps a point (y, z) of the section, mm from the centroid, to SVG pixels.
 func (s sketch) px(p pt) (x, y float64) {
 	k := s.k()
-	return skLeft + (p.X+s.B/2)*k, skTop + (s.H/2-p.Y)*k
+	return s.left() + (p.X+s.B/2)*k, skTop + (s.H/2-p.Y)*k
 }
 
 // SVG returns the sketch as a self-contained inline <svg> element.
 func (s sketch) SVG() string {
+	if s.Circle {
+		return s.circleSVG()
+	}
 	var b strings.Builder
 	f := coord
 	k := s.k()
@@ -417,6 +448,9 @@ func (s sketch) tieLine(t [2]int) (a, c pt) {
 // PGF returns the sketch as a tikzpicture drawn to scale (1 unit = 1 mm on paper); it needs
 // TikZ (loaded by pgfplots) and xcolor.
 func (s sketch) PGF() string {
+	if s.Circle {
+		return s.circlePGF()
+	}
 	var b strings.Builder
 	var t tex
 	f := coord
@@ -460,6 +494,268 @@ func (s sketch) PGF() string {
 		b.WriteString("\\draw " + at(link, -1, 0) + " -- " + at(face, 4, 0) + " node[right] {" + t.sym("c_nom") + " = " +
 			t.text(fmtNum(s.Cover).plain()) + "};\n")
 		b.WriteString("\\draw " + at(link, -0.6, -0.6) + " -- " + at(link, 0.6, 0.6) + " " + at(face, -0.6, -0.6) + " -- " + at(face, 0.6, 0.6) + ";\n")
+	}
+	b.WriteString("\\end{scope}\n")
+	b.WriteString("\\end{tikzpicture}\n")
+	return b.String()
+}
+
+// ---- Circular sections ----
+
+// circleText names the bars and the transverse bar of a circular section for the caption:
+// "8 Ø20 on a circle, circular links Ø8 @ 300" or "…, helix Ø8, pitch 75".
+func (s sketch) circleText() string {
+	c := strings.TrimSuffix(s.Label, s.linkText()) + " on a circle"
+	if s.Link > 0 {
+		c += s.linkText()
+		if s.Spacing > 0 && s.Helix {
+			c += ", pitch " + fmtNum(s.Spacing).plain()
+		} else if s.Spacing > 0 {
+			c += " @ " + fmtNum(s.Spacing).plain()
+		}
+	}
+	return c
+}
+
+// linkText is the part of the label that names a circle's links: ", circular links Ø8" or ", helix Ø8".
+func (s sketch) linkText() string {
+	switch {
+	case s.Link > 0 && s.Helix:
+		return ", helix Ø" + fmtNum(s.Link).plain()
+	case s.Link > 0:
+		return ", circular links Ø" + fmtNum(s.Link).plain()
+	}
+	return ""
+}
+
+// helixLabel is the label of a helix drawn beside it: "helix, pitch 75".
+func (s sketch) helixLabel() string {
+	if s.Spacing > 0 {
+		return "helix, pitch " + fmtNum(s.Spacing).plain()
+	}
+	return "helix"
+}
+
+// Angles (radians, from the y axis towards z) near which the circle's cover is dimensioned and
+// the helix is labelled: upper right and upper left, clear of the axes' names.
+var (
+	coverAngle = 40 * math.Pi / 180
+	helixAngle = 140 * math.Pi / 180
+)
+
+// gapAngle returns the direction from the centre, radians, midway between two neighbouring bars
+// of a circle, the midway direction nearest to want, so that a dimension or a leader drawn
+// along it passes between the bars.
+func (s sketch) gapAngle(want float64) float64 {
+	var a []float64
+	for _, p := range s.Bars {
+		if p.X != 0 || p.Y != 0 {
+			a = append(a, math.Atan2(p.Y, p.X))
+		}
+	}
+	if len(a) == 0 {
+		return want
+	}
+	sort.Float64s(a)
+	best, dist := want, math.Inf(1)
+	for i, x := range a {
+		next := a[0] + 2*math.Pi
+		if i+1 < len(a) {
+			next = a[i+1]
+		}
+		mid := (x + next) / 2
+		d := math.Abs(math.Remainder(mid-want, 2*math.Pi))
+		if d < dist {
+			best, dist = math.Remainder(mid, 2*math.Pi), d
+		}
+	}
+	return best
+}
+
+// Layout of the helix's label in the SVG sketch, px: the leader runs out past the face by
+// skLeader, then level by skShoulder; text is about skCharW wide a character.
+const (
+	skLeader   = 14
+	skShoulder = 8
+	skCharW    = 0.6 * svgFont
+)
+
+// helixLeft returns the left margin of the SVG sketch of a circle that leaves room for the
+// helix's label, px.
+func (s sketch) helixLeft() float64 {
+	r := s.B / 2 * s.k()
+	c := math.Cos(s.gapAngle(helixAngle))
+	if c >= 0 {
+		return skLeft
+	}
+	need := 4 + skShoulder + 3 + skCharW*float64(len([]rune(s.helixLabel()))) - r - c*(r+skLeader)
+	return math.Max(skLeft, math.Ceil(need))
+}
+
+// circleSVG returns the sketch of a circular section as a self-contained inline <svg> element:
+// the outline, the link or helix as a circle on its centreline, the bars, the diameter below,
+// the cover along a radius between the bars and, for a helix, a label with its pitch.
+func (s sketch) circleSVG() string {
+	var b strings.Builder
+	f := coord
+	k := s.k()
+	w, h := s.size()
+	r := s.B / 2
+	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="` + f(w) + `" height="` + f(h) + `" viewBox="0 0 ` + f(w) + " " + f(h) +
+		`" role="img" font-family="sans-serif" font-size="` + strconv.Itoa(svgFont) + `">` + "\n")
+	b.WriteString("<title>" + xmlText("Section Ø"+fmtNum(s.B).plain()+", "+s.Label+", scale 1:"+fmtNum(s.Scale).plain()) + "</title>\n")
+	b.WriteString(`<rect x="0" y="0" width="` + f(w) + `" height="` + f(h) + `" fill="#ffffff"/>` + "\n")
+	x0, y0 := s.px(pt{-r, r})
+	x1, y1 := s.px(pt{r, -r})
+	cx, cy := s.px(pt{0, 0})
+	b.WriteString(`<text x="` + f(cx) + `" y="20" text-anchor="middle" font-size="13" font-weight="bold">` + xmlText(s.Label) + "</text>\n")
+	circle := func(rad float64, attrs string) {
+		b.WriteString(`<circle cx="` + f(cx) + `" cy="` + f(cy) + `" r="` + f(rad*k) + `" ` + attrs + "/>\n")
+	}
+	// Concrete.
+	circle(r, `fill="#ececec" stroke="`+skLine+`" stroke-width="1.2"`)
+	// Centre lines with the axes' names.
+	b.WriteString(`<g stroke="` + skCentre + `" stroke-width="0.8" stroke-dasharray="8 2 2 2">` + "\n")
+	b.WriteString(`<line x1="` + f(x0-8) + `" y1="` + f(cy) + `" x2="` + f(x1+10) + `" y2="` + f(cy) + `"/>` + "\n")
+	b.WriteString(`<line x1="` + f(cx) + `" y1="` + f(y1+8) + `" x2="` + f(cx) + `" y2="` + f(y0-10) + `"/>` + "\n")
+	b.WriteString("</g>\n")
+	b.WriteString(`<g fill="` + skCentre + `" font-style="italic">` + "\n")
+	b.WriteString(`<text x="` + f(x1+12) + `" y="` + f(cy+4) + `">y</text>` + "\n")
+	b.WriteString(`<text x="` + f(cx+4) + `" y="` + f(y0-6) + `">z</text>` + "\n")
+	b.WriteString("</g>\n")
+	// The link or helix, on its centreline, as thick as it is.
+	rl := r - s.Cover - s.Link/2
+	if s.Link > 0 {
+		circle(rl, `fill="none" stroke="`+skSteel+`" stroke-width="`+f(s.Link*k)+`"`)
+	}
+	// Bars.
+	b.WriteString(`<g fill="` + skBar + `">` + "\n")
+	for _, p := range s.Bars {
+		x, y := s.px(p)
+		b.WriteString(`<circle cx="` + f(x) + `" cy="` + f(y) + `" r="` + f(s.Dia/2*k) + `"/>` + "\n")
+	}
+	b.WriteString("</g>\n")
+	// Dimensions: D below, the cover along a radius to the upper right; the helix's leader.
+	b.WriteString(`<g stroke="` + skLine + `" stroke-width="0.8">` + "\n")
+	line := func(xa, ya, xb, yb float64) {
+		b.WriteString(`<line x1="` + f(xa) + `" y1="` + f(ya) + `" x2="` + f(xb) + `" y2="` + f(yb) + `"/>` + "\n")
+	}
+	// slash draws a tick at (x, y) across a dimension line in the direction th (screen y down).
+	slash := func(x, y, th float64) {
+		dx, dy := 3*math.Sqrt2*math.Cos(th+math.Pi/4), -3*math.Sqrt2*math.Sin(th+math.Pi/4)
+		line(x-dx, y-dy, x+dx, y+dy)
+	}
+	// along returns the point at rad px from the centre in the direction th.
+	along := func(rad, th float64) (float64, float64) { return cx + rad*math.Cos(th), cy - rad*math.Sin(th) }
+	db := y1 + 22
+	line(x0, cy+4, x0, db+4)
+	line(x1, cy+4, x1, db+4)
+	line(x0-4, db, x1+4, db)
+	slash(x0, db, 0)
+	slash(x1, db, 0)
+	tc := s.gapAngle(coverAngle)
+	var cex, cey float64
+	if s.Cover > 0 {
+		ax, ay := along((r-s.Cover)*k-4, tc)
+		cex, cey = along(r*k+skLeader, tc)
+		line(ax, ay, cex, cey)
+		px, py := along((r-s.Cover)*k, tc)
+		slash(px, py, tc)
+		px, py = along(r*k, tc)
+		slash(px, py, tc)
+	}
+	th := s.gapAngle(helixAngle)
+	var hx, hy float64
+	left := math.Cos(th) < 0
+	if s.Helix && s.Link > 0 {
+		ax, ay := along(rl*k, th)
+		ex, ey := along(r*k+skLeader, th)
+		hx, hy = ex+skShoulder, ey
+		if left {
+			hx = ex - skShoulder
+		}
+		line(ax, ay, ex, ey)
+		line(ex, ey, hx, hy)
+	}
+	b.WriteString("</g>\n")
+	b.WriteString(`<g fill="` + skLine + `">` + "\n")
+	b.WriteString(`<text x="` + f(cx) + `" y="` + f(db-4) + `" text-anchor="middle">` + xmlText("D = "+fmtNum(s.B).plain()) + "</text>\n")
+	if s.Cover > 0 {
+		b.WriteString(`<text x="` + f(cex+3) + `" y="` + f(cey+4) + `">` + svgLabel("c_nom = "+fmtNum(s.Cover).plain()) + "</text>\n")
+	}
+	if s.Helix && s.Link > 0 {
+		if left {
+			b.WriteString(`<text x="` + f(hx-3) + `" y="` + f(hy+4) + `" text-anchor="end">` + xmlText(s.helixLabel()) + "</text>\n")
+		} else {
+			b.WriteString(`<text x="` + f(hx+3) + `" y="` + f(hy+4) + `">` + xmlText(s.helixLabel()) + "</text>\n")
+		}
+	}
+	b.WriteString(`<text x="` + f(cx) + `" y="` + f(db+16) + `" text-anchor="middle" fill="` + skCentre + `">` +
+		xmlText("D = "+fmtNum(s.B).plain()+" mm, scale 1:"+fmtNum(s.Scale).plain()) + "</text>\n")
+	b.WriteString("</g>\n")
+	b.WriteString("</svg>\n")
+	return b.String()
+}
+
+// circlePGF returns the sketch of a circular section as a tikzpicture drawn to scale (1 unit =
+// 1 mm on paper), with what circleSVG draws.
+func (s sketch) circlePGF() string {
+	var b strings.Builder
+	var t tex
+	f := coord
+	at := func(p pt, dx, dy float64) string {
+		return "(" + f(p.X/s.Scale+dx) + "," + f(p.Y/s.Scale+dy) + ")"
+	}
+	// ray returns the point at rad mm of the column from the centre in the direction th, moved
+	// by d mm on paper along it.
+	ray := func(rad, th, d float64) string {
+		return at(pt{rad * math.Cos(th), rad * math.Sin(th)}, d*math.Cos(th), d*math.Sin(th))
+	}
+	// slash returns a tick across a dimension line in the direction th at the point rad.
+	slash := func(rad, th float64) string {
+		c := pt{rad * math.Cos(th), rad * math.Sin(th)}
+		dx, dy := 0.6*math.Sqrt2*math.Cos(th+math.Pi/4), 0.6*math.Sqrt2*math.Sin(th+math.Pi/4)
+		return at(c, -dx, -dy) + " -- " + at(c, dx, dy)
+	}
+	mm := func(v float64) string { return f(v/s.Scale) + "mm" }
+	const steel = "{rgb,255:red,31;green,95;blue,139}"
+	const bar = "{rgb,255:red,176;green,58;blue,46}"
+	r := s.B / 2
+	o := pt{0, 0}
+	b.WriteString("\\begin{tikzpicture}[x=1mm, y=1mm, font=\\footnotesize]\n")
+	b.WriteString("\\node[anchor=south, font=\\small\\bfseries] at " + at(pt{0, r}, 0, 6) + " {" + t.text(s.Label) + "};\n")
+	b.WriteString("\\filldraw[fill=black!8, draw=black!80, line width=0.5pt] " + at(o, 0, 0) + " circle[radius=" + f(r/s.Scale) + "];\n")
+	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{-r, 0}, -2, 0) + " -- " + at(pt{r, 0}, 2.5, 0) +
+		" node[right, font=\\footnotesize\\itshape] {y};\n")
+	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{0, -r}, 0, -2) + " -- " + at(pt{0, r}, 0, 2.5) +
+		" node[above, font=\\footnotesize\\itshape] {z};\n")
+	rl := r - s.Cover - s.Link/2
+	if s.Link > 0 {
+		b.WriteString("\\draw[draw=" + steel + ", line width=" + mm(s.Link) + "] " + at(o, 0, 0) + " circle[radius=" + f(rl/s.Scale) + "];\n")
+	}
+	for _, p := range s.Bars {
+		b.WriteString("\\fill[fill=" + bar + "] " + at(p, 0, 0) + " circle[radius=" + f(s.Dia/2/s.Scale) + "];\n")
+	}
+	b.WriteString("\\begin{scope}[black!80, line width=0.3pt]\n")
+	// D below the section: extension lines from the ends of the horizontal diameter.
+	b.WriteString("\\draw " + at(pt{-r, 0}, 0, -1) + " -- " + at(pt{-r, -r}, 0, -7) + " " + at(pt{r, 0}, 0, -1) + " -- " + at(pt{r, -r}, 0, -7) + ";\n")
+	b.WriteString("\\draw[<->, >=latex] " + at(pt{-r, -r}, 0, -6) + " -- node[below] {" + t.text("D = "+fmtNum(s.B).plain()) + "} " + at(pt{r, -r}, 0, -6) + ";\n")
+	if s.Cover > 0 {
+		tc := s.gapAngle(coverAngle)
+		b.WriteString("\\draw " + ray(r-s.Cover, tc, -1) + " -- " + ray(r, tc, 4) + " node[right] {" + t.sym("c_nom") + " = " +
+			t.text(fmtNum(s.Cover).plain()) + "};\n")
+		b.WriteString("\\draw " + slash(r-s.Cover, tc) + " " + slash(r, tc) + ";\n")
+	}
+	if s.Helix && s.Link > 0 {
+		th := s.gapAngle(helixAngle)
+		side, dx := "left", -2.0
+		if math.Cos(th) >= 0 {
+			side, dx = "right", 2
+		}
+		end := pt{r * math.Cos(th), r * math.Sin(th)}
+		ex, ey := 4*math.Cos(th), 4*math.Sin(th)
+		b.WriteString("\\draw " + ray(rl, th, 0) + " -- " + at(end, ex, ey) + " -- " + at(end, ex+dx, ey) + " node[" + side + "] {" +
+			t.text(s.helixLabel()) + "};\n")
 	}
 	b.WriteString("\\end{scope}\n")
 	b.WriteString("\\end{tikzpicture}\n")

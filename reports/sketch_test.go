@@ -7,6 +7,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -14,6 +15,7 @@ import (
 	"colsheet/calc/design"
 	"colsheet/calc/detail"
 	yamlinput "colsheet/calc/input"
+	"colsheet/calc/model"
 	"colsheet/calc/trace"
 )
 
@@ -392,7 +394,7 @@ func TestSketchEngine(t *testing.T) {
 }
 
 func TestSketchGolden(t *testing.T) {
-	for name, d := range map[string]design.Design{"square": squareCage(), "wide": wideCage()} {
+	for name, d := range map[string]design.Design{"square": squareCage(), "wide": wideCage(), "round": roundCage(), "helix": helixCage()} {
 		s, _ := cageSketch(d)
 		golden(t, filepath.Join("sketch", name+".svg"), []byte(s.SVG()))
 		golden(t, filepath.Join("sketch", name+".tex"), []byte(s.PGF()))
@@ -408,7 +410,7 @@ func TestSketchTikZCompiles(t *testing.T) {
 	var b strings.Builder
 	b.WriteString("\\documentclass{article}\n\\usepackage[T1]{fontenc}\n\\usepackage[utf8]{inputenc}\n\\usepackage{amsmath}\n" +
 		"\\usepackage{xcolor}\n\\usepackage{pgfplots}\n\\pgfplotsset{compat=1.16}\n\\begin{document}\n")
-	for _, d := range []design.Design{squareCage(), wideCage(), cageDesign(300, 1200, 30, 8, 25, 2, 7, true), engineDesign(t)} {
+	for _, d := range []design.Design{squareCage(), wideCage(), cageDesign(300, 1200, 30, 8, 25, 2, 7, true), engineDesign(t), roundCage(), helixCage()} {
 		s, _ := cageSketch(d)
 		b.WriteString("\\begin{center}\n" + s.PGF() + "\n{\\small\\itshape " + tex{}.text(s.Caption()) + "}\n\\end{center}\n")
 	}
@@ -441,5 +443,194 @@ func TestSketchNumbers(t *testing.T) {
 	w, h := s.size()
 	if strconv.FormatFloat(doc.Width, 'f', 2, 64) != fixed(w, 2) || strconv.FormatFloat(doc.Height, 'f', 2, 64) != fixed(h, 2) {
 		t.Errorf("size %g × %g, want %s × %s", doc.Width, doc.Height, fixed(w, 2), fixed(h, 2))
+	}
+}
+
+// circleDesign builds a circular design holding only what the sketch reads: the diameter, the
+// cover, n bars on the circle at the positions the engine gives them (calc/detail) and circular
+// links or a helix. The sizes are test inputs, not a design.
+func circleDesign(d, cover, link, dia float64, n int, links string, spacing float64) design.Design {
+	g := detail.Geometry{B: d, H: d, Cover: cover, Link: link, Circle: true}
+	p := detail.Pattern{Dia: dia, Ring: n}
+	return design.Design{Column: "R1", Storey: "L1", B: d, H: d, Cover: cover, Shape: model.ShapeCircle,
+		Bars:  design.Bars{Count: n, Dia: dia, Positions: g.Positions(p)},
+		Links: design.Links{Type: links, Dia: link, Spacing: spacing, SpacingReduced: spacing * 0.6}}
+}
+
+// The circles of the golden files: D 450 with 8 Ø20 and circular links Ø8 @ 300, and D 600 with
+// 10 Ø25 and a helix Ø10 of pitch 75.
+func roundCage() design.Design { return circleDesign(450, 35, 8, 20, 8, design.LinksCircular, 300) }
+func helixCage() design.Design { return circleDesign(600, 40, 10, 25, 10, design.LinksHelix, 75) }
+
+// circleDoc is the part of a circle's SVG the tests read back beside sketchDoc: the top-level
+// circles (outline and link) and the texts of the groups.
+type circleDoc struct {
+	Circles []struct {
+		CX     float64 `xml:"cx,attr"`
+		CY     float64 `xml:"cy,attr"`
+		R      float64 `xml:"r,attr"`
+		Fill   string  `xml:"fill,attr"`
+		Stroke string  `xml:"stroke,attr"`
+		SW     float64 `xml:"stroke-width,attr"`
+	} `xml:"circle"`
+	Texts []string `xml:"g>text"`
+}
+
+// TestSketchCircle reads the SVG of circular sections back: the outline a circle of diameter D,
+// the link a circle on its centreline at c_nom + φt/2 inside the face and as thick as the link,
+// every bar drawn where the design puts it, on the circle of radius D/2 − c_nom − φt − φ/2
+// (the bars against the link, geometry), inside the link; the dimension "D = …", the cover,
+// the helix's label and the caption naming the bars on a circle and the links.
+func TestSketchCircle(t *testing.T) {
+	cases := []struct {
+		name    string
+		d       design.Design
+		caption string // the end of the caption
+		helix   string // the helix's label, "" for circular links
+	}{
+		{"circular links", roundCage(), "8 Ø20 on a circle, circular links Ø8 @ 300", ""},
+		{"helix", helixCage(), "10 Ø25 on a circle, helix Ø10, pitch 75", "helix, pitch 75"},
+		{"small, six bars", circleDesign(250, 25, 6, 12, 6, design.LinksCircular, 150), "6 Ø12 on a circle, circular links Ø6 @ 150", ""},
+		{"large helix, odd count", circleDesign(1200, 50, 12, 32, 15, design.LinksHelix, 100), "15 Ø32 on a circle, helix Ø12, pitch 100", "helix, pitch 100"},
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			s, ok := cageSketch(tc.d)
+			if !ok || !s.Circle {
+				t.Fatal("no sketch of a circle")
+			}
+			if want := "Section of the cage to scale 1:" + fmtNum(s.Scale).plain() + ", dimensions in mm: " + tc.caption; s.Caption() != want {
+				t.Errorf("caption %q, want %q", s.Caption(), want)
+			}
+			svg := s.SVG()
+			base := readSketch(t, svg) // well-formed, self-contained
+			var doc circleDoc
+			if err := xml.Unmarshal([]byte(svg), &doc); err != nil {
+				t.Fatal(err)
+			}
+			k := 96 / 25.4 / s.Scale // px per mm of the column
+			const tol = 0.011        // px: coordinates are written to 2 decimals
+			if len(doc.Circles) != 2 || doc.Circles[0].Fill != "#ececec" || doc.Circles[1].Fill != "none" {
+				t.Fatalf("top-level circles %+v, want the outline and the link", doc.Circles)
+			}
+			outline, link := doc.Circles[0], doc.Circles[1]
+			if math.Abs(outline.R-tc.d.B/2*k) > tol {
+				t.Errorf("outline r %g px, want %g", outline.R, tc.d.B/2*k)
+			}
+			// c_nom is the cover to the link, EN 1992-1-1:2004 4.4.1.1(2).
+			if rl := (tc.d.B/2 - tc.d.Cover - tc.d.Links.Dia/2) * k; math.Abs(link.R-rl) > tol || math.Abs(link.SW-tc.d.Links.Dia*k) > tol ||
+				link.CX != outline.CX || link.CY != outline.CY {
+				t.Errorf("link r %g, stroke %g px at (%g, %g); want r %g, stroke %g", link.R, link.SW, link.CX, link.CY, rl, tc.d.Links.Dia*k)
+			}
+			if len(base.Rects) != 1 || base.Rects[0].Fill != "#ffffff" {
+				t.Errorf("%d rectangles drawn, want only the background", len(base.Rects))
+			}
+			var bars []struct{ CX, CY, R float64 }
+			for _, g := range base.Groups {
+				if g.Fill == skBar {
+					for _, c := range g.Circles {
+						bars = append(bars, struct{ CX, CY, R float64 }{c.CX, c.CY, c.R})
+					}
+				}
+			}
+			if len(bars) != tc.d.Bars.Count {
+				t.Fatalf("%d bars drawn, the design holds %d", len(bars), tc.d.Bars.Count)
+			}
+			rs := tc.d.B/2 - tc.d.Cover - tc.d.Links.Dia - tc.d.Bars.Dia/2 // by hand, geometry
+			inner := link.R - link.SW/2                                    // the link's inner edge, px
+			for n, c := range bars {
+				p := tc.d.Bars.Positions[n]
+				y, z := (c.CX-outline.CX)/k, (outline.CY-c.CY)/k
+				if math.Abs(y-p[0]) > tol/k || math.Abs(z-p[1]) > tol/k || math.Abs(c.R-tc.d.Bars.Dia/2*k) > tol {
+					t.Errorf("bar %d drawn at (%g, %g) r %g px, the design has (%g, %g), φ %g", n, y, z, c.R, p[0], p[1], tc.d.Bars.Dia)
+				}
+				if rho := math.Hypot(y, z); math.Abs(rho-rs) > 2*tol/k {
+					t.Errorf("bar %d drawn %g mm from the centre, want %g", n, rho, rs)
+				}
+				if math.Hypot(c.CX-outline.CX, c.CY-outline.CY)+c.R > inner+2*tol {
+					t.Errorf("bar %d reaches outside the link", n)
+				}
+			}
+			texts := strings.Join(doc.Texts, "|")
+			for _, want := range []string{"D = " + fmtNum(tc.d.B).plain(), "D = " + fmtNum(tc.d.B).plain() + " mm, scale 1:" + fmtNum(s.Scale).plain(), "c", "y", "z"} {
+				if !strings.Contains("|"+texts+"|", "|"+want+"|") {
+					t.Errorf("no text %q among %q", want, texts)
+				}
+			}
+			if strings.Contains(texts, "×") || strings.Contains(svg, "<rect x=\""+coord(outline.CX-outline.R)) {
+				t.Error("a circle drawn or dimensioned as a rectangle")
+			}
+			if got := strings.Contains(texts, "helix"); got != (tc.helix != "") || tc.helix != "" && !strings.Contains(texts, tc.helix) {
+				t.Errorf("helix label in %q, want %q", texts, tc.helix)
+			}
+			// Every text inside the picture (a character about 0.6 of the font size wide, common
+			// practice, no source).
+			w, _ := s.size()
+			re := regexp.MustCompile(`<text x="([0-9.]+)"[^>]*?(text-anchor="(\w+)")?[^>]*>(.*?)</text>`)
+			for _, m := range re.FindAllStringSubmatch(svg, -1) {
+				x, _ := strconv.ParseFloat(m[1], 64)
+				plain := regexp.MustCompile(`<[^>]+>`).ReplaceAllString(m[4], "")
+				wide := 0.6 * svgFont * float64(len([]rune(plain)))
+				lo, hi := x, x+wide
+				switch m[3] {
+				case "end":
+					lo, hi = x-wide, x
+				case "middle":
+					lo, hi = x-wide/2, x+wide/2
+				}
+				if strings.Contains(m[0], "font-size=\"13\"") {
+					continue // the bold label above, checked by the rectangles' layout alike
+				}
+				if lo < 0 || hi > w {
+					t.Errorf("text %q spans %g to %g px, the picture %g", plain, lo, hi, w)
+				}
+			}
+		})
+	}
+}
+
+// The cover is dimensioned and the helix labelled along a radius between two bars, never
+// through one.
+func TestSketchCircleGaps(t *testing.T) {
+	for _, d := range []design.Design{roundCage(), helixCage(), circleDesign(400, 30, 8, 16, 6, design.LinksHelix, 60),
+		circleDesign(1200, 50, 12, 32, 15, design.LinksHelix, 100)} {
+		s, _ := cageSketch(d)
+		for _, want := range []float64{coverAngle, helixAngle} {
+			a := s.gapAngle(want)
+			// Clear of every bar: the ray passes the bar's centre at more than its radius.
+			for _, p := range s.Bars {
+				along := p.X*math.Cos(a) + p.Y*math.Sin(a)
+				off := math.Abs(-p.X*math.Sin(a) + p.Y*math.Cos(a))
+				if along > 0 && off <= d.Bars.Dia/2 {
+					t.Errorf("D %g: the ray at %g° passes through the bar at (%g, %g)", d.B, a*180/math.Pi, p.X, p.Y)
+				}
+			}
+			// Midway: its angular distance to the nearest bar is half the bars' pitch.
+			near := math.Inf(1)
+			for _, p := range s.Bars {
+				near = math.Min(near, math.Abs(math.Remainder(math.Atan2(p.Y, p.X)-a, 2*math.Pi)))
+			}
+			if half := math.Pi / float64(len(s.Bars)); math.Abs(near-half) > 1e-9 {
+				t.Errorf("D %g: the ray at %g° lies %g° from the nearest bar, want %g°", d.B, a*180/math.Pi, near*180/math.Pi, half*180/math.Pi)
+			}
+		}
+	}
+}
+
+// A rectangle keeps its rectangular sketch whatever its link type says, and a circle draws no
+// extra ties.
+func TestSketchShapeOnly(t *testing.T) {
+	d := squareCage()
+	d.Links.Type = design.LinksRect
+	s, _ := cageSketch(d)
+	want, _ := cageSketch(squareCage())
+	if s.SVG() != want.SVG() || s.PGF() != want.PGF() || s.Caption() != want.Caption() {
+		t.Error("the link type changed a rectangle's sketch")
+	}
+	c := roundCage()
+	c.Detailing.ExtraTies = 2
+	s, _ = cageSketch(c)
+	if len(s.Ties) != 0 || strings.Contains(s.Caption(), "tie") {
+		t.Errorf("a circle drawn with ties: %v, %q", s.Ties, s.Caption())
 	}
 }
