@@ -279,7 +279,7 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	r.buildingChoices(f, b, in)
 	barsOK := true
 	if e, ok := f["bars"]; ok {
-		b.Bars, barsOK = r.bars(e.val, join(top, "bars"))
+		b.Bars, barsOK = r.bars(e.val, join(top, "bars"), false)
 		if !barsOK {
 			b.Bars = nil
 		}
@@ -290,10 +290,10 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	}
 	if e, ok := required("columns", "the default column size, e.g. columns: {b: 350 mm, h: 450 mm}"); ok {
 		path := join(top, "columns")
-		g := r.fields(e.val, path, "b", "h", "cover")
+		g := r.fields(e.val, path, "shape", "b", "h", "D", "helix", "cover")
 		if g != nil {
 			var sizeOK bool
-			b.Column, sizeOK = r.size(g, e.val, path, "column")
+			b.Column, sizeOK = r.columnSection(g, e.val, path, columnMissing)
 			coverOK := true
 			coverAt := e.val
 			if c, ok := g["cover"]; ok {
@@ -311,11 +311,14 @@ func (r *reader) building(key, n *yaml.Node, in *model.Input) *model.Building {
 	if e, ok := required("beams", "the default beam size, e.g. beams: {b: 275 mm, h: 500 mm}"); ok {
 		path := join(top, "beams")
 		if g := r.fields(e.val, path, "b", "h"); g != nil {
-			b.Beam, _ = r.size(g, e.val, path, "beam")
+			b.Beam, _ = r.size(g, e.val, path)
 		}
 	}
 	if e, ok := f["column_sizes"]; ok {
 		b.Columns = r.columnSizes(s, e.val, join(top, "column_sizes"), b, barsOK, opt)
+	}
+	if e, ok := f["bars"]; ok && b.Bars != nil {
+		r.ringBars(e.val, join(top, "bars.count"), b)
 	}
 	if e, ok := f["beam_sizes"]; ok {
 		b.Beams = r.beamSizes(s, e.val, join(top, "beam_sizes"))
@@ -545,20 +548,16 @@ func (r *reader) grid(n *yaml.Node, path string) (x, y []float64, ok bool) {
 	return x, y, okx && oky
 }
 
-// size reads the required b and h of a member from fields f of mapping n.
-func (r *reader) size(f map[string]pair, n *yaml.Node, path, member string) (model.Size, bool) {
+// size reads the required b and h of a beam from fields f of mapping n (a column's section:
+// columnSection).
+func (r *reader) size(f map[string]pair, n *yaml.Node, path string) (model.Size, bool) {
 	var s model.Size
 	ok := true
 	for _, k := range []string{"b", "h"} {
 		e, has := f[k]
 		if !has {
 			what := "the width, e.g. b: 275 mm"
-			switch {
-			case member == "column" && k == "b":
-				what = "the width along building y, e.g. b: 350 mm"
-			case member == "column":
-				what = "the depth along building x, e.g. h: 450 mm"
-			case k == "h":
+			if k == "h" {
 				what = "the depth, e.g. h: 500 mm"
 			}
 			r.fail(n, join(path, k), "is required but missing (%s)", what)
@@ -588,11 +587,35 @@ func (r *reader) room(at *yaml.Node, path string, s model.Size, cover float64, b
 	} else if len(opt.BarDiameters) > 0 {
 		bar = opt.BarDiameters[0]
 	}
-	need := 2 * (cover + link + bar)
-	if !(need < min(s.B, s.H)) {
-		r.fail(at, path, "no room for links and bars: 2·(cover + link + bar) = 2·(%s + %s + %s) = %s is not less than min(b, h) = %s",
-			show(cover, ""), show(link, ""), show(bar, ""), show(need, "mm"), show(min(s.B, s.H), "mm"))
+	r.roomFault(at, path, s, cover, link, bar)
+}
+
+// columnMissing are the hints of a missing b and h of a column of the building form.
+var columnMissing = [2]string{"the width along building y, e.g. b: 350 mm", "the depth along building x, e.g. h: 450 mm"}
+
+// ringBars reports the bars given for every column of the building (under bars, mapping n)
+// when some column is circular and the count is below the least of a circle.
+func (r *reader) ringBars(n *yaml.Node, path string, b *model.Building) {
+	where := ""
+	switch {
+	case b.Column.Shape == model.ShapeCircle:
+		where = " (the default column is circular)"
+	default:
+		for i, o := range b.Columns {
+			if o.Shape == model.ShapeCircle {
+				where = fmt.Sprintf(" (column_sizes[%d], line %d, is circular)", i, o.Line)
+				break
+			}
+		}
 	}
+	if where == "" {
+		return
+	}
+	at := n
+	if v := valueOf(n, "count"); v != nil {
+		at = v
+	}
+	r.ringCount(at, path, b.Bars.Count, where)
 }
 
 // combination reads 6.10 or 6.10ab; the YAML number 6.10 (or 6.1) counts as "6.10".
@@ -731,16 +754,20 @@ func (r *reader) omitLevelWhole(s *site, absent map[string]map[string]bool, n *y
 
 // columnSizes reads the column size overrides; where two cover a column and level, the later one holds.
 func (r *reader) columnSizes(s *site, n *yaml.Node, path string, b *model.Building, barsOK bool, opt model.Options) []model.ColumnSize {
-	return listOf(r, n, path, "column size overrides", []string{"columns", "levels", "b", "h"}, func(f map[string]pair, it *yaml.Node, p string) (model.ColumnSize, bool) {
+	return listOf(r, n, path, "column size overrides", []string{"columns", "levels", "shape", "b", "h", "D", "helix"}, func(f map[string]pair, it *yaml.Node, p string) (model.ColumnSize, bool) {
 		c := model.ColumnSize{Line: it.Line}
 		if e, ok := f["columns"]; ok {
 			c.IDs, _ = r.columnRefs(s, e.val, join(p, "columns"))
 		}
 		c.Levels = r.levelsOf(s, f, p)
 		var sizeOK bool
-		c.Size, sizeOK = r.size(f, it, p, "column")
+		c.Size, sizeOK = r.columnSection(f, it, p, columnMissing)
 		if sizeOK && barsOK && b.Cover > 0 {
-			r.room(f["b"].val, join(p, "b"), c.Size, b.Cover, b.Bars, opt)
+			at := "b"
+			if c.Shape == model.ShapeCircle {
+				at = "D"
+			}
+			r.room(f[at].val, join(p, at), c.Size, b.Cover, b.Bars, opt)
 		}
 		return c, true
 	})
@@ -768,7 +795,7 @@ func (r *reader) beamSizes(s *site, n *yaml.Node, path string) []model.BeamSize 
 		if e, ok := f["lines"]; ok {
 			c.Lines, _ = r.beamLines(s, e.val, join(p, "lines"), c.Dir)
 		}
-		c.Size, _ = r.size(f, it, p, "beam")
+		c.Size, _ = r.size(f, it, p)
 		return c, true
 	})
 }

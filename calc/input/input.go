@@ -35,7 +35,11 @@
 //	            method: recorded, not checked), note: text, required with method: elsewhere only}
 //	columns:   list of {id, b, h, cover, bars: {count, dia}, link_dia, durability, fire, storeys};
 //	            a column's durability and fire override design.durability and design.fire key
-//	            by key, so that what the column leaves out (the exposure, the rating) is inherited
+//	            by key, so that what the column leaves out (the exposure, the rating) is inherited;
+//	            a circular column gives D (its diameter) instead of b and h, with shape: circle
+//	            or alone (shape: rectangle, the default, takes b and h), helix: false (true: the
+//	            bars are bound by a helix; circles only), and given bars of at least
+//	            six, evenly on its circle
 //	storeys:   list of {name, l0: {y, z} or one value, length, NEd,
 //	            M: {y: {top, bottom}, z: {top, bottom}}, cases, phi_ef or creep};
 //	            NEd and M are the one case "1" of the lift; or instead
@@ -70,8 +74,11 @@
 //	storeys:   list of {name, height}, lowest first, names unique
 //	grid:      {x: [bay widths], y: [bay widths]}; lettered lines A, B, ..., Z, AA, ... at the x
 //	           positions, numbered lines 1, 2, ... at the y positions; column ids such as B2
-//	columns:   {b, h, cover: 40 mm}, h along building x, b along y; beams: {b, h}
-//	column_sizes: list of {columns, levels, b, h}; beam_sizes: list of {levels, dir, lines, b, h}
+//	columns:   {b, h, cover: 40 mm}, h along building x, b along y, or for circular columns
+//	           {D, cover} (shape and helix as under the actions form's columns); beams: {b, h}
+//	column_sizes: list of {columns, levels, b, h} (or D, shape, helix as under columns: a
+//	           building may mix circular and rectangular columns); beam_sizes: list of
+//	           {levels, dir, lines, b, h}
 //	floors:    list of {levels, gk, qk, category, spans}; every level in exactly one entry
 //	line_loads: list of {levels, line, from, to, gk, qk, category}; with one end given the
 //	           other is the end of the line, so from and to are both set or both empty
@@ -591,7 +598,7 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 	n := resolve(item)
 	c := model.Column{Line: item.Line}
 	before := len(r.errs)
-	f := r.fields(n, path, "id", "b", "h", "cover", "bars", "link_dia", "durability", "fire", "storeys")
+	f := r.fields(n, path, "id", "shape", "b", "h", "D", "helix", "cover", "bars", "link_dia", "durability", "fire", "storeys")
 	if f == nil {
 		return c, false
 	}
@@ -607,26 +614,23 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 			c.ID = s
 		}
 	}
-	var bOK, hOK, coverOK bool
-	if e, ok := required("b", "the width along y, e.g. b: 350 mm"); ok {
-		c.B, bOK = r.plausible(e.val, join(path, "b"), LimitSide)
-	}
-	if e, ok := required("h", "the depth along z, e.g. h: 500 mm"); ok {
-		c.H, hOK = r.plausible(e.val, join(path, "h"), LimitSide)
-	}
+	var coverOK bool
+	size, sizeOK := r.columnSection(f, n, path, [2]string{"the width along y, e.g. b: 350 mm", "the depth along z, e.g. h: 500 mm"})
+	c.B, c.H, c.Shape, c.Helix = size.B, size.H, size.Shape, size.Helix
+	circle := size.Shape == model.ShapeCircle
 	coverEntry, hasCover := required("cover", "the nominal cover to the links, e.g. cover: 40 mm")
 	if hasCover {
 		c.Cover, coverOK = r.plausible(coverEntry.val, join(path, "cover"), LimitCover)
 	}
 	barsOK := true
 	if e, ok := f["bars"]; ok {
-		c.Bars, barsOK = r.bars(e.val, join(path, "bars"))
+		c.Bars, barsOK = r.bars(e.val, join(path, "bars"), circle)
 	}
 	linkOK := true
 	if e, ok := f["link_dia"]; ok {
 		c.LinkDia, linkOK = r.plausible(e.val, join(path, "link_dia"), LimitLink)
 	}
-	if bOK && hOK && coverOK && barsOK && linkOK {
+	if sizeOK && coverOK && barsOK && linkOK {
 		link := c.LinkDia
 		if link == 0 && len(opt.LinkDiameters) > 0 {
 			link = opt.LinkDiameters[0]
@@ -637,11 +641,7 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 		} else if len(opt.BarDiameters) > 0 {
 			bar = opt.BarDiameters[0]
 		}
-		need := 2 * (c.Cover + link + bar)
-		if !(need < min(c.B, c.H)) {
-			r.fail(coverEntry.val, join(path, "cover"), "no room for links and bars: 2·(cover + link + bar) = 2·(%s + %s + %s) = %s is not less than min(b, h) = %s",
-				show(c.Cover, ""), show(link, ""), show(bar, ""), show(need, "mm"), show(min(c.B, c.H), "mm"))
-		}
+		r.roomFault(coverEntry.val, join(path, "cover"), size, c.Cover, link, bar)
 	}
 	if e, ok := f["durability"]; ok {
 		c.Durability = r.durability(e.val, join(path, "durability"), opt.Durability)
@@ -651,15 +651,18 @@ func (r *reader) column(item *yaml.Node, path string, opt model.Options) (model.
 	}
 	if e, ok := required("storeys", "the lifts with their actions"); ok {
 		side := 0.0
-		if bOK && hOK {
-			side = min(c.B, c.H)
+		if sizeOK {
+			side, _ = least(size)
 		}
 		c.Storeys = r.storeys(e.val, join(path, "storeys"), side)
 	}
 	return c, len(r.errs) == before
 }
 
-func (r *reader) bars(n *yaml.Node, path string) (*model.BarSpec, bool) {
+// bars reads given bars {count, dia}: on the four faces of a rectangle an even count of at
+// least 4, evenly on the circle of a circular section (ring) any whole count of at least
+// ringMin.
+func (r *reader) bars(n *yaml.Node, path string, ring bool) (*model.BarSpec, bool) {
 	f := r.fields(n, path, "count", "dia")
 	if f == nil {
 		return nil, false
@@ -668,7 +671,13 @@ func (r *reader) bars(n *yaml.Node, path string) (*model.BarSpec, bool) {
 	ok := true
 	if e, has := f["count"]; has {
 		if v, good := r.number(e.val, join(path, "count"), ""); good {
-			if !whole(v) || v < 4 || int(v)%2 != 0 {
+			if ring && !whole(v) {
+				r.fail(e.val, join(path, "count"), "the bar count must be a whole number of at least %d, found %s", ringMin, show(v, ""))
+				ok = false
+			} else if ring {
+				b.Count = int(v)
+				ok = r.ringCount(e.val, join(path, "count"), b.Count, "")
+			} else if !whole(v) || v < 4 || int(v)%2 != 0 {
 				r.fail(e.val, join(path, "count"), "the bar count must be an even whole number of at least 4, found %s", show(v, ""))
 				ok = false
 			} else {

@@ -389,7 +389,8 @@ func TestErrorFormat(t *testing.T) {
 
 func FuzzParse(f *testing.F) {
 	for _, p := range []string{"testdata/good.yaml", "testdata/bad.yaml", "testdata/minimal.yaml",
-		"testdata/building.yaml", "testdata/building_bad.yaml", "testdata/building_refs.yaml", "testdata/building_contract.yaml"} {
+		"testdata/building.yaml", "testdata/building_bad.yaml", "testdata/building_refs.yaml", "testdata/building_contract.yaml",
+		"testdata/circle.yaml", "testdata/building_circle.yaml"} {
 		data, err := os.ReadFile(p)
 		if err != nil {
 			f.Fatal(err)
@@ -409,6 +410,8 @@ func FuzzParse(f *testing.F) {
 	f.Add([]byte(building + "  effective_length: frame\n  creep: {rh: 60, t0: 7 days}\n"))
 	f.Add([]byte("moment_signs: member-ends\n" + head + "        cases: [{name: A, NEd: -10, M: {y: {top: 1, bottom: 2}}, V: {y: 3}}, {name: B, NEd: 20}]\n"))
 	f.Add([]byte("actions: t.csv\n" + head))
+	f.Add([]byte(circleColumn + "    shape: circle\n    D: 450 mm\n    helix: true\n    bars: {count: 7, dia: 20}\n" + circleTail))
+	f.Add([]byte(building + "  bars: {count: 6, dia: 16}\n  column_sizes: [{columns: B1, D: 500, helix: true}, {levels: R, shape: circle}]\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		in, err := Parse("f.yaml", data)
 		if err != nil {
@@ -435,6 +438,10 @@ func FuzzParse(f *testing.F) {
 		for _, c := range in.Columns {
 			if len(c.Storeys) == 0 || !(c.B > 0 && c.H > 0 && c.Cover > 0) {
 				t.Fatalf("invalid column accepted: %+v", c)
+			}
+			checkShape(t, c.ID, sizeOf(c))
+			if c.Shape == model.ShapeCircle && c.Bars != nil && c.Bars.Count < ringMin {
+				t.Fatalf("circle with %d bars accepted", c.Bars.Count)
 			}
 			for _, s := range c.Storeys {
 				for _, v := range []float64{s.L0Y, s.L0Z, s.Length, s.NEd, s.MY.Top, s.MY.Bottom, s.MZ.Top, s.MZ.Bottom, s.PhiEf} {
@@ -487,8 +494,15 @@ func checkBuilding(t *testing.T, b *model.Building) {
 	positive("bay", b.GridX...)
 	positive("bay", b.GridY...)
 	positive("member size", b.Column.B, b.Column.H, b.Beam.B, b.Beam.H, b.Cover, b.Options.Density, b.Options.L0Factor)
+	checkShape(t, "default column", b.Column)
+	circle := b.Column.Shape == model.ShapeCircle
 	for _, c := range b.Columns {
 		positive("column size", c.B, c.H)
+		checkShape(t, "column size", c.Size)
+		circle = circle || c.Shape == model.ShapeCircle
+	}
+	if circle && b.Bars != nil && b.Bars.Count < ringMin {
+		t.Fatalf("circular columns with %d bars accepted", b.Bars.Count)
 	}
 	for _, c := range b.Beams {
 		positive("beam size", c.B, c.H)
