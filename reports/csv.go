@@ -10,6 +10,7 @@ import (
 
 	"colsheet/calc/design"
 	"colsheet/calc/fire"
+	"colsheet/calc/model"
 )
 
 // CSVHeader names the columns of the CSV summary.
@@ -26,8 +27,8 @@ func CSV(r *design.Result) ([]byte, error) {
 	return table(r, CSVHeader, func(_ int, d design.Design) []string {
 		return []string{cell(d.Column), cell(d.Storey), f(d.B, "mm"), f(d.H, "mm"), f(d.NEd, "N"),
 			f(d.Y.MEd, "Nmm"), f(d.Y.MRd, "Nmm"), f(d.Z.MEd, "Nmm"), f(d.Z.MRd, "Nmm"),
-			fmt.Sprintf("%d x %s mm", d.Bars.Count, fmtNum(d.Bars.Dia).plain()),
-			fmt.Sprintf("%s mm @ %s mm", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain()),
+			fmt.Sprintf("%d x %s mm", d.Bars.Count, fmtNum(d.Bars.Dia).plain()) + onCircle(d),
+			linkKind(d, "circular ", "helix ") + fmt.Sprintf("%s mm%s %s mm", fmtNum(d.Links.Dia).plain(), pitch(d, " @", ", pitch"), fmtNum(d.Links.Spacing).plain()),
 			f(d.Utilization, ""), d.Status, cell(d.Governing)}
 	})
 }
@@ -76,7 +77,7 @@ var ScheduleHeader = []string{"column", "lift", "group", "level_bottom_mm", "lev
 	"extra_ties_b_faces", "extra_ties_h_faces", "ties_hold", "cover_mm", "cover_required_mm", "fire_rating", "fire",
 	"anchorage_mm", "mark_main", "main_bar_length_mm", "mark_links", "link_length_mm", "mark_ties", "ties_total", "tie_length_mm",
 	"mark_starters", "starter_length_mm", "mass_main_kg", "mass_links_kg", "mass_total_kg",
-	"utilization", "status", "governing"}
+	"utilization", "status", "governing", "shape", "D_mm", "link_type"}
 
 // Schedule returns the column schedule, one row per column and lift, for the drawing office.
 func Schedule(r *design.Result) ([]byte, error) {
@@ -182,15 +183,20 @@ func scheduleRow(d design.Design, group string, lv design.LiftLevel, esc func(st
 	if sch.Known {
 		masses = []string{massText(sch.MainMass), massText(sch.LinkMass), massText(sch.TotalMass)}
 	}
+	perB, perH, dia := strconv.Itoa(dt.BarsB), strconv.Itoa(dt.BarsH), ""
+	if circular(d) {
+		// Bars on a circle: no faces.
+		perB, perH, dia = "", "", n(d.B)
+	}
 	row := []string{esc(d.Column), esc(d.Storey), esc(group), levelB, levelT, n(d.B), n(d.H),
-		strconv.Itoa(d.Bars.Count), n(d.Bars.Dia), strconv.Itoa(dt.BarsB), strconv.Itoa(dt.BarsH), n(math.Round(d.AsProv)),
+		strconv.Itoa(d.Bars.Count), n(d.Bars.Dia), perB, perH, n(math.Round(d.AsProv)),
 		opt(dt.LapBuilt), mmText(dt.LapStart), yes(dt.LapZone), yes(dt.LapTransverse),
 		n(d.Links.Dia), n(d.Links.Spacing), n(d.Links.SpacingReduced), opt(dt.LapLinkSpacing)}
 	row = append(row, z...)
 	row = append(row, strconv.Itoa(dt.TiesB), strconv.Itoa(dt.TiesH), dt.TieBars, n(d.Cover), opt(dt.CoverRequired), rating, status,
 		opt(sch.Anchorage), mMain, lMain, mLinks, lLinks, mTies, tiesTotal, lTies, mStart, lStart)
 	row = append(row, masses...)
-	return append(row, fmtNum(d.Utilization).plain(), d.Status, esc(d.Governing))
+	return append(row, fmtNum(d.Utilization).plain(), d.Status, esc(d.Governing), shapeName(d), dia, linkType(d))
 }
 
 // fireStatus returns how the fire rating of a design is shown and the rating ("R90", or "none").
@@ -246,10 +252,66 @@ func scheduleCells(d design.Design, group string, lv design.LiftLevel) []inline 
 		cov = txt(n(d.Cover) + " (" + n(dt.CoverRequired) + ")")
 	}
 	status, rating := fireStatus(d)
-	return []inline{txt(d.Column), txt(d.Storey), txt(group), levels, txt(n(d.B) + " × " + n(d.H)),
-		txt(fmt.Sprintf("%d Ø%s", d.Bars.Count, n(d.Bars.Dia))), txt(fmt.Sprintf("%d / %d", dt.BarsB, dt.BarsH)), lap,
-		txt(fmt.Sprintf("Ø%s @ %s / %s", n(d.Links.Dia), n(d.Links.Spacing), n(d.Links.SpacingReduced))), overLaps, zones, count, ties, cov,
-		txt(rating + " " + status), numv(fmtNum(d.Utilization)), txt(d.Status)}
+	size, perFace := txt(n(d.B)+" × "+n(d.H)), txt(fmt.Sprintf("%d / %d", dt.BarsB, dt.BarsH))
+	if circular(d) {
+		size, perFace = txt("Ø"+n(d.B)), dash
+	}
+	return []inline{txt(d.Column), txt(d.Storey), txt(group), levels, size,
+		txt(fmt.Sprintf("%d Ø%s", d.Bars.Count, n(d.Bars.Dia)) + onCircle(d)), perFace, lap,
+		txt(linkKind(d, "circular links ", "helix ") + fmt.Sprintf("Ø%s%s %s / %s", n(d.Links.Dia), pitch(d, " @", ", pitch"), n(d.Links.Spacing), n(d.Links.SpacingReduced))),
+		overLaps, zones, count, ties, cov, txt(rating + " " + status), numv(fmtNum(d.Utilization)), txt(d.Status)}
+}
+
+// circular reports whether design d is of a circular section.
+func circular(d design.Design) bool { return d.Shape == model.ShapeCircle }
+
+// shapeName names the section's shape as results.json and the schedule give it: "rectangle" or "circle".
+func shapeName(d design.Design) string {
+	if circular(d) {
+		return "circle"
+	}
+	return "rectangle"
+}
+
+// linkType returns the kind of the design's transverse bars (design.LinksRect, LinksCircular or
+// LinksHelix); where the design names none, that of its shape: rectangular links round a
+// rectangle, circular links round a circle.
+func linkType(d design.Design) string {
+	switch {
+	case d.Links.Type != "":
+		return d.Links.Type
+	case circular(d):
+		return design.LinksCircular
+	}
+	return design.LinksRect
+}
+
+// onCircle is what follows the bars of a circular section: " on a circle"; "" for a rectangle.
+func onCircle(d design.Design) string {
+	if circular(d) {
+		return " on a circle"
+	}
+	return ""
+}
+
+// linkKind returns the word that names a circle's links before their diameter, circ or helix;
+// "" for a rectangle's links, named as always.
+func linkKind(d design.Design, circ, helix string) string {
+	switch {
+	case !circular(d):
+		return ""
+	case linkType(d) == design.LinksHelix:
+		return helix
+	}
+	return circ
+}
+
+// pitch returns what stands before the spacing of the links: at, or pitch for a helix.
+func pitch(d design.Design, at, pitch string) string {
+	if linkType(d) == design.LinksHelix {
+		return pitch
+	}
+	return at
 }
 
 // markCells returns the rows of the bar marks of a design: mark, what, count, diameter, cut length, mass,

@@ -4,10 +4,12 @@ import (
 	"bytes"
 	"encoding/csv"
 	"strconv"
+	"strings"
 	"testing"
 
 	"colsheet/calc/design"
 	"colsheet/calc/detail"
+	"colsheet/calc/model"
 )
 
 // The schedule CSV carries numbers in separate columns (count, diameter, bars per face, lengths,
@@ -66,4 +68,115 @@ func TestScheduleCSVParsedBack(t *testing.T) {
 	if last[0] != "building" || last[2] != "2" || last[6] != "161.9" {
 		t.Errorf("building total %q, want 2 lifts and 161.9 kg (97.14 + 64.73 = 161.87)", last)
 	}
+}
+
+// circleSample is the sample result with its first design made a circle of diameter 450 with
+// 8 Ø20 on a circle and the given links (test inputs, not a design).
+func circleSample(t *testing.T, links string) *design.Result {
+	r := sample(t, "Round columns")
+	d := &r.Designs[0]
+	d.Shape, d.B, d.H = model.ShapeCircle, 450, 450
+	d.Bars.Positions = detail.Geometry{B: 450, H: 450, Cover: 40, Link: 8, Circle: true}.Positions(detail.Pattern{Dia: 20, Ring: 8})
+	d.Links.Type = links
+	return r
+}
+
+// A circle's row of the schedule names its diameter where a rectangle gives b × h, its bars on
+// a circle (no faces) and the kind of its links, the same in every format; the CSV gives the
+// shape, D and the link type in columns of their own, at the end, and leaves the bars per face
+// empty (common practice, no source).
+func TestScheduleCircle(t *testing.T) {
+	for _, tc := range []struct {
+		links, kind string // the design's link type and its name in the schedule
+		linksCell       string
+		summary         string // the summary CSV's links cell
+	}{
+		{design.LinksCircular, "circular", "circular links Ø8 @ 300 / 180", "circular 8 mm @ 300 mm"},
+		{design.LinksHelix, "helix", "helix Ø8, pitch 300 / 180", "helix 8 mm, pitch 300 mm"},
+		{"", "circular", "circular links Ø8 @ 300 / 180", "circular 8 mm @ 300 mm"}, // not named: circular links round a circle
+	} {
+		r := circleSample(t, tc.links)
+		cells := scheduleCells(r.Designs[0], "Group 1", design.LiftLevel{})
+		rect := scheduleCells(r.Designs[1], "Group 2", design.LiftLevel{})
+		for i, want := range map[int]string{4: "Ø450", 5: "8 Ø20 on a circle", 6: "–", 8: tc.linksCell} {
+			if got := plainText(cells[i]); got != want {
+				t.Errorf("%s: cell %d = %q, want %q", tc.kind, i, got, want)
+			}
+		}
+		for i, want := range map[int]string{4: "300 × 300", 5: "4 Ø20", 6: "0 / 0", 8: "Ø6 @ 240 / 144"} {
+			if got := plainText(rect[i]); got != want {
+				t.Errorf("rectangle: cell %d = %q, want %q", i, got, want)
+			}
+		}
+		// The printed schedules of the index sheet.
+		printed := map[string]string{}
+		for format, f := range map[string]func(*design.Result, Options) ([]Sheet, error){"md": Markdown, "tex": LaTeX, "html": HTML} {
+			sheets, err := f(r, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			printed[format] = string(sheets[0].Data)
+		}
+		for format, want := range map[string][]string{
+			"md":   {"| Ø450 | 8 Ø20 on a circle | – |", tc.linksCell},
+			"html": {"<td>Ø450</td>", "<td>8 Ø20 on a circle</td>", tc.linksCell},
+			"tex":  {`\ensuremath{\text{\O}}450 & 8 \ensuremath{\text{\O}}20 on a circle`, strings.ReplaceAll(tc.linksCell, "Ø", `\ensuremath{\text{\O}}`)},
+		} {
+			for _, w := range want {
+				if !strings.Contains(printed[format], w) {
+					t.Errorf("%s: the schedule of the %s index lacks %q", tc.kind, format, w)
+				}
+			}
+		}
+		// schedule.csv
+		out, err := Schedule(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rows, err := csv.NewReader(bytes.NewReader(out)).ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		n := len(ScheduleHeader)
+		if got := strings.Join(rows[0][n-3:], ","); got != "shape,D_mm,link_type" {
+			t.Errorf("the last columns are %q", got)
+		}
+		col := func(row int, h string) string {
+			for i, x := range rows[0] {
+				if x == h {
+					return rows[row][i]
+				}
+			}
+			t.Fatalf("no column %s", h)
+			return ""
+		}
+		for h, want := range map[string][2]string{"shape": {"circle", "rectangle"}, "D_mm": {"450", ""}, "link_type": {tc.kind, "rectangular"},
+			"b_mm": {"450", "300"}, "h_mm": {"450", "300"}, "bars_b_face": {"", "0"}, "bars_h_face": {"", "0"}, "bar_count": {"8", "4"}} {
+			if col(1, h) != want[0] || col(2, h) != want[1] {
+				t.Errorf("%s: %s = %q, %q; want %q, %q", tc.kind, h, col(1, h), col(2, h), want[0], want[1])
+			}
+		}
+		// summary.csv: the same columns as ever; the bars and links cells say circle and link kind.
+		sum, err := CSV(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		srows, err := csv.NewReader(bytes.NewReader(sum)).ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(srows[0]) != len(CSVHeader) || srows[1][9] != "8 x 20 mm on a circle" || srows[1][10] != tc.summary ||
+			srows[2][9] != "4 x 20 mm" || srows[2][10] != "6 mm @ 240 mm" {
+			t.Errorf("%s: summary rows %q, %q", tc.kind, srows[1], srows[2])
+		}
+	}
+}
+
+// plainText is the text of a run of plain text spans.
+func plainText(in inline) string {
+	var b strings.Builder
+	for _, s := range in {
+		b.WriteString(s.text)
+	}
+	return b.String()
 }
