@@ -88,8 +88,8 @@ func circleSample(t *testing.T, links string) *design.Result {
 func TestScheduleCircle(t *testing.T) {
 	for _, tc := range []struct {
 		links, kind string // the design's link type and its name in the schedule
-		linksCell       string
-		summary         string // the summary CSV's links cell
+		linksCell   string
+		summary     string // the summary CSV's links cell
 	}{
 		{design.LinksCircular, "circular", "circular links Ø8 @ 300 / 180", "circular 8 mm @ 300 mm"},
 		{design.LinksHelix, "helix", "helix Ø8, pitch 300 / 180", "helix 8 mm, pitch 300 mm"},
