@@ -34,6 +34,15 @@ func NotionalSizeRect(id string, b, h trace.Q) trace.Step {
 		Note("The perimeter exposed to drying is taken as the whole perimeter, u = 2(b + h).")
 }
 
+// NotionalSizeCircle returns h0 = 2·Ac/u = D/2 of a circular member drying all round,
+// EN 1992-1-1:2004 Annex B, Eq. (B.6).
+func NotionalSizeCircle(id string, d trace.Q) trace.Step {
+	return trace.Formula(id, "Notional size of the circular member", annexB+"Eq. (B.6)", "h_0", "mm",
+		d.V/2, "2 * (3.141592653589793 * D ** 2 / 4) / (3.141592653589793 * D)", trace.A("D", d)).
+		Shown("2 * (pi * D ** 2 / 4) / (pi * D)").
+		Note("The perimeter exposed to drying is taken as the whole perimeter, u = π·D.")
+}
+
 // Alpha1 returns α1 = (35/fcm)^0.7, EN 1992-1-1:2004 Annex B, Eq. (B.8c).
 func Alpha1(id string, fcm trace.Q) trace.Step {
 	return trace.Formula(id, "Coefficient for the concrete strength", annexB+"Eq. (B.8c)", "α_1", "",

@@ -99,12 +99,32 @@ func (c *common) asBuilt(l *trace.Log, d *Design, in built) {
 	sch.Marks = append(sch.Marks, Mark{Mark: mark + "01", What: "main bars", Count: in.p.Count(), Dia: in.p.Dia, Length: lBar.V, Mass: mBars.V})
 	main := mBars.V
 
-	hook := l.Add(detail.HookExtension("built/links/l_hook", in.phiT))
-	lLink := l.Add(detail.LinkLength("built/links/L", c.b, c.h, in.cnom, in.phiT, hook))
-	mt := l.Add(detail.BarMassPerMetre("built/links/m1", "m'_φt", in.phiT))
-	mLinks := l.Add(detail.Mass("built/links/m", "Mass of the links", "m_links", nLinks, lLink, mt))
-	sch.Marks = append(sch.Marks, Mark{Mark: mark + "02", What: "links", Count: zs.Links, Dia: in.phiT.V, Length: lLink.V, Mass: mLinks.V})
-	links := mLinks.V
+	var hook, mt trace.Q
+	var links float64
+	switch d.Links.Type {
+	case LinksHelix:
+		mt = l.Add(detail.BarMassPerMetre("built/links/m1", "m'_φt", in.phiT))
+		lh := l.Add(detail.HelixLength("built/links/L", nLinks, c.b, in.cnom, in.phiT))
+		mh := l.Add(detail.Mass("built/links/m", "Mass of the helix", "m_helix", trace.Const(1, "n", ""), lh, mt))
+		sch.Marks = append(sch.Marks, Mark{Mark: mark + "02", What: "helix", Count: 1, Dia: in.phiT.V, Length: lh.V, Mass: mh.V})
+		links = mh.V
+	case LinksCircular:
+		hook = l.Add(detail.HookExtension("built/links/l_hook", in.phiT))
+		ov := l.Add(trace.Formula("built/links/l_ov", "Overlap of the ends of a circular link: a hook at each end", "EN 1992-1-1:2004 8.5(1), Fig. 8.5", "l_ov", "mm",
+			2*hook.V, "2 * l_hook", trace.A("l_hook", hook)))
+		lLink := l.Add(detail.CircularLinkLength("built/links/L", c.b, in.cnom, in.phiT, ov))
+		mt = l.Add(detail.BarMassPerMetre("built/links/m1", "m'_φt", in.phiT))
+		mLinks := l.Add(detail.Mass("built/links/m", "Mass of the circular links", "m_links", nLinks, lLink, mt))
+		sch.Marks = append(sch.Marks, Mark{Mark: mark + "02", What: "circular links", Count: zs.Links, Dia: in.phiT.V, Length: lLink.V, Mass: mLinks.V})
+		links = mLinks.V
+	default:
+		hook = l.Add(detail.HookExtension("built/links/l_hook", in.phiT))
+		lLink := l.Add(detail.LinkLength("built/links/L", c.b, c.h, in.cnom, in.phiT, hook))
+		mt = l.Add(detail.BarMassPerMetre("built/links/m1", "m'_φt", in.phiT))
+		mLinks := l.Add(detail.Mass("built/links/m", "Mass of the links", "m_links", nLinks, lLink, mt))
+		sch.Marks = append(sch.Marks, Mark{Mark: mark + "02", What: "links", Count: zs.Links, Dia: in.phiT.V, Length: lLink.V, Mass: mLinks.V})
+		links = mLinks.V
+	}
 
 	if ties := r.AlongB.Extra + r.AlongH.Extra; ties > 0 {
 		// Each extra tie runs across the section at every link: those on the b-faces across h,

@@ -36,10 +36,10 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		defer func() { c.trialSteps = l.Steps[:0] }()
 	}
 	link := c.linkFor(p.Dia)
-	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: link}
+	g := c.geometryWith(link)
 	pos := g.Positions(p)
 
-	d := Design{Column: col.ID, Storey: st.Name, B: col.B, H: col.H, Cover: col.Cover,
+	d := Design{Column: col.ID, Storey: st.Name, B: col.B, H: col.H, Cover: col.Cover, Shape: col.Shape,
 		Class: c.in.Materials.Concrete.Class, Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: st.NEd, pattern: p}
 	d.Cautions = append(d.Cautions, c.cautions...)
 	d.Bars = Bars{Count: p.Count(), Dia: p.Dia, Positions: pos, Given: given}
@@ -56,8 +56,14 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	}
 	phi := l.Add(trace.Input("bars/phi", "Bar diameter", src, "φ", "mm", p.Dia))
 	nb := l.Add(trace.Input("bars/count", "Number of bars", src, "n_bars", "", float64(p.Count())))
-	nB := l.Add(trace.Input("bars/nb", "Bars along each b-face, corners included", src, "n_b", "", float64(p.NB)))
-	nH := l.Add(trace.Input("bars/nh", "Bars along each h-face, corners included", src, "n_h", "", float64(p.NH)))
+	var nB, nH trace.Q
+	if !c.circle {
+		nB = l.Add(trace.Input("bars/nb", "Bars along each b-face, corners included", src, "n_b", "", float64(p.NB)))
+		nH = l.Add(trace.Input("bars/nh", "Bars along each h-face, corners included", src, "n_h", "", float64(p.NH)))
+	} else {
+		check(trace.Check("bars/check_n_circle", "Bars in a circular column", "EN 1992-1-1:2004 9.5.2(4)", "n_min ≤ n_bars",
+			float64(detail.RingMin)/float64(p.Count()), "n_min / n", trace.A("n_min", trace.Const(detail.RingMin, "n_min", "")), trace.A("n", nb)))
+	}
 	as := l.Add(trace.Formula("bars/As", "Area of longitudinal reinforcement provided", "common practice", "A_s,prov", "mm2",
 		p.Area(), "n * 3.141592653589793 * phi ** 2 / 4", trace.A("n", nb), trace.A("phi", phi)).Shown("n * pi * phi ** 2 / 4"))
 	d.AsProv, d.AsMin, d.AsMax = as.V, c.asMin.V, c.asMax.V
@@ -86,17 +92,30 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	if col.LinkDia > 0 {
 		linkSrc = "input"
 	}
-	phiT := l.Add(trace.Input("links/phi_t", "Link diameter", linkSrc, "φ_t", "mm", link))
+	d.Links.Type = linkType(col)
+	linkTitle := map[string]string{LinksRect: "Link diameter", LinksCircular: "Diameter of the circular links", LinksHelix: "Diameter of the helix"}[d.Links.Type]
+	phiT := l.Add(trace.Input("links/phi_t", linkTitle, linkSrc, "φ_t", "mm", link))
 	phiTMin := l.Add(detail.MinLinkDia("links/phi_t_min", phi, param(prm, "link_dia_min", "mm"), param(prm, "link_dia_ratio", "")))
 	check(trace.Check("links/check_dia", "Link diameter", "EN 1992-1-1:2004 9.5.3(1)", "φ_t,min ≤ φ_t",
 		phiTMin.V/link, "phi_t_min / phi_t", trace.A("phi_t_min", phiTMin), trace.A("phi_t", phiT)))
-	bMin := l.Add(trace.Formula("links/b_min", "Lesser dimension of the column", "EN 1992-1-1:2004 9.5.3(3)", "b_min", "mm",
-		math.Min(col.B, col.H), "min(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
+	var bMin, zone trace.Q
+	if c.circle {
+		bMin = l.Add(trace.Formula("links/b_min", "Lesser dimension of the column: its diameter", "EN 1992-1-1:2004 9.5.3(3)", "b_min", "mm",
+			col.B, "D", trace.A("D", c.b)))
+	} else {
+		bMin = l.Add(trace.Formula("links/b_min", "Lesser dimension of the column", "EN 1992-1-1:2004 9.5.3(3)", "b_min", "mm",
+			math.Min(col.B, col.H), "min(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
+	}
 	sMax := l.Add(detail.MaxLinkSpacing("links/s_max", phi, bMin, param(prm, "link_spacing_bars", ""), param(prm, "link_spacing_max", "mm")))
 	sRed := l.Add(detail.ReducedLinkSpacing("links/s_red", sMax, param(prm, "link_spacing_zone", "")))
 	step := trace.Const(c.in.Options.LinkStep, "Δs", "mm")
-	zone := l.Add(trace.Formula("links/zone", "Length of the zones with the reduced spacing above and below beams and slabs", "EN 1992-1-1:2004 9.5.3(4)", "l_zone", "mm",
-		math.Max(col.B, col.H), "max(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
+	if c.circle {
+		zone = l.Add(trace.Formula("links/zone", "Length of the zones with the reduced spacing above and below beams and slabs: the diameter", "EN 1992-1-1:2004 9.5.3(4)", "l_zone", "mm",
+			col.B, "D", trace.A("D", c.b)))
+	} else {
+		zone = l.Add(trace.Formula("links/zone", "Length of the zones with the reduced spacing above and below beams and slabs", "EN 1992-1-1:2004 9.5.3(4)", "l_zone", "mm",
+			math.Max(col.B, col.H), "max(b, h)", trace.A("b", c.b), trace.A("h", c.h)))
+	}
 	d.Detailing.ZoneLength = zone.V
 
 	// Clear spacing of bars, EN 1992-1-1:2004 8.2(2).
@@ -104,27 +123,41 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	dg := c.bs.dg
 	sMin := l.Add(detail.MinClearSpacing("space/s_min", phi, dg, param(prm, "spacing_k1", ""), param(prm, "spacing_k2", "mm"), param(prm, "spacing_min", "mm")))
 	cnom := l.Add(trace.Input("space/c_nom", "Nominal cover to the links", "input", "c_nom", "mm", col.Cover))
+	var gb, gh, yc, zc, rs trace.Q
 	gapB, gapH := g.ClearGaps(p)
-	gapExpr := "(w - 2 * c_nom - 2 * phi_t - phi) / (n - 1) - phi"
-	gb := l.Add(trace.Formula("space/gap_b", "Clear distance between bars along a b-face", "common practice", "s_b", "mm", gapB, gapExpr,
-		trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nB)))
-	gh := l.Add(trace.Formula("space/gap_h", "Clear distance between bars along an h-face", "common practice", "s_h", "mm", gapH, gapExpr,
-		trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nH)))
-	// The outer bars' centres from the centroid, which place the rows of bars (detail.Geometry).
-	edgeExpr := "w / 2 - c_nom - phi_t - phi / 2"
-	e := g.Edge(p.Dia)
-	yc := l.Add(trace.Formula("bars/y_c", "Distance of the outer bars' centres from the centroid along y", "common practice", "y_c", "mm",
-		col.B/2-e, edgeExpr, trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
-	zc := l.Add(trace.Formula("bars/z_c", "Distance of the outer bars' centres from the centroid along z", "common practice", "z_c", "mm",
-		col.H/2-e, edgeExpr, trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
 	gapMin := math.Min(gapB, gapH)
-	// Compared as centre distances, (s_min + φ)/(s + φ), so that the ratio stays finite and
-	// meaningful when given bars overlap; it passes exactly when s ≥ s_min.
-	spacing := trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
-		(sMin.V+p.Dia)/math.Max(gapMin+p.Dia, 1e-3), "(s_min + phi) / max(min(s_b, s_h) + phi, 0.001)",
-		trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_b", gb), trace.A("s_h", gh))
-	if gapMin+p.Dia >= 1e-3 {
-		spacing = spacing.Shown("(s_min + phi) / (min(s_b, s_h) + phi)")
+	var spacing trace.Step
+	if c.circle {
+		rs = l.Add(detail.RingRadiusStep("bars/r_s", c.b, cnom, phiT, phi))
+		gb = l.Add(detail.RingGapStep("space/gap_c", rs, nb, phi))
+		gh = gb
+		spacing = trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ s_c",
+			(sMin.V+p.Dia)/math.Max(gapMin+p.Dia, 1e-3), "(s_min + phi) / max(s_c + phi, 0.001)",
+			trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_c", gb))
+		if gapMin+p.Dia >= 1e-3 {
+			spacing = spacing.Shown("(s_min + phi) / (s_c + phi)")
+		}
+	} else {
+		gapExpr := "(w - 2 * c_nom - 2 * phi_t - phi) / (n - 1) - phi"
+		gb = l.Add(trace.Formula("space/gap_b", "Clear distance between bars along a b-face", "common practice", "s_b", "mm", gapB, gapExpr,
+			trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nB)))
+		gh = l.Add(trace.Formula("space/gap_h", "Clear distance between bars along an h-face", "common practice", "s_h", "mm", gapH, gapExpr,
+			trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi), trace.A("n", nH)))
+		// The outer bars' centres from the centroid, which place the rows of bars (detail.Geometry).
+		edgeExpr := "w / 2 - c_nom - phi_t - phi / 2"
+		e := g.Edge(p.Dia)
+		yc = l.Add(trace.Formula("bars/y_c", "Distance of the outer bars' centres from the centroid along y", "common practice", "y_c", "mm",
+			col.B/2-e, edgeExpr, trace.A("w", c.b), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
+		zc = l.Add(trace.Formula("bars/z_c", "Distance of the outer bars' centres from the centroid along z", "common practice", "z_c", "mm",
+			col.H/2-e, edgeExpr, trace.A("w", c.h), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
+		// Compared as centre distances, (s_min + φ)/(s + φ), so that the ratio stays finite and
+		// meaningful when given bars overlap; it passes exactly when s ≥ s_min.
+		spacing = trace.Check("space/check", "Clear distance between bars", "EN 1992-1-1:2004 8.2(2)", "s_min ≤ min(s_b, s_h)",
+			(sMin.V+p.Dia)/math.Max(gapMin+p.Dia, 1e-3), "(s_min + phi) / max(min(s_b, s_h) + phi, 0.001)",
+			trace.A("s_min", sMin), trace.A("phi", phi), trace.A("s_b", gb), trace.A("s_h", gh))
+		if gapMin+p.Dia >= 1e-3 {
+			spacing = spacing.Shown("(s_min + phi) / (min(s_b, s_h) + phi)")
+		}
 	}
 	check(spacing)
 
@@ -148,8 +181,15 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 			d.Links.SpacingShear = plan.sReq.V
 		}
 	}
-	s1 := l.Add(detail.RoundDown("links/s", "Link spacing provided", "s_t", sGen, step))
-	s2 := l.Add(detail.RoundDown("links/s_zone", "Link spacing provided near beams, slabs and laps", "s_t,red", sZone, step))
+	sTitle, sZoneTitle := "Link spacing provided", "Link spacing provided near beams, slabs and laps"
+	if d.Links.Type == LinksHelix {
+		sTitle, sZoneTitle = "Pitch of the helix provided", "Pitch of the helix provided near beams, slabs and laps"
+	}
+	s1 := l.Add(detail.RoundDown("links/s", sTitle, "s_t", sGen, step))
+	s2 := l.Add(detail.RoundDown("links/s_zone", sZoneTitle, "s_t,red", sZone, step))
+	if d.Links.Type == LinksHelix {
+		l.Last().Notes = append(l.Last().Notes, "A helix is taken as links at its pitch: the spacings of 9.5.3(3) and (4) and of the shear apply to the pitch.")
+	}
 	d.Links.Dia, d.Links.Spacing, d.Links.SpacingReduced = link, s1.V, s2.V
 	checks = append(checks, c.shearChecks(l, plan, s1, &d)...)
 
@@ -180,7 +220,11 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	d.Detailing.LapLinks, d.Detailing.LapLinkSpacing = lk.Count, lk.Spacing
 	if full {
 		l.Group = "Restraint of bars (EN 1992-1-1 9.5.3(6))"
-		d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p, detail.Traced{B: c.b, H: c.h, Cover: cnom, Link: phiT, Dia: phi, NB: nB, NH: nH})
+		if c.circle {
+			l.Add(detail.RingRestraint("ties/held", nb))
+		} else {
+			d.Detailing.ExtraTies = detail.RestraintSteps(l, "ties/", g, p, detail.Traced{B: c.b, H: c.h, Cover: cnom, Link: phiT, Dia: phi, NB: nB, NH: nH})
+		}
 		c.asBuilt(l, &d, built{p: p, g: g, phi: phi, phiT: phiT, cnom: cnom, nBars: nb, s: s1, sRed: s2, zone: zone, l0: l0b,
 			laps: lk, restraintOfFaces: g.Restraint(p, detail.RestraintLimit)})
 	}
@@ -223,11 +267,16 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 			method := c.in.Options.SecondOrder
 			m0e := l.Add(onAxis(n, slender.EquivalentMoment(n+"/M0e", a.m01i, a.m02i)))
 			// Bending about y: the rows of bars lie along z (n_h rows, n_b bars in each outer one).
-			edge, outer, rows := zc, nB, nH
-			if k == 1 {
-				edge, outer, rows = yc, nH, nB
+			var is trace.Q
+			if c.circle {
+				is = l.Add(onAxis(n, slender.RingGyration(n+"/i_s", rs)))
+			} else {
+				edge, outer, rows := zc, nB, nH
+				if k == 1 {
+					edge, outer, rows = yc, nH, nB
+				}
+				is = l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", edge, outer, rows)))
 			}
-			is := l.Add(onAxis(n, slender.ReinforcementGyration(n+"/i_s", edge, outer, rows)))
 			var mCurv, mStiff trace.Q
 			var m2Curv, m2Stiff float64
 			if method != model.SecondOrderStiffness {
@@ -256,7 +305,12 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 				if k == 1 {
 					width = c.h
 				}
-				ic := l.Add(onAxis(n, slender.ConcreteInertia(n+"/Ic", width, a.depth)))
+				var ic trace.Q
+				if c.circle {
+					ic = l.Add(onAxis(n, slender.CircleInertia(n+"/Ic", c.b)))
+				} else {
+					ic = l.Add(onAxis(n, slender.ConcreteInertia(n+"/Ic", width, a.depth)))
+				}
 				isq := l.Add(onAxis(n, slender.SteelInertia(n+"/Is", as, is)))
 				ei := l.Add(onAxis(n, slender.NominalStiffness(n+"/EI", kc, ecd, ic, ks, c.es, isq)))
 				nb := l.Add(onAxis(n, slender.BucklingLoad(n+"/NB", ei, a.l0)))
@@ -308,10 +362,18 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 			c.nEd.V/nRdMax.V, "N_Ed / N_Rd_max", trace.A("N_Ed", c.nEd), trace.A("N_Rd_max", nRdMax)))
 	}
 	var mRd [2]trace.Q
+	var circleQ trace.Q
+	circleOK := false
+	if c.circle {
+		circleQ, circleOK = sec.circleSteps(l, c.nEd, full)
+	}
 	for k := 0; k < 2; k++ {
 		n := c.ax[k].name
 		l.Group = "Moment resistance about " + n + " at N_Ed"
-		q, ok := sec.mRdSteps(l, n, k, c.nEd, full)
+		q, ok := circleQ, circleOK
+		if !c.circle {
+			q, ok = sec.mRdSteps(l, n, k, c.nEd, full)
+		}
 		if !ok {
 			mRd[k] = l.Add(trace.Input(n+"/MRd", "Moment resistance about "+n+": none, NEd exceeds the axial resistance", "EN 1992-1-1:2004 6.1", "M_Rd,"+n, "Nmm", 0).
 				Caution("NEd exceeds NRd,max: the section cannot carry the axial force, so it has no moment resistance; the axial check fails."))
@@ -331,7 +393,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		l.Add(fire.RatingInput("fire/R_req", f.Rating).
 			Caution("NEd is a tension: EN 1992-1-2 5.3.2 (Method A) concerns columns in compression and is not applied to this case; verify the fire resistance of the member in tension by other means (EN 1992-1-2 Section 4 or 5.6 as for members in tension)."))
 	} else if f != nil && f.Rating > 0 {
-		fc := fire.Column{B: c.b, H: c.h, Ac: c.ac, Fck: c.fck, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, NEd: c.nEd,
+		fc := fire.Column{B: c.b, H: c.h, Circle: c.circle, Ac: c.ac, Fck: c.fck, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, NEd: c.nEd,
 			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", ""),
 			MuFixed: !f.UseMuFi}
 		if f.Method == model.FireElsewhere {
@@ -363,92 +425,97 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 			Note("The input asks no standard fire resistance of this lift, so none is checked. The building regulations and the project's fire strategy govern; give a rating in the design options, the fire levels of the building or the column where one is required."))
 	}
 
-	// Biaxial bending, EN 1992-1-1:2004 5.8.9.
-	l.Group = "Biaxial bending"
-	ca := l.Add(slender.SlendernessRatiosClose("bi/c_a", c.ax[0].lambda, c.ax[1].lambda))
-	cb := l.Add(slender.EccentricitiesApart("bi/c_b", mEds[0], mEds[1], c.b, c.h))
-	nRd := l.Add(slender.NRdBiaxial("bi/NRd", c.ac, c.fcd, as, c.fyd))
-	aExp := l.Add(slender.ExponentA("bi/a", c.nEd, nRd))
-	d.Biaxial.A = aExp.V
-	d.Biaxial.Checked = !(ca.V == 1 && cb.V == 1)
-	// In tension (5.39) does not apply (5.8.9 concerns compression members): the exact
-	// resistance with an inclined neutral axis is the check.
-	exact := c.in.Options.Biaxial == model.BiaxialExact || c.tension
-	if mRd[0].V > 0 && mRd[1].V > 0 {
-		s := slender.BiaxialRatio("bi/ratio", mEds[0], mRd[0], mEds[1], mRd[1], aExp)
-		d.Biaxial.Ratio = s.Value
-		switch {
-		case d.Biaxial.Checked && exact:
-			s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
-			s.Title = "Biaxial ratio of (5.39), for comparison (the exact resistance below is the check)"
-			l.Add(s)
-		case d.Biaxial.Checked:
-			resistance(s)
-		default:
-			s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
-			s.Title = "Biaxial ratio (for information)"
-			l.Add(s.Note("(5.38a) and (5.38b) both hold: the separate checks about y and z suffice, 5.8.9(3)."))
-		}
+	if c.circle {
+		c.circleBiaxial(l, &d, mEds, mRd, resistance)
 	} else {
-		d.Biaxial.Ratio = 0
-		l.Add(trace.Input("bi/ratio", "Biaxial ratio: not computed, the section has no moment resistance", "EN 1992-1-1:2004 5.8.9(4)", "ratio", "", 0))
-	}
+		// Biaxial bending, EN 1992-1-1:2004 5.8.9.
+		l.Group = "Biaxial bending"
+		ca := l.Add(slender.SlendernessRatiosClose("bi/c_a", c.ax[0].lambda, c.ax[1].lambda))
+		cb := l.Add(slender.EccentricitiesApart("bi/c_b", mEds[0], mEds[1], c.b, c.h))
+		nRd := l.Add(slender.NRdBiaxial("bi/NRd", c.ac, c.fcd, as, c.fyd))
+		aExp := l.Add(slender.ExponentA("bi/a", c.nEd, nRd))
+		d.Biaxial.A = aExp.V
+		d.Biaxial.Checked = !(ca.V == 1 && cb.V == 1)
+		// In tension (5.39) does not apply (5.8.9 concerns compression members): the exact
+		// resistance with an inclined neutral axis is the check.
+		exact := c.in.Options.Biaxial == model.BiaxialExact || c.tension
+		if mRd[0].V > 0 && mRd[1].V > 0 {
+			s := slender.BiaxialRatio("bi/ratio", mEds[0], mRd[0], mEds[1], mRd[1], aExp)
+			d.Biaxial.Ratio = s.Value
+			switch {
+			case d.Biaxial.Checked && exact:
+				s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
+				s.Title = "Biaxial ratio of (5.39), for comparison (the exact resistance below is the check)"
+				l.Add(s)
+			case d.Biaxial.Checked:
+				resistance(s)
+			default:
+				s.Kind, s.Verdict, s.Relation = trace.KindFormula, "", ""
+				s.Title = "Biaxial ratio (for information)"
+				l.Add(s.Note("(5.38a) and (5.38b) both hold: the separate checks about y and z suffice, 5.8.9(3)."))
+			}
+		} else {
+			d.Biaxial.Ratio = 0
+			l.Add(trace.Input("bi/ratio", "Biaxial ratio: not computed, the section has no moment resistance", "EN 1992-1-1:2004 5.8.9(4)", "ratio", "", 0))
+		}
 
-	// The exact resistance along the resultant design moment, with an inclined neutral axis:
-	// beside (5.39) on every sheet, and the check itself when the input asks for it. With
-	// (5.39) in use it is shown for comparison only; where it gives the larger ratio the
-	// design says so in its cautions, and loudly where it exceeds 1.
-	if (full || exact) && mRd[0].V > 0 && mRd[1].V > 0 {
-		theta := math.Atan2(mEds[1].V, mEds[0].V)
-		// The check in use beside the exact resistance when design.biaxial is "5.39": (5.39)
-		// where (5.38) calls for it, else the separate checks about y and z (5.8.9(3)).
-		use := inUse{name: "(5.39)", ratio: d.Biaxial.Ratio, checked: d.Biaxial.Checked}
-		if !d.Biaxial.Checked {
-			use.name = "the separate checks about y and z"
-			use.ratio = math.Max(mEds[0].V/mRd[0].V, mEds[1].V/mRd[1].V)
-		}
-		if st, err := sec.sec.Biaxial(c.nEd.V, theta); err == nil {
-			l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
-			if full {
-				refs := section.Refs{Fcd: c.fcd.From, Eta: c.eta.From}
-				mr, ratio := sec.sec.BiaxialStep(l, "bi/exact/", c.nEd, mEds[0], mEds[1], st, refs)
-				last := l.Last()
-				d.Exact = &Exact{MRd: mr.V, Ratio: ratio.V, Angle: st.Angle, My: st.My, Mz: st.Mz}
-				switch {
-				case exact:
-					checks = append(checks, checked{last.ID, true})
-					*last = last.Note("The exact section resistance is the check in use (design.biaxial: exact). " + which(d.Biaxial.Ratio, ratio.V))
-				default:
-					last.Kind, last.Verdict, last.Relation = trace.KindFormula, "", ""
-					last.Title = "Biaxial bending, exact section resistance (for comparison; " + use.name + " in use)"
-					note, stepCaution, caution := use.beside(ratio.V)
-					*last = last.Note(note)
-					if stepCaution != "" {
-						*last = last.Caution(stepCaution)
+		// The exact resistance along the resultant design moment, with an inclined neutral axis:
+		// beside (5.39) on every sheet, and the check itself when the input asks for it. With
+		// (5.39) in use it is shown for comparison only; where it gives the larger ratio the
+		// design says so in its cautions, and loudly where it exceeds 1.
+		if (full || exact) && mRd[0].V > 0 && mRd[1].V > 0 {
+			theta := math.Atan2(mEds[1].V, mEds[0].V)
+			// The check in use beside the exact resistance when design.biaxial is "5.39": (5.39)
+			// where (5.38) calls for it, else the separate checks about y and z (5.8.9(3)).
+			use := inUse{name: "(5.39)", ratio: d.Biaxial.Ratio, checked: d.Biaxial.Checked}
+			if !d.Biaxial.Checked {
+				use.name = "the separate checks about y and z"
+				use.ratio = math.Max(mEds[0].V/mRd[0].V, mEds[1].V/mRd[1].V)
+			}
+			if st, err := sec.sec.Biaxial(c.nEd.V, theta); err == nil {
+				l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
+				if full {
+					refs := section.Refs{Fcd: c.fcd.From, Eta: c.eta.From}
+					mr, ratio := sec.sec.BiaxialStep(l, "bi/exact/", c.nEd, mEds[0], mEds[1], st, refs)
+					last := l.Last()
+					d.Exact = &Exact{MRd: mr.V, Ratio: ratio.V, Angle: st.Angle, My: st.My, Mz: st.Mz}
+					switch {
+					case exact:
+						checks = append(checks, checked{last.ID, true})
+						*last = last.Note("The exact section resistance is the check in use (design.biaxial: exact). " + which(d.Biaxial.Ratio, ratio.V))
+					default:
+						last.Kind, last.Verdict, last.Relation = trace.KindFormula, "", ""
+						last.Title = "Biaxial bending, exact section resistance (for comparison; " + use.name + " in use)"
+						note, stepCaution, caution := use.beside(ratio.V)
+						*last = last.Note(note)
+						if stepCaution != "" {
+							*last = last.Caution(stepCaution)
+						}
+						if caution != "" {
+							d.Cautions = append(d.Cautions, caution)
+						}
 					}
-					if caution != "" {
-						d.Cautions = append(d.Cautions, caution)
-					}
+				} else {
+					// A trial: the ratio alone, by the same solution, as a check step.
+					med := math.Hypot(mEds[0].V, mEds[1].V)
+					resistance(shownRatio(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
+						med/math.Max(st.MRd, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", trace.Const(med, "M_Ed", "Nmm")), trace.A("M_Rd", trace.Const(st.MRd, "M_Rd", "Nmm"))), st.MRd))
 				}
-			} else {
-				// A trial: the ratio alone, by the same solution, as a check step.
-				med := math.Hypot(mEds[0].V, mEds[1].V)
-				resistance(shownRatio(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
-					med/math.Max(st.MRd, 1), "M_Ed / max(M_Rd, 1)", trace.A("M_Ed", trace.Const(med, "M_Ed", "Nmm")), trace.A("M_Rd", trace.Const(st.MRd, "M_Rd", "Nmm"))), st.MRd))
-			}
-		} else if exact {
-			resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance: no solution", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
-				2, "r", trace.A("r", trace.Const(2, "r", ""))).Unmet().Caution("The inclined neutral axis could not be found: " + err.Error()))
-		} else if full {
-			// Shown for comparison, and not found: the sheet says so, loudly where no inclined
-			// neutral axis carries NEd with the reduced block.
-			l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
-			l.Add(trace.Input("bi/exact/none", "Biaxial bending, exact section resistance: not found (for comparison; "+use.name+" in use)", "EN 1992-1-1:2004 6.1", "found", "", 0).
-				Caution("The inclined neutral axis could not be found: " + err.Error()))
-			if errors.Is(err, section.ErrReducedBlock) {
-				d.Cautions = append(d.Cautions, fmt.Sprintf("Biaxial bending: the section does NOT resist the design moments along their resultant by strain compatibility: with the rectangular block reduced for an inclined neutral axis (EN 1992-1-1:2004 3.1.7(3), note) no strain plane carries NEd, while %s, the check in use by the input's choice (design.biaxial: 5.39), gives %.3f. Consider design.biaxial: exact.", use.name, use.ratio))
+			} else if exact {
+				resistance(trace.Check("bi/exact/check", "Biaxial bending, exact section resistance: no solution", "EN 1992-1-1:2004 6.1", "M_Ed ≤ M_Rd",
+					2, "r", trace.A("r", trace.Const(2, "r", ""))).Unmet().Caution("The inclined neutral axis could not be found: " + err.Error()))
+			} else if full {
+				// Shown for comparison, and not found: the sheet says so, loudly where no inclined
+				// neutral axis carries NEd with the reduced block.
+				l.Group = "Biaxial bending: exact resistance (inclined neutral axis)"
+				l.Add(trace.Input("bi/exact/none", "Biaxial bending, exact section resistance: not found (for comparison; "+use.name+" in use)", "EN 1992-1-1:2004 6.1", "found", "", 0).
+					Caution("The inclined neutral axis could not be found: " + err.Error()))
+				if errors.Is(err, section.ErrReducedBlock) {
+					d.Cautions = append(d.Cautions, fmt.Sprintf("Biaxial bending: the section does NOT resist the design moments along their resultant by strain compatibility: with the rectangular block reduced for an inclined neutral axis (EN 1992-1-1:2004 3.1.7(3), note) no strain plane carries NEd, while %s, the check in use by the input's choice (design.biaxial: 5.39), gives %.3f. Consider design.biaxial: exact.", use.name, use.ratio))
+				}
 			}
 		}
+
 	}
 
 	d.checks = checks

@@ -16,17 +16,25 @@ const areaBound = 0.2
 // finish adds the steel area that the chosen bar pattern needs to resist the design actions.
 func (c *common) finish(d Design) Design {
 	d.bs = c.bs
-	if d.pattern.Count() > 0 {
-		d.sec = &c.section(d.Bars.Positions, d.pattern.BarArea()).sec
-	}
 	if d.pattern.Count() == 0 {
 		return d
 	}
+	r := c.section(d.Bars.Positions, d.pattern.BarArea())
+	if r.circ != nil {
+		d.circ = r.circ
+	} else {
+		d.sec = &r.sec
+	}
 	l := &trace.Log{Steps: d.Steps, Group: "Steel area required"}
-	sec := c.section(d.Bars.Positions, d.pattern.BarArea()).sec
+	sec := c.section(d.Bars.Positions, d.pattern.BarArea())
 	bound := areaBound * c.ac.V
-	ratio := func(s *section.Section) (float64, error) { return c.resistanceRatio(s, &d) }
-	as, err := sec.AreaWhere(bound, ratio)
+	var as float64
+	var err error
+	if sec.circ != nil {
+		as, err = sec.circ.AreaWhere(bound, func(s *section.Circle) (float64, error) { return c.circleRatio(s, &d) })
+	} else {
+		as, err = sec.sec.AreaWhere(bound, func(s *section.Section) (float64, error) { return c.resistanceRatio(s, &d) })
+	}
 	if err != nil {
 		l.Add(trace.Input("req/As", "Steel area needed for resistance: more than the search bound", "common practice", "A_s,res", "mm2", bound).
 			Caution(fmt.Sprintf("No area of this bar pattern up to %.0f %% of Ac resists the actions: enlarge the section.", 100*areaBound)))
@@ -37,8 +45,12 @@ func (c *common) finish(d Design) Design {
 		return d
 	}
 	eta := 0.0
-	if as > 0 {
-		t := sec.Scaled(as)
+	switch {
+	case as > 0 && sec.circ != nil:
+		t := sec.circ.Scaled(as)
+		eta, _ = c.circleRatio(&t, &d)
+	case as > 0:
+		t := sec.sec.Scaled(as)
 		eta, _ = c.resistanceRatio(&t, &d)
 	}
 	etaQ := trace.Const(eta, "η_res", "")
@@ -63,9 +75,9 @@ func (c *common) biaxial(as, mEdY, mRdY, mEdZ, mRdZ float64) float64 {
 
 // noArrangement returns a failed design when no bar pattern fits the section at all.
 func (c *common) noArrangement() Design {
-	d := Design{Column: c.col.ID, Storey: c.st.Name, B: c.col.B, H: c.col.H, Cover: c.col.Cover,
+	d := Design{Column: c.col.ID, Storey: c.st.Name, B: c.col.B, H: c.col.H, Cover: c.col.Cover, Shape: c.col.Shape,
 		Class: c.in.Materials.Concrete.Class, Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: c.st.NEd, AsMin: c.asMin.V, AsMax: c.asMax.V,
-		Status: StatusFail, Governing: "no bar arrangement fits", bs: c.bs}
+		Status: StatusFail, Governing: "no bar arrangement fits", bs: c.bs, Links: Links{Type: linkType(c.col)}}
 	axes := [2]*Axis{&d.Y, &d.Z}
 	for k, a := range c.ax {
 		axes[k].L0, axes[k].Lambda, axes[k].M01, axes[k].M02 = a.l0.V, a.lambda.V, a.m01.V, a.m02.V
@@ -99,7 +111,18 @@ func AddInteraction(r *Result) {
 }
 
 // addInteraction computes the interaction data of design d, as AddInteraction.
+//
+// For a circle both N–M diagrams are drawn in the direction of least resistance at NEd.
 func addInteraction(d *Design) {
+	if c := d.circ; c != nil {
+		theta := 0.0
+		if m, err := c.MRdMin(d.NEd); err == nil {
+			theta = m.State.Theta
+		}
+		nm := c.CurveNM(theta, curvePoints)
+		d.Interaction = &Interaction{NMY: nm, NMZ: nm, Contour: c.ContourMyMz(d.NEd, contourPoints)}
+		return
+	}
 	if d.sec == nil {
 		return
 	}

@@ -93,9 +93,18 @@ type Design struct {
 	bs      *projectBasis     // the project basis its steps refer to
 	pattern detail.Pattern    // bar pattern evaluated
 	sec     *section.Section  // the section with the bars provided
+	circ    *section.Circle   // the circular section with the bars provided; nil for a rectangle
 	checks  []checked         // its check steps
 	reasons map[string]string // by check step ID, the reason to give where it fails, in its own words (the fire method's scope)
 	fixed   map[string]bool   // check step IDs that no bar pattern can make hold (the fire method's scope)
+}
+
+// Ac returns the gross concrete area of the design's section, mm².
+func (d *Design) Ac() float64 {
+	if d.Shape == model.ShapeCircle {
+		return circleArea(d.B)
+	}
+	return d.B * d.H
 }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.
@@ -194,7 +203,7 @@ type Schedule struct {
 // Mark is one bar mark of the schedule: COLUMN-LIFT-index.
 type Mark struct {
 	Mark   string  // e.g. "B2-L1-01"
-	What   string  // "main bars", "links", "ties", "starter bars"
+	What   string  // "main bars", "links", "circular links", "helix", "ties", "starter bars"
 	Count  int     // pieces in the lift
 	Dia    float64 // mm
 	Length float64 // mm, cut length of one piece
@@ -216,6 +225,17 @@ const (
 	LinksCircular = "circular"    // closed circular links
 	LinksHelix    = "helix"       // a continuous helix whose pitch is the spacing
 )
+
+// linkType returns the kind of transverse reinforcement of the column.
+func linkType(col *model.Column) string {
+	switch {
+	case col.Shape != model.ShapeCircle:
+		return LinksRect
+	case col.Helix:
+		return LinksHelix
+	}
+	return LinksCircular
+}
 
 // Trace returns the design's steps with their IDs and references made whole,
 // column/lift/part/name, as results.json and the sheets print them. A reference that

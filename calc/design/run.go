@@ -40,7 +40,7 @@ func Stream(in *model.Input, keep bool, emit func(k int, d *Design) error) (*Res
 			return err
 		}
 		if !keep {
-			d.Steps, d.sec, d.Interaction = nil, nil, nil
+			d.Steps, d.sec, d.circ, d.Interaction = nil, nil, nil, nil
 		}
 		return nil
 	})
@@ -83,7 +83,7 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 					Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
 				if k+1 < cols[ci].hi {
 					above := &r.Designs[k+1]
-					dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.B*above.H, above.Storey
+					dv.AsAbove, dv.AcAbove, dv.NameAbove = above.AsProv, above.Ac(), above.Storey
 					if above.pattern.Count() > 0 {
 						dv.above = neighbourOf(above)
 					}
@@ -298,6 +298,7 @@ type common struct {
 	trialSteps   []trace.Step // the buffer of the trials' check steps
 	cases        *caseSet     // the lift's load cases when it has several; nil for one
 	tension      bool         // NEd < 0: no imperfection, e0, slenderness or second order
+	circle       bool         // a circular section: b and h are both its diameter D
 	shearCap     *shearCap    // the link spacing that another load case's shear allows; nil: none
 	cautions     []string
 	fck, fcd     trace.Q
@@ -377,10 +378,18 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	c.fyd, c.es, c.ecm = bs.fyd, bs.es, bs.ecm
 
 	l.Group = "Section and actions"
-	c.b = l.Add(trace.Input("geo/b", "Section width (along y)", "input", "b", "mm", col.B))
-	c.h = l.Add(trace.Input("geo/h", "Section depth (along z)", "input", "h", "mm", col.H))
-	c.ac = l.Add(trace.Formula("geo/Ac", "Gross concrete area", "common practice", "A_c", "mm2", col.B*col.H,
-		"b * h", trace.A("b", c.b), trace.A("h", c.h)))
+	c.circle = col.Shape == model.ShapeCircle
+	if c.circle {
+		c.b = l.Add(trace.Input("geo/D", "Diameter of the circular section", "input", "D", "mm", col.B))
+		c.h = c.b
+		c.ac = l.Add(trace.Formula("geo/Ac", "Gross concrete area of the circle", "common practice", "A_c", "mm2", circleArea(col.B),
+			"3.141592653589793 * D ** 2 / 4", trace.A("D", c.b)).Shown("pi * D ** 2 / 4"))
+	} else {
+		c.b = l.Add(trace.Input("geo/b", "Section width (along y)", "input", "b", "mm", col.B))
+		c.h = l.Add(trace.Input("geo/h", "Section depth (along z)", "input", "h", "mm", col.H))
+		c.ac = l.Add(trace.Formula("geo/Ac", "Gross concrete area", "common practice", "A_c", "mm2", col.B*col.H,
+			"b * h", trace.A("b", c.b), trace.A("h", c.h)))
+	}
 	if dv != nil {
 		c.nEd = dv.NEd
 	} else {
@@ -426,7 +435,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 			a.m02i, a.m01i = a.m02, a.m01
 			a.ei, a.e0 = trace.Const(0, "e_i", "mm"), trace.Const(0, "e_0", "mm")
 			l.Group = "Slenderness about " + n
-			i := l.Add(onAxis(n, slender.RadiusOfGyration(n+"/i", a.depth)))
+			i := l.Add(onAxis(n, c.gyration(n+"/i", a.depth)))
 			a.lambda = l.Add(onAxis(n, slender.Slenderness(n+"/lambda", a.l0, i)))
 			a.phiEf = trace.Const(0, "φ_ef", "")
 			continue
@@ -450,7 +459,7 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 		a.e0 = l.Add(onAxis(n, slender.MinEccentricity(n+"/e0", a.depth)))
 
 		l.Group = "Slenderness about " + n
-		i := l.Add(onAxis(n, slender.RadiusOfGyration(n+"/i", a.depth)))
+		i := l.Add(onAxis(n, c.gyration(n+"/i", a.depth)))
 		a.lambda = l.Add(onAxis(n, slender.Slenderness(n+"/lambda", a.l0, i)))
 		switch {
 		case hasCreep:
@@ -499,6 +508,18 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	c.steps = l.Steps
 	return c
 }
+
+// gyration returns the radius of gyration of the concrete section for bending with the lever
+// arm along depth: h/√12, or D/4 for a circle.
+func (c *common) gyration(id string, depth trace.Q) trace.Step {
+	if c.circle {
+		return slender.RadiusOfGyrationCircle(id, depth)
+	}
+	return slender.RadiusOfGyration(id, depth)
+}
+
+// circleArea returns the area of a circle of diameter d, π·d²/4.
+func circleArea(d float64) float64 { return math.Pi * d * d / 4 }
 
 // linkFor returns the link diameter for bars of diameter dia: the given one, or the smallest
 // listed size not below max(6 mm, φ/4) of EN 1992-1-1:2004 9.5.3(1).
@@ -642,9 +663,12 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 // two bars on each b-face and the rest on the h-faces, which the spacing check then fails loudly.
 func (c *common) givenPattern() detail.Pattern {
 	col := c.col
-	g := detail.Geometry{B: col.B, H: col.H, Cover: col.Cover, Link: c.linkFor(col.Bars.Dia)}
+	g := c.geometryWith(c.linkFor(col.Bars.Dia))
 	if p, ok := g.ForCount(col.Bars.Count, col.Bars.Dia, 0); ok {
 		return p
+	}
+	if c.circle {
+		return detail.Pattern{Dia: col.Bars.Dia, Ring: col.Bars.Count} // does not fit: the spacing check fails loudly
 	}
 	return detail.Pattern{Dia: col.Bars.Dia, NB: 2, NH: col.Bars.Count / 2}
 }
@@ -688,7 +712,12 @@ func (c *common) creepRatio(l *trace.Log, dv *Derivation) (trace.Q, bool) {
 	}
 	l.Group = "Creep (EN 1992-1-1 Annex B)"
 	fcm, rh, t0, alpha := c.bs.creepOf(l, cr)
-	h0 := l.Add(creep.NotionalSizeRect("creep/h0", c.b, c.h))
+	var h0 trace.Q
+	if c.circle {
+		h0 = l.Add(creep.NotionalSizeCircle("creep/h0", c.b))
+	} else {
+		h0 = l.Add(creep.NotionalSizeRect("creep/h0", c.b, c.h))
+	}
 	from := len(l.Steps)
 	phiInf := creep.Coefficient(l, "creep/", fcm, rh, h0, t0, alpha)
 	c.bs.hoistTail(l, from) // the factors that depend on the creep data alone are the basis's

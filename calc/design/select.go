@@ -24,7 +24,7 @@ type neighbour struct {
 
 // neighbourOf returns the pattern of a design with its geometry.
 func neighbourOf(d *Design) *neighbour {
-	return &neighbour{p: d.pattern, g: detail.Geometry{B: d.B, H: d.H, Cover: d.Cover, Link: d.Links.Dia}}
+	return &neighbour{p: d.pattern, g: detail.Geometry{B: d.B, H: d.H, Cover: d.Cover, Link: d.Links.Dia, Circle: d.Shape == model.ShapeCircle}}
 }
 
 // option is a candidate pattern with its cost and whether it keeps the vibrator gap.
@@ -81,7 +81,12 @@ func liftLength(st *model.Storey) float64 {
 
 // geometry returns the room the section of c gives bars of pattern p.
 func (c *common) geometry(p detail.Pattern) detail.Geometry {
-	return detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: c.linkFor(p.Dia)}
+	return c.geometryWith(c.linkFor(p.Dia))
+}
+
+// geometryWith returns the room the section of c gives its bars inside links of diameter link.
+func (c *common) geometryWith(link float64) detail.Geometry {
+	return detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: link, Circle: c.circle}
 }
 
 // costBasis returns what the cost of pattern p over the lift depends on besides the pattern:
@@ -114,7 +119,7 @@ func (c *common) options(r rules) (roomy, tight []option) {
 	if c.dv != nil && c.dv.AsAbove > asLo {
 		asLo = c.dv.AsAbove
 	}
-	it := detail.NewIter(c.col.B, c.col.H, c.col.Cover, r.dias, c.linkFor, c.lappedFit, asLo, c.asMax.V)
+	it := detail.NewIterIn(c.geometryWith(0), r.dias, c.linkFor, c.lappedFit, asLo, c.asMax.V)
 	w := weights(r.sel)
 	for p, ok := it.Next(); ok; p, ok = it.Next() {
 		g := c.geometry(p)
@@ -349,18 +354,28 @@ func (c *common) practice(d *Design, ch choice, r rules) {
 	if gap := r.sel.VibratorGap; gap > 0 {
 		sv := l.Add(trace.Input("sel/s_vib", "Clear gap between bars for a poker vibrator", "common practice", "s_vib", "mm", gap).
 			Note("design.selection.vibrator_gap; a pattern that keeps it on every face is chosen where one passes."))
-		l.Add(detail.MaxBarsPerFace("sel/n_b_max", "Most bars along a b-face that keep the vibrator gap", "n_b,max", c.b, cnom, phiT, phi, sv))
-		l.Add(detail.MaxBarsPerFace("sel/n_h_max", "Most bars along an h-face that keep the vibrator gap", "n_h,max", c.h, cnom, phiT, phi, sv))
 		gb, gh := g.ClearGaps(p)
-		sb := stepQ(d, "space/gap_b", gb, "s_b", "mm")
-		sh := stepQ(d, "space/gap_h", gh, "s_h", "mm")
 		kept := 0.0
 		if ch.o.roomy {
 			kept = 1
 		}
-		s := trace.Formula("sel/roomy", "Vibrator gap kept on every face", "common practice", "kept", "", kept,
-			"min(s_b, s_h) >= s_vib - 0.000000001 ? 1 : 0", trace.A("s_b", sb), trace.A("s_h", sh), trace.A("s_vib", sv)).
-			Condition("min(s_b, s_h) >= s_vib")
+		var s trace.Step
+		if c.circle {
+			rs := stepQ(d, "bars/r_s", g.RingRadius(p.Dia), "r_s", "mm")
+			l.Add(detail.RingMaxBars("sel/n_max", rs, phi, sv))
+			sc := stepQ(d, "space/gap_c", gb, "s_c", "mm")
+			s = trace.Formula("sel/roomy", "Vibrator gap kept between the bars", "common practice", "kept", "", kept,
+				"s_c >= s_vib - 0.000000001 ? 1 : 0", trace.A("s_c", sc), trace.A("s_vib", sv)).
+				Condition("s_c >= s_vib")
+		} else {
+			l.Add(detail.MaxBarsPerFace("sel/n_b_max", "Most bars along a b-face that keep the vibrator gap", "n_b,max", c.b, cnom, phiT, phi, sv))
+			l.Add(detail.MaxBarsPerFace("sel/n_h_max", "Most bars along an h-face that keep the vibrator gap", "n_h,max", c.h, cnom, phiT, phi, sv))
+			sb := stepQ(d, "space/gap_b", gb, "s_b", "mm")
+			sh := stepQ(d, "space/gap_h", gh, "s_h", "mm")
+			s = trace.Formula("sel/roomy", "Vibrator gap kept on every face", "common practice", "kept", "", kept,
+				"min(s_b, s_h) >= s_vib - 0.000000001 ? 1 : 0", trace.A("s_b", sb), trace.A("s_h", sh), trace.A("s_vib", sv)).
+				Condition("min(s_b, s_h) >= s_vib")
+		}
 		if !ch.roomy {
 			msg := "No pattern that keeps the vibrator gap on every face passes: the bars are spaced by the clear distances of EN 1992-1-1 8.2(2) and 8.7.2(3) only; leave a gap for the vibrator or enlarge the section."
 			s = s.Caution(msg)
@@ -373,10 +388,25 @@ func (c *common) practice(d *Design, ch choice, r rules) {
 		l.Group = "Continuity of the bars with the lift above (common practice)"
 		cont := detail.Continues(a.g, a.p, g, p)
 		phiA := l.Add(trace.Input("cont/phi_above", "Bar diameter of the lift above", trace.ClauseAbove, "φ_above", "mm", a.p.Dia))
-		nbA := l.Add(trace.Input("cont/nb_above", "Bars along each b-face of the lift above", trace.ClauseAbove, "n_b,above", "", float64(a.p.NB)))
-		nhA := l.Add(trace.Input("cont/nh_above", "Bars along each h-face of the lift above", trace.ClauseAbove, "n_h,above", "", float64(a.p.NH)))
-		d.checks = append(d.checks, checked{l.Add(detail.ContinuityCheck("cont/check", cont, nbA, nhA, phiA, nb, nh, phi)).From, false})
-		if !cont.SameSection && cont.Offset > 1e-9 {
+		if c.circle || a.p.Ring > 0 {
+			nA := l.Add(trace.Input("cont/n_above", "Bars of the lift above", trace.ClauseAbove, "n_above", "", float64(a.p.Count())))
+			n := stepQ(d, "bars/count", float64(p.Count()), "n_bars", "")
+			d.checks = append(d.checks, checked{l.Add(detail.RingContinuityCheck("cont/check", cont, nA, phiA, n, phi)).From, false})
+			if !cont.SameSection && cont.Offset > 1e-9 && a.p.Ring > 0 && p.Ring > 0 {
+				ra := l.Add(trace.Input("cont/r_s_above", "Radius of the circle of the bars of the lift above", trace.ClauseAbove, "r_s,above", "mm", a.g.RingRadius(a.p.Dia)))
+				rs := stepQ(d, "bars/r_s", g.RingRadius(p.Dia), "r_s", "mm")
+				off := l.Add(trace.Formula("cont/e_crank", "Offset of the bars cranked at the top of this lift into the section above", "common practice", "e_crank", "mm",
+					cont.Offset, "abs(r_s - r_a)", trace.A("r_s", rs), trace.A("r_a", ra)).
+					Note("The section changes at the level above this lift: the bars of this lift are cranked into the section of the lift above and lapped there with its bars."))
+				cr := l.Add(detail.CrankLength("cont/l_crank", off, k(12, "k", "")))
+				d.Detailing.Crank, d.Detailing.CrankLength = off.V, cr.V
+			}
+		} else {
+			nbA := l.Add(trace.Input("cont/nb_above", "Bars along each b-face of the lift above", trace.ClauseAbove, "n_b,above", "", float64(a.p.NB)))
+			nhA := l.Add(trace.Input("cont/nh_above", "Bars along each h-face of the lift above", trace.ClauseAbove, "n_h,above", "", float64(a.p.NH)))
+			d.checks = append(d.checks, checked{l.Add(detail.ContinuityCheck("cont/check", cont, nbA, nhA, phiA, nb, nh, phi)).From, false})
+		}
+		if !c.circle && a.p.Ring == 0 && !cont.SameSection && cont.Offset > 1e-9 {
 			ea := a.g.Edge(a.p.Dia)
 			ya := l.Add(trace.Input("cont/y_c_above", "Distance of the outer bars' centres from the centroid along y in the lift above", trace.ClauseAbove, "y_c,above", "mm", a.g.B/2-ea))
 			za := l.Add(trace.Input("cont/z_c_above", "Distance of the outer bars' centres from the centroid along z in the lift above", trace.ClauseAbove, "z_c,above", "mm", a.g.H/2-ea))
@@ -397,6 +427,9 @@ func (c *common) practice(d *Design, ch choice, r rules) {
 	lift := l.Add(trace.Input("sel/L", "Length of the lift for the cost", lengthSource(c.st), "L", "mm", r.lift))
 	args := detail.ArgsOf(g, p, cb, w, ch.o.cost)
 	args.NB, args.NH, args.Dia, args.Link, args.Lift = nb, nh, phi, phiT, lift
+	if c.circle {
+		args.Ring = stepQ(d, "bars/count", float64(p.Count()), "n", "")
+	}
 	if q, ok := c.bs.laps[p.Dia]; ok {
 		args.Lap = q
 	}
@@ -461,7 +494,10 @@ func bars(in *model.Input) Method {
 }
 
 // sectionKey names a section for the typical pass.
-type sectionKey struct{ b, h, cover float64 }
+type sectionKey struct {
+	b, h, cover float64
+	shape       string
+}
 
 // typicalUses holds what the typical pass takes from the first pass over the whole building:
 // how often each pattern is used per section, and each lift's design as first chosen.
@@ -478,7 +514,7 @@ func (r *Result) typicalUses() *typicalUses {
 		if d.Bars.Given || d.Status != StatusPass || d.pattern.Count() == 0 {
 			continue
 		}
-		key := sectionKey{d.B, d.H, d.Cover}
+		key := sectionKey{d.B, d.H, d.Cover, d.Shape}
 		if t.uses[key] == nil {
 			t.uses[key] = map[detail.Pattern]int{}
 		}
@@ -494,7 +530,7 @@ func (r *Result) typicalUses() *typicalUses {
 // lift below keeps a passing pattern. A lift whose lift above changed is designed again. The
 // counts t are of the whole building; the columns are independent of each other.
 func (r *Result) typicalColumn(in *model.Input, dvs []*Derivation, t *typicalUses, s span) {
-	key := func(d *Design) sectionKey { return sectionKey{d.B, d.H, d.Cover} }
+	key := func(d *Design) sectionKey { return sectionKey{d.B, d.H, d.Cover, d.Shape} }
 	first := t.first
 	same := func(j int) bool { return j >= s.lo && j < s.hi }
 	changed := make([]bool, s.hi-s.lo)
@@ -537,7 +573,7 @@ func (r *Result) typicalColumn(in *model.Input, dvs []*Derivation, t *typicalUse
 		// Only the patterns that could replace this lift's: they continue the bars above, stay within
 		// those below and cost little more steel; the costs and checks are the design's to find.
 		prefer = slices.DeleteFunc(prefer, func(p detail.Pattern) bool {
-			g := detail.Geometry{B: d.B, H: d.H, Cover: d.Cover, Link: linkDiaFor(in, lc.col, p.Dia)}
+			g := detail.Geometry{B: d.B, H: d.H, Cover: d.Cover, Link: linkDiaFor(in, lc.col, p.Dia), Circle: d.Shape == model.ShapeCircle}
 			return (above != nil && !detail.Continues(above.g, above.p, g, p).OK()) ||
 				(below != nil && !detail.Continues(g, p, below.g, below.p).OK()) ||
 				p.Area() > (1+2*tol)*d.pattern.Area()
@@ -548,7 +584,7 @@ func (r *Result) typicalColumn(in *model.Input, dvs []*Derivation, t *typicalUse
 		dv.above, dv.below, dv.prefer, dv.tolerance = above, below, prefer, tol
 		if above != nil {
 			a := &r.Designs[k+1]
-			dv.AsAbove, dv.AcAbove = a.AsProv, a.B*a.H
+			dv.AsAbove, dv.AcAbove = a.AsProv, a.Ac()
 		}
 		nd := design(in, lc.col, lc.st, dv, r.bs)
 		changed[k-s.lo] = nd.pattern != d.pattern

@@ -69,8 +69,18 @@ func (c *common) shearSteps(l *trace.Log, tension [2]int, phi, phiT, cnom trace.
 				math.Abs(a.top.V-a.bot.V)/length.V, "abs(M_top - M_bot) / l_v", trace.A("M_top", a.top), trace.A("M_bot", a.bot), trace.A("l_v", length)).
 				Note("The end moments in the face convention: opposite signs (double curvature) add."))
 		}
-		d := l.Add(trace.Formula(n+"/shear/d", "Effective depth of the outer bars for the shear about "+n, "common practice", "d", "mm",
-			a.depth.V-cnom.V-phiT.V-phi.V/2, "h - c_nom - phi_t - phi / 2", trace.A("h", a.depth), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
+		var d trace.Q
+		if c.circle {
+			rs := a.depth.V/2 - cnom.V - phiT.V - phi.V/2
+			d = l.Add(trace.Formula(n+"/shear/d", "Effective depth for the shear about "+n+" of the circle: to the centroid of the bars of the tension half", "common practice", "d", "mm",
+				a.depth.V/2+2*rs/math.Pi, "D / 2 + 2 * (D / 2 - c_nom - phi_t - phi / 2) / 3.141592653589793",
+				trace.A("D", a.depth), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)).
+				Shown("D / 2 + 2 * (D / 2 - c_nom - phi_t - phi / 2) / pi").
+				Note("A circular section is taken for the shear as a rectangle of width bw = D and effective depth d = D/2 + 2·rs/π, the centroid of the bars of the tension half on their circle of radius rs (common practice, from memory); the two legs of a circular link or helix crossing the section count at their full area."))
+		} else {
+			d = l.Add(trace.Formula(n+"/shear/d", "Effective depth of the outer bars for the shear about "+n, "common practice", "d", "mm",
+				a.depth.V-cnom.V-phiT.V-phi.V/2, "h - c_nom - phi_t - phi / 2", trace.A("h", a.depth), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)))
+		}
 		nt := trace.Const(float64(tension[k]), "n_t", "")
 		asl := l.Add(trace.Formula(n+"/shear/A_sl", "Longitudinal bars in the tension half of the section", "common practice", "A_sl", "mm2",
 			float64(tension[k])*math.Pi*phi.V*phi.V/4, "n_t * 3.141592653589793 * phi ** 2 / 4", trace.A("n_t", nt), trace.A("phi", phi)).Shown("n_t * pi * phi ** 2 / 4"))
@@ -142,7 +152,7 @@ func tensionBars(pos [][2]float64) [2]int {
 // needed for the shear.
 func (c *common) shearDemand(p detail.Pattern) float64 {
 	link := c.linkFor(p.Dia)
-	g := detail.Geometry{B: c.col.B, H: c.col.H, Cover: c.col.Cover, Link: link}
+	g := c.geometryWith(link)
 	saved := c.shearCap
 	c.shearCap = nil
 	plan := c.shearSteps(&trace.Log{}, tensionBars(g.Positions(p)), trace.Const(p.Dia, "φ", "mm"), trace.Const(link, "φ_t", "mm"), trace.Const(c.col.Cover, "c_nom", "mm"))

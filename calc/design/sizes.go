@@ -21,6 +21,39 @@ type SizeResult struct {
 	Tried       int        // sizes tried
 }
 
+// sizeArea returns the gross concrete area of a size, mm².
+func sizeArea(s model.Size) float64 {
+	if s.Shape == model.ShapeCircle {
+		return circleArea(s.B)
+	}
+	return s.B * s.H
+}
+
+// diameterList returns the diameters to try for a circular column, smallest first: those of the
+// listed sizes that are square or circular (their side taken as the diameter), or the range
+// from Min to Max by Step.
+func diameterList(s *model.SizeSearch, helix bool) []model.Size {
+	var ds []float64
+	if len(s.Sizes) > 0 {
+		for _, z := range s.Sizes {
+			if math.Abs(z.B-z.H) < 1e-9 {
+				ds = append(ds, z.B)
+			}
+		}
+	} else if s.Step > 0 {
+		for d := s.Min; d <= s.Max+1e-9; d += s.Step {
+			ds = append(ds, d)
+		}
+	}
+	slices.Sort(ds)
+	ds = slices.Compact(ds)
+	out := make([]model.Size, len(ds))
+	for i, d := range ds {
+		out[i] = model.Size{B: d, H: d, Shape: model.ShapeCircle, Helix: helix}
+	}
+	return out
+}
+
 // sizeList returns the sizes to try, smallest area first, then the squarer, then the narrower.
 func sizeList(s *model.SizeSearch) []model.Size {
 	var out []model.Size
@@ -59,7 +92,7 @@ type liftCase struct {
 // change them a little, which a rerun with the size chosen settles.
 func findSizes(in *model.Input, r *Result) []SizeResult {
 	s := in.Options.Sizes
-	sizes := sizeList(s)
+	rectSizes := sizeList(s)
 	rhoMax := s.RhoMax
 	if !(rhoMax > 0) {
 		rhoMax = in.Code.Get("As_max_Ac")
@@ -78,13 +111,18 @@ func findSizes(in *model.Input, r *Result) []SizeResult {
 	for _, id := range order {
 		cases := byCol[id]
 		slices.SortStableFunc(cases, func(a, b liftCase) int { return cmp.Compare(b.st.NEd, a.st.NEd) })
-		res := SizeResult{Column: id, Given: model.Size{B: cases[0].col.B, H: cases[0].col.H}}
+		first := cases[0].col
+		res := SizeResult{Column: id, Given: model.Size{B: first.B, H: first.H, Shape: first.Shape, Helix: first.Helix}}
+		sizes := rectSizes
+		if first.Shape == model.ShapeCircle {
+			sizes = diameterList(s, first.Helix) // a circular column keeps its shape: the finder tries diameters
+		}
 		for _, sz := range sizes {
 			res.Tried++
 			ok, as, util := true, 0.0, 0.0
 			for _, lc := range cases {
 				col := *lc.col
-				col.B, col.H, col.Bars = sz.B, sz.H, nil // the bars are designed for each size
+				col.B, col.H, col.Shape, col.Helix, col.Bars = sz.B, sz.H, sz.Shape, sz.Helix, nil // the bars are designed for each size
 				st := *lc.st
 				col.Storeys = []model.Storey{st}
 				if !quickAxial(in, &col, &col.Storeys[0], rhoMax) {
@@ -92,14 +130,14 @@ func findSizes(in *model.Input, r *Result) []SizeResult {
 					break
 				}
 				d := design(in, &col, &col.Storeys[0], nil, r.bs)
-				if d.Status != StatusPass || d.AsProv > rhoMax*sz.B*sz.H*(1+1e-9) {
+				if d.Status != StatusPass || d.AsProv > rhoMax*sizeArea(sz)*(1+1e-9) {
 					ok = false
 					break
 				}
 				as, util = math.Max(as, d.AsProv), math.Max(util, d.Utilization)
 			}
 			if ok {
-				res.Found, res.Size, res.AsProv, res.Rho, res.Utilization = true, sz, as, as/(sz.B*sz.H), util
+				res.Found, res.Size, res.AsProv, res.Rho, res.Utilization = true, sz, as, as/sizeArea(sz), util
 				break
 			}
 		}
@@ -111,9 +149,9 @@ func findSizes(in *model.Input, r *Result) []SizeResult {
 // quickAxial reports whether the section could carry NEd with the largest steel ratio accepted,
 // by the resistance to pure compression (EN 1992-1-1:2004 6.1), before a full design is tried.
 func quickAxial(in *model.Input, col *model.Column, st *model.Storey, rhoMax float64) bool {
-	c := &common{in: in, col: col, st: st, p: in.Code}
+	c := &common{in: in, col: col, st: st, p: in.Code, circle: col.Shape == model.ShapeCircle}
 	c.fcd = trace.Const(in.Code.Get("alpha_cc")*in.Materials.Concrete.Fck/in.Code.Get("gamma_c"), "", "MPa")
 	c.fyd = trace.Const(in.Materials.Fyk/in.Code.Get("gamma_s"), "", "MPa")
 	c.es = trace.Const(in.Code.Get("Es"), "", "MPa")
-	return st.NEd <= c.section([][2]float64{{0, 0}}, rhoMax*col.B*col.H).nRdMax()
+	return st.NEd <= c.section([][2]float64{{0, 0}}, rhoMax*sizeArea(model.Size{B: col.B, H: col.H, Shape: col.Shape})).nRdMax()
 }

@@ -49,7 +49,20 @@ func (c Cost) Mass() float64 { return c.MainMass + c.LinkMass }
 // PatternCost returns the cost of pattern p in geometry g over one lift (common practice, no source).
 // The perimeter link and the extra ties run on the centre line of the link bar, (w − 2·c − φt);
 // each extra tie crosses the section between two opposite intermediate bars.
+//
+// A ring's link is a circle of centre-line diameter D − 2·c − φt, with no extra ties.
 func PatternCost(g Geometry, p Pattern, cb CostBasis, w CostWeights) Cost {
+	if p.Ring > 0 {
+		c := Cost{Bars: p.Count()}
+		c.Sets = math.Floor(cb.Lift/cb.Spacing+1e-9) + 1
+		c.Perimeter = math.Pi * (g.B - 2*g.Cover - g.Link)
+		n := float64(c.Bars)
+		c.MainMass = densityMM * (n * math.Pi * p.Dia * p.Dia / 4 * (cb.Lift + cb.Lap))
+		c.LinkMass = densityMM * (c.Sets * c.Perimeter * math.Pi * g.Link * g.Link / 4)
+		c.Labour = w.PerBar * n
+		c.Total = c.MainMass + c.LinkMass + c.Labour
+		return c
+	}
 	plan := g.Restraint(p, RestraintLimit)
 	lb, lh := g.B-2*g.Cover-g.Link, g.H-2*g.Cover-g.Link
 	c := Cost{Bars: p.Count(), Ties: plan.Ties}
@@ -72,6 +85,7 @@ const costExpr = "rho * ((2 * n_b + 2 * n_h - 4) * 3.141592653589793 * phi ** 2 
 // CostArgs are the quantities of one pattern's cost, traced or constant.
 type CostArgs struct {
 	NB, NH, Dia, Link    trace.Q // bars along a b-face and an h-face, bar and link diameters
+	Ring                 trace.Q // bars on the circle of a circular section; zero value for a rectangle
 	Lift, Lap, Spacing   trace.Q // mm
 	Perimeter, TieLength trace.Q // mm, one link set
 	Ties                 trace.Q // extra ties in one set
@@ -82,7 +96,11 @@ type CostArgs struct {
 // ArgsOf returns the cost's arguments as constants, for a pattern that is not itself traced.
 func ArgsOf(g Geometry, p Pattern, cb CostBasis, w CostWeights, c Cost) CostArgs {
 	k := func(v float64, s, u string) trace.Q { return trace.Const(v, s, u) }
-	return CostArgs{NB: k(float64(p.NB), "n_b", ""), NH: k(float64(p.NH), "n_h", ""),
+	ring := trace.Q{}
+	if p.Ring > 0 {
+		ring = k(float64(p.Ring), "n", "")
+	}
+	return CostArgs{NB: k(float64(p.NB), "n_b", ""), NH: k(float64(p.NH), "n_h", ""), Ring: ring,
 		Dia: k(p.Dia, "φ", "mm"), Link: k(g.Link, "φ_t", "mm"), Lift: k(cb.Lift, "L", "mm"), Lap: k(cb.Lap, "l_0", "mm"),
 		Spacing: k(cb.Spacing, "s_t", "mm"), Perimeter: k(c.Perimeter, "p_t", "mm"), TieLength: k(c.TieLength, "l_ties", "mm"),
 		Ties: k(float64(c.Ties), "n_ties", ""), Density: k(densityMM, "ρ_s", "kg/mm3"),
@@ -92,8 +110,20 @@ func ArgsOf(g Geometry, p Pattern, cb CostBasis, w CostWeights, c Cost) CostArgs
 // CostStep records the cost of one pattern over the lift, in kg-equivalent (common practice, no
 // source): with n = 2·n_b + 2·n_h − 4 bars, ρs·(n·π·φ²/4·(L + l0) + (⌊L/s⌋ + 1)·(pt + lties)·π·φt²/4) + wbar·n + wtie·(⌊L/s⌋ + 1)·k.
 // The pattern is named by its arguments: the bars along each face and their diameter.
+//
+// For a ring of n bars: ρs·(n·π·φ²/4·(L + l0) + (⌊L/s⌋ + 1)·pt·π·φt²/4) + wbar·n.
 func CostStep(id, title string, a CostArgs) trace.Step {
 	sets := math.Floor(a.Lift.V/a.Spacing.V+1e-9) + 1
+	if a.Ring.V > 0 {
+		n := a.Ring.V
+		v := a.Density.V*(n*math.Pi*a.Dia.V*a.Dia.V/4*(a.Lift.V+a.Lap.V)+sets*a.Perimeter.V*math.Pi*a.Link.V*a.Link.V/4) + a.PerBar.V*n
+		return trace.Formula(id, title, "common practice", "C", "kg", v,
+			"rho * (n * 3.141592653589793 * phi ** 2 / 4 * (L + l_0) + (floor(L / s + 0.000000001) + 1) * p_t * 3.141592653589793 * phi_t ** 2 / 4) + w_bar * n",
+			trace.A("n", a.Ring), trace.A("phi", a.Dia), trace.A("L", a.Lift), trace.A("l_0", a.Lap),
+			trace.A("s", a.Spacing), trace.A("p_t", a.Perimeter), trace.A("phi_t", a.Link), trace.A("rho", a.Density), trace.A("w_bar", a.PerBar)).
+			Shown("rho * (n * pi * phi ** 2 / 4 * (L + l_0) + (floor(L / s) + 1) * p_t * pi * phi_t ** 2 / 4) + w_bar * n").
+			Note("Steel of the main bars over the lift with their lap and of the circular links at the general spacing, and a labour term per bar, all in kilograms of steel.")
+	}
 	n := 2*a.NB.V + 2*a.NH.V - 4
 	v := a.Density.V*(n*math.Pi*a.Dia.V*a.Dia.V/4*(a.Lift.V+a.Lap.V)+sets*(a.Perimeter.V+a.TieLength.V)*math.Pi*a.Link.V*a.Link.V/4) +
 		a.PerBar.V*n + a.PerTie.V*sets*a.Ties.V
@@ -160,7 +190,23 @@ func (c Continuity) OK() bool { return c.Ratio <= 1+1e-9 }
 // (the larger) of a bar below, so that it laps beside it (EN 1992-1-1:2004 8.7.2(3)); where the
 // section changes, the bars below are cranked into the section above and the positions are not
 // compared; nor are they where the counts or the diameter already fail (Farthest is then 0).
+//
+// Rings compare their counts and, in the same section, their positions; the offset of a ring
+// is the change of its radius. Between a ring and the faces of a rectangle only the counts and
+// the diameters are compared.
 func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
+	if a.Ring > 0 || p.Ring > 0 {
+		c := Continuity{SameSection: a.Ring > 0 && p.Ring > 0 && ga.B == g.B && ga.Cover == g.Cover, Reach: math.Max(a.Dia, p.Dia)}
+		c.Ratio = math.Max(float64(a.Count())/float64(p.Count()), a.Dia/p.Dia)
+		if a.Ring > 0 && p.Ring > 0 {
+			c.Offset = math.Abs(ga.RingRadius(a.Dia) - g.RingRadius(p.Dia))
+		}
+		if c.SameSection && c.Ratio <= 1+1e-9 {
+			c.Farthest = farthestBar(ga.Positions(a), g.Positions(p))
+			c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
+		}
+		return c
+	}
 	c := Continuity{SameSection: ga.B == g.B && ga.H == g.H && ga.Cover == g.Cover, Reach: math.Max(a.Dia, p.Dia)}
 	c.Ratio = math.Max(math.Max(float64(a.NB)/float64(p.NB), float64(a.NH)/float64(p.NH)), a.Dia/p.Dia)
 	ea, e := ga.Edge(a.Dia), g.Edge(p.Dia)
@@ -168,16 +214,22 @@ func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
 	if !c.SameSection || c.Ratio > 1+1e-9 {
 		return c // cranked, or too few bars or too small: the positions need no comparing
 	}
-	below := g.Positions(p)
-	for _, q := range ga.Positions(a) {
+	c.Farthest = farthestBar(ga.Positions(a), g.Positions(p))
+	c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
+	return c
+}
+
+// farthestBar returns the greatest distance from a bar of above to the nearest bar of below, mm.
+func farthestBar(above, below [][2]float64) float64 {
+	out := 0.0
+	for _, q := range above {
 		near := math.Inf(1)
 		for _, r := range below {
 			near = math.Min(near, math.Hypot(q[0]-r[0], q[1]-r[1]))
 		}
-		c.Farthest = math.Max(c.Farthest, near)
+		out = math.Max(out, near)
 	}
-	c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
-	return c
+	return out
 }
 
 // ContinuityCheck records the check that the bars of the lift continue those of the lift above

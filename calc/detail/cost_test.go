@@ -128,18 +128,18 @@ func TestContinues(t *testing.T) {
 		ok, crank  bool
 		farthestAt float64 // greatest distance from a bar above to the nearest bar below, mm; -1: not compared
 	}{
-		{"same pattern", g8, Pattern{16, 3, 3}, g8, Pattern{16, 3, 3}, true, false, 0},
+		{"same pattern", g8, Pattern{Dia: 16, NB: 3, NH: 3}, g8, Pattern{Dia: 16, NB: 3, NH: 3}, true, false, 0},
 		// Corners move by (20 − 16)/2 = 2 mm each way: √8 = 2.83 mm ≤ 20.
-		{"larger bars", g8, Pattern{16, 2, 2}, g8, Pattern{20, 2, 2}, true, false, math.Sqrt(8)},
+		{"larger bars", g8, Pattern{Dia: 16, NB: 2, NH: 2}, g8, Pattern{Dia: 20, NB: 2, NH: 2}, true, false, math.Sqrt(8)},
 		// 3 → 5 a face: the middle bar stays; 3 → 4: it sits 288/6 = 48 mm from the nearest bars below.
-		{"3 to 5 a face", g8, Pattern{16, 3, 3}, g8, Pattern{16, 5, 3}, true, false, 0},
-		{"3 to 4 a face", g8, Pattern{16, 3, 3}, g8, Pattern{16, 4, 3}, false, false, 48},
-		{"fewer bars", g8, Pattern{16, 3, 3}, g8, Pattern{20, 2, 3}, false, false, -1},
-		{"smaller bars", g8, Pattern{20, 2, 2}, g8, Pattern{16, 2, 2}, false, false, -1},
+		{"3 to 5 a face", g8, Pattern{Dia: 16, NB: 3, NH: 3}, g8, Pattern{Dia: 16, NB: 5, NH: 3}, true, false, 0},
+		{"3 to 4 a face", g8, Pattern{Dia: 16, NB: 3, NH: 3}, g8, Pattern{Dia: 16, NB: 4, NH: 3}, false, false, 48},
+		{"fewer bars", g8, Pattern{Dia: 16, NB: 3, NH: 3}, g8, Pattern{Dia: 20, NB: 2, NH: 3}, false, false, -1},
+		{"smaller bars", g8, Pattern{Dia: 20, NB: 2, NH: 2}, g8, Pattern{Dia: 16, NB: 2, NH: 2}, false, false, -1},
 		// Ø32 needs 10 mm links: the corners move by 2 + 8 = 10 mm each way, 14.1 mm ≤ 32.
-		{"links change", g8, Pattern{16, 2, 2}, g10, Pattern{32, 2, 2}, true, false, math.Sqrt(200)},
+		{"links change", g8, Pattern{Dia: 16, NB: 2, NH: 2}, g10, Pattern{Dia: 32, NB: 2, NH: 2}, true, false, math.Sqrt(200)},
 		// A smaller section above: the bars below are cranked in; counts and diameter compared.
-		{"crank", Geometry{B: 400, H: 400, Cover: 40, Link: 8}, Pattern{16, 3, 3}, Geometry{B: 450, H: 450, Cover: 40, Link: 8}, Pattern{16, 3, 3}, true, true, -1},
+		{"crank", Geometry{B: 400, H: 400, Cover: 40, Link: 8}, Pattern{Dia: 16, NB: 3, NH: 3}, Geometry{B: 450, H: 450, Cover: 40, Link: 8}, Pattern{Dia: 16, NB: 3, NH: 3}, true, true, -1},
 	}
 	for _, c := range cases {
 		got := Continues(c.ga, c.a, c.g, c.p)
@@ -162,7 +162,7 @@ func TestContinues(t *testing.T) {
 	}
 	// 450 → 400 with the same cover and bars: the corner bars move in by 25 mm; at 1 in 12 the
 	// crank runs over 300 mm, EN 1992-1-1:2004 9.5.3(5).
-	c := Continues(Geometry{B: 400, H: 400, Cover: 40, Link: 8}, Pattern{16, 2, 2}, Geometry{B: 450, H: 450, Cover: 40, Link: 8}, Pattern{16, 2, 2})
+	c := Continues(Geometry{B: 400, H: 400, Cover: 40, Link: 8}, Pattern{Dia: 16, NB: 2, NH: 2}, Geometry{B: 450, H: 450, Cover: 40, Link: 8}, Pattern{Dia: 16, NB: 2, NH: 2})
 	if math.Abs(c.Offset-25) > 1e-9 {
 		t.Errorf("crank offset %g, want 25", c.Offset)
 	}

@@ -62,13 +62,25 @@ func RoundDown(id, title, symbol string, s, step trace.Q) trace.Step {
 // Pattern is a symmetric arrangement of equal bars on the four faces of a rectangle:
 // NB bars along each face of width b (at z = ±) and NH bars along each face of depth h
 // (at y = ±), both counts including the corner bars.
+//
+// In a circular section the pattern is Ring bars evenly spaced on one circle, the first on
+// the +z axis, and NB, NH are zero.
 type Pattern struct {
 	Dia    float64 // bar diameter, mm
 	NB, NH int     // bars along a b-face and along an h-face, corners included; each ≥ 2
+	Ring   int     // bars on the circle of a circular section; 0 for the four faces
 }
 
+// RingMin is the least number of bars in a circular column, EN 1992-1-1:2004 9.5.2(4).
+const RingMin = 6
+
 // Count returns the number of bars of the pattern.
-func (p Pattern) Count() int { return 2*p.NB + 2*p.NH - 4 }
+func (p Pattern) Count() int {
+	if p.Ring > 0 {
+		return p.Ring
+	}
+	return 2*p.NB + 2*p.NH - 4
+}
 
 // BarArea returns the area of one bar, π·φ²/4.
 func (p Pattern) BarArea() float64 { return math.Pi * p.Dia * p.Dia / 4 }
@@ -78,9 +90,20 @@ func (p Pattern) Area() float64 { return float64(p.Count()) * p.BarArea() }
 
 // Geometry is the room a section gives its bars.
 type Geometry struct {
-	B, H  float64 // section width (along y) and depth (along z), mm
-	Cover float64 // nominal cover to the links, mm
-	Link  float64 // link diameter, mm
+	B, H   float64 // section width (along y) and depth (along z), mm; both the diameter of a circle
+	Cover  float64 // nominal cover to the links, mm
+	Link   float64 // link diameter, mm
+	Circle bool    // the section is a circle of diameter B (= H), its bars on one circle
+}
+
+// RingRadius returns the radius of the circle through the centres of bars of diameter dia in
+// a circular section, D/2 − c_nom − φt − φ/2.
+func (g Geometry) RingRadius(dia float64) float64 { return g.B/2 - g.Edge(dia) }
+
+// RingGap returns the clear distance between neighbouring bars of n on a circle of radius rs,
+// measured along the chord, 2·rs·sin(π/n) − φ (geometry).
+func RingGap(rs float64, n int, dia float64) float64 {
+	return 2*rs*math.Sin(math.Pi/float64(n)) - dia
 }
 
 // Edge returns the distance from a face to the centre of the bars of diameter dia.
@@ -88,7 +111,23 @@ func (g Geometry) Edge(dia float64) float64 { return g.Cover + g.Link + dia/2 }
 
 // Positions returns the bar centres (y, z) from the centroid, corners first, then the
 // intermediate bars of the b-faces and of the h-faces.
+//
+// The bars of a ring go round from the +z axis towards +y, at (rs·sin a, rs·cos a).
 func (g Geometry) Positions(p Pattern) [][2]float64 {
+	if p.Ring > 0 {
+		rs := g.RingRadius(p.Dia)
+		pos := make([][2]float64, p.Ring)
+		for k := range pos {
+			a := 2 * math.Pi * float64(k) / float64(p.Ring)
+			sn, cs := math.Sincos(a)
+			// Exact zeros on the axes, so that the layout is symmetric to the last bit.
+			if 4*k%p.Ring == 0 {
+				sn, cs = math.Round(sn), math.Round(cs)
+			}
+			pos[k] = [2]float64{rs * sn, rs * cs}
+		}
+		return pos
+	}
 	e := g.Edge(p.Dia)
 	yc, zc := g.B/2-e, g.H/2-e
 	pos := make([][2]float64, 0, p.Count())
@@ -105,7 +144,12 @@ func (g Geometry) Positions(p Pattern) [][2]float64 {
 }
 
 // ClearGaps returns the clear distance between neighbouring bars along a b-face and along an h-face.
+// On a ring both are the gap between neighbours along the chord.
 func (g Geometry) ClearGaps(p Pattern) (alongB, alongH float64) {
+	if p.Ring > 0 {
+		gap := RingGap(g.RingRadius(p.Dia), p.Ring, p.Dia)
+		return gap, gap
+	}
 	e := g.Edge(p.Dia)
 	alongB = (g.B-2*e)/float64(p.NB-1) - p.Dia
 	alongH = (g.H-2*e)/float64(p.NH-1) - p.Dia
@@ -114,6 +158,13 @@ func (g Geometry) ClearGaps(p Pattern) (alongB, alongH float64) {
 
 // Fits reports whether the pattern's bars sit inside the links with at least sMin clear between them.
 func (g Geometry) Fits(p Pattern, sMin float64) bool {
+	if g.Circle || p.Ring > 0 {
+		if !g.Circle || p.Ring < RingMin || g.RingRadius(p.Dia) <= 0 {
+			return false
+		}
+		gap, _ := g.ClearGaps(p)
+		return gap >= sMin-1e-9
+	}
 	if p.NB < 2 || p.NH < 2 || g.B-2*g.Edge(p.Dia) <= 0 || g.H-2*g.Edge(p.Dia) <= 0 {
 		return false
 	}
@@ -129,7 +180,13 @@ func (g Geometry) spread(p Pattern) float64 {
 
 // ForCount returns the most even pattern of count bars of diameter dia that fits with sMin clear,
 // or false when count is odd, below 4, or no pattern fits.
+//
+// In a circle the pattern is count bars on the ring, of at least RingMin.
 func (g Geometry) ForCount(count int, dia, sMin float64) (Pattern, bool) {
+	if g.Circle {
+		p := Pattern{Dia: dia, Ring: count}
+		return p, g.Fits(p, sMin)
+	}
 	if count < 4 || count%2 != 0 {
 		return Pattern{}, false
 	}
@@ -152,8 +209,14 @@ func (g Geometry) ForCount(count int, dia, sMin float64) (Pattern, bool) {
 // area, then by number of bars, then by evenness. Patterns outside [asLo, asHi] and of more than
 // MaxBars bars are left out.
 func Candidates(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
+	return CandidatesIn(Geometry{B: b, H: h, Cover: cover}, dias, linkFor, sMinFor, asLo, asHi)
+}
+
+// CandidatesIn is Candidates for the section of g (its Link is set per diameter by linkFor),
+// which may be a circle: its patterns are rings of RingMin bars or more.
+func CandidatesIn(g Geometry, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) []Pattern {
 	var out []Pattern
-	it := NewIter(b, h, cover, dias, linkFor, sMinFor, asLo, asHi)
+	it := NewIterIn(g, dias, linkFor, sMinFor, asLo, asHi)
 	for p, ok := it.Next(); ok; p, ok = it.Next() {
 		out = append(out, p)
 	}
@@ -195,15 +258,30 @@ type stream struct {
 
 // NewIter returns an iterator over the patterns that Candidates lists.
 func NewIter(b, h, cover float64, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) *Iter {
+	return NewIterIn(Geometry{B: b, H: h, Cover: cover}, dias, linkFor, sMinFor, asLo, asHi)
+}
+
+// NewIterIn returns an iterator over the patterns that CandidatesIn lists.
+func NewIterIn(g Geometry, dias []float64, linkFor, sMinFor func(dia float64) float64, asLo, asHi float64) *Iter {
 	it := &Iter{asLo: asLo, asHi: asHi, streams: make([]stream, len(dias))}
 	for k, d := range dias {
-		it.streams[k] = stream{g: Geometry{B: b, H: h, Cover: cover, Link: linkFor(d)}, dia: d, sMin: sMinFor(d), count: 4}
+		gd := g
+		gd.Link = linkFor(d)
+		count := 4
+		if g.Circle {
+			count = RingMin
+		}
+		it.streams[k] = stream{g: gd, dia: d, sMin: sMinFor(d), count: count}
 	}
 	return it
 }
 
 // fill makes the next count's patterns of the stream that lie within the area limits.
 func (s *stream) fill(asLo, asHi float64) {
+	if s.g.Circle {
+		s.fillRing(asLo, asHi)
+		return
+	}
 	for len(s.pending) == 0 && !s.done {
 		half := s.count/2 + 2 // NB + NH
 		fits := false
@@ -227,6 +305,23 @@ func (s *stream) fill(asLo, asHi float64) {
 				s.pending[j], s.pending[j-1] = s.pending[j-1], s.pending[j]
 			}
 		}
+	}
+}
+
+// fillRing makes the next ring of the stream within the area limits: one pattern per count,
+// counts rising by one (a count that does not fit means that no larger count fits).
+func (s *stream) fillRing(asLo, asHi float64) {
+	for len(s.pending) == 0 && !s.done {
+		p := Pattern{Dia: s.dia, Ring: s.count}
+		a := p.Area()
+		switch {
+		case !s.g.Fits(p, s.sMin) || a > asHi+1e-9 || s.count >= MaxBars:
+			s.done = true
+		case a >= asLo-1e-9:
+			gap, _ := s.g.ClearGaps(p)
+			s.pending = append(s.pending, cand{p, a, gap})
+		}
+		s.count++
 	}
 }
 

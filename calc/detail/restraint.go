@@ -77,7 +77,12 @@ func restrainFace(n int, s, limit float64) FaceRestraint {
 // Restraint returns the fewest extra ties that keep every bar of the pattern within limit (centre
 // distance along the face) of a restrained bar, the corners being held by the perimeter link,
 // EN 1992-1-1:2004 9.5.3(6). The pattern is taken to fit the geometry.
+//
+// A ring's bars are all held by its circular link or helix: no extra ties.
 func (g Geometry) Restraint(p Pattern, limit float64) RestraintPlan {
+	if p.Ring > 0 {
+		return RestraintPlan{Limit: limit}
+	}
 	e := g.Edge(p.Dia)
 	r := RestraintPlan{Limit: limit,
 		AlongB: restrainFace(p.NB, (g.B-2*e)/float64(p.NB-1), limit),

@@ -258,6 +258,12 @@ func LeastWidth(id string, b, h trace.Q) trace.Step {
 		min(b.V, h.V), "min(b, h)", trace.A("b", b), trace.A("h", h))
 }
 
+// CircleWidth returns the width of a circular column that EN 1992-1-2:2004 5.3.2 takes: its
+// diameter, for bmin of Table 5.2a and for b' of Eq. (5.7) ("the diameter for circular sections").
+func CircleWidth(id, title, clause, symbol string, d trace.Q) trace.Step {
+	return trace.Formula(id, title, en2+clause, symbol, "mm", d.V, "D", trace.A("D", d))
+}
+
 // AxisDistance returns the axis distance of the main bars a = c + φt + φ/2 with c the cover to
 // the links, EN 1992-1-2:2004 Figure 5.2.
 func AxisDistance(id string, cover, link, dia trace.Q) trace.Step {

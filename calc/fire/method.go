@@ -10,7 +10,8 @@ import (
 
 // Column is what the fire checks need of one column and lift, as traced quantities in engine units.
 type Column struct {
-	B, H         trace.Q // section width along y and depth along z, mm
+	B, H         trace.Q // section width along y and depth along z, mm; both the diameter of a circle
+	Circle       bool    // a circular section of diameter B
 	Ac           trace.Q // concrete area, mm²
 	Fck          trace.Q // characteristic cylinder strength, MPa: Section 5 holds up to C50/60
 	Cover        trace.Q // nominal cover to the links, mm
@@ -231,7 +232,12 @@ func Assess(l *trace.Log, prefix string, rating int, muFi trace.Q, c Column) Out
 		scope(l, TableScope(prefix+"scope_mu", rating, muFi), fmt.Sprintf("Table 5.2a at R%d stops at μfi = %g (μfi = %.3f)", rating, MuMaxValue(rating), muFi.V), c.MuFixed),
 	}
 	if tab.applies() {
-		b := l.Add(LeastWidth(prefix+"b", c.B, c.H))
+		var b trace.Q
+		if c.Circle {
+			b = l.Add(CircleWidth(prefix+"b", "Width of the circular column for Table 5.2a: its diameter", "5.3.2, Table 5.2a", "b", c.B))
+		} else {
+			b = l.Add(LeastWidth(prefix+"b", c.B, c.H))
+		}
 		b1 := l.Add(AlternativeWidth(prefix+"b_1", rating, 0, muFi))
 		a1 := l.Add(AlternativeAxis(prefix+"a_1", rating, 0, muFi))
 		b2 := l.Add(AlternativeWidth(prefix+"b_2", rating, 1, muFi))
@@ -251,12 +257,19 @@ func Assess(l *trace.Log, prefix string, rating int, muFi trace.Q, c Column) Out
 	// Eq. (5.7) of the same method, within its limits.
 	p57 := prefix + "eq57/"
 	var eq route
-	bEq := l.Add(EquivalentWidth(p57+"b_eq", c.Ac, c.B, c.H))
+	var bEq trace.Q
+	if c.Circle {
+		bEq = l.Add(CircleWidth(p57+"b_eq", "Equivalent width of the circular section: its diameter", "5.3.2(3), Eq. (5.7)", "b'", c.B))
+	} else {
+		bEq = l.Add(EquivalentWidth(p57+"b_eq", c.Ac, c.B, c.H))
+	}
 	eq.conds = []cond{
 		scope(l, L0FiCondition57(p57+"cond_l0", c.L0Fi), fmt.Sprintf("Eq. (5.7) needs l0,fi ≤ 6 m (l0,fi = %.2f m)", c.L0Fi.V/1000), true),
 		scope(l, AxisCondition57(p57+"cond_a", a), fmt.Sprintf("Eq. (5.7) needs a ≥ 25 mm (a = %.1f mm)", a.V), false),
 		scope(l, WidthCondition57(p57+"cond_b", bEq), fmt.Sprintf("Eq. (5.7) needs b' ≥ 200 mm (b' = %.1f mm)", bEq.V), true),
-		scope(l, AspectCondition(p57+"cond_h", c.B, c.H), fmt.Sprintf("Eq. (5.7) needs h ≤ 1.5·b (%.0f mm > 1.5 × %.0f mm)", max(c.B.V, c.H.V), min(c.B.V, c.H.V)), true),
+	}
+	if !c.Circle {
+		eq.conds = append(eq.conds, scope(l, AspectCondition(p57+"cond_h", c.B, c.H), fmt.Sprintf("Eq. (5.7) needs h ≤ 1.5·b (%.0f mm > 1.5 × %.0f mm)", max(c.B.V, c.H.V), min(c.B.V, c.H.V)), true))
 	}
 	if eq.applies() {
 		rEta := l.Add(REta(p57+"R_eta", muFi, c.Omega, c.AlphaCc))

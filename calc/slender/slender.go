@@ -94,6 +94,22 @@ func RadiusOfGyration(id string, depth trace.Q) trace.Step {
 		depth.V/math.Sqrt(12), "h / sqrt(12)", trace.A("h", depth))
 }
 
+// RadiusOfGyrationCircle returns i = √(Ic/Ac) = D/4 of a circular section,
+// EN 1992-1-1:2004 5.8.3.2(1) (geometry of the circle).
+func RadiusOfGyrationCircle(id string, d trace.Q) trace.Step {
+	return trace.Formula(id, "Radius of gyration of the circular concrete section", ec2+"5.8.3.2(1)", "i", "mm",
+		d.V/4, "D / 4", trace.A("D", d))
+}
+
+// RingGyration returns the radius of gyration of n ≥ 3 equal bars evenly spaced on a circle of
+// radius rs about any axis through its centre, is = rs/√2, EN 1992-1-1:2004 5.8.8.3(2): with the
+// bars at angles ψk, Σ cos²ψk = n/2 for n ≥ 3 (geometry).
+func RingGyration(id string, rs trace.Q) trace.Step {
+	return trace.Formula(id, "Radius of gyration of the reinforcement on the circle", ec2+"5.8.8.3(2)", "i_s", "mm",
+		rs.V/math.Sqrt2, "r_s / sqrt(2)", trace.A("r_s", rs)).
+		Note("n ≥ 3 equal bars evenly on a circle have the same radius of gyration about every axis through the centre.")
+}
+
 // Slenderness returns λ = l0/i, EN 1992-1-1:2004 5.8.3.2(1), Eq. (5.14).
 func Slenderness(id string, l0, i trace.Q) trace.Step {
 	return trace.Formula(id, "Slenderness ratio", ec2+"5.8.3.2(1), Eq. (5.14)", "λ", "", l0.V/i.V,

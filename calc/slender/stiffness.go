@@ -285,3 +285,13 @@ func BucklingRatioValue(nEd, nB float64) float64 {
 	}
 	return 0
 }
+
+// CircleInertiaValue returns the second moment of area of a circle of diameter d, π·d⁴/64.
+func CircleInertiaValue(d float64) float64 { return math.Pi * math.Pow(d, 4) / 64 }
+
+// CircleInertia returns Ic = π·D⁴/64 of a circular section for the nominal stiffness,
+// EN 1992-1-1:2004 5.8.7.2(1) (geometry of the circle).
+func CircleInertia(id string, d trace.Q) trace.Step {
+	return trace.Formula(id, "Second moment of area of the circular concrete section", ec2+"5.8.7.2(1)", "I_c", "mm4",
+		CircleInertiaValue(d.V), "3.141592653589793 * D ** 4 / 64", trace.A("D", d)).Shown("pi * D ** 4 / 64")
+}

@@ -15,6 +15,8 @@ var Functions = map[string]govaluate.ExpressionFunction{
 	"sqrt":  unary(math.Sqrt),
 	"abs":   unary(math.Abs),
 	"floor": unary(math.Floor),
+	"sin":   unary(math.Sin),
+	"asin":  unary(math.Asin),
 }
 
 func unary(f func(float64) float64) govaluate.ExpressionFunction {
