@@ -67,6 +67,20 @@ func columnSize(b *model.Building, id, level string) model.Size {
 	return s
 }
 
+// columnWeight records the section of a column over a lift, the storey height and the
+// self-weight of the lift, and returns the self-weight.
+func columnWeight(l *trace.Log, size model.Size, rho trace.Q, height float64) trace.Q {
+	if size.Shape == model.ShapeCircle {
+		dq := l.Add(trace.Input("td/D", "Column diameter (circular column)", "input", "D", "mm", size.B))
+		hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", height))
+		return l.Add(CircularColumnSelfWeight("td/G_col", rho, dq, hgt))
+	}
+	bq := l.Add(trace.Input("td/b", "Column width (along building y)", "input", "b", "mm", size.B))
+	hq := l.Add(trace.Input("td/h", "Column depth (along building x)", "input", "h", "mm", size.H))
+	hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", height))
+	return l.Add(ColumnSelfWeight("td/G_col", rho, bq, hq, hgt))
+}
+
 // Derive derives the design actions of every column and lift of the building form.
 func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 	b := in.Building
@@ -272,10 +286,7 @@ func (c *columnState) lift(in *model.Input, g *Grid, levels []Level, k int, sets
 	if b.Options.Reduction == model.ReduceArea && len(qk) > 0 {
 		alphaA = reduceForArea(l, st.Name, ll, qk)
 	}
-	bq := l.Add(trace.Input("td/b", "Column width (along building y)", "input", "b", "mm", size.B))
-	hq := l.Add(trace.Input("td/h", "Column depth (along building x)", "input", "h", "mm", size.H))
-	hgt := l.Add(trace.Input("td/H", "Storey height", "input", "H", "mm", st.Height))
-	sw := l.Add(ColumnSelfWeight("td/G_col", rho, bq, hq, hgt))
+	sw := columnWeight(l, size, rho, st.Height)
 	l.Group = "Cumulative characteristic loads at the bottom of lift " + st.Name
 	parts := []trace.Q{ll.g, sw}
 	if c.above.g.From != "" {

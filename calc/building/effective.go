@@ -55,7 +55,11 @@ func effectiveLengths(in *model.Input, levels []Level, lifts []Lift) {
 					lf := lifts[c]
 					ei := eCol[c].Ecm * inPlaneI(lf.Size, d)
 					hc, _ := clear(c, d)
-					cols = append(cols, l.Add(trace.Formula(pre+name+"/col"+itoa(c+1), "Stiffness EI/l of the column over lift "+lf.Name, "EN 1992-1-1:2004 5.8.3.2(3)", "EI/l", "Nmm",
+					title := "Stiffness EI/l of the column over lift " + lf.Name
+					if lf.Size.Shape == model.ShapeCircle {
+						title = "Stiffness EI/l of the circular column over lift " + lf.Name + ", I = π·D⁴/64"
+					}
+					cols = append(cols, l.Add(trace.Formula(pre+name+"/col"+itoa(c+1), title, "EN 1992-1-1:2004 5.8.3.2(3)", "EI/l", "Nmm",
 						ei/hc, "E * I / l", trace.A("E", ecmConst(in, eCol[c])), trace.A("I", trace.Const(inPlaneI(lf.Size, d), "I_c", "mm4")), trace.A("l", trace.Const(hc, "l", "mm")))))
 				}
 				var beams []trace.Q

@@ -42,8 +42,12 @@ func (lv *Level) beamsAt(d Dir, i, j int) (left, right int) {
 }
 
 // inPlaneI returns the second moment of area of a column section for bending in the frames
-// of direction d: frames along x bend it about section axis y (lever arm h, along x).
+// of direction d: frames along x bend it about section axis y (lever arm h, along x); a circle
+// has π·D⁴/64 about every axis.
 func inPlaneI(s model.Size, d Dir) float64 {
+	if s.Shape == model.ShapeCircle {
+		return math.Pi * s.B * s.B * s.B * s.B / 64
+	}
 	if d == DirX {
 		return s.B * s.H * s.H * s.H / 12
 	}
@@ -152,8 +156,7 @@ func joint(l *trace.Log, in *model.Input, levels []Level, lifts []Lift, m int, d
 	// Columns above and below the joint.
 	colK := func(lift int, name string, pinnedFar bool, e trace.Q) *trace.Q {
 		lf := lifts[lift]
-		iq := l.Add(trace.Formula(pre+name+"/I", "Second moment of area of the column "+name+" in the frame's plane", "common practice", "I_c,"+name, "mm4",
-			inPlaneI(lf.Size, d), iExpr(d), trace.A("b", trace.Const(lf.Size.B, "b", "mm")), trace.A("h", trace.Const(lf.Size.H, "h", "mm"))))
+		iq := l.Add(columnI(pre+name+"/I", name, lf.Size, d))
 		lq := l.Add(trace.Input(pre+name+"/L", "Height of the column "+name, "input", "L_c,"+name, "mm", lf.Height))
 		k := trace.Const(1, "k_c", "")
 		if pinnedFar {
@@ -244,6 +247,18 @@ func factorSteps(l *trace.Log, pre string, p code.Params, sets []loadSet) {
 	for _, n := range names {
 		l.Add(actions.ParamStep(pre+n, p, n, ""))
 	}
+}
+
+// columnI returns the step of the second moment of area of the column called name, of section
+// s, in the plane of the frames of direction d: b·h³/12 of a rectangle, π·D⁴/64 of a circle
+// (geometry, common practice).
+func columnI(id, name string, s model.Size, d Dir) trace.Step {
+	if s.Shape == model.ShapeCircle {
+		return trace.Formula(id, "Second moment of area of the circular column "+name, "common practice", "I_c,"+name, "mm4",
+			inPlaneI(s, d), "pi * D ** 4 / 64", trace.A("pi", piConst), trace.A("D", trace.Const(s.B, "D", "mm")))
+	}
+	return trace.Formula(id, "Second moment of area of the column "+name+" in the frame's plane", "common practice", "I_c,"+name, "mm4",
+		inPlaneI(s, d), iExpr(d), trace.A("b", trace.Const(s.B, "b", "mm")), trace.A("h", trace.Const(s.H, "h", "mm")))
 }
 
 func iExpr(d Dir) string {

@@ -2,6 +2,7 @@ package building
 
 import (
 	"maps"
+	"math"
 	"slices"
 	"strings"
 
@@ -212,6 +213,17 @@ func Sum(id, title, clause, symbol, unit string, qs []trace.Q) trace.Step {
 func ColumnSelfWeight(id string, rho, b, h, height trace.Q) trace.Step {
 	return memberWeight(id, "Self-weight of the column over the lift", "G_col", rho, b, h, "H", height)
 }
+
+// CircularColumnSelfWeight returns the weight of one lift of a circular column of diameter d,
+// ρ·π·D²/4·H, EN 1991-1-1:2002 Annex A, Table A.1.
+func CircularColumnSelfWeight(id string, rho, d, height trace.Q) trace.Step {
+	return trace.Formula(id, "Self-weight of the circular column over the lift", en1991+"Annex A, Table A.1", "G_col", "N",
+		rho.V*math.Pi*d.V*d.V/4*height.V, "rho * pi * D ** 2 / 4 * H",
+		trace.A("rho", rho), trace.A("pi", piConst), trace.A("D", d), trace.A("H", height))
+}
+
+// piConst is π as an argument of an expression.
+var piConst = trace.Const(math.Pi, "π", "")
 
 // memberWeight returns the weight ρ·b·h·l of a member of section b × h and length l (named ln in
 // the expression), EN 1991-1-1:2002 Annex A, Table A.1.
