@@ -48,6 +48,11 @@ func (s *stage) has(name string) bool {
 // create writes the new file name (a slash path below the output folder) by fill, through a
 // buffer, taking its size and SHA-256 as it goes; the file is readable by all.
 func (s *stage) create(name string, fill func(w io.Writer) error) error {
+	return s.make(name, fill, true)
+}
+
+// make writes the new file name by fill as create does, through a buffer where buffered.
+func (s *stage) make(name string, fill func(w io.Writer) error, buffered bool) error {
 	if name == "" || path.Clean(name) != name || strings.HasPrefix(name, "/") || strings.HasPrefix(name, "../") {
 		return fmt.Errorf("writing %s: not a path below the output folder", name)
 	}
@@ -67,11 +72,14 @@ func (s *stage) create(name string, fill func(w io.Writer) error) error {
 	}
 	h := sha256.New()
 	n := &counter{}
-	if err == nil {
+	switch {
+	case err == nil && buffered:
 		bw := bufio.NewWriterSize(io.MultiWriter(f, h, n), 1<<16)
 		if err = fill(bw); err == nil {
 			err = bw.Flush()
 		}
+	case err == nil:
+		err = fill(io.MultiWriter(f, h, n))
 	}
 	if e := f.Close(); err == nil {
 		err = e
@@ -89,12 +97,12 @@ func (s *stage) create(name string, fill func(w io.Writer) error) error {
 	return nil
 }
 
-// put writes the new file name with data.
+// put writes the new file name with data, in one write (no buffer to fill).
 func (s *stage) put(name string, data []byte) error {
-	return s.create(name, func(w io.Writer) error {
+	return s.make(name, func(w io.Writer) error {
 		_, err := w.Write(data)
 		return err
-	})
+	}, false)
 }
 
 // read returns the file name written into the stage.
