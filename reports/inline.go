@@ -1,6 +1,9 @@
 package reports
 
-import "strings"
+import (
+	"strings"
+	"sync"
+)
 
 // The document tree. Each output (a sheet, the index, the calc document) is built once as a
 // format-neutral tree: the views (sheetView, docView and the node kinds they hold: groups of
@@ -46,6 +49,24 @@ type drawing interface {
 	PGF() string
 }
 
+// drawn is a drawing printed once per form: the tree of a page is printed in every format,
+// and Markdown and HTML both show the SVG. It may be printed on several goroutines at once.
+type drawn struct {
+	g        drawing
+	svg, pgf sync.Once
+	s, p     string
+}
+
+func (d *drawn) SVG() string {
+	d.svg.Do(func() { d.s = d.g.SVG() })
+	return d.s
+}
+
+func (d *drawn) PGF() string {
+	d.pgf.Do(func() { d.p = d.g.PGF() })
+	return d.p
+}
+
 // target is where a link leads: an anchor on a sheet of the same set ("" for the page being
 // printed, "index" for the index sheet) or, with file set, a per-lift sheet that the calc
 // document names (printed per format: ../md/X.md, ../html/X.html, or no link in LaTeX).
@@ -66,7 +87,7 @@ func qty(v float64, u string) inline      { return inline{{kind: sQty, v: v, tex
 func formula(ps []piece) inline           { return inline{{kind: sFormula, pieces: ps}} }
 func link(label inline, to target) inline { return inline{{kind: sLink, inner: label, to: &to}} }
 func changed(in inline) inline            { return inline{{kind: sChanged, inner: in}} }
-func picture(g drawing) inline            { return inline{{kind: sPicture, fig: g}} }
+func picture(g drawing) inline            { return inline{{kind: sPicture, fig: &drawn{g: g}}} }
 
 // cat joins runs.
 func cat(parts ...inline) inline {
