@@ -95,6 +95,7 @@ type jsonBars struct {
 }
 
 type jsonLinks struct {
+	Type           string   `json:"type"` // design.LinksRect, LinksCircular or LinksHelix
 	Dia            float64  `json:"dia_mm"`
 	Spacing        float64  `json:"spacing_mm"`
 	SpacingReduced float64  `json:"spacing_reduced_mm"`
@@ -108,6 +109,8 @@ type jsonDesign struct {
 	Storey        string      `json:"storey"`
 	B             float64     `json:"b_mm"`
 	H             float64     `json:"h_mm"`
+	Shape         string      `json:"shape"`          // "rectangle" or "circle"
+	D             *float64    `json:"D_mm,omitempty"` // the diameter of a circle
 	Cover         float64     `json:"cover_mm"`
 	Fck           float64     `json:"fck_MPa"`
 	Fyk           float64     `json:"fyk_MPa"`
@@ -362,16 +365,20 @@ func designJSON(d design.Design) jsonDesign {
 		pos = [][2]float64{}
 	}
 	out := jsonDesign{
-		Column: d.Column, Storey: d.Storey, B: d.B, H: d.H, Cover: d.Cover, Fck: d.Fck, Fyk: d.Fyk,
+		Column: d.Column, Storey: d.Storey, B: d.B, H: d.H, Shape: shapeName(d), Cover: d.Cover, Fck: d.Fck, Fyk: d.Fyk,
 		NEd:     d.NEd / 1e3,
 		Axes:    jsonAxes{Y: axisJSON(d.Y), Z: axisJSON(d.Z)},
 		Biaxial: jsonBiaxial{Checked: d.Biaxial.Checked, A: d.Biaxial.A, Ratio: d.Biaxial.Ratio},
 		AsReq:   d.AsReq, AsMin: d.AsMin, AsMax: d.AsMax, AsProv: d.AsProv,
 		Bars: jsonBars{Count: d.Bars.Count, Dia: d.Bars.Dia, Positions: pos},
-		Links: jsonLinks{Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
+		Links: jsonLinks{Type: linkType(d), Dia: d.Links.Dia, Spacing: d.Links.Spacing, SpacingReduced: d.Links.SpacingReduced,
 			SpacingLap: d.Detailing.LapLinkSpacing, LapCount: d.Detailing.LapLinks, SpacingShear: positive(d.Links.SpacingShear)},
 		Utilization: d.Utilization, Status: d.Status, Governing: d.Governing, Steps: len(d.Steps),
 		NRdMax: d.NRdMax / 1e3, Reasons: nonNil(d.Reasons), Cautions: nonNil(d.Cautions),
+	}
+	if circular(d) {
+		dia := d.B
+		out.D = &dia
 	}
 	out.GoverningCase = d.GoverningCase
 	out.Cases = []jsonCase{}

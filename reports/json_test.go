@@ -180,40 +180,101 @@ func TestWriteJSONIsWholeEncoding(t *testing.T) {
 	} {
 		r := runFile(t, tc.file, tc.src)
 		design.AddInteraction(r)
-		var streamed bytes.Buffer
-		if err := WriteJSON(&streamed, r); err != nil {
+		wholeEncoding(t, tc.name, r)
+	}
+}
+
+// wholeEncoding checks that results.json of r streamed is the whole document encoded at once.
+func wholeEncoding(t *testing.T, name string, r *design.Result) {
+	t.Helper()
+	var streamed bytes.Buffer
+	if err := WriteJSON(&streamed, r); err != nil {
+		t.Fatal(err)
+	}
+	// jsonResult with the code read back as it stands (its overrides only marshal).
+	var whole struct {
+		Tool        jsonTool          `json:"tool"`
+		InputSHA256 string            `json:"input_sha256"`
+		Code        json.RawMessage   `json:"code"`
+		Designs     []jsonDesign      `json:"designs"`
+		Sizes       []jsonSize        `json:"size_search,omitempty"`
+		Basis       []jsonStep        `json:"basis"`
+		Forms       []json.RawMessage `json:"forms"`
+	}
+	if err := json.Unmarshal(streamed.Bytes(), &whole); err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+	if len(whole.Designs) != len(r.Designs) || len(whole.Designs) == 0 || (r.Designs[0].Interaction != nil) != (whole.Designs[0].Interaction != nil) {
+		t.Fatalf("%s: %d designs read back of %d", name, len(whole.Designs), len(r.Designs))
+	}
+	var again bytes.Buffer
+	enc := json.NewEncoder(&again)
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(whole); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(streamed.Bytes(), again.Bytes()) {
+		a, b := streamed.Bytes(), again.Bytes()
+		i := 0
+		for i < len(a) && i < len(b) && a[i] == b[i] {
+			i++
+		}
+		t.Errorf("%s: streamed results.json differs from the whole encoding at byte %d of %d/%d", name, i, len(a), len(b))
+	}
+}
+
+// Every design names its shape right after h_mm ("rectangle" or "circle"), a circle its
+// diameter D_mm after that, and its links their type first (rectangular, circular or helix; a
+// design that names none gets the kind of its shape); streamed, the file is still the whole
+// encoding (common practice, no source: the keys agreed for circular columns).
+func TestJSONCircle(t *testing.T) {
+	for _, tc := range []struct {
+		links string
+		want  []string
+	}{
+		{design.LinksHelix, []string{`"b_mm":450,"h_mm":450,"shape":"circle","D_mm":450,"cover_mm":40,`, `"links":{"type":"helix","dia_mm":8,`,
+			`"b_mm":300,"h_mm":300,"shape":"rectangle","cover_mm":35,`, `"links":{"type":"rectangular","dia_mm":6,`}},
+		{design.LinksCircular, []string{`"shape":"circle","D_mm":450,`, `"links":{"type":"circular","dia_mm":8,`}},
+		{"", []string{`"shape":"circle","D_mm":450,`, `"links":{"type":"circular","dia_mm":8,`}},
+	} {
+		r := circleSample(t, tc.links)
+		b, err := JSON(r)
+		if err != nil {
 			t.Fatal(err)
 		}
-		// jsonResult with the code read back as it stands (its overrides only marshal).
-		var whole struct {
-			Tool        jsonTool          `json:"tool"`
-			InputSHA256 string            `json:"input_sha256"`
-			Code        json.RawMessage   `json:"code"`
-			Designs     []jsonDesign      `json:"designs"`
-			Sizes       []jsonSize        `json:"size_search,omitempty"`
-			Basis       []jsonStep        `json:"basis"`
-			Forms       []json.RawMessage `json:"forms"`
-		}
-		if err := json.Unmarshal(streamed.Bytes(), &whole); err != nil {
-			t.Fatalf("%s: %v", tc.name, err)
-		}
-		if len(whole.Designs) != len(r.Designs) || len(whole.Designs) == 0 || whole.Designs[0].Interaction == nil {
-			t.Fatalf("%s: %d designs read back of %d", tc.name, len(whole.Designs), len(r.Designs))
-		}
-		var again bytes.Buffer
-		enc := json.NewEncoder(&again)
-		enc.SetEscapeHTML(false)
-		if err := enc.Encode(whole); err != nil {
-			t.Fatal(err)
-		}
-		if !bytes.Equal(streamed.Bytes(), again.Bytes()) {
-			a, b := streamed.Bytes(), again.Bytes()
-			i := 0
-			for i < len(a) && i < len(b) && a[i] == b[i] {
-				i++
+		for _, w := range tc.want {
+			if !bytes.Contains(b, []byte(w)) {
+				t.Errorf("%q: results.json lacks %s", tc.links, w)
 			}
-			t.Errorf("%s: streamed results.json differs from the whole encoding at byte %d of %d/%d", tc.name, i, len(a), len(b))
 		}
+		if n := bytes.Count(b, []byte(`"D_mm"`)); n != 1 {
+			t.Errorf("%q: D_mm given %d times, want once (the circle only)", tc.links, n)
+		}
+		var doc struct {
+			Designs []struct {
+				Shape string   `json:"shape"`
+				D     *float64 `json:"D_mm"`
+				B     float64  `json:"b_mm"`
+				Bars  jsonBars `json:"bars"`
+			} `json:"designs"`
+		}
+		if err := json.Unmarshal(b, &doc); err != nil {
+			t.Fatal(err)
+		}
+		c := doc.Designs[0]
+		if c.Shape != "circle" || c.D == nil || *c.D != 450 || len(c.Bars.Positions) != 8 {
+			t.Errorf("%q: circle read back as %+v", tc.links, c)
+		}
+		// The bars read back on their circle, 450/2 − 40 − 8 − 20/2 = 167 mm from the centre (geometry).
+		for _, p := range c.Bars.Positions {
+			if math.Abs(math.Hypot(p[0], p[1])-167) > 1e-9 {
+				t.Errorf("%q: bar at (%g, %g), not on the circle of radius 167", tc.links, p[0], p[1])
+			}
+		}
+		wholeEncoding(t, "circle "+tc.links, r)
+		// The interaction data of a circle (both curves in its worst direction) stream alike.
+		r.Designs[0].Interaction = engineDesign(t).Interaction
+		wholeEncoding(t, "circle with curves "+tc.links, r)
 	}
 }
 

@@ -312,13 +312,13 @@ func TestJSONContract(t *testing.T) {
 		{"overrides", doc["code"].(map[string]any)["overrides"], []string{"alpha_cc"}},
 		{"design", d0, []string{"As_max_mm2", "As_min_mm2", "As_prov_mm2", "As_req_mm2", "NEd_kN", "NRd_max_kN",
 			"axes", "b_mm", "bars", "biaxial", "cases", "cautions", "column", "cover_mm", "fck_MPa", "fyk_MPa", "governing",
-			"governing_case", "h_mm", "links", "reasons", "status", "steps", "storey", "trace", "utilization"}},
+			"governing_case", "h_mm", "links", "reasons", "shape", "status", "steps", "storey", "trace", "utilization"}},
 		{"axes", d0["axes"], []string{"y", "z"}},
 		{"axis y", d0["axes"].(map[string]any)["y"], axis},
 		{"axis z", d0["axes"].(map[string]any)["z"], axis},
 		{"biaxial", d0["biaxial"], []string{"a", "checked", "ratio"}},
 		{"bars", d0["bars"], []string{"count", "dia_mm", "positions_mm"}},
-		{"links", d0["links"], []string{"dia_mm", "spacing_mm", "spacing_reduced_mm", "spacing_shear_mm", "spacing_lap_mm", "lap_count"}},
+		{"links", d0["links"], []string{"type", "dia_mm", "spacing_mm", "spacing_reduced_mm", "spacing_shear_mm", "spacing_lap_mm", "lap_count"}},
 	}
 	for _, tc := range tests {
 		m, ok := tc.obj.(map[string]any)
