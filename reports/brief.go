@@ -69,6 +69,9 @@ var chain = []string{
 	"*/e2", "*/M2", "*/MEd_curv", "*/NB", "*/MEd_stiff", "*/MEd",
 	"sec/NRd_max", "sec/NRd_t", "*/sec/x", "*/sec/M_Rd",
 	"bi/a", "bi/ratio", "bi/exact/check", "bi/exact/none",
+	// Circular sections: the ring of bars, the direction of least resistance, its equilibrium and
+	// the resultant moment.
+	"bars/r_s", "space/gap_c", "sec/theta", "sec/x", "sec/M_Rd", "bi/M_Ed",
 	// Steel, links, laps, ties.
 	"bars/As",
 	"links/s", "links/s_zone",

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"colsheet/calc/design"
+	"colsheet/calc/model"
 	"colsheet/calc/section"
 )
 
@@ -55,11 +56,20 @@ func diagrams(d design.Design) []diagram {
 	fN, uN := DisplayUnit("N")
 	fM, uM := DisplayUnit("Nmm")
 	var out []diagram
-	for _, ax := range []struct {
+	type nmAxis struct {
 		name, axis string
 		curve      []section.NMPoint
 		a          design.Axis
-	}{{"nm-y", "y", d.Interaction.NMY, d.Y}, {"nm-z", "z", d.Interaction.NMZ, d.Z}} {
+	}
+	axes := []nmAxis{{"nm-y", "y", d.Interaction.NMY, d.Y}, {"nm-z", "z", d.Interaction.NMZ, d.Z}}
+	if d.Shape == model.ShapeCircle {
+		// A circle: one diagram in the direction of least resistance, with the resultant design
+		// moment and the least resistance (the engine's values).
+		res := d.Y
+		res.MEd = d.Biaxial.Ratio * d.Y.MRd
+		axes = []nmAxis{{"nm", "", d.Interaction.NMY, res}}
+	}
+	for _, ax := range axes {
 		var pts []pt
 		for _, p := range ax.curve { // positive face compressed, N rising
 			pts = appendFinite(pts, p.M*fM, p.N*fN)
@@ -70,19 +80,23 @@ func diagrams(d design.Design) []diagram {
 		if len(pts) < 2 {
 			continue
 		}
+		title, sub := "N–M interaction about "+ax.axis, ","+ax.axis
+		if ax.axis == "" {
+			title, sub = "N–M interaction in the direction of least resistance", ""
+		}
 		g := diagram{
 			Name:  ax.name,
-			Title: "N–M interaction about " + ax.axis,
-			XSym:  "M_" + ax.axis, XUnit: uM,
+			Title: title,
+			XSym:  strings.TrimSuffix("M_"+ax.axis, "_"), XUnit: uM,
 			YSym: "N", YUnit: uN,
 			Curves: []curve{{Legend: "interaction curve", Points: pts}},
-			caption: "N–M interaction about " + ax.axis + " of the section with the bars provided, " +
+			caption: title + " of the section with the bars provided, " +
 				"with the design point and the resistance at NEd",
 		}
 		// Each tag names the point's coordinates in the order of the axes, (M, N).
-		g.Marks = appendMark(g.Marks, mark{Legend: "design point", Tag: "M_Ed," + ax.axis + ", N_Ed",
+		g.Marks = appendMark(g.Marks, mark{Legend: "design point", Tag: "M_Ed" + sub + ", N_Ed",
 			At: pt{ax.a.MEd * fM, d.NEd * fN}})
-		g.Marks = appendMark(g.Marks, mark{Legend: "resistance at N_Ed", Tag: "M_Rd," + ax.axis + ", N_Ed",
+		g.Marks = appendMark(g.Marks, mark{Legend: "resistance at N_Ed", Tag: "M_Rd" + sub + ", N_Ed",
 			At: pt{ax.a.MRd * fM, d.NEd * fN}, Hollow: true, Below: true})
 		g.fit()
 		out = append(out, g)

@@ -305,7 +305,43 @@ func barsText(d design.Design) string {
 }
 
 func linksText(d design.Design) string {
-	return fmt.Sprintf("Ø%s @ %s", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain())
+	s := fmt.Sprintf("Ø%s @ %s", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain())
+	switch d.Links.Type {
+	case design.LinksCircular:
+		return "circular " + s
+	case design.LinksHelix:
+		return "helix " + s
+	}
+	return s
+}
+
+// sectionRow is the summary row of the section: b × h, or the diameter of a circle.
+func sectionRow(d design.Design) kv {
+	if circular(d) {
+		return kv{txt("Section: circular, diameter D"), qty(d.B, "mm")}
+	}
+	return kv{txt("Section b × h"), times(qty(d.B, "mm"), qty(d.H, "mm"))}
+}
+
+// linksRow is the summary row of the links: their kind, diameter and spacings (a helix's pitch).
+func linksRow(d design.Design) kv {
+	what, at := "", " mm at "
+	switch d.Links.Type {
+	case design.LinksCircular:
+		what = "circular links "
+	case design.LinksHelix:
+		what, at = "helix ", " mm, pitch "
+	}
+	return kv{txt("Links"), cat(txt(what+"Ø"+fmtNum(d.Links.Dia).plain()+at), qty(d.Links.Spacing, "mm"),
+		txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))}
+}
+
+// sizeText names a section in mm: "450 × 600", or "Ø450" for a circle.
+func sizeText(b, h float64, shape string) string {
+	if shape == model.ShapeCircle {
+		return "Ø" + fmtNum(b).plain()
+	}
+	return fmtNum(b).plain() + " × " + fmtNum(h).plain()
 }
 
 // index builds the view of the index sheet, with the steps of the project basis; link gives
@@ -326,10 +362,10 @@ func index(r *design.Result, link func(name string) target, b *book, p place) sh
 	}
 	v.Totals = totalCells(r.Quantities())
 	for _, z := range r.Sizes {
-		row := sizeRow{Column: txt(z.Column), Given: txt(fmtNum(z.Given.B).plain() + " × " + fmtNum(z.Given.H).plain()),
+		row := sizeRow{Column: txt(z.Column), Given: txt(sizeText(z.Given.B, z.Given.H, z.Given.Shape)),
 			Found: txt("none of the sizes passes"), Steel: txt("–"), Utilization: txt("–")}
 		if z.Found {
-			row.Found = txt(fmtNum(z.Size.B).plain() + " × " + fmtNum(z.Size.H).plain())
+			row.Found = txt(sizeText(z.Size.B, z.Size.H, z.Size.Shape))
 			row.Steel = txt(fmtNum(z.AsProv).plain() + " mm² (" + fmtNum(100*z.Rho).plain() + " %)")
 			row.Utilization = numv(fmtNum(z.Utilization))
 		}
@@ -339,7 +375,7 @@ func index(r *design.Result, link func(name string) target, b *book, p place) sh
 		st, failed := status(d.Status)
 		v.Designs = append(v.Designs, designRow{
 			Sheet: fmt.Sprint(i + 2), Link: link(nm[i]), Column: txt(d.Column), Storey: txt(d.Storey),
-			Section: txt(fmt.Sprintf("%s × %s", fmtNum(d.B).plain(), fmtNum(d.H).plain())),
+			Section: txt(sizeText(d.B, d.H, d.Shape)),
 			NEd:     numv(fmtNum(d.NEd / 1e3)), MEdY: numv(fmtNum(d.Y.MEd / 1e6)), MEdZ: numv(fmtNum(d.Z.MEd / 1e6)),
 			Bars: txt(barsText(d)), Links: txt(linksText(d)),
 			Utilization: numv(fmtNum(d.Utilization)), Status: st, Failed: failed})
@@ -378,18 +414,17 @@ func sheet(b *book, i int, p place) sheetView {
 		given = "given in the input"
 	}
 	v.Summary = []kv{
-		{txt("Section b × h"), times(qty(d.B, "mm"), qty(d.H, "mm"))},
+		sectionRow(d),
 		{txt("Nominal cover to links"), qty(d.Cover, "mm")},
 		{rich("Concrete f_ck"), cat(qty(d.Fck, "MPa"), txt(classNote(d.Class)))},
 		{rich("Reinforcement f_yk"), qty(d.Fyk, "MPa")},
 		{rich("Design axial force N_Ed"), qty(d.NEd, "N")},
 		{rich("Axial resistance N_Rd,max"), qty(d.NRdMax, "N")},
-		{txt("Longitudinal bars"), txt(barsText(d) + ", " + given)},
+		{txt("Longitudinal bars"), txt(barsText(d) + onCircle(d) + ", " + given)},
 		{rich("A_s,prov"), qty(d.AsProv, "mm2")},
 		{rich("A_s,req"), qty(d.AsReq, "mm2")},
 		{rich("A_s,min / A_s,max"), cat(qty(d.AsMin, "mm2"), txt(" / "), qty(d.AsMax, "mm2"))},
-		{txt("Links"), cat(txt("Ø"+fmtNum(d.Links.Dia).plain()+" mm at "), qty(d.Links.Spacing, "mm"),
-			txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))},
+		linksRow(d),
 	}
 	if in.MomentSigns == model.SignsMemberEnds {
 		v.Summary = append(v.Summary, kv{txt("End moments as given"), txt("member ends, clockwise positive at both ends (moment_signs: member-ends); shown here with the sign changed at the bottom, so that equal signs mean tension on the same face")})
@@ -397,7 +432,10 @@ func sheet(b *book, i int, p place) sheetView {
 	if len(d.Cases) > 1 {
 		v.Summary = append(v.Summary, kv{txt("Load cases"), txt(fmt.Sprintf("%d; governing: %s (the values of this sheet)", len(d.Cases), d.GoverningCase))})
 	}
-	if d.Biaxial.Checked {
+	if circular(d) {
+		v.Summary = append(v.Summary, kv{txt("Biaxial bending (resultant moment, 5.8.9(4), a = 2)"),
+			cat(txt("M_Ed / M_Rd = "), numv(fmtNum(d.Biaxial.Ratio)), txt(", M_Rd the least over the directions"))})
+	} else if d.Biaxial.Checked {
 		v.Summary = append(v.Summary, kv{txt("Biaxial bending (5.39)"),
 			cat(txt("checked, a = "), numv(fmtNum(d.Biaxial.A)), txt(", ratio "), numv(fmtNum(d.Biaxial.Ratio)))})
 	} else {

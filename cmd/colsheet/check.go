@@ -88,7 +88,11 @@ func writeTable(w io.Writer, ds []design.Design) error {
 		if d.Status != design.StatusPass {
 			verdict = "FAIL"
 		}
-		cells := []string{oneLine(d.Column), oneLine(d.Storey), sig4(d.B) + " × " + sig4(d.H), bars,
+		section := sig4(d.B) + " × " + sig4(d.H)
+		if d.Shape == model.ShapeCircle {
+			section = "Ø" + sig4(d.B)
+		}
+		cells := []string{oneLine(d.Column), oneLine(d.Storey), section, bars,
 			display(d.NEd, "N"), display(d.Y.MEd, "Nmm"), display(d.Z.MEd, "Nmm"), sig4(d.Utilization), verdict, oneLine(d.Governing)}
 		fmt.Fprintln(tw, strings.Join(cells, "\t"))
 	}
