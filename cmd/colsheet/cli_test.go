@@ -10,6 +10,9 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"colsheet/calc/input"
+	"colsheet/calc/model"
 )
 
 // Help, help COMMAND, COMMAND -h and COMMAND --help print the usage to stdout and exit 0; every
@@ -452,5 +455,78 @@ func TestSig4(t *testing.T) {
 		if got := sig4(c.v); got != c.want {
 			t.Errorf("sig4(%g) = %s, want %s", c.v, got, c.want)
 		}
+	}
+}
+
+// column takes a circular section by --D (and --helix) instead of --b and --h: the built input
+// reads back as a circle of B = H = D; the faults name their flags. The sizes are invented test
+// inputs; 0.45 m = 450 mm is common practice (SI prefixes), no source.
+func TestColumnCircle(t *testing.T) {
+	base := columnArgs{id: "R1", lift: "L1", cover: "40mm", fck: "32", fyk: "500MPa", ned: "2150kN", l0: "3.1m", my: "0,0", mz: "0,0"}
+	cases := []struct {
+		name  string
+		d     string
+		helix bool
+		bars  string
+		want  string // the section's lines of the built input
+		dia   float64
+	}{
+		{"diameter", "450mm", false, "", "    shape: circle\n    D: 450mm\n", 450},
+		{"metres and a helix", "0.45 m", true, "7x20", "    shape: circle\n    D: 0.45 m\n    helix: true\n", 450},
+	}
+	for _, c := range cases {
+		a := base
+		a.d, a.helix, a.bars = c.d, c.helix, c.bars
+		text, err := columnYAML(a, "2026-12-01")
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		if !strings.Contains(text, "  - id: \"R1\"\n"+c.want+"    cover: 40mm\n") {
+			t.Errorf("%s: built input\n%s", c.name, text)
+		}
+		in, err := input.Parse(columnInputName, []byte(text))
+		if err != nil {
+			t.Fatalf("%s: %v\n%s", c.name, err, text)
+		}
+		col := in.Columns[0]
+		if col.Shape != model.ShapeCircle || math.Abs(col.B-c.dia) > 1e-9 || col.B != col.H || col.Helix != c.helix {
+			t.Errorf("%s: column %+v", c.name, col)
+		}
+	}
+	// Usage errors: one line, exit 2, nothing designed.
+	circle := []string{"column", "--D", "450mm", "--cover", "40mm", "--fck", "32", "--NEd", "2150kN", "--l0", "3.1m"}
+	for _, c := range []struct {
+		args []string
+		want string
+	}{
+		{append(circle, "--b", "450mm"), "give --D for a circular column or --b and --h for a rectangular one, not both"},
+		{[]string{"column", "--b", "350mm", "--h", "500mm", "--helix", "--cover", "40mm", "--fck", "32", "--NEd", "2150kN", "--l0", "3.1m"},
+			"--helix binds the bars of a circular column: give its diameter with --D"},
+		{[]string{"column", "--cover", "40mm", "--fck", "32", "--NEd", "2150kN", "--l0", "3.1m"}, "--b is required (or --D for a circular column)"},
+	} {
+		code, stdout, stderr := runCLI(c.args...)
+		if code != 2 || stdout != "" || strings.Count(stderr, "\n") != 1 || !strings.Contains(stderr, c.want) {
+			t.Errorf("%q: exit %d, stdout %q, stderr %q; want %q", c.args, code, stdout, stderr, c.want)
+		}
+	}
+	// Faults of the input reader name the flag. The least of six bars on a circle is the
+	// reader's (see calc/input).
+	for _, c := range []struct {
+		args []string
+		want string
+	}{
+		{append(circle, "--bars", "4x20"), "colsheet column: --bars: a circular column takes at least 6 bars evenly on its circle, found 4"},
+		{append(circle[:1:1], append([]string{"--D", "100"}, circle[3:]...)...), "colsheet column: --D: 100 mm is outside the plausible range of the section side"},
+		{[]string{"column", "--D", "200", "--cover", "80", "--fck", "32", "--NEd", "2150kN", "--l0", "3.1m"},
+			"colsheet column: --cover: no room for links and bars: 2·(cover + link + bar) = 2·(80 + 8 + 12) = 200 mm is not less than D = 200 mm"},
+	} {
+		code, _, stderr := runCLI(c.args...)
+		if code != 2 || !strings.Contains(stderr, c.want) || strings.Contains(stderr, "columns[0]") {
+			t.Errorf("%q: exit %d, stderr %q; want %q", c.args, code, stderr, c.want)
+		}
+	}
+	// The usage lists the flags.
+	if _, out, _ := runCLI("column", "-h"); !strings.Contains(out, "--D DIAMETER") || !strings.Contains(out, "--helix") {
+		t.Errorf("column -h lacks --D or --helix:\n%s", out)
 	}
 }

@@ -18,7 +18,8 @@ import (
 // columnArgs are the values of one column given on the command line, as typed.
 type columnArgs struct {
 	id, lift, title      string
-	b, h, cover          string
+	b, h, d, cover       string
+	helix                bool
 	fck, concrete, fyk   string
 	ned, my, mz          string
 	l0, l0y, l0z         string
@@ -31,8 +32,10 @@ func columnFlags(c *columnArgs, o *options) *flagSet {
 	f.StringVar(&c.id, "id", "C1", "the column's `ID`")
 	f.StringVar(&c.lift, "lift", "L1", "the lift's `NAME`")
 	f.StringVar(&c.title, "title", "", "the project's `TITLE` on the sheets (default \"Column ID\")")
-	f.StringVar(&c.b, "b", "", "the section's width b, along y, a `LENGTH` such as 350mm or 0.35m (a plain number is mm; required)")
-	f.StringVar(&c.h, "h", "", "the section's depth h, along z, a `LENGTH` (required)")
+	f.StringVar(&c.b, "b", "", "the section's width b, along y, a `LENGTH` such as 350mm or 0.35m (a plain number is mm; required unless --D)")
+	f.StringVar(&c.h, "h", "", "the section's depth h, along z, a `LENGTH` (required unless --D)")
+	f.StringVar(&c.d, "D", "", "the `DIAMETER` of a circular column, a length, instead of --b and --h")
+	f.BoolVar(&c.helix, "helix", false, "with --D, the bars are bound by a helix rather than circular links")
 	f.StringVar(&c.cover, "cover", "", "the nominal cover to the links, a `LENGTH` (required)")
 	f.StringVar(&c.fck, "fck", "", "the concrete's characteristic strength in `MPa`, naming its class: 32 for C32/40 (this or --concrete required)")
 	f.StringVar(&c.concrete, "concrete", "", "the concrete's strength `CLASS` of EN 1992-1-1 Table 3.1, e.g. C32/40")
@@ -117,6 +120,9 @@ var columnFields = []struct{ field, flag string }{
 	{"columns[0].id", "--id"},
 	{"columns[0].b", "--b"},
 	{"columns[0].h", "--h"},
+	{"columns[0].D", "--D"},
+	{"columns[0].shape", "--D"},
+	{"columns[0].helix", "--helix"},
 	{"columns[0].cover", "--cover"},
 	{"columns[0].bars", "--bars"},
 	{"columns[0].storeys[0].name", "--lift"},
@@ -167,7 +173,11 @@ func scalar(s string) string {
 // columnYAML returns the input of the actions form that the values of c give, dated date; an
 // error is a usage error naming the flag.
 func columnYAML(c columnArgs, date string) (string, error) {
-	for _, r := range []struct{ v, flag string }{{c.b, "--b"}, {c.h, "--h"}, {c.cover, "--cover"}, {c.ned, "--NEd"}} {
+	section, err := sectionYAML(c)
+	if err != nil {
+		return "", err
+	}
+	for _, r := range []struct{ v, flag string }{{c.cover, "--cover"}, {c.ned, "--NEd"}} {
 		if strings.TrimSpace(r.v) == "" {
 			return "", usagef("%s is required", r.flag)
 		}
@@ -196,7 +206,7 @@ func columnYAML(c columnArgs, date string) (string, error) {
 	fmt.Fprintf(&b, "# The input of one column, built from the command line:\n# %s\n", oneLine(c.command))
 	fmt.Fprintf(&b, "project: {title: %s, date: %s}\n", scalar(title), scalar(date))
 	fmt.Fprintf(&b, "materials: {concrete: %s, fyk: %s}\n", scalar(class), scalar(c.fyk))
-	fmt.Fprintf(&b, "columns:\n  - id: %s\n    b: %s\n    h: %s\n    cover: %s\n", scalar(c.id), scalar(c.b), scalar(c.h), scalar(c.cover))
+	fmt.Fprintf(&b, "columns:\n  - id: %s\n%s    cover: %s\n", scalar(c.id), section, scalar(c.cover))
 	if c.bars != "" {
 		count, dia, err := barsOf(c.bars)
 		if err != nil {
@@ -210,6 +220,28 @@ func columnYAML(c columnArgs, date string) (string, error) {
 		fmt.Fprintf(&b, "        phi_ef: %s\n", scalar(c.phiEf))
 	}
 	return b.String(), nil
+}
+
+// sectionYAML returns the lines of the built input that give the section: b and h, or for a
+// circle (--D) the shape, D and the helix.
+func sectionYAML(c columnArgs) (string, error) {
+	circle := strings.TrimSpace(c.d) != ""
+	switch {
+	case circle && (strings.TrimSpace(c.b) != "" || strings.TrimSpace(c.h) != ""):
+		return "", usagef("give --D for a circular column or --b and --h for a rectangular one, not both")
+	case circle && c.helix:
+		return fmt.Sprintf("    shape: circle\n    D: %s\n    helix: true\n", scalar(c.d)), nil
+	case circle:
+		return fmt.Sprintf("    shape: circle\n    D: %s\n", scalar(c.d)), nil
+	case c.helix:
+		return "", usagef("--helix binds the bars of a circular column: give its diameter with --D")
+	}
+	for _, r := range []struct{ v, flag string }{{c.b, "--b"}, {c.h, "--h"}} {
+		if strings.TrimSpace(r.v) == "" {
+			return "", usagef("%s is required (or --D for a circular column)", r.flag)
+		}
+	}
+	return fmt.Sprintf("    b: %s\n    h: %s\n", scalar(c.b), scalar(c.h)), nil
 }
 
 // concreteClass returns the class that --fck (its fck) or --concrete names.
@@ -285,4 +317,9 @@ Lengths take a unit (350mm, 0.35m) or are mm; forces kN (2150kN or 2150); moment
 TOP,BOTTOM (85,-40: the same sign is tension on the same face). For example:
 
   colsheet column --b 350mm --h 500mm --cover 40mm --fck 32 --NEd 2150kN --My 85,-40 --Mz 10,10 --l0 3.1m
+
+A circular column gives its diameter with --D instead of --b and --h (--helix for a helix
+rather than circular links; --bars then counts at least 6 bars, evenly on the circle):
+
+  colsheet column --D 450mm --cover 40mm --fck 32 --NEd 2150kN --My 85,-40 --l0 3.1m --bars 8x20
 `
