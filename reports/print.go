@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"reflect"
 	"strings"
+	"sync"
 	"text/template"
 
 	"colsheet/calc/design"
@@ -92,7 +93,7 @@ func (f format) printer(files ...string) (*treePrinter, error) {
 // several goroutines at once.
 func (tp *treePrinter) print(name string, v any, link func(target) string) ([]byte, error) {
 	p := printer{m: tp.f.m, link: link}
-	return execute(tp.t, name, p.tree(reflect.ValueOf(v)))
+	return execute(tp.t, name, p.tree(v))
 }
 
 var (
@@ -100,43 +101,147 @@ var (
 	targetType = reflect.TypeOf(target{})
 )
 
-// tree turns a node of the document tree into what the templates read: each inline leaf
-// printed, each link target resolved, each struct a map of its fields (embedded ones merged).
-func (p printer) tree(v reflect.Value) any {
-	switch {
-	case v.Type() == inlineType:
-		return p.inline(v.Interface().(inline))
-	case v.Type() == targetType:
-		return p.link(v.Interface().(target))
+// tree turns the document tree v into what the templates read: each inline leaf printed, each
+// link target resolved, each struct a struct of its exported fields (embedded ones merged) of
+// the same names, leaves as strings.
+func (p printer) tree(v any) any {
+	rv := reflect.ValueOf(v)
+	if !rv.IsValid() {
+		return nil
 	}
-	switch v.Kind() {
-	case reflect.Pointer:
-		if v.IsNil() {
-			return nil
-		}
-		return p.tree(v.Elem())
-	case reflect.Struct:
-		out := map[string]any{}
-		p.fields(v, out)
-		return out
-	case reflect.Slice:
-		out := make([]any, v.Len())
-		for i := range out {
-			out[i] = p.tree(v.Index(i))
-		}
-		return out
+	c := shapeOf(rv.Type())
+	if c.kind == kCopy {
+		return v
 	}
-	return v.Interface()
+	// An addressable copy, so that the leaves are read in place, without boxing.
+	src := reflect.New(rv.Type()).Elem()
+	src.Set(rv)
+	dst := reflect.New(c.out).Elem()
+	p.fill(c, src, dst)
+	return dst.Interface()
 }
 
-func (p printer) fields(v reflect.Value, out map[string]any) {
-	for i := 0; i < v.NumField(); i++ {
-		f := v.Type().Field(i)
-		switch {
-		case f.Anonymous:
-			p.fields(v.Field(i), out)
-		case f.IsExported():
-			out[f.Name] = p.tree(v.Field(i))
+// A shape is how one type of the document tree is printed for the templates: its printed type
+// (out) and, for a struct, pointer or slice, how its parts are.
+type shape struct {
+	kind   shapeKind
+	out    reflect.Type
+	elem   *shape       // kPointer, kSlice
+	fields []fieldShape // kStruct
+}
+
+type shapeKind uint8
+
+const (
+	kCopy    shapeKind = iota // taken as it is
+	kInline                   // an inline run, printed as a string
+	kTarget                   // a link target, resolved as a string
+	kStruct                   // a struct of the printed exported fields
+	kPointer                  // a pointer to the printed element; nil stays nil
+	kSlice                    // a slice of the printed elements
+)
+
+// fieldShape is one exported field of a struct: where it is in the tree's struct (through
+// embedded structs) and in the printed one.
+type fieldShape struct {
+	src []int
+	dst int
+	s   *shape
+}
+
+var shapes sync.Map // reflect.Type to *shape
+
+// shapeOf returns the shape of the type t, made once.
+func shapeOf(t reflect.Type) *shape {
+	if s, ok := shapes.Load(t); ok {
+		return s.(*shape)
+	}
+	s, _ := shapes.LoadOrStore(t, makeShape(t))
+	return s.(*shape)
+}
+
+func makeShape(t reflect.Type) *shape {
+	switch {
+	case t == inlineType:
+		return &shape{kind: kInline, out: reflect.TypeOf("")}
+	case t == targetType:
+		return &shape{kind: kTarget, out: reflect.TypeOf("")}
+	}
+	switch t.Kind() {
+	case reflect.Pointer:
+		e := shapeOf(t.Elem())
+		if e.kind == kCopy {
+			return &shape{kind: kCopy, out: t}
+		}
+		return &shape{kind: kPointer, out: reflect.PointerTo(e.out), elem: e}
+	case reflect.Slice:
+		e := shapeOf(t.Elem())
+		if e.kind == kCopy {
+			return &shape{kind: kCopy, out: t}
+		}
+		return &shape{kind: kSlice, out: reflect.SliceOf(e.out), elem: e}
+	case reflect.Struct:
+		s := &shape{kind: kStruct}
+		var fields []reflect.StructField
+		at := map[string]int{} // a later field of the same name replaces an earlier one, as in a map
+		var walk func(t reflect.Type, path []int)
+		walk = func(t reflect.Type, path []int) {
+			for i := 0; i < t.NumField(); i++ {
+				f := t.Field(i)
+				p := append(append([]int(nil), path...), i)
+				switch {
+				case f.Anonymous && f.Type.Kind() == reflect.Struct:
+					walk(f.Type, p)
+				case f.IsExported():
+					fs := shapeOf(f.Type)
+					n, ok := at[f.Name]
+					if !ok {
+						n = len(fields)
+						at[f.Name] = n
+						fields = append(fields, reflect.StructField{Name: f.Name})
+						s.fields = append(s.fields, fieldShape{})
+					}
+					fields[n].Type = fs.out
+					s.fields[n] = fieldShape{src: p, dst: n, s: fs}
+				}
+			}
+		}
+		walk(t, nil)
+		s.out = reflect.StructOf(fields)
+		return s
+	}
+	return &shape{kind: kCopy, out: t}
+}
+
+// fill sets dst, of the printed type of c, from the addressable value v of the tree.
+func (p printer) fill(c *shape, v, dst reflect.Value) {
+	switch c.kind {
+	case kCopy:
+		dst.Set(v)
+	case kInline:
+		dst.SetString(p.inline(*v.Addr().Interface().(*inline)))
+	case kTarget:
+		dst.SetString(p.link(*v.Addr().Interface().(*target)))
+	case kPointer:
+		if !v.IsNil() {
+			n := reflect.New(c.elem.out)
+			p.fill(c.elem, v.Elem(), n.Elem())
+			dst.Set(n)
+		}
+	case kSlice:
+		n := v.Len()
+		out := reflect.MakeSlice(c.out, n, n)
+		for i := 0; i < n; i++ {
+			p.fill(c.elem, v.Index(i), out.Index(i))
+		}
+		dst.Set(out)
+	case kStruct:
+		for _, f := range c.fields {
+			fv := v.Field(f.src[0])
+			for _, i := range f.src[1:] {
+				fv = fv.Field(i)
+			}
+			p.fill(f.s, fv, dst.Field(f.dst))
 		}
 	}
 }
