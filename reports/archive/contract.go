@@ -41,8 +41,8 @@ type tie struct {
 // ties lists every numeric contract value of d with the step that produces it.
 func ties(d *resultsCase) []tie {
 	ts := []tie{
-		{"b_mm", d.B, 1, []string{"geo/b"}},
-		{"h_mm", d.H, 1, []string{"geo/h"}},
+		{"b_mm", d.B, 1, []string{"geo/b", "geo/D"}},
+		{"h_mm", d.H, 1, []string{"geo/h", "geo/D"}},
 		{"NEd_kN", d.NEd, 1e3, []string{"act/NEd", "td/NEd"}},
 		{"As_min_mm2", d.AsMin, 1, []string{"cases/As_min", "det/As_min"}},
 		{"As_max_mm2", d.AsMax, 1, []string{"det/As_max"}},
@@ -53,7 +53,7 @@ func ties(d *resultsCase) []tie {
 	}{{"y", &d.Axes.Y}, {"z", &d.Axes.Z}} {
 		ts = append(ts,
 			tie{"axes." + a.n + ".MEd_kNm", a.ax.MEd, 1e6, []string{a.n + "/MEd", a.n + "/MEd_curv", a.n + "/MEd_stiff"}},
-			tie{"axes." + a.n + ".MRd_kNm", a.ax.MRd, 1e6, []string{a.n + "/MRd", a.n + "/sec/M_Rd"}})
+			tie{"axes." + a.n + ".MRd_kNm", a.ax.MRd, 1e6, []string{a.n + "/MRd", a.n + "/sec/M_Rd", "sec/M_Rd"}})
 	}
 	for k, c := range d.Cases {
 		key, pre := fmt.Sprintf("cases[%d].", k), c.Prefix
@@ -64,7 +64,7 @@ func ties(d *resultsCase) []tie {
 		}{{"y", &c.Axes.Y}, {"z", &c.Axes.Z}} {
 			ts = append(ts,
 				tie{key + "axes." + a.n + ".MEd_kNm", a.ax.MEd, 1e6, []string{pre + a.n + "/MEd", pre + a.n + "/MEd_curv", pre + a.n + "/MEd_stiff"}},
-				tie{key + "axes." + a.n + ".MRd_kNm", a.ax.MRd, 1e6, []string{pre + a.n + "/MRd", pre + a.n + "/sec/M_Rd"}})
+				tie{key + "axes." + a.n + ".MRd_kNm", a.ax.MRd, 1e6, []string{pre + a.n + "/MRd", pre + a.n + "/sec/M_Rd", pre + "sec/M_Rd"}})
 		}
 	}
 	return append(ts,
@@ -151,6 +151,10 @@ func (r *Report) checkPositions(d *resultsCase, none bool) {
 		}
 		return
 	}
+	if _, circle := d.step("geo/D"); circle {
+		r.checkRing(d)
+		return
+	}
 	var v [7]float64
 	for k, id := range []string{"geo/b", "geo/h", "space/c_nom", "links/phi_t", "bars/nb", "bars/nh", "bars/phi"} {
 		s, ok := d.step(id)
@@ -170,6 +174,37 @@ func (r *Report) checkPositions(d *resultsCase, none bool) {
 		r.problem(d, "bars.count", "the step %s records %g bars, the bars per face (%d, %d) make %d", s.ID, s.Value, p.NB, p.NH, p.Count())
 	}
 	want := detail.Geometry{B: v[0], H: v[1], Cover: v[2], Link: v[3]}.Positions(p)
+	if len(d.Bars.Positions) != len(want) {
+		r.problem(d, "bars.positions_mm", "results.json lists %d positions, the bar steps place %d bars", len(d.Bars.Positions), len(want))
+		return
+	}
+	for i, w := range want {
+		got := d.Bars.Positions[i]
+		if math.Abs(got[0]-w[0]) > 1e-6 || math.Abs(got[1]-w[1]) > 1e-6 {
+			r.problem(d, fmt.Sprintf("bars.positions_mm[%d]", i), "results.json says (%.12g, %.12g), the bar steps place it at (%.12g, %.12g)", got[0], got[1], w[0], w[1])
+			return
+		}
+	}
+}
+
+// checkRing computes the positions of the bars of a circular section from the steps of the
+// diameter, the cover, the link, the number of bars and their diameter by detail.Geometry.Positions,
+// as the engine does, and compares them with bars.positions_mm.
+func (r *Report) checkRing(d *resultsCase) {
+	var v [5]float64
+	for k, id := range []string{"geo/D", "space/c_nom", "links/phi_t", "bars/count", "bars/phi"} {
+		s, ok := d.step(id)
+		if !ok {
+			r.problem(d, "bars.positions_mm", "the step %s/%s/%s, which places the bars, is missing", d.Column, d.Lift, id)
+			return
+		}
+		v[k] = s.Value
+	}
+	if n := v[3]; n != math.Trunc(n) || n < detail.RingMin || n > 1e4 {
+		r.problem(d, "bars.positions_mm", "the bars recorded on the circle (%g) are not a whole number of at least %d", n, detail.RingMin)
+		return
+	}
+	want := detail.Geometry{B: v[0], H: v[0], Cover: v[1], Link: v[2], Circle: true}.Positions(detail.Pattern{Dia: v[4], Ring: int(v[3])})
 	if len(d.Bars.Positions) != len(want) {
 		r.problem(d, "bars.positions_mm", "results.json lists %d positions, the bar steps place %d bars", len(d.Bars.Positions), len(want))
 		return
