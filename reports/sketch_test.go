@@ -634,3 +634,103 @@ func TestSketchShapeOnly(t *testing.T) {
 		t.Errorf("a circle drawn with ties: %v, %q", s.Ties, s.Caption())
 	}
 }
+
+// circleInput is two circular columns with 8 Ø20 given: D 450 with circular links, D 600 with a
+// helix (invented test input).
+const circleInput = `project: {title: Round sketch test, job: S-2, revision: A, designer: A. Berg, checker: C. Dahl}
+materials: {concrete: C30/37, fyk: 500 MPa, aggregate: 20 mm}
+columns:
+  - id: R1
+    shape: circle
+    D: 450 mm
+    cover: 35 mm
+    bars: {count: 8, dia: 20 mm}
+    storeys:
+      - name: L1
+        l0: {y: 3.5 m, z: 3.5 m}
+        NEd: 2500 kN
+        M: {y: {top: 80 kNm, bottom: -40 kNm}, z: {top: 30 kNm, bottom: 10 kNm}}
+  - id: R2
+    shape: circle
+    D: 600 mm
+    helix: true
+    cover: 40 mm
+    bars: {count: 8, dia: 20 mm}
+    storeys:
+      - name: L1
+        l0: {y: 4.0 m, z: 4.0 m}
+        NEd: 3500 kN
+        M: {y: {top: 90 kNm, bottom: -40 kNm}, z: {top: 20 kNm, bottom: 10 kNm}}
+`
+
+// TestSketchCircleEngine draws circular designs of the engine: every bar on the circle of
+// radius D/2 − c_nom − φt − φ/2 (geometry), the link or helix as the design names it, the sketch
+// once on each sheet, and the schedule and results.json naming the shape.
+func TestSketchCircleEngine(t *testing.T) {
+	in, err := yamlinput.Parse("round.yaml", []byte(circleInput))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := design.Run(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, want := range []struct {
+		d     float64
+		links string
+	}{{450, design.LinksCircular}, {600, design.LinksHelix}} {
+		d := r.Designs[k]
+		if d.Shape != model.ShapeCircle || d.B != want.d || d.H != want.d || d.Links.Type != want.links {
+			t.Fatalf("%s: shape %q, %g × %g, links %q; want a circle of %g with %s links", d.Column, d.Shape, d.B, d.H, d.Links.Type, want.d, want.links)
+		}
+		s, ok := cageSketch(d)
+		if !ok || !s.Circle || s.Helix != (want.links == design.LinksHelix) || len(s.Bars) != 8 {
+			t.Fatalf("%s: sketch %v, circle %v, helix %v, %d bars", d.Column, ok, s.Circle, s.Helix, len(s.Bars))
+		}
+		rs := d.B/2 - d.Cover - d.Links.Dia - d.Bars.Dia/2
+		for _, p := range s.Bars {
+			if math.Abs(math.Hypot(p.X, p.Y)-rs) > 1e-9*rs {
+				t.Errorf("%s: bar at (%g, %g), %g from the centre, want %g", d.Column, p.X, p.Y, math.Hypot(p.X, p.Y), rs)
+			}
+		}
+		readSketch(t, s.SVG())
+		kind := "circular links Ø" + fmtNum(d.Links.Dia).plain() + " @ "
+		if s.Helix {
+			kind = "helix Ø" + fmtNum(d.Links.Dia).plain() + ", pitch "
+		}
+		if !strings.HasSuffix(s.Caption(), "8 Ø20 on a circle, "+kind+fmtNum(d.Links.Spacing).plain()) {
+			t.Errorf("%s: caption %q", d.Column, s.Caption())
+		}
+		if cells := scheduleCells(d, "", design.LiftLevel{}); plainText(cells[4]) != "Ø"+fmtNum(want.d).plain() || plainText(cells[5]) != "8 Ø20 on a circle" {
+			t.Errorf("%s: schedule row starts %q, %q", d.Column, plainText(cells[4]), plainText(cells[5]))
+		}
+	}
+	pkg, _, err := Render(r, map[string]bool{"md": true, "tex": true}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for format, picture := range map[string]string{"md": "<title>Section Ø", "tex": "\\filldraw[fill=black!8, draw=black!80, line width=0.5pt] (0,0) circle"} {
+		n := 0
+		for _, sh := range pkg[format] {
+			if strings.Contains(sh.Name, "R1") || strings.Contains(sh.Name, "R2") {
+				n++
+				if c := strings.Count(string(sh.Data), picture); c != 1 {
+					t.Errorf("%s: %s holds the circle's sketch %d times, want once", format, sh.Name, c)
+				}
+			}
+		}
+		if n != 2 {
+			t.Errorf("%s: %d sheets of the circles", format, n)
+		}
+	}
+	js, err := JSON(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range []string{`"h_mm":450,"shape":"circle","D_mm":450,"cover_mm":35,`, `"h_mm":600,"shape":"circle","D_mm":600,"cover_mm":40,`,
+		`"links":{"type":"circular",`, `"links":{"type":"helix",`} {
+		if !strings.Contains(string(js), w) {
+			t.Errorf("results.json lacks %s", w)
+		}
+	}
+}
