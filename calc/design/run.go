@@ -77,7 +77,7 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 				if b.Options.L0FromFrame {
 					l0y, l0z = lf.Src.L0[0].V, lf.Src.L0[1].V
 				}
-				col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Cover: b.Cover, Bars: b.Bars,
+				col := &model.Column{ID: lf.Column, B: lf.Size.B, H: lf.Size.H, Shape: lf.Size.Shape, Helix: lf.Size.Helix, Cover: b.Cover, Bars: b.Bars,
 					Storeys: []model.Storey{{Name: lf.Name, L0Y: l0y, L0Z: l0z, Length: lf.Height, Clear: math.Max(lf.Height-building.BeamDepthAt(b, lf.Name, lf.I, lf.J), 0), NEd: lf.NEd, MY: lf.MY, MZ: lf.MZ, Creep: b.Options.Creep}}}
 				dv := &Derivation{Steps: lf.Steps, hoist: h, NEd: lf.Src.NEd, NArr: lf.Src.NArr, L0: lf.Src.L0, RatioQP: lf.Src.RatioQP, BottomAlt: lf.Src.BotAlt, Min: lf.Src.Min,
 					Top: [2]trace.Q{lf.Src.MYTop, lf.Src.MZTop}, Bottom: [2]trace.Q{lf.Src.MYBot, lf.Src.MZBot}}
