@@ -1,6 +1,7 @@
 package input
 
 import (
+	"colsheet/calc/detail"
 	"colsheet/calc/model"
 
 	"gopkg.in/yaml.v3"
@@ -12,9 +13,9 @@ const (
 	shapeCircle    = "circle"
 )
 
-// ringMin is the least number of given bars evenly on the circle of a circular column, as the
-// engine's least (detail.RingMin); its clause is cited there.
-const ringMin = 6
+// ringMin is the least number of given bars evenly on the circle of a circular column: the
+// engine's least, whose clause is cited there.
+const ringMin = detail.RingMin
 
 // columnSection reads the section of a column from the fields f of mapping n at path: b and h
 // of a rectangle (the default shape), or the diameter D of a circle (shape: circle, or D given
