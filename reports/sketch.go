@@ -12,8 +12,9 @@ import (
 )
 
 // sketch is the cross-section of a design's cage drawn to scale from the design's data alone:
-// the concrete outline, the perimeter link, the bars, the extra ties, the dimensions b and h,
-// the cover and a label naming the bars and links. Lengths are in mm of the column; the
+// the concrete outline, the perimeter link, the bars, the extra ties, the dimensions b and h
+// (of a circle: the outline and the link or helix as circles, the diameter D), the cover and a
+// label naming the bars and links. Lengths are in mm of the column; the
 // drawing maps them to paper at 1:Scale. Nothing here is an engineering value: the sketch
 // draws what the design holds.
 type sketch struct {
