@@ -61,7 +61,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		nB = l.Add(trace.Input("bars/nb", "Bars along each b-face, corners included", src, "n_b", "", float64(p.NB)))
 		nH = l.Add(trace.Input("bars/nh", "Bars along each h-face, corners included", src, "n_h", "", float64(p.NH)))
 	} else {
-		check(trace.Check("bars/check_n_circle", "Bars in a circular column", "EN 1992-1-1:2004 9.5.2(4)", "n_min ≤ n_bars",
+		check(trace.Check("bars/check_n_circle", "Bars in a circular column: six, common practice beyond the four of 9.5.2(4)", "EN 1992-1-1:2004 9.5.2(4); common practice", "n_min ≤ n_bars",
 			float64(detail.RingMin)/float64(p.Count()), "n_min / n", trace.A("n_min", trace.Const(detail.RingMin, "n_min", "")), trace.A("n", nb)))
 	}
 	as := l.Add(trace.Formula("bars/As", "Area of longitudinal reinforcement provided", "common practice", "A_s,prov", "mm2",

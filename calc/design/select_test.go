@@ -96,7 +96,7 @@ func TestContinuityInDemo(t *testing.T) {
 func cagesOf(r *Result) int {
 	seen := map[string]bool{}
 	for _, d := range r.Designs {
-		seen[strconv.FormatFloat(d.B, 'g', -1, 64)+"x"+strconv.FormatFloat(d.H, 'g', -1, 64)+" "+strconv.Itoa(d.pattern.NB)+"/"+strconv.Itoa(d.pattern.NH)+"/"+strconv.FormatFloat(d.pattern.Dia, 'g', -1, 64)] = true
+		seen[strconv.FormatFloat(d.B, 'g', -1, 64)+"x"+strconv.FormatFloat(d.H, 'g', -1, 64)+" "+strconv.Itoa(d.pattern.NB)+"/"+strconv.Itoa(d.pattern.NH)+"/"+strconv.Itoa(d.pattern.Ring)+"/"+strconv.FormatFloat(d.pattern.Dia, 'g', -1, 64)] = true
 	}
 	return len(seen)
 }
