@@ -57,12 +57,82 @@ func (verdictClasses) Transform(doc *ast.Document, reader text.Reader, _ parser.
 	})
 }
 
+// plainTags parses, ahead of goldmark's own parser of inline raw HTML, the tags that this
+// package writes in running text (<sub>, </sub>, <a id="…">, …): an open tag of a name and
+// double-quoted attributes, or a close tag, on one line and without spaces around '=' or before
+// '>'. It makes the same node as goldmark's parser does of such a tag (whose regular expression
+// accepts it and ends at the same '>'), without the expression run over the rest of the
+// paragraph; anything else is left to goldmark's parser.
+type plainTags struct{}
+
+func (plainTags) Trigger() []byte { return []byte{'<'} }
+
+func (plainTags) Parse(_ ast.Node, block text.Reader, _ parser.Context) ast.Node {
+	line, seg := block.PeekLine()
+	n := plainTag(line)
+	if n == 0 {
+		return nil
+	}
+	node := ast.NewRawHTML()
+	node.Segments.Append(seg.WithStop(seg.Start + n))
+	block.Advance(n)
+	return node
+}
+
+// plainTag returns the length of the tag of the form plainTags parses at the start of line, 0
+// where there is none.
+func plainTag(line []byte) int {
+	i := 1
+	closing := len(line) > 1 && line[1] == '/'
+	if closing {
+		i++
+	}
+	name := func(first func(byte) bool, rest func(byte) bool) bool {
+		if i >= len(line) || !first(line[i]) {
+			return false
+		}
+		for i++; i < len(line) && rest(line[i]); i++ {
+		}
+		return true
+	}
+	if !name(asciiLetter, tagNameChar) {
+		return 0
+	}
+	for !closing && i < len(line) && line[i] == ' ' {
+		i++ // the space before an attribute
+		if !name(attrStart, attrChar) || i+1 >= len(line) || line[i] != '=' || line[i+1] != '"' {
+			return 0
+		}
+		i += 2
+		for i < len(line) && line[i] != '"' && line[i] != '\n' && line[i] != '\r' {
+			i++
+		}
+		if i >= len(line) || line[i] != '"' {
+			return 0
+		}
+		i++
+	}
+	if i < len(line) && line[i] == '>' {
+		return i + 1
+	}
+	return 0
+}
+
+func asciiLetter(c byte) bool { return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' }
+
+func tagNameChar(c byte) bool { return asciiLetter(c) || c >= '0' && c <= '9' || c == '-' }
+
+func attrStart(c byte) bool { return asciiLetter(c) || c == '_' || c == ':' }
+
+func attrChar(c byte) bool { return attrStart(c) || c >= '0' && c <= '9' || c == '.' || c == '-' }
+
 // converter renders the Markdown that this package writes. Raw HTML is let through because
 // the only raw HTML in it is the <sub> and <sup> tags that the package itself writes: every
 // user-supplied character that could start markup is escaped in the Markdown.
 var converter = goldmark.New(
 	goldmark.WithExtensions(extension.Table),
-	goldmark.WithParserOptions(parser.WithASTTransformers(util.Prioritized(verdictClasses{}, 500))),
+	goldmark.WithParserOptions(parser.WithASTTransformers(util.Prioritized(verdictClasses{}, 500)),
+		parser.WithInlineParsers(util.Prioritized(plainTags{}, 350))),
 	goldmark.WithRendererOptions(ghtml.WithUnsafe(), ghtml.WithXHTML()),
 )
 

@@ -1,6 +1,7 @@
 package reports
 
 import (
+	"bytes"
 	"math"
 	"math/rand"
 	"path"
@@ -11,6 +12,12 @@ import (
 	"sync"
 	"testing"
 	"unicode"
+
+	"github.com/yuin/goldmark"
+	"github.com/yuin/goldmark/extension"
+	"github.com/yuin/goldmark/parser"
+	ghtml "github.com/yuin/goldmark/renderer/html"
+	"github.com/yuin/goldmark/util"
 
 	"colsheet/calc/trace"
 )
@@ -386,6 +393,84 @@ func BenchmarkLayout(b *testing.B) {
 	for i := 0; i < b.N; i++ {
 		for _, s := range steps {
 			_ = showStep(s)
+		}
+	}
+}
+
+// goldmarkOnly is the converter without plainTags: goldmark's own parser of inline raw HTML.
+var goldmarkOnly = goldmark.New(
+	goldmark.WithExtensions(extension.Table),
+	goldmark.WithParserOptions(parser.WithASTTransformers(util.Prioritized(verdictClasses{}, 500))),
+	goldmark.WithRendererOptions(ghtml.WithUnsafe(), ghtml.WithXHTML()),
+)
+
+// The parser of the package's own tags makes the HTML goldmark's parser makes, for the tags the
+// sheets hold and for tags at the edges of the form it takes (common practice, no source: the
+// HTML must stay byte for byte what it was).
+func TestPlainTagsAsGoldmark(t *testing.T) {
+	for _, in := range []string{
+		"M<sub>Ed,y</sub> = 3×10<sup>−4</sup> <mark>12 kN</mark>",
+		`<a id="s-A1.L1.sec-2f-x"></a>**1.** text <small>(6.1)</small>\`,
+		`<a id="s-A1"></a><a id="s-A2"></a>`,
+		"<sub>a</sub><sup>b</sup>",
+		`a <b class="x" id="y">c</b> d`,
+		`a <b id='y'>c</b>`, `a <b id=y>c</b>`, `a <b id = "y">c</b>`, `a <b id>c</b>`,
+		"a <b id=\"y\nz\">c</b>", "a <b\nid=\"y\">c</b>", "a <b >c</b >", "a <br/> <br /> c",
+		`a <b id="y"x="z">c</b>`, `a <b id="y`, "a <b", "a </b", "a <", "a <1b>", "a <-b>", "a </1b>",
+		`a <b data-x:y_z.w="v">c</b>`, `a <b _x="v">c</b>`, `a <b 1x="v">c</b>`,
+		"| a <sub>b</sub> | c <sup>d</sup> |\n| --- | --- |\n| <mark>e</mark> | f |",
+		"> **FAIL** <sub>x</sub>\n> <a id=\"q\"></a>",
+		"<details><summary>3 steps</summary>\n\nx <sub>y</sub>\n\n</details>",
+		"text\\<sub>escaped\\</sub> `<sub>code</sub>` <http://x.y/>",
+		"<!-- c --> <?p?> <!X> <![CDATA[x]]>",
+	} {
+		var got, want bytes.Buffer
+		if err := converter.Convert([]byte(in), &got); err != nil {
+			t.Fatal(err)
+		}
+		if err := goldmarkOnly.Convert([]byte(in), &want); err != nil {
+			t.Fatal(err)
+		}
+		if got.String() != want.String() {
+			t.Errorf("%q:\n got %q\nwant %q", in, got.String(), want.String())
+		}
+	}
+}
+
+// The HTML sheets and calc document of the demo building are the same with goldmark's own
+// parser of inline raw HTML (common practice, no source).
+func TestPlainTagsDemo(t *testing.T) {
+	if testing.Short() {
+		t.Skip("the demo building")
+	}
+	r := runFile(t, "../testdata/demo.yaml", "")
+	set, err := buildSheets(r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	pages, err := set.print(htmlFormat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := buildDocument(r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	doc, err := printDocument(v, htmlFormat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pages = append(pages, Sheet{Name: "calc.md", Data: doc})
+	for _, p := range pages {
+		var got, want bytes.Buffer
+		if err := converter.Convert(p.Data, &got); err != nil {
+			t.Fatal(err)
+		}
+		if err := goldmarkOnly.Convert(p.Data, &want); err != nil {
+			t.Fatal(err)
+		}
+		if !bytes.Equal(got.Bytes(), want.Bytes()) {
+			t.Errorf("%s: the HTML differs from goldmark's own", p.Name)
 		}
 	}
 }
