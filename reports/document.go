@@ -213,7 +213,7 @@ func inputTables(in *model.Input) []tableView {
 		g.Rows = [][]inline{
 			{txt("Bays along x"), bays(b.GridX)},
 			{txt("Bays along y"), bays(b.GridY)},
-			{txt("Columns b × h (default)"), times(qty(b.Column.B, "mm"), qty(b.Column.H, "mm"))},
+			{txt("Columns b × h (default)"), sizeInline(b.Column)},
 			{txt("Cover to the links"), qty(b.Cover, "mm")},
 			{txt("Beams b × h (default)"), times(qty(b.Beam.B, "mm"), qty(b.Beam.H, "mm"))},
 			{txt("Grid points without a column"), dash(strings.Join(b.Omit, ", "))},
@@ -221,7 +221,7 @@ func inputTables(in *model.Input) []tableView {
 			{txt("Column moments"), dash(b.Analysis)},
 		}
 		for _, c := range b.Columns {
-			g.Rows = append(g.Rows, []inline{txt("Columns " + all(c.IDs) + " at " + all(c.Levels)), times(qty(c.B, "mm"), qty(c.H, "mm"))})
+			g.Rows = append(g.Rows, []inline{txt("Columns " + all(c.IDs) + " at " + all(c.Levels)), sizeInline(c.Size)})
 		}
 		for _, c := range b.Beams {
 			dir := c.Dir
@@ -266,7 +266,7 @@ func inputTables(in *model.Input) []tableView {
 			if s.HasPhi {
 				phi = numv(fmtNum(s.PhiEf))
 			}
-			t.Rows = append(t.Rows, []inline{txt(c.ID), txt(s.Name), times(qty(c.B, "mm"), qty(c.H, "mm")), qty(c.Cover, "mm"), bars,
+			t.Rows = append(t.Rows, []inline{txt(c.ID), txt(s.Name), sizeInline(model.Size{B: c.B, H: c.H, Shape: c.Shape}), qty(c.Cover, "mm"), bars,
 				qty(s.L0Y, "mm"), qty(s.L0Z, "mm"), qty(s.NEd, "N"), qty(s.MY.Top, "Nmm"), qty(s.MY.Bottom, "Nmm"),
 				qty(s.MZ.Top, "Nmm"), qty(s.MZ.Bottom, "Nmm"), phi})
 		}

@@ -18,13 +18,14 @@ type colGroup struct {
 // groupKey is what the lifts of a group share.
 type groupKey struct {
 	b, h, cover         float64
+	shape, links        string
 	count               int
 	dia, link, s, sZone float64
 	fire                int
 }
 
 func keyOf(d design.Design) groupKey {
-	return groupKey{b: d.B, h: d.H, cover: d.Cover, count: d.Bars.Count, dia: d.Bars.Dia,
+	return groupKey{b: d.B, h: d.H, cover: d.Cover, shape: d.Shape, links: d.Links.Type, count: d.Bars.Count, dia: d.Bars.Dia,
 		link: d.Links.Dia, s: d.Links.Spacing, sZone: d.Links.SpacingReduced, fire: d.Detailing.FireRating}
 }
 
@@ -96,7 +97,7 @@ func groupOf(gs []colGroup, i int) int {
 func (g colGroup) name(n int) string { return fmt.Sprintf("Group %d", n+1) }
 
 func (g colGroup) section() string {
-	return fmtNum(g.d.B).plain() + " × " + fmtNum(g.d.H).plain()
+	return sizeText(g.d.B, g.d.H, g.d.Shape)
 }
 
 // cage names the group's bars and links.

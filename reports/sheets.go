@@ -157,6 +157,7 @@ type sheetView struct {
 	Cases          *tableView   // the load cases of the lift, one row each, where it has several
 	Sketch         []figureView // the section sketch of the cage (none where the design holds no bars)
 	Diagrams       []figureView // interaction diagrams, when the result holds their data
+	Round          bool         // a circular section: one N–M diagram, in the direction of least resistance
 	Groups         []groupView
 	Brief          bool        // the steps one line each (the chain); else every step in full
 	BasisSteps     []groupView // index and calc document: the steps of the project basis
@@ -336,6 +337,18 @@ func linksRow(d design.Design) kv {
 		txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))}
 }
 
+// sizeInline is a section's size as a quantity: b × h, or a circle's diameter "Ø 450 mm" (with
+// ", helix" where its links are a helix).
+func sizeInline(s model.Size) inline {
+	if s.Shape != model.ShapeCircle {
+		return times(qty(s.B, "mm"), qty(s.H, "mm"))
+	}
+	if s.Helix {
+		return cat(txt("Ø "), qty(s.B, "mm"), txt(", helix"))
+	}
+	return cat(txt("Ø "), qty(s.B, "mm"))
+}
+
 // sizeText names a section in mm: "450 × 600", or "Ø450" for a circle.
 func sizeText(b, h float64, shape string) string {
 	if shape == model.ShapeCircle {
@@ -470,6 +483,7 @@ func sheet(b *book, i int, p place) sheetView {
 	}
 	for _, g := range diagrams(d) {
 		v.Diagrams = append(v.Diagrams, figureView{Body: picture(g), Caption: txt(g.Caption())})
+		v.Round = circular(d)
 	}
 	v.Brief = !p.opt.full()
 	v.Groups, v.Margin = groups(b, i, p)
