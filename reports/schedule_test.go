@@ -25,14 +25,7 @@ func TestScheduleCSVParsedBack(t *testing.T) {
 	d2 := d
 	d2.Storey, d2.Schedule = "L2", design.Schedule{Known: true, MainMass: 53.62, LinkMass: 11.11, TotalMass: 64.73}
 	r := &design.Result{Designs: []design.Design{d, d2}}
-	out, err := Schedule(r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rows, err := csv.NewReader(bytes.NewReader(out)).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
+	rows := csvRows(t, Schedule, r)
 	if len(rows) != 3 || len(rows[0]) != len(ScheduleHeader) {
 		t.Fatalf("%d rows, header of %d columns; want 3 and %d", len(rows), len(rows[0]), len(ScheduleHeader))
 	}
@@ -56,14 +49,7 @@ func TestScheduleCSVParsedBack(t *testing.T) {
 	if col["mark_main"] != "A1-L1-01" || col["mark_ties"] != "" || col["ties_hold"] != "b-faces: bar 3 of 4" {
 		t.Errorf("marks and ties: %q %q %q", col["mark_main"], col["mark_ties"], col["ties_hold"])
 	}
-	q, err := QuantitiesCSV(r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	qr, err := csv.NewReader(bytes.NewReader(q)).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
+	qr := csvRows(t, QuantitiesCSV, r)
 	last := qr[len(qr)-1]
 	if last[0] != "building" || last[2] != "2" || last[6] != "161.9" {
 		t.Errorf("building total %q, want 2 lifts and 161.9 kg (97.14 + 64.73 = 161.87)", last)
@@ -129,14 +115,7 @@ func TestScheduleCircle(t *testing.T) {
 			}
 		}
 		// schedule.csv
-		out, err := Schedule(r)
-		if err != nil {
-			t.Fatal(err)
-		}
-		rows, err := csv.NewReader(bytes.NewReader(out)).ReadAll()
-		if err != nil {
-			t.Fatal(err)
-		}
+		rows := csvRows(t, Schedule, r)
 		n := len(ScheduleHeader)
 		if got := strings.Join(rows[0][n-3:], ","); got != "shape,D_mm,link_type" {
 			t.Errorf("the last columns are %q", got)
@@ -157,14 +136,7 @@ func TestScheduleCircle(t *testing.T) {
 			}
 		}
 		// summary.csv: the same columns as ever; the bars and links cells say circle and link kind.
-		sum, err := CSV(r)
-		if err != nil {
-			t.Fatal(err)
-		}
-		srows, err := csv.NewReader(bytes.NewReader(sum)).ReadAll()
-		if err != nil {
-			t.Fatal(err)
-		}
+		srows := csvRows(t, CSV, r)
 		if len(srows[0]) != len(CSVHeader) || srows[1][9] != "8 x 20 mm on a circle" || srows[1][10] != tc.summary ||
 			srows[2][9] != "4 x 20 mm" || srows[2][10] != "6 mm @ 240 mm" {
 			t.Errorf("%s: summary rows %q, %q", tc.kind, srows[1], srows[2])
@@ -179,4 +151,18 @@ func plainText(in inline) string {
 		b.WriteString(s.text)
 	}
 	return b.String()
+}
+
+// csvRows makes a CSV file of r and reads its rows back.
+func csvRows(t *testing.T, make func(*design.Result) ([]byte, error), r *design.Result) [][]string {
+	t.Helper()
+	out, err := make(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rows, err := csv.NewReader(bytes.NewReader(out)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	return rows
 }

@@ -311,27 +311,32 @@ func (s sketch) px(p pt) (x, y float64) {
 	return s.left() + (p.X+s.B/2)*k, skTop + (s.H/2-p.Y)*k
 }
 
-// SVG returns the sketch as a self-contained inline <svg> element.
-func (s sketch) SVG() string {
-	if s.Circle {
-		return s.circleSVG()
-	}
-	var b strings.Builder
+// frame returns the corners of the section's outline (upper left x0, y0; lower right x1, y1) and
+// its centre (cx, cy) in SVG pixels.
+func (s sketch) frame() (x0, y0, x1, y1, cx, cy float64) {
+	x0, y0 = s.px(pt{-s.B / 2, s.H / 2})
+	x1, y1 = s.px(pt{s.B / 2, -s.H / 2})
+	cx, cy = s.px(pt{0, 0})
+	return
+}
+
+// svgOpen writes the start of the SVG sketch: the element, its title (what, then the label and
+// scale), the white ground and the label above the section.
+func (s sketch) svgOpen(b *strings.Builder, what string) {
 	f := coord
-	k := s.k()
 	w, h := s.size()
+	_, _, _, _, cx, _ := s.frame()
 	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="` + f(w) + `" height="` + f(h) + `" viewBox="0 0 ` + f(w) + " " + f(h) +
 		`" role="img" font-family="sans-serif" font-size="` + strconv.Itoa(svgFont) + `">` + "\n")
-	b.WriteString("<title>" + xmlText("Section "+fmtNum(s.B).plain()+" × "+fmtNum(s.H).plain()+", "+s.Label+", scale 1:"+fmtNum(s.Scale).plain()) + "</title>\n")
+	b.WriteString("<title>" + xmlText(what+", "+s.Label+", scale 1:"+fmtNum(s.Scale).plain()) + "</title>\n")
 	b.WriteString(`<rect x="0" y="0" width="` + f(w) + `" height="` + f(h) + `" fill="#ffffff"/>` + "\n")
-	x0, y0 := s.px(pt{-s.B / 2, s.H / 2})
-	x1, y1 := s.px(pt{s.B / 2, -s.H / 2})
-	cx, cy := s.px(pt{0, 0})
 	b.WriteString(`<text x="` + f(cx) + `" y="20" text-anchor="middle" font-size="13" font-weight="bold">` + xmlText(s.Label) + "</text>\n")
-	// Concrete.
-	b.WriteString(`<rect x="` + f(x0) + `" y="` + f(y0) + `" width="` + f(x1-x0) + `" height="` + f(y1-y0) +
-		`" fill="#ececec" stroke="` + skLine + `" stroke-width="1.2"/>` + "\n")
-	// Centre lines with the axes' names.
+}
+
+// svgAxes writes the centre lines of the SVG sketch with the axes' names.
+func (s sketch) svgAxes(b *strings.Builder) {
+	f := coord
+	x0, y0, x1, y1, cx, cy := s.frame()
 	b.WriteString(`<g stroke="` + skCentre + `" stroke-width="0.8" stroke-dasharray="8 2 2 2">` + "\n")
 	b.WriteString(`<line x1="` + f(x0-8) + `" y1="` + f(cy) + `" x2="` + f(x1+10) + `" y2="` + f(cy) + `"/>` + "\n")
 	b.WriteString(`<line x1="` + f(cx) + `" y1="` + f(y1+8) + `" x2="` + f(cx) + `" y2="` + f(y0-10) + `"/>` + "\n")
@@ -340,6 +345,33 @@ func (s sketch) SVG() string {
 	b.WriteString(`<text x="` + f(x1+12) + `" y="` + f(cy+4) + `">y</text>` + "\n")
 	b.WriteString(`<text x="` + f(cx+4) + `" y="` + f(y0-6) + `">z</text>` + "\n")
 	b.WriteString("</g>\n")
+}
+
+// svgBars writes the bars of the SVG sketch at their sizes.
+func (s sketch) svgBars(b *strings.Builder) {
+	f := coord
+	b.WriteString(`<g fill="` + skBar + `">` + "\n")
+	for _, p := range s.Bars {
+		x, y := s.px(p)
+		b.WriteString(`<circle cx="` + f(x) + `" cy="` + f(y) + `" r="` + f(s.Dia/2*s.k()) + `"/>` + "\n")
+	}
+	b.WriteString("</g>\n")
+}
+
+// SVG returns the sketch as a self-contained inline <svg> element.
+func (s sketch) SVG() string {
+	if s.Circle {
+		return s.circleSVG()
+	}
+	var b strings.Builder
+	f := coord
+	k := s.k()
+	x0, y0, x1, y1, cx, cy := s.frame()
+	s.svgOpen(&b, "Section "+fmtNum(s.B).plain()+" × "+fmtNum(s.H).plain())
+	// Concrete.
+	b.WriteString(`<rect x="` + f(x0) + `" y="` + f(y0) + `" width="` + f(x1-x0) + `" height="` + f(y1-y0) +
+		`" fill="#ececec" stroke="` + skLine + `" stroke-width="1.2"/>` + "\n")
+	s.svgAxes(&b)
 	// The link, on its centreline, as thick as it is.
 	if s.Link > 0 {
 		hy, hz, r := s.linkLine()
@@ -359,13 +391,7 @@ func (s sketch) SVG() string {
 		}
 		b.WriteString("</g>\n")
 	}
-	// Bars.
-	b.WriteString(`<g fill="` + skBar + `">` + "\n")
-	for _, p := range s.Bars {
-		x, y := s.px(p)
-		b.WriteString(`<circle cx="` + f(x) + `" cy="` + f(y) + `" r="` + f(s.Dia/2*k) + `"/>` + "\n")
-	}
-	b.WriteString("</g>\n")
+	s.svgBars(&b)
 	// Dimensions: b below, h to the left, the cover at the right.
 	b.WriteString(`<g stroke="` + skLine + `" stroke-width="0.8">` + "\n")
 	line := func(xa, ya, xb, yb float64) {
@@ -446,6 +472,39 @@ func (s sketch) tieLine(t [2]int) (a, c pt) {
 
 // ---- TikZ ----
 
+// Colours of the TikZ sketch: links and ties, bars (those of the SVG).
+const (
+	pgfSteel = "{rgb,255:red,31;green,95;blue,139}"
+	pgfBar   = "{rgb,255:red,176;green,58;blue,46}"
+)
+
+// at writes a point of the section (mm of the column from the centroid) moved by (dx, dy) mm on
+// paper, as a TikZ coordinate.
+func (s sketch) at(p pt, dx, dy float64) string {
+	return "(" + coord(p.X/s.Scale+dx) + "," + coord(p.Y/s.Scale+dy) + ")"
+}
+
+// pgfOpen writes the start of the tikzpicture: the label above the section, the concrete
+// outline (the TikZ path given) and the centre lines with the axes' names.
+func (s sketch) pgfOpen(b *strings.Builder, outline string) {
+	at := s.at
+	hb, hh := s.B/2, s.H/2
+	b.WriteString("\\begin{tikzpicture}[x=1mm, y=1mm, font=\\footnotesize]\n")
+	b.WriteString("\\node[anchor=south, font=\\small\\bfseries] at " + at(pt{0, hh}, 0, 6) + " {" + tex{}.text(s.Label) + "};\n")
+	b.WriteString("\\filldraw[fill=black!8, draw=black!80, line width=0.5pt] " + outline + ";\n")
+	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{-hb, 0}, -2, 0) + " -- " + at(pt{hb, 0}, 2.5, 0) +
+		" node[right, font=\\footnotesize\\itshape] {y};\n")
+	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{0, -hh}, 0, -2) + " -- " + at(pt{0, hh}, 0, 2.5) +
+		" node[above, font=\\footnotesize\\itshape] {z};\n")
+}
+
+// pgfBars writes the bars of the tikzpicture at their sizes.
+func (s sketch) pgfBars(b *strings.Builder) {
+	for _, p := range s.Bars {
+		b.WriteString("\\fill[fill=" + pgfBar + "] " + s.at(p, 0, 0) + " circle[radius=" + coord(s.Dia/2/s.Scale) + "];\n")
+	}
+}
+
 // PGF returns the sketch as a tikzpicture drawn to scale (1 unit = 1 mm on paper); it needs
 // TikZ (loaded by pgfplots) and xcolor.
 func (s sketch) PGF() string {
@@ -455,35 +514,21 @@ func (s sketch) PGF() string {
 	var b strings.Builder
 	var t tex
 	f := coord
-	// at writes a point of the section (mm of the column from the centroid) moved by (dx, dy) mm
-	// on paper.
-	at := func(p pt, dx, dy float64) string {
-		return "(" + f(p.X/s.Scale+dx) + "," + f(p.Y/s.Scale+dy) + ")"
-	}
+	at := s.at
 	mm := func(v float64) string { return f(v/s.Scale) + "mm" }
-	const steel = "{rgb,255:red,31;green,95;blue,139}"
-	const bar = "{rgb,255:red,176;green,58;blue,46}"
 	hb, hh := s.B/2, s.H/2
 	ll, lr, ul := pt{-hb, -hh}, pt{hb, -hh}, pt{-hb, hh}
-	b.WriteString("\\begin{tikzpicture}[x=1mm, y=1mm, font=\\footnotesize]\n")
-	b.WriteString("\\node[anchor=south, font=\\small\\bfseries] at " + at(pt{0, hh}, 0, 6) + " {" + t.text(s.Label) + "};\n")
-	b.WriteString("\\filldraw[fill=black!8, draw=black!80, line width=0.5pt] " + at(ll, 0, 0) + " rectangle " + at(pt{hb, hh}, 0, 0) + ";\n")
-	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{-hb, 0}, -2, 0) + " -- " + at(pt{hb, 0}, 2.5, 0) +
-		" node[right, font=\\footnotesize\\itshape] {y};\n")
-	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{0, -hh}, 0, -2) + " -- " + at(pt{0, hh}, 0, 2.5) +
-		" node[above, font=\\footnotesize\\itshape] {z};\n")
+	s.pgfOpen(&b, at(ll, 0, 0)+" rectangle "+at(pt{hb, hh}, 0, 0))
 	if s.Link > 0 {
 		hy, hz, r := s.linkLine()
-		b.WriteString("\\draw[draw=" + steel + ", line width=" + mm(s.Link) + ", rounded corners=" + mm(r) + "] " +
+		b.WriteString("\\draw[draw=" + pgfSteel + ", line width=" + mm(s.Link) + ", rounded corners=" + mm(r) + "] " +
 			at(pt{-hy, -hz}, 0, 0) + " rectangle " + at(pt{hy, hz}, 0, 0) + ";\n")
 	}
 	for _, tie := range s.Ties {
 		a, c := s.tieLine(tie)
-		b.WriteString("\\draw[draw=" + steel + ", line width=" + mm(math.Max(s.Link, 1)) + "] " + at(a, 0, 0) + " -- " + at(c, 0, 0) + ";\n")
+		b.WriteString("\\draw[draw=" + pgfSteel + ", line width=" + mm(math.Max(s.Link, 1)) + "] " + at(a, 0, 0) + " -- " + at(c, 0, 0) + ";\n")
 	}
-	for _, p := range s.Bars {
-		b.WriteString("\\fill[fill=" + bar + "] " + at(p, 0, 0) + " circle[radius=" + f(s.Dia/2/s.Scale) + "];\n")
-	}
+	s.pgfBars(&b)
 	b.WriteString("\\begin{scope}[black!80, line width=0.3pt]\n")
 	// b below the section, h to its left: extension lines and the dimension line.
 	b.WriteString("\\draw " + at(ll, 0, -1) + " -- " + at(ll, 0, -7) + " " + at(lr, 0, -1) + " -- " + at(lr, 0, -7) + ";\n")
@@ -600,42 +645,21 @@ func (s sketch) circleSVG() string {
 	var b strings.Builder
 	f := coord
 	k := s.k()
-	w, h := s.size()
 	r := s.B / 2
-	b.WriteString(`<svg xmlns="http://www.w3.org/2000/svg" width="` + f(w) + `" height="` + f(h) + `" viewBox="0 0 ` + f(w) + " " + f(h) +
-		`" role="img" font-family="sans-serif" font-size="` + strconv.Itoa(svgFont) + `">` + "\n")
-	b.WriteString("<title>" + xmlText("Section Ø"+fmtNum(s.B).plain()+", "+s.Label+", scale 1:"+fmtNum(s.Scale).plain()) + "</title>\n")
-	b.WriteString(`<rect x="0" y="0" width="` + f(w) + `" height="` + f(h) + `" fill="#ffffff"/>` + "\n")
-	x0, y0 := s.px(pt{-r, r})
-	x1, y1 := s.px(pt{r, -r})
-	cx, cy := s.px(pt{0, 0})
-	b.WriteString(`<text x="` + f(cx) + `" y="20" text-anchor="middle" font-size="13" font-weight="bold">` + xmlText(s.Label) + "</text>\n")
+	x0, _, x1, y1, cx, cy := s.frame()
+	s.svgOpen(&b, "Section Ø"+fmtNum(s.B).plain())
 	circle := func(rad float64, attrs string) {
 		b.WriteString(`<circle cx="` + f(cx) + `" cy="` + f(cy) + `" r="` + f(rad*k) + `" ` + attrs + "/>\n")
 	}
 	// Concrete.
 	circle(r, `fill="#ececec" stroke="`+skLine+`" stroke-width="1.2"`)
-	// Centre lines with the axes' names.
-	b.WriteString(`<g stroke="` + skCentre + `" stroke-width="0.8" stroke-dasharray="8 2 2 2">` + "\n")
-	b.WriteString(`<line x1="` + f(x0-8) + `" y1="` + f(cy) + `" x2="` + f(x1+10) + `" y2="` + f(cy) + `"/>` + "\n")
-	b.WriteString(`<line x1="` + f(cx) + `" y1="` + f(y1+8) + `" x2="` + f(cx) + `" y2="` + f(y0-10) + `"/>` + "\n")
-	b.WriteString("</g>\n")
-	b.WriteString(`<g fill="` + skCentre + `" font-style="italic">` + "\n")
-	b.WriteString(`<text x="` + f(x1+12) + `" y="` + f(cy+4) + `">y</text>` + "\n")
-	b.WriteString(`<text x="` + f(cx+4) + `" y="` + f(y0-6) + `">z</text>` + "\n")
-	b.WriteString("</g>\n")
+	s.svgAxes(&b)
 	// The link or helix, on its centreline, as thick as it is.
 	rl := r - s.Cover - s.Link/2
 	if s.Link > 0 {
 		circle(rl, `fill="none" stroke="`+skSteel+`" stroke-width="`+f(s.Link*k)+`"`)
 	}
-	// Bars.
-	b.WriteString(`<g fill="` + skBar + `">` + "\n")
-	for _, p := range s.Bars {
-		x, y := s.px(p)
-		b.WriteString(`<circle cx="` + f(x) + `" cy="` + f(y) + `" r="` + f(s.Dia/2*k) + `"/>` + "\n")
-	}
-	b.WriteString("</g>\n")
+	s.svgBars(&b)
 	// Dimensions: D below, the cover along a radius to the upper right; the helix's leader.
 	b.WriteString(`<g stroke="` + skLine + `" stroke-width="0.8">` + "\n")
 	line := func(xa, ya, xb, yb float64) {
@@ -704,9 +728,7 @@ func (s sketch) circlePGF() string {
 	var b strings.Builder
 	var t tex
 	f := coord
-	at := func(p pt, dx, dy float64) string {
-		return "(" + f(p.X/s.Scale+dx) + "," + f(p.Y/s.Scale+dy) + ")"
-	}
+	at := s.at
 	// ray returns the point at rad mm of the column from the centre in the direction th, moved
 	// by d mm on paper along it.
 	ray := func(rad, th, d float64) string {
@@ -719,24 +741,14 @@ func (s sketch) circlePGF() string {
 		return at(c, -dx, -dy) + " -- " + at(c, dx, dy)
 	}
 	mm := func(v float64) string { return f(v/s.Scale) + "mm" }
-	const steel = "{rgb,255:red,31;green,95;blue,139}"
-	const bar = "{rgb,255:red,176;green,58;blue,46}"
 	r := s.B / 2
 	o := pt{0, 0}
-	b.WriteString("\\begin{tikzpicture}[x=1mm, y=1mm, font=\\footnotesize]\n")
-	b.WriteString("\\node[anchor=south, font=\\small\\bfseries] at " + at(pt{0, r}, 0, 6) + " {" + t.text(s.Label) + "};\n")
-	b.WriteString("\\filldraw[fill=black!8, draw=black!80, line width=0.5pt] " + at(o, 0, 0) + " circle[radius=" + f(r/s.Scale) + "];\n")
-	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{-r, 0}, -2, 0) + " -- " + at(pt{r, 0}, 2.5, 0) +
-		" node[right, font=\\footnotesize\\itshape] {y};\n")
-	b.WriteString("\\draw[black!55, line width=0.3pt, dash dot] " + at(pt{0, -r}, 0, -2) + " -- " + at(pt{0, r}, 0, 2.5) +
-		" node[above, font=\\footnotesize\\itshape] {z};\n")
+	s.pgfOpen(&b, at(o, 0, 0)+" circle[radius="+f(r/s.Scale)+"]")
 	rl := r - s.Cover - s.Link/2
 	if s.Link > 0 {
-		b.WriteString("\\draw[draw=" + steel + ", line width=" + mm(s.Link) + "] " + at(o, 0, 0) + " circle[radius=" + f(rl/s.Scale) + "];\n")
+		b.WriteString("\\draw[draw=" + pgfSteel + ", line width=" + mm(s.Link) + "] " + at(o, 0, 0) + " circle[radius=" + f(rl/s.Scale) + "];\n")
 	}
-	for _, p := range s.Bars {
-		b.WriteString("\\fill[fill=" + bar + "] " + at(p, 0, 0) + " circle[radius=" + f(s.Dia/2/s.Scale) + "];\n")
-	}
+	s.pgfBars(&b)
 	b.WriteString("\\begin{scope}[black!80, line width=0.3pt]\n")
 	// D below the section: extension lines from the ends of the horizontal diameter.
 	b.WriteString("\\draw " + at(pt{-r, 0}, 0, -1) + " -- " + at(pt{-r, -r}, 0, -7) + " " + at(pt{r, 0}, 0, -1) + " -- " + at(pt{r, -r}, 0, -7) + ";\n")

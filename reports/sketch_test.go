@@ -667,14 +667,7 @@ columns:
 // radius D/2 − c_nom − φt − φ/2 (geometry), the link or helix as the design names it, the sketch
 // once on each sheet, and the schedule and results.json naming the shape.
 func TestSketchCircleEngine(t *testing.T) {
-	in, err := yamlinput.Parse("round.yaml", []byte(circleInput))
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := design.Run(in)
-	if err != nil {
-		t.Fatal(err)
-	}
+	r := runFile(t, "", circleInput)
 	for k, want := range []struct {
 		d     float64
 		links string
