@@ -232,6 +232,13 @@ func methods(in *model.Input) []Method {
 		{"Laps", "all bars lapped at one section above the floor, each bar of the lift above beside its bar below; the clear distance beside each lapped pair; links over the lap at the reduced spacing, for bars of 20 mm and over with ΣAst ≥ As of one bar in the outer thirds, one more beyond each end", "EN 1992-1-1:2004 8.7.2(3), (4); 8.7.4; 9.5.3(4)"},
 		{"Scope", "isolated columns of braced frames under the given actions; tension columns excluded", "common practice"},
 	}
+	if anyCircle(in) {
+		out = append(out, Method{"Circular columns", "bars evenly on one circle (at least six, the first on the +z axis); i = D/4; is = rs/√2 (5.8.8.3(2)), d = D/2 + is; Ic = π·D⁴/64; " +
+			"the moment resistance by strain compatibility over the compressed circular segment (closed form, Gauss–Legendre for the parabola), the least over the directions of bending; " +
+			"biaxial bending by the resultant moment against that least resistance ((5.39) with a = 2), the imperfection and e0 about both axes (on the safe side); " +
+			"shear on bw = D and d = D/2 + 2·rs/π; fire with b = D (Table 5.2a) and b' = D (Eq. (5.7)); circular links or a helix at the spacings of 9.5.3 (the pitch of a helix)",
+			"EN 1992-1-1:2004 5.8.3.2, 5.8.8.3, 5.8.9(4), 6.1, 6.2, 9.5.2, 9.5.3; EN 1992-1-2:2004 5.3.2; common practice"})
+	}
 	if b := in.Building; b != nil {
 		analysis := Method{"Column moments", "simplified subframe at each level: the columns above and below with far ends fixed, the beams either side at " + b.Options.BeamStiffness + " stiffness with far ends fixed; the unbalanced beam moment shared by stiffness; a fixed base takes half the moment of the lift above it", "common practice"}
 		if b.Analysis == model.AnalysisFrame {
@@ -262,6 +269,26 @@ func methods(in *model.Input) []Method {
 		)
 	}
 	return out
+}
+
+// anyCircle reports whether the input has a circular column.
+func anyCircle(in *model.Input) bool {
+	for _, c := range in.Columns {
+		if c.Shape == model.ShapeCircle {
+			return true
+		}
+	}
+	if b := in.Building; b != nil {
+		if b.Column.Shape == model.ShapeCircle {
+			return true
+		}
+		for _, c := range b.Columns {
+			if c.Shape == model.ShapeCircle {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // effectiveLength returns the way the effective lengths of the building's lifts are set.
