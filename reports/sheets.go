@@ -446,8 +446,8 @@ func sheet(b *book, i int, p place) sheetView {
 		v.Summary = append(v.Summary, kv{txt("Load cases"), txt(fmt.Sprintf("%d; governing: %s (the values of this sheet)", len(d.Cases), d.GoverningCase))})
 	}
 	if circular(d) {
-		v.Summary = append(v.Summary, kv{txt("Biaxial bending (resultant moment, 5.8.9(4), a = 2)"),
-			cat(txt("M_Ed / M_Rd = "), numv(fmtNum(d.Biaxial.Ratio)), txt(", M_Rd the least over the directions"))})
+		v.Summary = append(v.Summary, kv{txt("Biaxial bending (5.8.9(4), a = 2)"),
+			cat(txt("resultant, ratio "), numv(fmtNum(d.Biaxial.Ratio)))})
 	} else if d.Biaxial.Checked {
 		v.Summary = append(v.Summary, kv{txt("Biaxial bending (5.39)"),
 			cat(txt("checked, a = "), numv(fmtNum(d.Biaxial.A)), txt(", ratio "), numv(fmtNum(d.Biaxial.Ratio)))})
