@@ -200,32 +200,30 @@ func (h *htmlPages) page(i int, single Sheet) (Sheet, error) {
 	}
 	failed := i > 0 && h.r.Designs[i-1].Status != design.StatusPass
 	id := strings.TrimSuffix(single.Name, ".md")
-	body, err := toHTML(single.Data)
-	if err != nil {
-		return Sheet{}, err
-	}
-	page, err := execPage(h.t, htmlPage{Title: oneLine(title), Tool: h.tool,
-		Sheets: []htmlSheet{{ID: id, Failed: failed, Body: body}}})
+	page, err := htmlOf(h.t, single.Data, htmlPage{Title: oneLine(title), Tool: h.tool,
+		Sheets: []htmlSheet{{ID: id, Failed: failed}}})
 	if err != nil {
 		return Sheet{}, err
 	}
 	return Sheet{Name: id + ".html", Data: page}, nil
 }
 
-func toHTML(mdText []byte) (template.HTML, error) {
-	var b bytes.Buffer
-	if err := converter.Convert(mdText, &b); err != nil {
-		return "", err
-	}
-	return template.HTML(b.String()), nil // #nosec: escaped at the Markdown stage
-}
-
-func execPage(t *template.Template, p htmlPage) ([]byte, error) {
-	var b bytes.Buffer
-	if err := t.Execute(&b, p); err != nil {
+// htmlOf converts the Markdown mdText by goldmark into the body of the one sheet of p and returns
+// the page of the template t. The HTML is made in reused buffers; only the page is new.
+func htmlOf(t *template.Template, mdText []byte, p htmlPage) ([]byte, error) {
+	body := getBuffer()
+	defer putBuffer(body)
+	if err := converter.Convert(mdText, body); err != nil {
 		return nil, err
 	}
-	return b.Bytes(), nil
+	// The body is read only while the page is printed, before its buffer is reused.
+	p.Sheets[0].Body = template.HTML(bufferString(body)) // #nosec: escaped at the Markdown stage
+	page := getBuffer()
+	defer putBuffer(page)
+	if err := t.Execute(page, p); err != nil {
+		return nil, err
+	}
+	return bytes.Clone(page.Bytes()), nil
 }
 
 // documentHTML prints the calc document v as one self-contained HTML page, from its Markdown
@@ -235,17 +233,18 @@ func documentHTML(r *design.Result, v *docView) (Sheet, error) {
 	if err != nil {
 		return Sheet{}, err
 	}
-	data, err := printDocument(v, htmlFormat)
+	tp, err := htmlFormat.printer(htmlFormat.common, htmlFormat.doc)
 	if err != nil {
 		return Sheet{}, err
 	}
-	body, err := toHTML(data)
-	if err != nil {
+	data := getBuffer()
+	defer putBuffer(data)
+	if err := tp.printInto(data, htmlFormat.doc, *v, htmlFormat.inDocument); err != nil {
 		return Sheet{}, err
 	}
 	tool := program(r)
 	title := oneLine(strings.TrimSpace(input(r).Project.Title + " calculation package"))
-	page, err := execPage(t, htmlPage{Title: title, Tool: tool,
-		Sheets: []htmlSheet{{ID: "calc", Failed: r.Failed() > 0, Body: body}}})
+	page, err := htmlOf(t, data.Bytes(), htmlPage{Title: title, Tool: tool,
+		Sheets: []htmlSheet{{ID: "calc", Failed: r.Failed() > 0}}})
 	return Sheet{Name: "calc.html", Data: page}, err
 }

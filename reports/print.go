@@ -1,11 +1,13 @@
 package reports
 
 import (
+	"bytes"
 	"fmt"
 	"reflect"
 	"strings"
 	"sync"
 	"text/template"
+	"unsafe"
 
 	"colsheet/calc/design"
 	"colsheet/templates"
@@ -92,8 +94,44 @@ func (f format) printer(files ...string) (*treePrinter, error) {
 // print prints the tree v with the page template name, links resolved by link; it may run on
 // several goroutines at once.
 func (tp *treePrinter) print(name string, v any, link func(target) string) ([]byte, error) {
+	b := getBuffer()
+	defer putBuffer(b)
+	if err := tp.printInto(b, name, v, link); err != nil {
+		return nil, err
+	}
+	return bytes.Clone(b.Bytes()), nil
+}
+
+// printInto prints as print does, into b.
+func (tp *treePrinter) printInto(b *bytes.Buffer, name string, v any, link func(target) string) error {
 	p := printer{m: tp.f.m, link: link}
-	return execute(tp.t, name, p.tree(v))
+	return tp.t.ExecuteTemplate(b, name, p.tree(v))
+}
+
+// buffers holds the buffers that pages are printed into, reused from page to page.
+var buffers = sync.Pool{New: func() any { return new(bytes.Buffer) }}
+
+// maxBuffer is the largest buffer kept for reuse (the sheets' buffers stay well below it).
+const maxBuffer = 16 << 20
+
+func getBuffer() *bytes.Buffer { return buffers.Get().(*bytes.Buffer) }
+
+// putBuffer hands b back for reuse; its bytes must no longer be read.
+func putBuffer(b *bytes.Buffer) {
+	if b.Cap() > maxBuffer {
+		return
+	}
+	b.Reset()
+	buffers.Put(b)
+}
+
+// bufferString returns the bytes of b as a string without copying them: valid only until b is
+// written to or handed back.
+func bufferString(b *bytes.Buffer) string {
+	if b.Len() == 0 {
+		return ""
+	}
+	return unsafe.String(&b.Bytes()[0], b.Len())
 }
 
 var (
@@ -297,14 +335,29 @@ func (s *sheetSet) page(tp *treePrinter, i int) (Sheet, error) {
 
 // printPage prints the tree v of page i of the set (0 the index, then the sheets in order) with tp.
 func (s *sheetSet) printPage(tp *treePrinter, i int, v sheetView) (Sheet, error) {
+	b := getBuffer()
+	defer putBuffer(b)
+	if err := s.printPageInto(b, tp, i, v); err != nil {
+		return Sheet{}, err
+	}
+	return Sheet{Name: s.pageName(i) + tp.f.ext, Data: bytes.Clone(b.Bytes())}, nil
+}
+
+// printPageInto prints page i as printPage does, into b.
+func (s *sheetSet) printPageInto(b *bytes.Buffer, tp *treePrinter, i int, v sheetView) error {
 	f := tp.f
 	if i == 0 {
-		b, err := tp.print(f.index, v, f.onSheet("index"))
-		return Sheet{Name: "index" + f.ext, Data: b}, err
+		return tp.printInto(b, f.index, v, f.onSheet("index"))
 	}
-	name := s.names[i-1]
-	b, err := tp.print(f.sheet, v, f.onSheet(name))
-	return Sheet{Name: name + f.ext, Data: b}, err
+	return tp.printInto(b, f.sheet, v, f.onSheet(s.names[i-1]))
+}
+
+// pageName is the base name of page i of the set, without extension.
+func (s *sheetSet) pageName(i int) string {
+	if i == 0 {
+		return "index"
+	}
+	return s.names[i-1]
 }
 
 // buildDocument builds the tree of the calc document once, for every format.
@@ -469,9 +522,17 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 		}
 		out := make([]file, 0, len(fs))
 		for _, f := range fs {
-			sh, err := set.printPage(f.tp, i, v)
-			if err == nil && f.html != nil {
-				sh, err = f.html.page(i, sh)
+			var sh Sheet
+			var err error
+			if f.html != nil {
+				// The Markdown in a reused buffer, converted and let go.
+				b := getBuffer()
+				if err = set.printPageInto(b, f.tp, i, v); err == nil {
+					sh, err = f.html.page(i, Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: b.Bytes()})
+				}
+				putBuffer(b)
+			} else {
+				sh, err = set.printPage(f.tp, i, v)
 			}
 			if err != nil {
 				return nil, fmt.Errorf("%s: %v", f.name, err)
