@@ -175,10 +175,19 @@ type jsonResult struct {
 	Forms       []json.RawMessage `json:"forms"`
 }
 
+// sizeShape names a size's shape as results.json names a design's.
+func sizeShape(shape string) string {
+	if shape == model.ShapeCircle {
+		return "circle"
+	}
+	return "rectangle"
+}
+
 // jsonSize is one column's result of the section-size finder.
 type jsonSize struct {
 	Column      string  `json:"column"`
 	Found       bool    `json:"found"`
+	Shape       string  `json:"shape"` // of the column, kept by the finder: "rectangle" or "circle" (b = h = D)
 	B           float64 `json:"b_mm"`
 	H           float64 `json:"h_mm"`
 	GivenB      float64 `json:"given_b_mm"`
@@ -310,7 +319,7 @@ func (s *JSONStream) End(r *design.Result) error {
 			if !finite(z.Size.B, z.Size.H, z.Given.B, z.Given.H, z.AsProv, z.Rho, z.Utilization) {
 				return fmt.Errorf("reports: size search of column %s: a number is not finite", z.Column)
 			}
-			sizes = append(sizes, jsonSize{Column: z.Column, Found: z.Found, B: z.Size.B, H: z.Size.H,
+			sizes = append(sizes, jsonSize{Column: z.Column, Found: z.Found, Shape: sizeShape(z.Given.Shape), B: z.Size.B, H: z.Size.H,
 				GivenB: z.Given.B, GivenH: z.Given.H, AsProv: z.AsProv, Rho: z.Rho, Utilization: z.Utilization, Tried: z.Tried})
 		}
 		s.e.raw(`,"size_search":`)
