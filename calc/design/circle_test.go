@@ -208,3 +208,27 @@ func TestCircleSchedule(t *testing.T) {
 		}
 	}
 }
+
+// The size finder keeps a circular column round and returns the smallest diameter of the range
+// that passes, every smaller one failing (common practice, no source).
+func TestCircleSizeFinder(t *testing.T) {
+	st := lift(3200, 3200, 2600, 60, -30, 20, 10)
+	in := newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, circleColumn(300, false, st))
+	in.Options.Sizes = &model.SizeSearch{Step: 50, Min: 250, Max: 700, RhoMax: 0.02}
+	r := mustRun(t, in)
+	if len(r.Sizes) != 1 || !r.Sizes[0].Found {
+		t.Fatalf("sizes: %+v", r.Sizes)
+	}
+	got := r.Sizes[0]
+	if got.Size.Shape != model.ShapeCircle || got.Size.B != got.Size.H {
+		t.Fatalf("found %+v: want a circle", got.Size)
+	}
+	near(t, "rho", got.Rho, got.AsProv/(math.Pi*got.Size.B*got.Size.B/4), 1e-12)
+	for d := 250.0; d < got.Size.B; d += 50 {
+		c := circleColumn(d, false, st)
+		dd := design(in, &c, &c.Storeys[0], nil, newBasis(in))
+		if dd.Status == StatusPass && dd.AsProv <= 0.02*math.Pi*d*d/4 {
+			t.Errorf("Ø%g passes but Ø%g was chosen", d, got.Size.B)
+		}
+	}
+}
