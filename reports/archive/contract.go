@@ -174,6 +174,11 @@ func (r *Report) checkPositions(d *resultsCase, none bool) {
 		r.problem(d, "bars.count", "the step %s records %g bars, the bars per face (%d, %d) make %d", s.ID, s.Value, p.NB, p.NH, p.Count())
 	}
 	want := detail.Geometry{B: v[0], H: v[1], Cover: v[2], Link: v[3]}.Positions(p)
+	r.comparePositions(d, want)
+}
+
+// comparePositions compares bars.positions_mm of d with the positions want that the bar steps give.
+func (r *Report) comparePositions(d *resultsCase, want [][2]float64) {
 	if len(d.Bars.Positions) != len(want) {
 		r.problem(d, "bars.positions_mm", "results.json lists %d positions, the bar steps place %d bars", len(d.Bars.Positions), len(want))
 		return
@@ -205,17 +210,7 @@ func (r *Report) checkRing(d *resultsCase) {
 		return
 	}
 	want := detail.Geometry{B: v[0], H: v[0], Cover: v[1], Link: v[2], Circle: true}.Positions(detail.Pattern{Dia: v[4], Ring: int(v[3])})
-	if len(d.Bars.Positions) != len(want) {
-		r.problem(d, "bars.positions_mm", "results.json lists %d positions, the bar steps place %d bars", len(d.Bars.Positions), len(want))
-		return
-	}
-	for i, w := range want {
-		got := d.Bars.Positions[i]
-		if math.Abs(got[0]-w[0]) > 1e-6 || math.Abs(got[1]-w[1]) > 1e-6 {
-			r.problem(d, fmt.Sprintf("bars.positions_mm[%d]", i), "results.json says (%.12g, %.12g), the bar steps place it at (%.12g, %.12g)", got[0], got[1], w[0], w[1])
-			return
-		}
-	}
+	r.comparePositions(d, want)
 }
 
 // checkUtilisation ties the utilisation to the check step named by governing ("title (clause)").
