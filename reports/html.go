@@ -2,7 +2,9 @@ package reports
 
 import (
 	"bytes"
+	"errors"
 	"html/template"
+	"strconv"
 	"strings"
 
 	"github.com/yuin/goldmark"
@@ -164,7 +166,7 @@ func (s *sheetSet) html(r *design.Result) ([]Sheet, error) {
 		if err != nil {
 			return nil, err
 		}
-		page, err := h.page(i, single)
+		page, err := h.page(i, single, nil, nil)
 		if err != nil {
 			return nil, err
 		}
@@ -189,8 +191,9 @@ func newHTMLPages(r *design.Result) (*htmlPages, error) {
 	return &htmlPages{r: r, t: t, tool: program(r), project: oneLine(input(r).Project.Title)}, nil
 }
 
-// page returns page i of the set (0 the index, then the designs in order) from its Markdown single.
-func (h *htmlPages) page(i int, single Sheet) (Sheet, error) {
+// page returns page i of the set (0 the index, then the designs in order) from its Markdown
+// single, printed with the marks of the figures svgs (again prints it with the pictures, see htmlOf).
+func (h *htmlPages) page(i int, single Sheet, svgs []string, again func(*bytes.Buffer) error) (Sheet, error) {
 	title := "Index of calculation sheets"
 	if i > 0 {
 		title = subject(h.r.Designs[i-1])
@@ -200,7 +203,7 @@ func (h *htmlPages) page(i int, single Sheet) (Sheet, error) {
 	}
 	failed := i > 0 && h.r.Designs[i-1].Status != design.StatusPass
 	id := strings.TrimSuffix(single.Name, ".md")
-	page, err := htmlOf(h.t, single.Data, htmlPage{Title: oneLine(title), Tool: h.tool,
+	page, err := htmlOf(h.t, single.Data, svgs, again, htmlPage{Title: oneLine(title), Tool: h.tool,
 		Sheets: []htmlSheet{{ID: id, Failed: failed}}})
 	if err != nil {
 		return Sheet{}, err
@@ -209,11 +212,24 @@ func (h *htmlPages) page(i int, single Sheet) (Sheet, error) {
 }
 
 // htmlOf converts the Markdown mdText by goldmark into the body of the one sheet of p and returns
-// the page of the template t. The HTML is made in reused buffers; only the page is new.
-func htmlOf(t *template.Template, mdText []byte, p htmlPage) ([]byte, error) {
+// the page of the template t. The HTML is made in reused buffers; only the page is new. Where
+// the Markdown was printed with its pictures as the marks of figures (svgs, see mdFigures), they
+// are put back in the HTML; again prints the Markdown with the pictures themselves, for a page
+// where a mark is not where a picture can stand as it is.
+func htmlOf(t *template.Template, mdText []byte, svgs []string, again func(*bytes.Buffer) error, p htmlPage) ([]byte, error) {
 	body := getBuffer()
 	defer putBuffer(body)
-	if err := converter.Convert(mdText, body); err != nil {
+	if err := convertFigures(body, mdText, svgs); errors.Is(err, errFigures) {
+		whole := getBuffer()
+		defer putBuffer(whole)
+		body.Reset()
+		if err := again(whole); err != nil {
+			return nil, err
+		}
+		if err := converter.Convert(whole.Bytes(), body); err != nil {
+			return nil, err
+		}
+	} else if err != nil {
 		return nil, err
 	}
 	// The body is read only while the page is printed, before its buffer is reused.
@@ -224,6 +240,91 @@ func htmlOf(t *template.Template, mdText []byte, p htmlPage) ([]byte, error) {
 		return nil, err
 	}
 	return bytes.Clone(page.Bytes()), nil
+}
+
+// mdFigures is the Markdown of a page to be converted to HTML with each picture left out of
+// goldmark's way: in its place a mark of one line, <svg data-colsheet-figure="N">, that goldmark
+// takes as it takes the SVG's first line (a complete open tag alone on its line); the SVG's own
+// lines, none of them blank, would have been passed on as they are within the same HTML block.
+// Each printing of a page has its own.
+type mdFigures struct {
+	md
+	svgs *[]string
+}
+
+var figureMark = []byte(`<svg data-colsheet-figure="`)
+
+func (m mdFigures) picture(g drawing) string {
+	svg := g.SVG()
+	*m.svgs = append(*m.svgs, svg)
+	mark := string(figureMark) + strconv.Itoa(len(*m.svgs)-1) + `">`
+	if strings.HasSuffix(svg, "\n") {
+		mark += "\n"
+	}
+	return mark
+}
+
+// errFigures says that the marks of the figures are not each a line of an HTML block.
+var errFigures = errors.New("figure marks not in HTML blocks")
+
+// convertFigures converts the Markdown src, with the marks of the figures svgs, to HTML in w, each
+// mark replaced by its SVG. It returns errFigures, w partly written, where a mark is not a line of
+// its own in an HTML block of type 6 or 7 at the top of the document (which goldmark writes out
+// as it is, as it would the SVG's lines), or is not there exactly once.
+func convertFigures(w *bytes.Buffer, src []byte, svgs []string) error {
+	if len(svgs) == 0 {
+		return converter.Convert(src, w)
+	}
+	if bytes.Count(src, figureMark) != len(svgs) {
+		return errFigures
+	}
+	doc := converter.Parser().Parse(text.NewReader(src))
+	n := 0
+	for c := doc.FirstChild(); c != nil; c = c.NextSibling() {
+		hb, ok := c.(*ast.HTMLBlock)
+		if !ok || hb.HTMLBlockType != ast.HTMLBlockType6 && hb.HTMLBlockType != ast.HTMLBlockType7 {
+			continue
+		}
+		lines := hb.Lines()
+		for i := 0; i < lines.Len(); i++ {
+			seg := lines.At(i)
+			if bytes.HasPrefix(seg.Value(src), figureMark) {
+				n++
+			}
+		}
+	}
+	if n != len(svgs) {
+		return errFigures
+	}
+	out := getBuffer()
+	defer putBuffer(out)
+	if err := converter.Renderer().Render(out, src, doc); err != nil {
+		return err
+	}
+	// Each mark, a whole line of the HTML, replaced by its SVG without the SVG's last line end.
+	h := out.Bytes()
+	next := 0
+	for len(h) > 0 {
+		i := bytes.Index(h, figureMark)
+		if i < 0 {
+			w.Write(h)
+			break
+		}
+		rest := h[i+len(figureMark):]
+		j := bytes.IndexByte(rest, '"')
+		k, err := strconv.Atoi(string(rest[:max(j, 0)]))
+		if j < 0 || err != nil || k != next || !bytes.HasPrefix(rest[j:], []byte("\">\n")) || i > 0 && h[i-1] != '\n' {
+			return errFigures
+		}
+		w.Write(h[:i])
+		w.WriteString(strings.TrimSuffix(svgs[k], "\n"))
+		h = rest[j+2:]
+		next++
+	}
+	if next != len(svgs) {
+		return errFigures
+	}
+	return nil
 }
 
 // documentHTML prints the calc document v as one self-contained HTML page, from its Markdown
@@ -239,12 +340,14 @@ func documentHTML(r *design.Result, v *docView) (Sheet, error) {
 	}
 	data := getBuffer()
 	defer putBuffer(data)
-	if err := tp.printInto(data, htmlFormat.doc, *v, htmlFormat.inDocument); err != nil {
+	var svgs []string
+	if err := tp.printWith(data, htmlFormat.doc, *v, htmlFormat.inDocument, mdFigures{svgs: &svgs}); err != nil {
 		return Sheet{}, err
 	}
+	again := func(b *bytes.Buffer) error { return tp.printInto(b, htmlFormat.doc, *v, htmlFormat.inDocument) }
 	tool := program(r)
 	title := oneLine(strings.TrimSpace(input(r).Project.Title + " calculation package"))
-	page, err := htmlOf(t, data.Bytes(), htmlPage{Title: title, Tool: tool,
+	page, err := htmlOf(t, data.Bytes(), svgs, again, htmlPage{Title: title, Tool: tool,
 		Sheets: []htmlSheet{{ID: "calc", Failed: r.Failed() > 0}}})
 	return Sheet{Name: "calc.html", Data: page}, err
 }

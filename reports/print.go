@@ -104,7 +104,12 @@ func (tp *treePrinter) print(name string, v any, link func(target) string) ([]by
 
 // printInto prints as print does, into b.
 func (tp *treePrinter) printInto(b *bytes.Buffer, name string, v any, link func(target) string) error {
-	p := printer{m: tp.f.m, link: link}
+	return tp.printWith(b, name, v, link, tp.f.m)
+}
+
+// printWith prints as printInto does, the leaves with the markup m.
+func (tp *treePrinter) printWith(b *bytes.Buffer, name string, v any, link func(target) string, m markup) error {
+	p := printer{m: m, link: link}
 	return tp.t.ExecuteTemplate(b, name, p.tree(v))
 }
 
@@ -345,11 +350,16 @@ func (s *sheetSet) printPage(tp *treePrinter, i int, v sheetView) (Sheet, error)
 
 // printPageInto prints page i as printPage does, into b.
 func (s *sheetSet) printPageInto(b *bytes.Buffer, tp *treePrinter, i int, v sheetView) error {
+	return s.printPageWith(b, tp, i, v, tp.f.m)
+}
+
+// printPageWith prints page i as printPageInto does, the leaves with the markup m.
+func (s *sheetSet) printPageWith(b *bytes.Buffer, tp *treePrinter, i int, v sheetView, m markup) error {
 	f := tp.f
 	if i == 0 {
-		return tp.printInto(b, f.index, v, f.onSheet("index"))
+		return tp.printWith(b, f.index, v, f.onSheet("index"), m)
 	}
-	return tp.printInto(b, f.sheet, v, f.onSheet(s.names[i-1]))
+	return tp.printWith(b, f.sheet, v, f.onSheet(s.names[i-1]), m)
 }
 
 // pageName is the base name of page i of the set, without extension.
@@ -525,10 +535,12 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 			var sh Sheet
 			var err error
 			if f.html != nil {
-				// The Markdown in a reused buffer, converted and let go.
+				// The Markdown in a reused buffer, its pictures as marks; converted and let go.
 				b := getBuffer()
-				if err = set.printPageInto(b, f.tp, i, v); err == nil {
-					sh, err = f.html.page(i, Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: b.Bytes()})
+				var svgs []string
+				if err = set.printPageWith(b, f.tp, i, v, mdFigures{svgs: &svgs}); err == nil {
+					again := func(w *bytes.Buffer) error { return set.printPageInto(w, f.tp, i, v) }
+					sh, err = f.html.page(i, Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: b.Bytes()}, svgs, again)
 				}
 				putBuffer(b)
 			} else {

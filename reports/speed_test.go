@@ -2,6 +2,8 @@ package reports
 
 import (
 	"bytes"
+	"fmt"
+	"html/template"
 	"math"
 	"math/rand"
 	"path"
@@ -474,3 +476,106 @@ func TestPlainTagsDemo(t *testing.T) {
 		}
 	}
 }
+
+// The pictures of the demo building's HTML sheets and calc document are left out of goldmark's
+// way on every page, and the HTML is the same as goldmark makes of the pictures themselves
+// (common practice, no source: the HTML must stay byte for byte what it was).
+func TestFiguresDemo(t *testing.T) {
+	if testing.Short() {
+		t.Skip("the demo building")
+	}
+	r := runFile(t, "../testdata/demo.yaml", "")
+	set, err := buildSheets(r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tp, err := htmlFormat.printer(htmlFormat.common, htmlFormat.index, htmlFormat.sheet)
+	if err != nil {
+		t.Fatal(err)
+	}
+	figures := 0
+	check := func(name string, print func(b *bytes.Buffer, m markup) error) {
+		var plain, marked, want, got bytes.Buffer
+		var svgs []string
+		if err := print(&plain, md{}); err != nil {
+			t.Fatal(err)
+		}
+		if err := print(&marked, mdFigures{svgs: &svgs}); err != nil {
+			t.Fatal(err)
+		}
+		figures += len(svgs)
+		if err := converter.Convert(plain.Bytes(), &want); err != nil {
+			t.Fatal(err)
+		}
+		if err := convertFigures(&got, marked.Bytes(), svgs); err != nil {
+			t.Errorf("%s: %v", name, err)
+		} else if !bytes.Equal(got.Bytes(), want.Bytes()) {
+			t.Errorf("%s: the HTML differs from goldmark's of the pictures", name)
+		}
+	}
+	for i := 0; i <= len(set.names); i++ {
+		v := set.index
+		if i > 0 {
+			v = set.sheets[i-1]
+		}
+		check(set.pageName(i), func(b *bytes.Buffer, m markup) error { return set.printPageWith(b, tp, i, v, m) })
+	}
+	v, err := buildDocument(r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	dp, err := htmlFormat.printer(htmlFormat.common, htmlFormat.doc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	check("calc", func(b *bytes.Buffer, m markup) error {
+		return dp.printWith(b, htmlFormat.doc, *v, htmlFormat.inDocument, m)
+	})
+	if figures < len(set.names) {
+		t.Errorf("%d figures in %d sheets, want one or more a sheet", figures, len(set.names))
+	}
+}
+
+// A mark of a figure where a picture cannot stand as it is (inside a paragraph, a list or a block
+// quote, or twice) is refused, and the page is then converted with the pictures themselves
+// (common practice, no source).
+func TestFiguresRefused(t *testing.T) {
+	svg := "<svg xmlns=\"http://www.w3.org/2000/svg\">\n<text>a_b *c*</text>\n</svg>\n"
+	for _, tmpl := range []string{
+		"text\n%s\nmore\n", "- item\n\n  %s\n", "> %s\n", "%s\n%s\n", "text %s\n",
+	} {
+		var marked, got, want bytes.Buffer
+		var svgs []string
+		m := mdFigures{svgs: &svgs}
+		n := strings.Count(tmpl, "%s")
+		args := make([]any, n)
+		plainArgs := make([]any, n)
+		for k := range args {
+			args[k] = strings.TrimSuffix(m.picture(fakeDrawing(svg)), "\n")
+			plainArgs[k] = strings.TrimSuffix(svg, "\n")
+		}
+		if n == 2 {
+			args[1] = args[0] // the same mark twice
+			svgs = svgs[:1]
+		}
+		marked.WriteString(fmt.Sprintf(tmpl, args...))
+		if err := convertFigures(&got, marked.Bytes(), svgs); err != errFigures {
+			t.Errorf("%q: %v, want %v", tmpl, err, errFigures)
+		}
+		plain := fmt.Sprintf(tmpl, plainArgs...)
+		if err := converter.Convert([]byte(plain), &want); err != nil {
+			t.Fatal(err)
+		}
+		page, err := htmlOf(template.Must(template.New("p").Parse("{{range .Sheets}}{{.Body}}{{end}}")), marked.Bytes(), svgs,
+			func(b *bytes.Buffer) error { b.WriteString(plain); return nil }, htmlPage{Sheets: []htmlSheet{{}}})
+		if err != nil || string(page) != want.String() {
+			t.Errorf("%q: page %q, %v; want %q", tmpl, page, err, want.String())
+		}
+	}
+}
+
+// fakeDrawing is a drawing of a fixed SVG, for tests.
+type fakeDrawing string
+
+func (f fakeDrawing) SVG() string { return string(f) }
+func (f fakeDrawing) PGF() string { return "" }
