@@ -478,7 +478,8 @@ func Render(r *design.Result, formats map[string]bool, o Options) (Package, []Sh
 // format asked for (md, tex, html) and hands each file to emit as soon as it is printed, by its
 // slash path below the output folder ("md/index.md", …, "doc/calc.md"): the index, then each
 // design's sheet in every format, then the calc document of each format. Up to workers
-// goroutines build and print the sheets, each tree dropped once printed, so that the memory
+// goroutines build and print the sheets and then the calc documents (one tree for every format,
+// printed in the formats at once), each sheet's tree dropped once printed, so that the memory
 // held does not grow with the number of designs beyond the result and its index (the book);
 // emit runs on the caller's goroutine, and an error it returns stops the rendering and is
 // returned as it is.
@@ -553,24 +554,14 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 		}
 		return out, nil
 	}
-	var emitErr error
-	err := inOrder(len(set.names)+1, workers, page, func(files []file) error {
-		for _, f := range files {
-			if emitErr = emit(f.path, f.data); emitErr != nil {
-				return emitErr
-			}
-		}
-		return nil
-	})
-	if err != nil {
-		return err
-	}
-	if len(fs) == 0 {
-		return nil
-	}
-	doc := document(r, bk, place{onePage: true, opt: o})
-	for _, f := range fs {
+	// After the pages, the calc document of each format: its tree built once, by the first
+	// printing that needs it, while the last sheets may still be printing.
+	var docOnce sync.Once
+	var doc docView
+	docFile := func(f printing) ([]file, error) {
+		docOnce.Do(func() { doc = document(r, bk, place{onePage: true, opt: o}) })
 		var d Sheet
+		var err error
 		if f.html != nil {
 			d, err = documentHTML(r, &doc)
 		} else {
@@ -578,13 +569,25 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 			d.Data, err = printDocument(&doc, f.tp.f)
 		}
 		if err != nil {
-			return fmt.Errorf("%s calc document: %v", f.name, err)
+			return nil, fmt.Errorf("%s calc document: %v", f.name, err)
 		}
-		if err := emit("doc/"+d.Name, d.Data); err != nil {
-			return err
-		}
+		return []file{{"doc/" + d.Name, d.Data}}, nil
 	}
-	return nil
+	pages := len(set.names) + 1
+	item := func(i int) ([]file, error) {
+		if i >= pages {
+			return docFile(fs[i-pages])
+		}
+		return page(i)
+	}
+	return inOrder(pages+len(fs), workers, item, func(files []file) error {
+		for _, f := range files {
+			if err := emit(f.path, f.data); err != nil {
+				return err
+			}
+		}
+		return nil
+	})
 }
 
 // inOrder makes the n pages page(0) … page(n-1) on up to workers goroutines and hands each to
