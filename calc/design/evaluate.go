@@ -17,7 +17,7 @@ import (
 )
 
 // stepsPerPattern is the room left for the bar-dependent steps of a full evaluation.
-const stepsPerPattern = 160
+const stepsPerPattern = 300
 
 // evaluate runs every bar-dependent step for one bar pattern and returns the design it gives.
 // With full false the equilibrium of the section is recorded as one step per axis instead of

@@ -220,12 +220,24 @@ func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
 }
 
 // farthestBar returns the greatest distance from a bar of above to the nearest bar of below, mm.
+//
+// The distance is taken by math.Hypot only for the bars that may be the nearest by squared
+// distance; a bar at the same place ends the search.
 func farthestBar(above, below [][2]float64) float64 {
 	out := 0.0
 	for _, q := range above {
-		near := math.Inf(1)
+		near, bd := math.Inf(1), math.Inf(1)
 		for _, r := range below {
-			near = math.Min(near, math.Hypot(q[0]-r[0], q[1]-r[1]))
+			dy, dz := q[0]-r[0], q[1]-r[1]
+			d2 := dy*dy + dz*dz
+			if d2 > bd*(1+1e-9) {
+				continue
+			}
+			bd = math.Min(bd, d2)
+			near = math.Min(near, math.Hypot(dy, dz))
+			if d2 == 0 {
+				break
+			}
 		}
 		out = math.Max(out, near)
 	}
