@@ -257,7 +257,12 @@ var figureMark = []byte(`<svg data-colsheet-figure="`)
 func (m mdFigures) picture(g drawing) string {
 	svg := g.SVG()
 	*m.svgs = append(*m.svgs, svg)
-	mark := string(figureMark) + strconv.Itoa(len(*m.svgs)-1) + `">`
+	return figureMarkOf(len(*m.svgs)-1, svg)
+}
+
+// figureMarkOf is the mark of figure n, of the SVG svg, in the Markdown of an HTML page.
+func figureMarkOf(n int, svg string) string {
+	mark := string(figureMark) + strconv.Itoa(n) + `">`
 	if strings.HasSuffix(svg, "\n") {
 		mark += "\n"
 	}

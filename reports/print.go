@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"reflect"
+	"strconv"
 	"strings"
 	"sync"
 	"text/template"
@@ -370,6 +371,114 @@ func (s *sheetSet) pageName(i int) string {
 	return s.names[i-1]
 }
 
+// printShared prints page i of the set once for both Markdown and HTML with tp, the Markdown
+// printer: the Markdown page, and the page's Markdown for HTML with its pictures as the marks of
+// figures (svgs, see mdFigures), in buffers to hand back. The two differ only in the extension of
+// the links to other sheets and in the pictures, which are printed as marks and then filled in
+// for each. ok is false where the page folds sub-steps (HTML folds them, Markdown does not) or
+// the marks cannot be read back; the formats are then printed each on its own.
+func (s *sheetSet) printShared(tp *treePrinter, i int, v sheetView) (md, htmlMD *bytes.Buffer, svgs []string, ok bool, err error) {
+	t, err := tp.t.Clone()
+	if err != nil {
+		return nil, nil, nil, false, err
+	}
+	folds := false
+	t.Funcs(template.FuncMap{"fold": func() bool { folds = true; return false }})
+	p := printer{m: mdShared{svgs: &svgs}, link: format{sheetExt: sharedExt}.onSheet(s.pageName(i))}
+	name := tp.f.sheet
+	if i == 0 {
+		name = tp.f.index
+	}
+	b := getBuffer()
+	defer putBuffer(b)
+	if err := t.ExecuteTemplate(b, name, p.tree(v)); err != nil {
+		return nil, nil, nil, false, err
+	}
+	if folds {
+		return nil, nil, nil, false, nil
+	}
+	md, htmlMD = getBuffer(), getBuffer()
+	okMD := fillShared(md, b.Bytes(), mdFormat.sheetExt, func(n int) string { return svgs[n] }, len(svgs))
+	okHTML := fillShared(htmlMD, b.Bytes(), htmlFormat.sheetExt, func(n int) string { return figureMarkOf(n, svgs[n]) }, len(svgs))
+	if !okMD || !okHTML {
+		putBuffer(md)
+		putBuffer(htmlMD)
+		return nil, nil, nil, false, nil
+	}
+	return md, htmlMD, svgs, true, nil
+}
+
+// foldsSteps reports whether the page v has folded sub-steps, which HTML prints folded: its
+// Markdown and HTML are then printed each on its own, not shared (printShared would find out).
+func foldsSteps(v sheetView) bool {
+	for _, g := range v.Groups {
+		for _, st := range g.Steps {
+			if st.FoldOpen || st.FoldClose {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// The marks of a page printed once for Markdown and HTML: sharedExt in place of the extension of
+// a linked sheet, sharedPicture, a number and sharedEnd in place of a picture. Every printed text
+// goes through oneLine, so the control character that starts them is nowhere else.
+const (
+	sharedExt     = "\x1aE\x1a"
+	sharedPicture = "\x1aP"
+	sharedEnd     = '\x1a'
+)
+
+// mdShared is the Markdown markup of a page printed once for Markdown and HTML: each picture a
+// numbered mark, its SVG kept in svgs.
+type mdShared struct {
+	md
+	svgs *[]string
+}
+
+func (m mdShared) picture(g drawing) string {
+	*m.svgs = append(*m.svgs, g.SVG())
+	return sharedPicture + strconv.Itoa(len(*m.svgs)-1) + string(sharedEnd)
+}
+
+// fillShared writes src into w with each mark of the shared printing filled in: the extension
+// ext, and picture n as pic(n), each of the n pictures once and in order. It reports false where
+// a mark is not one of them.
+func fillShared(w *bytes.Buffer, src []byte, ext string, pic func(n int) string, pictures int) bool {
+	w.Grow(len(src))
+	next := 0
+	for {
+		k := bytes.IndexByte(src, sharedEnd)
+		if k < 0 {
+			w.Write(src)
+			return next == pictures
+		}
+		w.Write(src[:k])
+		rest := src[k:]
+		switch {
+		case bytes.HasPrefix(rest, []byte(sharedExt)):
+			w.WriteString(ext)
+			src = rest[len(sharedExt):]
+		case bytes.HasPrefix(rest, []byte(sharedPicture)):
+			rest = rest[len(sharedPicture):]
+			e := bytes.IndexByte(rest, sharedEnd)
+			if e < 0 {
+				return false
+			}
+			n, err := strconv.Atoi(string(rest[:e]))
+			if err != nil || n != next {
+				return false
+			}
+			w.WriteString(pic(n))
+			next++
+			src = rest[e+1:]
+		default:
+			return false
+		}
+	}
+}
+
 // buildDocument builds the tree of the calc document once, for every format.
 func buildDocument(r *design.Result, o Options) (*docView, error) {
 	if r == nil {
@@ -526,25 +635,61 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 		data []byte
 	}
 	// Page i (0 the index, then the designs in order): its tree built once, printed per format.
+	var mdP, htmlP *printing
+	for k := range fs {
+		switch fs[k].name {
+		case "md":
+			mdP = &fs[k]
+		case "html":
+			htmlP = &fs[k]
+		}
+	}
 	page := func(i int) ([]file, error) {
 		v := set.index
 		if i > 0 {
 			v = sheet(bk, i-1, p)
 		}
+		// Markdown and HTML from one printing of the page where they differ only in the links'
+		// extension and the pictures.
+		var md, htmlMD *bytes.Buffer
+		var svgs []string
+		if mdP != nil && htmlP != nil && !foldsSteps(v) {
+			var ok bool
+			var err error
+			if md, htmlMD, svgs, ok, err = set.printShared(mdP.tp, i, v); err != nil {
+				return nil, fmt.Errorf("md: %v", err)
+			} else if !ok {
+				md, htmlMD = nil, nil
+			}
+			defer func() {
+				if md != nil {
+					putBuffer(md)
+					putBuffer(htmlMD)
+				}
+			}()
+		}
 		out := make([]file, 0, len(fs))
 		for _, f := range fs {
 			var sh Sheet
 			var err error
-			if f.html != nil {
+			switch {
+			case f.name == "md" && md != nil:
+				sh = Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: bytes.Clone(md.Bytes())}
+			case f.html != nil:
 				// The Markdown in a reused buffer, its pictures as marks; converted and let go.
+				again := func(w *bytes.Buffer) error { return set.printPageInto(w, f.tp, i, v) }
+				name := set.pageName(i) + f.tp.f.ext
+				if htmlMD != nil {
+					sh, err = f.html.page(i, Sheet{Name: name, Data: htmlMD.Bytes()}, svgs, again)
+					break
+				}
 				b := getBuffer()
 				var svgs []string
 				if err = set.printPageWith(b, f.tp, i, v, mdFigures{svgs: &svgs}); err == nil {
-					again := func(w *bytes.Buffer) error { return set.printPageInto(w, f.tp, i, v) }
-					sh, err = f.html.page(i, Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: b.Bytes()}, svgs, again)
+					sh, err = f.html.page(i, Sheet{Name: name, Data: b.Bytes()}, svgs, again)
 				}
 				putBuffer(b)
-			} else {
+			default:
 				sh, err = set.printPage(f.tp, i, v)
 			}
 			if err != nil {

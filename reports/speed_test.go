@@ -579,3 +579,80 @@ type fakeDrawing string
 
 func (f fakeDrawing) SVG() string { return string(f) }
 func (f fakeDrawing) PGF() string { return "" }
+
+// A page printed once for Markdown and HTML gives the bytes of each printed on its own, on every
+// brief sheet of the demo building; full sheets, whose HTML folds sub-steps, are printed each on
+// their own (common practice, no source: the files must stay byte for byte what they were).
+func TestPrintShared(t *testing.T) {
+	if testing.Short() {
+		t.Skip("the demo building")
+	}
+	r := runFile(t, "../testdata/demo.yaml", "")
+	mdTP, err := mdFormat.printer(mdFormat.common, mdFormat.index, mdFormat.sheet)
+	if err != nil {
+		t.Fatal(err)
+	}
+	htmlTP, err := htmlFormat.printer(htmlFormat.common, htmlFormat.index, htmlFormat.sheet)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, detail := range []Detail{Brief, Full} {
+		set, err := buildSheets(r, Options{Detail: detail})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i := 0; i <= len(set.names); i++ {
+			v := set.index
+			if i > 0 {
+				v = set.sheets[i-1]
+			}
+			md, htmlMD, svgs, ok, err := set.printShared(mdTP, i, v)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if want := detail == Brief || i == 0; ok != want {
+				t.Errorf("%s %s: shared %v, want %v", detail, set.pageName(i), ok, want)
+			}
+			if !ok {
+				continue
+			}
+			var wantMD, wantHTML bytes.Buffer
+			var wantSVGs []string
+			if err := set.printPageInto(&wantMD, mdTP, i, v); err != nil {
+				t.Fatal(err)
+			}
+			if err := set.printPageWith(&wantHTML, htmlTP, i, v, mdFigures{svgs: &wantSVGs}); err != nil {
+				t.Fatal(err)
+			}
+			if !bytes.Equal(md.Bytes(), wantMD.Bytes()) || !bytes.Equal(htmlMD.Bytes(), wantHTML.Bytes()) || !reflect.DeepEqual(svgs, wantSVGs) {
+				t.Errorf("%s %s: the shared printing differs from each format's own", detail, set.pageName(i))
+			}
+		}
+	}
+}
+
+// The marks of a shared printing are filled in, and anything else that starts like them refused
+// (common practice, no source).
+func TestFillShared(t *testing.T) {
+	pic := func(n int) string { return "<" + strconv.Itoa(n) + ">" }
+	for _, c := range []struct {
+		in, want string
+		pictures int
+		ok       bool
+	}{
+		{"a [x](B1" + sharedExt + "#s-1) " + sharedPicture + "0\x1a b " + sharedPicture + "1\x1a", "a [x](B1.html#s-1) <0> b <1>", 2, true},
+		{"plain", "plain", 0, true},
+		{sharedPicture + "1\x1a", "", 2, false}, // out of order
+		{sharedPicture + "0\x1a", "", 2, false}, // one missing
+		{sharedPicture + "x\x1a", "", 1, false}, // not a number
+		{"a \x1a b", "", 0, false},              // a lone control character
+		{sharedPicture + "0", "", 1, false},     // no end
+		{"\x1aE", "", 0, false},                 // a cut extension mark
+	} {
+		var w bytes.Buffer
+		ok := fillShared(&w, []byte(c.in), ".html", pic, c.pictures)
+		if ok != c.ok || ok && w.String() != c.want {
+			t.Errorf("%q: %q %v, want %q %v", c.in, w.String(), ok, c.want, c.ok)
+		}
+	}
+}
