@@ -604,7 +604,8 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 	}
 	bk := newBook(r)
 	p := place{opt: o}
-	set := &sheetSet{names: bk.names, index: index(r, func(name string) target { return target{sheet: name} }, bk, p)}
+	// The index's tree is built when its page is printed and let go after, as the sheets' are.
+	set := &sheetSet{names: bk.names}
 	type printing struct {
 		name string
 		tp   *treePrinter
@@ -645,8 +646,10 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 		}
 	}
 	page := func(i int) ([]file, error) {
-		v := set.index
-		if i > 0 {
+		var v sheetView
+		if i == 0 {
+			v = index(r, func(name string) target { return target{sheet: name} }, bk, p)
+		} else {
 			v = sheet(bk, i-1, p)
 		}
 		// Markdown and HTML from one printing of the page where they differ only in the links'
