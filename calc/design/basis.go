@@ -6,6 +6,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"sync/atomic"
 
 	"colsheet/calc/actions"
 	"colsheet/calc/code"
@@ -46,6 +47,28 @@ type projectBasis struct {
 	// the project's class the basis itself (see forLift); nil where every lift is of the
 	// project's class.
 	classes map[string]*projectBasis
+	// tail is the most steps a design has added after those of its derivation so far, shared
+	// by the bases of every class, to size the step slice of the next design.
+	tail *atomic.Int64
+}
+
+// room returns the capacity to give the step slice of a design whose derivation has n steps:
+// n and the most steps a design has added after its derivation so far (a guess before any).
+func (b *projectBasis) room(n int) int {
+	if t := b.tail.Load(); t > 0 {
+		return n + int(t)
+	}
+	return n + 64 + stepsPerPattern
+}
+
+// noteTail records that a design added n steps after those of its derivation.
+func (b *projectBasis) noteTail(n int) {
+	for {
+		t := b.tail.Load()
+		if int64(n) <= t || b.tail.CompareAndSwap(t, int64(n)) {
+			return
+		}
+	}
 }
 
 // coverSet is the cover allowances of one set of durability data.
@@ -86,7 +109,7 @@ func num(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 
 // newBasis records the project basis of the input.
 func newBasis(in *model.Input) *projectBasis {
-	b := &projectBasis{param: map[string]trace.Q{}, laps: map[float64]trace.Q{}}
+	b := &projectBasis{param: map[string]trace.Q{}, laps: map[float64]trace.Q{}, tail: new(atomic.Int64)}
 	l := &trace.Log{Prefix: "/" + BasisPrefix}
 	p := in.Code
 

@@ -317,16 +317,21 @@ func secondOrder(in *model.Input) Method {
 
 // common holds the traced quantities of a lift that do not depend on the bars.
 type common struct {
-	in           *model.Input
-	col          *model.Column
-	st           *model.Storey
-	p            code.Params
-	steps        []trace.Step
-	trialSteps   []trace.Step // the buffer of the trials' check steps
-	cases        *caseSet     // the lift's load cases when it has several; nil for one
-	tension      bool         // NEd < 0: no imperfection, e0, slenderness or second order
-	circle       bool         // a circular section: b and h are both its diameter D
-	shearCap     *shearCap    // the link spacing that another load case's shear allows; nil: none
+	in         *model.Input
+	col        *model.Column
+	st         *model.Storey
+	p          code.Params
+	steps      []trace.Step
+	trialSteps []trace.Step // the buffer of the trials' check steps
+	derived    int          // the steps of the derivation at the head of steps
+	// arrangements holds the commons of the trial derivations of withArrangements, made once
+	// per lift (they do not depend on the bars): about y and z, the arrangement in single
+	// curvature and that of the least axial force; nil where not yet made.
+	arrangements *[2][2]*common
+	cases        *caseSet  // the lift's load cases when it has several; nil for one
+	tension      bool      // NEd < 0: no imperfection, e0, slenderness or second order
+	circle       bool      // a circular section: b and h are both its diameter D
+	shearCap     *shearCap // the link spacing that another load case's shear allows; nil: none
 	cautions     []string
 	fck, fcd     trace.Q
 	fyd, es      trace.Q
@@ -388,14 +393,15 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	case dv != nil && dv.trial:
 		l = &trace.Log{Trial: true}
 	case dv == nil:
-		l = &trace.Log{Steps: make([]trace.Step, 0, 64+stepsPerPattern)}
+		l = &trace.Log{Steps: make([]trace.Step, 0, bs.room(0))}
 	default:
-		l = &trace.Log{Steps: make([]trace.Step, 0, len(dv.Steps)+64+stepsPerPattern)}
+		l = &trace.Log{Steps: make([]trace.Step, 0, bs.room(len(dv.Steps)))}
 		if dv.hoist != nil {
 			l.Steps, dv.across = dv.hoist.filter(l.Steps, dv.Steps, col.ID+"/"+st.Name+"/")
 		} else {
 			l.Steps = append(l.Steps, dv.Steps...)
 		}
+		c.derived = len(l.Steps)
 	}
 	p := in.Code
 
@@ -590,12 +596,16 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 		return d
 	}
 	c := newCommon(in, col, st, dv, bs)
+	var d Design
 	if col.Bars != nil {
-		d := c.evaluate(c.givenPattern(), true, true)
+		d = c.evaluate(c.givenPattern(), true, true)
 		c.withArrangements(&d, dv)
-		return oneCase(c.finish(d), st)
+		d = c.finish(d)
+	} else {
+		d = c.search(dv)
 	}
-	return oneCase(c.search(dv), st)
+	c.bs.noteTail(len(d.Steps) - c.derived)
+	return oneCase(d, st)
 }
 
 // withArrangements checks the design's bars once more for each moment arrangement with the
@@ -633,9 +643,11 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		if alt.From == "" {
 			continue
 		}
-		bottom := dv.Bottom
-		bottom[k] = alt
-		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}, c.bs)
+		c2 := c.arrangement(0, k, func() *Derivation {
+			bottom := dv.Bottom
+			bottom[k] = alt
+			return &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}
+		})
 		qr := c2.quickResist(d.pattern, c.nEd.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
@@ -660,9 +672,11 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		if mc.N.From == "" {
 			continue
 		}
-		top, bottom := dv.Top, dv.Bottom
-		top[k], bottom[k] = mc.Top, mc.Bot
-		c2 := newCommon(c.in, c.col, c.st, &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}, c.bs)
+		c2 := c.arrangement(1, k, func() *Derivation {
+			top, bottom := dv.Top, dv.Bottom
+			top[k], bottom[k] = mc.Top, mc.Bot
+			return &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}
+		})
 		qr := c2.quickResist(d.pattern, mc.N.V)
 		n := []string{"y", "z"}[k]
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
@@ -684,6 +698,20 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 	if added {
 		c.settle(d, l, d.checks)
 	}
+}
+
+// arrangement returns the common of the trial derivation of withArrangements of kind i (0: the
+// arrangement in single curvature, 1: that of the least axial force) about axis k, made from the
+// derivation dv gives the first time and kept for the other bar patterns of the lift.
+func (c *common) arrangement(i, k int, dv func() *Derivation) *common {
+	if c.arrangements == nil {
+		c.arrangements = new([2][2]*common)
+	}
+	a := &c.arrangements[i][k]
+	if *a == nil {
+		*a = newCommon(c.in, c.col, c.st, dv(), c.bs)
+	}
+	return *a
 }
 
 // givenPattern lays out the given bars: the most even pattern that fits, or, when none fits,
