@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -537,12 +538,10 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 	d.Utilization = 0
 	d.Governing = ""
 	d.Reasons = nil
-	seen := map[string]bool{} // check steps and reasons already counted
-	for _, ch := range checks {
-		if seen[ch.id] {
-			continue
+	for i, ch := range checks {
+		if slices.ContainsFunc(checks[:i], func(x checked) bool { return x.id == ch.id }) {
+			continue // counted already
 		}
-		seen[ch.id] = true
 		var s *trace.Step
 		for i := len(l.Steps) - 1; i >= 0; i-- {
 			if l.Steps[i].ID == ch.id {
@@ -570,8 +569,7 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 			if r := d.reasons[ch.id]; r != "" {
 				reason = r // the check's own words with its values (the scope of the fire method)
 			}
-			if !seen["reason "+reason] {
-				seen["reason "+reason] = true
+			if !slices.Contains(d.Reasons, reason) {
 				d.Reasons = append(d.Reasons, reason)
 			}
 		}
@@ -582,7 +580,9 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 // checkTitle returns the title of a check step, naming its axis ("… about y") where the step
 // belongs to one axis (a part of its ID is "y" or "z") and the title does not say so already.
 func checkTitle(s trace.Step) string {
-	for _, part := range strings.Split(s.ID, "/") {
+	for rest := s.ID; rest != ""; {
+		var part string
+		part, rest, _ = strings.Cut(rest, "/")
 		if (part == "y" || part == "z") && !strings.Contains(s.Title, "about "+part) {
 			return s.Title + " about " + part
 		}

@@ -18,13 +18,18 @@ import (
 
 // neighbour is the bar pattern of another lift of the column with the geometry it sits in.
 type neighbour struct {
-	p detail.Pattern
-	g detail.Geometry
+	p   detail.Pattern
+	g   detail.Geometry
+	pos [][2]float64 // g.Positions(p), for the many comparisons with it
 }
 
 // neighbourOf returns the pattern of a design with its geometry.
 func neighbourOf(d *Design) *neighbour {
-	return &neighbour{p: d.pattern, g: detail.Geometry{B: d.B, H: d.H, Cover: d.Cover, Link: d.Links.Dia, Circle: d.Shape == model.ShapeCircle}}
+	n := &neighbour{p: d.pattern, g: detail.Geometry{B: d.B, H: d.H, Cover: d.Cover, Link: d.Links.Dia, Circle: d.Shape == model.ShapeCircle}}
+	if n.p.Count() > 0 {
+		n.pos = n.g.Positions(n.p)
+	}
+	return n
 }
 
 // option is a candidate pattern with its cost and whether it keeps the vibrator gap.
@@ -123,10 +128,10 @@ func (c *common) options(r rules) (roomy, tight []option) {
 	w := weights(r.sel)
 	for p, ok := it.Next(); ok; p, ok = it.Next() {
 		g := c.geometry(p)
-		if r.above != nil && !detail.Continues(r.above.g, r.above.p, g, p).OK() {
+		if r.above != nil && !detail.ContinuesAt(r.above.g, r.above.p, r.above.pos, g, p, nil).OK() {
 			continue
 		}
-		if r.below != nil && !detail.Continues(g, p, r.below.g, r.below.p).OK() {
+		if r.below != nil && !detail.ContinuesAt(g, p, nil, r.below.g, r.below.p, r.below.pos).OK() {
 			continue
 		}
 		o := option{p: p, roomy: r.sel.VibratorGap <= 0 || g.Roomy(p, r.sel.VibratorGap),

@@ -195,6 +195,21 @@ func (c Continuity) OK() bool { return c.Ratio <= 1+1e-9 }
 // is the change of its radius. Between a ring and the faces of a rectangle only the counts and
 // the diameters are compared.
 func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
+	return ContinuesAt(ga, a, nil, g, p, nil)
+}
+
+// ContinuesAt is Continues with the bar positions of the lift above, posA (ga.Positions(a)),
+// and of this lift, pos (g.Positions(p)), where the caller holds them; nil: worked out here.
+func ContinuesAt(ga Geometry, a Pattern, posA [][2]float64, g Geometry, p Pattern, pos [][2]float64) Continuity {
+	positions := func() ([][2]float64, [][2]float64) {
+		if posA == nil {
+			posA = ga.Positions(a)
+		}
+		if pos == nil {
+			pos = g.Positions(p)
+		}
+		return posA, pos
+	}
 	if a.Ring > 0 || p.Ring > 0 {
 		c := Continuity{SameSection: a.Ring > 0 && p.Ring > 0 && ga.B == g.B && ga.Cover == g.Cover, Reach: math.Max(a.Dia, p.Dia)}
 		c.Ratio = math.Max(float64(a.Count())/float64(p.Count()), a.Dia/p.Dia)
@@ -202,7 +217,7 @@ func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
 			c.Offset = math.Abs(ga.RingRadius(a.Dia) - g.RingRadius(p.Dia))
 		}
 		if c.SameSection && c.Ratio <= 1+1e-9 {
-			c.Farthest = farthestBar(ga.Positions(a), g.Positions(p))
+			c.Farthest = farthestBar(positions())
 			c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
 		}
 		return c
@@ -214,7 +229,7 @@ func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
 	if !c.SameSection || c.Ratio > 1+1e-9 {
 		return c // cranked, or too few bars or too small: the positions need no comparing
 	}
-	c.Farthest = farthestBar(ga.Positions(a), g.Positions(p))
+	c.Farthest = farthestBar(positions())
 	c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
 	return c
 }

@@ -170,3 +170,33 @@ func TestContinues(t *testing.T) {
 		t.Errorf("crank length %g, want 300", s.Value)
 	}
 }
+
+// TestContinuesAtMatchesContinues holds the comparison with the positions given to that which
+// works them out.
+func TestContinuesAtMatchesContinues(t *testing.T) {
+	rect := Geometry{B: 400, H: 500, Cover: 35, Link: 8}
+	wide := Geometry{B: 450, H: 500, Cover: 35, Link: 10}
+	ring := Geometry{B: 500, H: 500, Cover: 40, Link: 10, Circle: true}
+	cases := []struct {
+		ga, g Geometry
+		a, p  Pattern
+	}{
+		{rect, rect, Pattern{Dia: 16, NB: 2, NH: 2}, Pattern{Dia: 16, NB: 3, NH: 3}},
+		{rect, rect, Pattern{Dia: 20, NB: 3, NH: 4}, Pattern{Dia: 16, NB: 3, NH: 4}},
+		{rect, wide, Pattern{Dia: 16, NB: 3, NH: 3}, Pattern{Dia: 20, NB: 3, NH: 3}},
+		{ring, ring, Pattern{Dia: 16, Ring: 6}, Pattern{Dia: 16, Ring: 8}},
+		{ring, ring, Pattern{Dia: 16, Ring: 8}, Pattern{Dia: 20, Ring: 8}},
+	}
+	for _, c := range cases {
+		want := Continues(c.ga, c.a, c.g, c.p)
+		for _, got := range []Continuity{
+			ContinuesAt(c.ga, c.a, c.ga.Positions(c.a), c.g, c.p, nil),
+			ContinuesAt(c.ga, c.a, nil, c.g, c.p, c.g.Positions(c.p)),
+			ContinuesAt(c.ga, c.a, c.ga.Positions(c.a), c.g, c.p, c.g.Positions(c.p)),
+		} {
+			if got != want {
+				t.Errorf("%v over %v: %+v, want %+v", c.a, c.p, got, want)
+			}
+		}
+	}
+}
