@@ -1,7 +1,6 @@
 package frame
 
 import (
-	"fmt"
 	"math"
 	"strconv"
 	"strings"
@@ -203,8 +202,7 @@ func UnbalancedStep(id, title string, fems ...trace.Q) trace.Step {
 // DistributionFactorStep records the distribution factor k/Σk of a member end among the
 // stiffnesses of all the member ends at the joint (zero, with a caution, when Σk is zero).
 func DistributionFactorStep(id, title string, k trace.Q, all ...trace.Q) trace.Step {
-	total, args, v := sum("k", all)
-	args = append([]trace.Arg{trace.A("k", k)}, args...)
+	total, args, v := sumAfter("k", all, trace.A("k", k))
 	if !(v > 0) {
 		return trace.Formula(id, title, subframeClause, "D", "", 0, "0 * k", args...).
 			Caution("The joint has no stiffness: nothing is distributed.")
@@ -216,8 +214,7 @@ func DistributionFactorStep(id, title string, k trace.Q, all ...trace.Q) trace.S
 // −M_unb·k/Σk, clockwise positive on the member end (the column's moment at the joint;
 // zero, with a caution, when Σk is zero).
 func ColumnMomentStep(id, title string, unbalanced, k trace.Q, all ...trace.Q) trace.Step {
-	total, args, v := sum("k", all)
-	args = append([]trace.Arg{trace.A("M_unb", unbalanced), trace.A("k", k)}, args...)
+	total, args, v := sumAfter("k", all, trace.A("M_unb", unbalanced), trace.A("k", k))
 	if !(v > 0) {
 		return trace.Formula(id, title, subframeClause, "M_col", "Nmm", 0, "0 * M_unb", args...).
 			Caution("The joint has no stiffness: nothing is distributed.")
@@ -233,18 +230,31 @@ func CarryOverStep(id, title string, m trace.Q) trace.Step {
 
 // sum returns the expression name1 + name2 + … over the quantities, its arguments and value.
 func sum(name string, qs []trace.Q) (string, []trace.Arg, float64) {
+	return sumAfter(name, qs)
+}
+
+// sumAfter is sum with the arguments lead ahead of those of the terms.
+func sumAfter(name string, qs []trace.Q, lead ...trace.Arg) (string, []trace.Arg, float64) {
 	if len(qs) == 0 {
-		return "0", nil, 0
+		if len(lead) == 0 {
+			return "0", nil, 0
+		}
+		return "0", append([]trace.Arg(nil), lead...), 0
 	}
-	names := make([]string, len(qs))
-	args := make([]trace.Arg, len(qs))
+	var expr strings.Builder
+	args := make([]trace.Arg, len(lead), len(lead)+len(qs))
+	copy(args, lead)
 	v := 0.0
 	for i, q := range qs {
-		names[i] = fmt.Sprintf("%s%d", name, i+1)
-		args[i] = trace.A(names[i], q)
+		n := name + strconv.Itoa(i+1)
+		if i > 0 {
+			expr.WriteString(" + ")
+		}
+		expr.WriteString(n)
+		args = append(args, trace.A(n, q))
 		v += q.V
 	}
-	return strings.Join(names, " + "), args, v
+	return expr.String(), args, v
 }
 
 // JointBeam is a traced beam at a subframe joint: its stiffness (with the beam factor
@@ -277,8 +287,15 @@ type JointSteps struct {
 // and the carry-over to its far end; step IDs start with prefix.
 func (j Joint) Steps(prefix string) JointSteps {
 	var out JointSteps
+	n := 1 // the unbalanced moment, then three steps per column
+	for _, c := range []*trace.Q{j.Above, j.Below} {
+		if c != nil {
+			n += 3
+		}
+	}
+	out.Steps = make([]trace.Step, 0, n)
 	add := func(s trace.Step) trace.Q { out.Steps = append(out.Steps, s); return s.Q() }
-	var fems, ks []trace.Q
+	fems, ks := make([]trace.Q, 0, 2), make([]trace.Q, 0, 4)
 	for _, b := range []*JointBeam{j.Left, j.Right} {
 		if b != nil {
 			fems = append(fems, b.FEM)
