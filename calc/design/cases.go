@@ -70,7 +70,7 @@ func (cs *caseSet) trial(d *Design, p detail.Pattern) bool {
 		if k == cs.lead {
 			continue
 		}
-		o := c.evaluate(p, false, false)
+		o := c.trial(p)
 		if o.Status != StatusPass {
 			d.Status = StatusFail
 			keep = keep && o.failsOnlyOnFixed()

@@ -389,42 +389,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 
 	// Fire resistance, EN 1992-1-2:2004 5.3.2, Method A (Table 5.2a, or Eq. (5.7)), or a rating
 	// verified elsewhere and recorded as such.
-	if f := c.fire(); f != nil && f.Rating > 0 && c.tension {
-		l.Group = "Fire resistance R" + strconv.Itoa(f.Rating)
-		l.Add(fire.RatingInput("fire/R_req", f.Rating).
-			Caution("NEd is a tension: EN 1992-1-2 5.3.2 (Method A) concerns columns in compression and is not applied to this case; verify the fire resistance of the member in tension by other means (EN 1992-1-2 Section 4 or 5.6 as for members in tension)."))
-	} else if f != nil && f.Rating > 0 {
-		fc := fire.Column{B: c.b, H: c.h, Circle: c.circle, Ac: c.ac, Fck: c.fck, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, NEd: c.nEd,
-			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", ""),
-			MuFixed: !f.UseMuFi}
-		if f.Method == model.FireElsewhere {
-			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (verified elsewhere)"
-			d.Detailing.SurfaceMesh = fire.Elsewhere(l, "fire/", f.Rating, f.Note, fc)
-			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, true, fire.RouteElsewhere
-			d.Cautions = append(d.Cautions, fmt.Sprintf("Fire resistance R%d verified elsewhere, outside this calculation (no check of EN 1992-1-2 Method A here): %s", f.Rating, f.Note))
-		} else {
-			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (EN 1992-1-2 5.3.2, Method A)"
-			fc.L0Fi = l.Add(trace.Formula("fire/l0_fi", "Effective length in fire, taken as at normal temperature", "EN 1992-1-2:2004 5.3.2(2)", "l_0,fi", "mm",
-				math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
-			fc.EY, fc.EZ = fire.Eccentricities(l, "fire/", fc)
-			mu := c.fireUtilisation(l, f, p, nRdMax, fc.EY, fc.EZ)
-			out := fire.Assess(l, "fire/", f.Rating, mu, fc)
-			for _, v := range out.Checks {
-				checks = append(checks, checked{v.ID, false})
-				d.failure(v.ID, v.Reason, v.Fixed)
-			}
-			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, out.OK, out.Route
-			d.Detailing.SurfaceMesh = out.Mesh
-		}
-		if d.Detailing.SurfaceMesh {
-			d.Cautions = append(d.Cautions, "Surface reinforcement against falling off of concrete in fire (EN 1992-1-2 4.5.2(2)): the axis distance of the main bars is 70 mm or more, so a mesh is required in the cover (spacing not above 100 mm, bars not below 4 mm) unless tests show that the concrete does not fall off.")
-		}
-	} else {
-		// No rating asked of this lift: the sheet says so, so that no lift is silent on fire.
-		l.Group = "Fire resistance: none required"
-		l.Add(fire.RatingInput("fire/R_req", 0).
-			Note("The input asks no standard fire resistance of this lift, so none is checked. The building regulations and the project's fire strategy govern; give a rating in the design options, the fire levels of the building or the column where one is required."))
-	}
+	checks = c.fireSteps(l, &d, checks, p, fireBars{cnom: cnom, phiT: phiT, phi: phi, nb: nb, as: as, omega: omega, nRdMax: nRdMax})
 
 	if c.circle {
 		c.circleBiaxial(l, &d, mEds, mRd, resistance)
@@ -524,6 +489,56 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	return d
 }
 
+// fireBars holds the bar-dependent quantities the fire resistance of a pattern takes.
+type fireBars struct {
+	cnom, phiT, phi, nb, as, omega, nRdMax trace.Q
+}
+
+// fireSteps records the fire resistance of the lift with pattern p, EN 1992-1-2:2004 5.3.2,
+// Method A (Table 5.2a, or Eq. (5.7)), or a rating verified elsewhere and recorded as such, or
+// that none is asked; it returns checks with the fire checks added.
+func (c *common) fireSteps(l *trace.Log, d *Design, checks []checked, p detail.Pattern, fb fireBars) []checked {
+	prm := c.p
+	cnom, phiT, phi, nb, as, omega, nRdMax := fb.cnom, fb.phiT, fb.phi, fb.nb, fb.as, fb.omega, fb.nRdMax
+	if f := c.fire(); f != nil && f.Rating > 0 && c.tension {
+		l.Group = "Fire resistance R" + strconv.Itoa(f.Rating)
+		l.Add(fire.RatingInput("fire/R_req", f.Rating).
+			Caution("NEd is a tension: EN 1992-1-2 5.3.2 (Method A) concerns columns in compression and is not applied to this case; verify the fire resistance of the member in tension by other means (EN 1992-1-2 Section 4 or 5.6 as for members in tension)."))
+	} else if f != nil && f.Rating > 0 {
+		fc := fire.Column{B: c.b, H: c.h, Circle: c.circle, Ac: c.ac, Fck: c.fck, Cover: cnom, LinkDia: phiT, Dia: phi, Bars: nb, As: as, NEd: c.nEd,
+			M0EdY: c.ax[0].m02i, M0EdZ: c.ax[1].m02i, Omega: omega, AlphaCc: param(prm, "alpha_cc", ""), EMax: param(prm, "fire_emax", ""),
+			MuFixed: !f.UseMuFi}
+		if f.Method == model.FireElsewhere {
+			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (verified elsewhere)"
+			d.Detailing.SurfaceMesh = fire.Elsewhere(l, "fire/", f.Rating, f.Note, fc)
+			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, true, fire.RouteElsewhere
+			d.Cautions = append(d.Cautions, fmt.Sprintf("Fire resistance R%d verified elsewhere, outside this calculation (no check of EN 1992-1-2 Method A here): %s", f.Rating, f.Note))
+		} else {
+			l.Group = "Fire resistance R" + strconv.Itoa(f.Rating) + " (EN 1992-1-2 5.3.2, Method A)"
+			fc.L0Fi = l.Add(trace.Formula("fire/l0_fi", "Effective length in fire, taken as at normal temperature", "EN 1992-1-2:2004 5.3.2(2)", "l_0,fi", "mm",
+				math.Max(c.ax[0].l0.V, c.ax[1].l0.V), "max(l0_y, l0_z)", trace.A("l0_y", c.ax[0].l0), trace.A("l0_z", c.ax[1].l0)))
+			fc.EY, fc.EZ = fire.Eccentricities(l, "fire/", fc)
+			mu := c.fireUtilisation(l, f, p, nRdMax, fc.EY, fc.EZ)
+			out := fire.Assess(l, "fire/", f.Rating, mu, fc)
+			for _, v := range out.Checks {
+				checks = append(checks, checked{v.ID, false})
+				d.failure(v.ID, v.Reason, v.Fixed)
+			}
+			d.Detailing.FireRating, d.Detailing.FireOK, d.Detailing.FireMethod = f.Rating, out.OK, out.Route
+			d.Detailing.SurfaceMesh = out.Mesh
+		}
+		if d.Detailing.SurfaceMesh {
+			d.Cautions = append(d.Cautions, "Surface reinforcement against falling off of concrete in fire (EN 1992-1-2 4.5.2(2)): the axis distance of the main bars is 70 mm or more, so a mesh is required in the cover (spacing not above 100 mm, bars not below 4 mm) unless tests show that the concrete does not fall off.")
+		}
+	} else {
+		// No rating asked of this lift: the sheet says so, so that no lift is silent on fire.
+		l.Group = "Fire resistance: none required"
+		l.Add(fire.RatingInput("fire/R_req", 0).
+			Note("The input asks no standard fire resistance of this lift, so none is checked. The building regulations and the project's fire strategy govern; give a rating in the design options, the fire levels of the building or the column where one is required."))
+	}
+	return checks
+}
+
 // checked names a check step and says whether it compares an action with a resistance.
 type checked struct {
 	id         string
@@ -559,6 +574,9 @@ func (c *common) settle(d *Design, l *trace.Log, checks []checked) {
 		}
 		if s.Verdict == trace.Fail {
 			d.Status = StatusFail
+			if d.trial {
+				continue // a trial is read for its status and utilisation only
+			}
 			var reason string
 			if len(s.Args) == 0 {
 				// A condition with no ratio to give (unmet).

@@ -3,6 +3,7 @@ package design
 import (
 	"testing"
 
+	"colsheet/calc/detail"
 	"colsheet/calc/model"
 )
 
@@ -38,4 +39,25 @@ func BenchmarkPartFinish(b *testing.B) {
 		d.Steps = steps[:len(steps):len(steps)]
 		c.finish(d)
 	}
+}
+
+// benchTrial measures one way of trying the first candidate pattern of the bench input.
+func benchTrial(b *testing.B, try func(c *common, p detail.Pattern) Design) {
+	in := benchInput()
+	c := newCommon(in, &in.Columns[0], &in.Columns[0].Storeys[0], nil, newBasis(in))
+	p := candidatesFor(c)[0]
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		try(c, p)
+	}
+}
+
+// BenchmarkPartTrial measures the trial of one candidate pattern (trial.go), as the search makes it.
+func BenchmarkPartTrial(b *testing.B) {
+	benchTrial(b, func(c *common, p detail.Pattern) Design { return c.trial(p) })
+}
+
+// BenchmarkPartTrialTraced measures the traced trial of the same pattern, evaluate(p, false, false).
+func BenchmarkPartTrialTraced(b *testing.B) {
+	benchTrial(b, func(c *common, p detail.Pattern) Design { return c.evaluate(p, false, false) })
 }

@@ -97,6 +97,7 @@ type Design struct {
 	checks  []checked         // its check steps
 	reasons map[string]string // by check step ID, the reason to give where it fails, in its own words (the fire method's scope)
 	fixed   map[string]bool   // check step IDs that no bar pattern can make hold (the fire method's scope)
+	trial   bool              // a candidate pattern's trial (trial.go): its check steps carry no arguments and its reasons are not worded
 }
 
 // Ac returns the gross concrete area of the design's section, mm².

@@ -178,7 +178,7 @@ func (c *common) try(p detail.Pattern, floor float64, dv *Derivation) trial {
 	if c.cannotPass(p) {
 		return trial{}
 	}
-	d := c.evaluate(p, false, false)
+	d := c.trial(p)
 	t := trial{d: d, ran: true}
 	if c.cases != nil {
 		t.keep = c.cases.trial(&t.d, p)

@@ -8,7 +8,7 @@ import (
 
 // LeverArm returns the inner lever arm z = 0.9·d, EN 1992-1-1:2004 6.2.3(1).
 func LeverArm(id string, d trace.Q) trace.Step {
-	return trace.Formula(id, "Inner lever arm for shear", ec2+"6.2.3(1)", "z", "mm", 0.9*d.V, "0.9 * d", trace.A("d", d)).
+	return trace.Formula(id, "Inner lever arm for shear", ec2+"6.2.3(1)", "z", "mm", LeverArmValue(d.V), "0.9 * d", trace.A("d", d)).
 		Note("6.2.3(1) gives z = 0.9·d for members without axial force; it is used with the column's axial force as well.")
 }
 
@@ -107,7 +107,7 @@ func cotThetaValue(c, vEd, cotMin, cotMax float64) float64 {
 // VRdMax returns the strut resistance VRd,max = αcw·bw·z·ν1·fcd/(cot θ + tan θ), EN 1992-1-1:2004 6.2.3(3), Eq. (6.9).
 func VRdMax(id string, alphaCw, bw, z, nu1, fcd, cot trace.Q) trace.Step {
 	return trace.Formula(id, "Shear resistance of the concrete struts", ec2+"6.2.3(3), Eq. (6.9)", "V_Rd,max", "N",
-		alphaCw.V*bw.V*z.V*nu1.V*fcd.V/(cot.V+1/cot.V), "alpha_cw * b_w * z * nu_1 * f_cd / (cot_theta + 1 / cot_theta)",
+		VRdMaxValue(alphaCw.V, bw.V, z.V, nu1.V, fcd.V, cot.V), "alpha_cw * b_w * z * nu_1 * f_cd / (cot_theta + 1 / cot_theta)",
 		trace.A("alpha_cw", alphaCw), trace.A("b_w", bw), trace.A("z", z), trace.A("nu_1", nu1), trace.A("f_cd", fcd),
 		trace.A("cot_theta", cot))
 }
@@ -115,7 +115,7 @@ func VRdMax(id string, alphaCw, bw, z, nu1, fcd, cot trace.Q) trace.Step {
 // MaxCheck checks VEd ≤ VRd,max, EN 1992-1-1:2004 6.2.1(6); 6.2.3(3), Eq. (6.9).
 func MaxCheck(id string, vEd, vRdMax trace.Q) trace.Step {
 	s := trace.Check(id, "Shear within the resistance of the concrete struts", ec2+"6.2.1(6); 6.2.3(3), Eq. (6.9)", "V_Ed ≤ V_Rd,max",
-		vEd.V/math.Max(vRdMax.V, guard), "V_Ed / max(V_Rd_max, 0.001)", trace.A("V_Ed", vEd), trace.A("V_Rd_max", vRdMax))
+		MaxCheckValue(vEd.V, vRdMax.V), "V_Ed / max(V_Rd_max, 0.001)", trace.A("V_Ed", vEd), trace.A("V_Rd_max", vRdMax))
 	if vRdMax.V < guard {
 		s = s.Unmet()
 	} else {
@@ -131,7 +131,7 @@ func MaxCheck(id string, vEd, vRdMax trace.Q) trace.Step {
 // EN 1992-1-1:2004 6.2.3(3), Eq. (6.8).
 func SpacingRequired(id string, asw, z, fywd, cot, vEd trace.Q) trace.Step {
 	s := trace.Formula(id, "Largest link spacing for the shear", ec2+"6.2.3(3), Eq. (6.8)", "s_req", "mm",
-		asw.V*z.V*fywd.V*cot.V/math.Max(vEd.V, guard), "A_sw * z * f_ywd * cot_theta / max(V_Ed, 0.001)",
+		SpacingRequiredValue(asw.V, z.V, fywd.V, cot.V, vEd.V), "A_sw * z * f_ywd * cot_theta / max(V_Ed, 0.001)",
 		trace.A("A_sw", asw), trace.A("z", z), trace.A("f_ywd", fywd), trace.A("cot_theta", cot), trace.A("V_Ed", vEd))
 	if vEd.V < guard {
 		return s
@@ -142,7 +142,7 @@ func SpacingRequired(id string, asw, z, fywd, cot, vEd trace.Q) trace.Step {
 // VRds returns the resistance of the links VRd,s = Asw/s·z·fywd·cot θ, EN 1992-1-1:2004 6.2.3(3), Eq. (6.8).
 func VRds(id string, asw, s, z, fywd, cot trace.Q) trace.Step {
 	st := trace.Formula(id, "Shear resistance of the links", ec2+"6.2.3(3), Eq. (6.8)", "V_Rd,s", "N",
-		asw.V/math.Max(s.V, guard)*z.V*fywd.V*cot.V, "A_sw / max(s, 0.001) * z * f_ywd * cot_theta",
+		VRdsValue(asw.V, s.V, z.V, fywd.V, cot.V), "A_sw / max(s, 0.001) * z * f_ywd * cot_theta",
 		trace.A("A_sw", asw), trace.A("s", s), trace.A("z", z), trace.A("f_ywd", fywd), trace.A("cot_theta", cot))
 	if s.V < guard {
 		return st
@@ -155,7 +155,7 @@ func VRds(id string, asw, s, z, fywd, cot trace.Q) trace.Step {
 func LinksCheck(id string, vEd, vRdc, vRds trace.Q) trace.Step {
 	r := math.Max(vRdc.V, vRds.V)
 	s := trace.Check(id, "Shear with the links provided", ec2+"6.2.1(3), (5); 6.2.3(3), Eq. (6.8)", "V_Ed ≤ max(V_Rd,c, V_Rd,s)",
-		vEd.V/math.Max(r, guard), "V_Ed / max(V_Rd_c, V_Rd_s, 0.001)",
+		LinksCheckValue(vEd.V, vRdc.V, vRds.V), "V_Ed / max(V_Rd_c, V_Rd_s, 0.001)",
 		trace.A("V_Ed", vEd), trace.A("V_Rd_c", vRdc), trace.A("V_Rd_s", vRds))
 	if r < guard {
 		return s.Unmet()

@@ -9,8 +9,6 @@
 package shear
 
 import (
-	"math"
-
 	"colsheet/calc/trace"
 )
 
@@ -22,12 +20,12 @@ const rhoMax = 0.02
 // K returns the size factor k = 1 + √(200/d) ≤ 2.0, d in mm, EN 1992-1-1:2004 6.2.2(1).
 func K(id string, d trace.Q) trace.Step {
 	return trace.Formula(id, "Size factor for shear", ec2+"6.2.2(1)", "k", "",
-		math.Min(1+math.Sqrt(200/d.V), 2), "min(1 + sqrt(200 / d), 2)", trace.A("d", d))
+		KValue(d.V), "min(1 + sqrt(200 / d), 2)", trace.A("d", d))
 }
 
 // RhoL returns the longitudinal tension steel ratio ρl = Asl/(bw·d) ≤ 0.02, EN 1992-1-1:2004 6.2.2(1).
 func RhoL(id string, asl, bw, d trace.Q) trace.Step {
-	v := math.Min(asl.V/(bw.V*d.V), rhoMax)
+	v := RhoLValue(asl.V, bw.V, d.V)
 	s := trace.Formula(id, "Ratio of longitudinal tension reinforcement", ec2+"6.2.2(1)", "ρ_l", "", v,
 		"min(A_sl / (b_w * d), 0.02)", trace.A("A_sl", asl), trace.A("b_w", bw), trace.A("d", d)).
 		Note("Asl: the bars in the tension half of the section; they count where they run on beyond the section considered by at least lbd + d (Fig. 6.3), as continuous column bars are taken to do.")
@@ -40,7 +38,7 @@ func RhoL(id string, asl, bw, d trace.Q) trace.Step {
 // SigmaCp returns the axial stress σcp = NEd/Ac < 0.2·fcd (compression positive, capped at
 // 0.2·fcd, negative in tension), EN 1992-1-1:2004 6.2.2(1).
 func SigmaCp(id string, nEd, ac, fcd trace.Q) trace.Step {
-	v := math.Min(nEd.V/ac.V, 0.2*fcd.V)
+	v := SigmaCpValue(nEd.V, ac.V, fcd.V)
 	s := trace.Formula(id, "Axial stress for the shear resistance", ec2+"6.2.2(1)", "σ_cp", "MPa", v,
 		"min(N_Ed / A_c, 0.2 * f_cd)", trace.A("N_Ed", nEd), trace.A("A_c", ac), trace.A("f_cd", fcd))
 	switch {
@@ -61,13 +59,13 @@ func CRdc(id string, gammaC trace.Q) trace.Step {
 // VMin returns vmin = c·k^(3/2)·fck^(1/2) with c = 0.035 recommended, EN 1992-1-1:2004 6.2.2(1), Eq. (6.3N).
 func VMin(id string, c, k, fck trace.Q) trace.Step {
 	return trace.Formula(id, "Minimum shear stress of the concrete", ec2+"6.2.2(1), Eq. (6.3N)", "v_min", "MPa",
-		c.V*math.Pow(k.V, 1.5)*math.Sqrt(fck.V), "c_v * k ** 1.5 * sqrt(f_ck)",
+		VMinValue(c.V, k.V, fck.V), "c_v * k ** 1.5 * sqrt(f_ck)",
 		trace.A("c_v", c), trace.A("k", k), trace.A("f_ck", fck))
 }
 
 // VRdcA returns VRd,c = [CRd,c·k·(100·ρl·fck)^(1/3) + k1·σcp]·bw·d, EN 1992-1-1:2004 6.2.2(1), Eq. (6.2a).
 func VRdcA(id string, cRdc, k, rhoL, fck, k1, sigmaCp, bw, d trace.Q) trace.Step {
-	v := (cRdc.V*k.V*math.Pow(100*rhoL.V*fck.V, 1.0/3) + k1.V*sigmaCp.V) * bw.V * d.V
+	v := VRdcAValue(cRdc.V, k.V, rhoL.V, fck.V, k1.V, sigmaCp.V, bw.V, d.V)
 	return trace.Formula(id, "Shear resistance without shear reinforcement", ec2+"6.2.2(1), Eq. (6.2a)", "V_Rd,c,a", "N", v,
 		"(C_Rdc * k * (100 * rho_l * f_ck) ** (1 / 3) + k_1 * sigma_cp) * b_w * d",
 		trace.A("C_Rdc", cRdc), trace.A("k", k), trace.A("rho_l", rhoL), trace.A("f_ck", fck),
@@ -77,14 +75,14 @@ func VRdcA(id string, cRdc, k, rhoL, fck, k1, sigmaCp, bw, d trace.Q) trace.Step
 // VRdcMin returns the minimum VRd,c = (vmin + k1·σcp)·bw·d, EN 1992-1-1:2004 6.2.2(1), Eq. (6.2b).
 func VRdcMin(id string, vMin, k1, sigmaCp, bw, d trace.Q) trace.Step {
 	return trace.Formula(id, "Minimum shear resistance without shear reinforcement", ec2+"6.2.2(1), Eq. (6.2b)", "V_Rd,c,min", "N",
-		(vMin.V+k1.V*sigmaCp.V)*bw.V*d.V, "(v_min + k_1 * sigma_cp) * b_w * d",
+		VRdcMinValue(vMin.V, k1.V, sigmaCp.V, bw.V, d.V), "(v_min + k_1 * sigma_cp) * b_w * d",
 		trace.A("v_min", vMin), trace.A("k_1", k1), trace.A("sigma_cp", sigmaCp), trace.A("b_w", bw), trace.A("d", d))
 }
 
 // VRdc returns VRd,c, the larger of Eq. (6.2a) and its minimum Eq. (6.2b), not taken below zero,
 // EN 1992-1-1:2004 6.2.2(1), Eq. (6.2a), (6.2b).
 func VRdc(id string, a, min trace.Q) trace.Step {
-	v := math.Max(math.Max(a.V, min.V), 0)
+	v := VRdcValue(a.V, min.V)
 	s := trace.Formula(id, "Design shear resistance without shear reinforcement", ec2+"6.2.2(1), Eq. (6.2a), (6.2b)", "V_Rd,c", "N", v,
 		"max(V_a, V_min, 0)", trace.A("V_a", a), trace.A("V_min", min))
 	switch {
@@ -101,7 +99,7 @@ func VRdc(id string, a, min trace.Q) trace.Step {
 // EN 1992-1-1:2004 6.2.1(3); 6.2.2(1).
 func ConcreteCheck(id string, vEd, vRdc trace.Q) trace.Step {
 	s := trace.Check(id, "Shear without calculated shear reinforcement", ec2+"6.2.1(3); 6.2.2(1)", "V_Ed ≤ V_Rd,c",
-		vEd.V/math.Max(vRdc.V, guard), "V_Ed / max(V_Rd_c, 0.001)", trace.A("V_Ed", vEd), trace.A("V_Rd_c", vRdc))
+		ConcreteCheckValue(vEd.V, vRdc.V), "V_Ed / max(V_Rd_c, 0.001)", trace.A("V_Ed", vEd), trace.A("V_Rd_c", vRdc))
 	if vRdc.V < guard {
 		return s.Unmet().Caution("VRd,c is 0: the shear must be carried by links designed by 6.2.3.")
 	}

@@ -1,0 +1,187 @@
+package design
+
+import (
+	"testing"
+
+	"colsheet/calc/detail"
+	"colsheet/calc/model"
+	"colsheet/calc/trace"
+)
+
+// trialInputs returns inputs that together take every branch of the trial path: stocky and
+// slender lifts, tension, shear with and without links (from the end moments and as given), the
+// load cases of one lift, rectangles and circles (links and helix), both stress blocks, both
+// imperfection methods, fck ≤ 50 and > 50, the exact biaxial check, durability, fire, the lap
+// step, the nominal stiffness method (traced trials) and the bars of a lift above. The actions
+// are test data.
+func trialInputs() map[string]*model.Input {
+	out := map[string]*model.Input{}
+	rect := func(b, h float64, st model.Storey) model.Column {
+		return model.Column{ID: "T", B: b, H: h, Cover: 35, Storeys: []model.Storey{st}}
+	}
+	lifts := map[string]model.Storey{
+		"stocky":       lift(3000, 3000, 2000, 60, -30, 10, 5),
+		"slender":      lift(6500, 6000, 900, 40, 35, 25, 20),
+		"slender-z":    lift(3500, 7000, 1500, 0, 0, 0, 0),
+		"shear":        lift(2800, 2800, 600, 260, -240, 120, -110),
+		"light":        lift(3000, 3000, 150, 5, 2, 3, 1),
+		"tension":      lift(3000, 3000, -400, 30, -20, 10, 5),
+		"tension-zero": lift(3000, 3000, -50, 0, 0, 0, 0),
+		"heavy":        lift(3200, 3200, 5200, 120, -80, 60, -40),
+	}
+	given := lift(3000, 3000, 800, 50, -40, 20, 10)
+	given.Cases = []model.Case{{Name: "V", NEd: given.NEd, MY: given.MY, MZ: given.MZ, V: [2]float64{350e3, 80e3}, HasV: [2]bool{true, true}}}
+	lifts["shear-given"] = given
+	cases := lift(3000, 3000, 1800, 60, -40, 20, 10)
+	cases.Cases = []model.Case{
+		{Name: "A", NEd: 1800e3, MY: model.Ends{Top: 60e6, Bottom: -40e6}, MZ: model.Ends{Top: 20e6, Bottom: 10e6}},
+		{Name: "B", NEd: 700e3, MY: model.Ends{Top: 180e6, Bottom: -170e6}, MZ: model.Ends{Top: 5e6, Bottom: 5e6}, V: [2]float64{280e3, 0}, HasV: [2]bool{true, false}},
+		{Name: "C", NEd: -150e3, MY: model.Ends{Top: 20e6, Bottom: -10e6}, MZ: model.Ends{Top: 5e6, Bottom: 5e6}},
+	}
+	lifts["cases"] = cases
+	for name, st := range lifts {
+		out["rect/"+name] = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(350, 450, st))
+		out["circle/"+name] = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination,
+			model.Column{ID: "R", B: 450, H: 450, Shape: model.ShapeCircle, Cover: 35, Storeys: []model.Storey{st}})
+	}
+	st := lifts["slender"]
+	in := newInput("C70/85", model.Rectangular, model.ImperfL0Over400, rect(300, 500, st))
+	out["rect/high-strength-rectangular"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(350, 450, lifts["stocky"]))
+	in.Options.Biaxial = model.BiaxialExact
+	out["rect/exact"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(400, 400, lifts["slender"]))
+	in.Options.Durability = &model.Durability{Exposure: []string{"XC3"}, StructuralClass: 4, DesignLife: 50}
+	in.Options.Fire = &model.Fire{Rating: 90}
+	in.Options.LapStep = 25
+	out["rect/durability-fire"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(400, 400, lifts["stocky"]))
+	in.Options.Durability = &model.Durability{Exposure: []string{"XD3"}, DesignLife: 100}
+	in.Options.Fire = &model.Fire{Rating: 60, UseMuFi: true}
+	out["rect/durability-fire-mu"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination,
+		model.Column{ID: "H", B: 400, H: 400, Shape: model.ShapeCircle, Helix: true, Cover: 35, Storeys: []model.Storey{lifts["slender"]}})
+	in.Options.Fire = &model.Fire{Rating: 60}
+	out["circle/helix-fire"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(350, 450, lifts["slender"]))
+	in.Options.SecondOrder = model.SecondOrderBoth
+	out["rect/stiffness"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(250, 250, lifts["shear"]))
+	in.Options.LinkStep = 25
+	out["rect/link-step"] = in
+	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(350, 350, lifts["slender"]))
+	in.Options.LinkStep = 500
+	out["rect/huge-step"] = in
+	for _, block := range []string{model.Rectangular, model.ParabolaRectangle} {
+		in = newInput("C50/60", block, model.ImperfInclination, rect(300, 600, lifts["heavy"]))
+		in.Options.Biaxial = model.BiaxialExact
+		out["rect/exact-heavy-"+block] = in
+	}
+	st = lifts["shear"]
+	st.Clear = 2400
+	out["rect/clear"] = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(300, 400, st))
+	st.Clear, st.Length = 0, 3300
+	out["rect/length"] = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(300, 400, st))
+	return out
+}
+
+// The trial path gives every candidate pattern the same check steps (ID, title, clause,
+// relation, ratio, verdict, in the same order), the same checks and the same status,
+// utilisation and governing check as the traced evaluation it stands for, exactly (common
+// practice, no source: the two paths compute one set of formulas).
+func TestTrialMatchesEvaluate(t *testing.T) {
+	total := 0
+	for name, in := range trialInputs() {
+		st := &in.Columns[0].Storeys[0]
+		var commons []*common
+		if len(st.Cases) > 1 {
+			commons = newCaseSet(in, &in.Columns[0], st, newBasis(in)).all
+		} else {
+			commons = []*common{newCommon(in, &in.Columns[0], st, nil, newBasis(in))}
+		}
+		for ci, c := range commons {
+			patterns := candidatesFor(c)
+			patterns = append(patterns, detail.Pattern{Dia: 12, NB: 2, NH: 2}, detail.Pattern{Dia: 40, NB: 2, NH: 2})
+			if c.circle {
+				patterns = append(patterns, detail.Pattern{Dia: 12, Ring: 4}, detail.Pattern{Dia: 40, Ring: 6})
+			}
+			for v, above := range []*Derivation{nil, {AsAbove: 2500, AcAbove: 0.8 * c.ac.V, NameAbove: "L2"}} {
+				c.dv = above
+				c.shearCap = nil
+				if v == 1 {
+					c.shearCap = &shearCap{s: 90, name: "B"} // the spacing another case's shear allows
+				}
+				for _, p := range patterns {
+					if p.Ring > 0 != c.circle {
+						continue
+					}
+					total++
+					want := c.evaluate(p, false, false)
+					wantSteps := checkSteps(want.Steps)
+					wantFixed := want.failsOnlyOnFixed()
+					got := c.trial(p)
+					at := name + "/" + string(rune('0'+ci)) + "/" + patternName(p)
+					compareTrial(t, at, got, want, wantSteps, wantFixed)
+				}
+			}
+			c.dv, c.shearCap = nil, nil
+		}
+	}
+	t.Logf("%d trials compared", total)
+	if total < 500 {
+		t.Errorf("only %d trials compared", total)
+	}
+}
+
+// checkSteps returns a copy of the check steps of a trial's trace (a trial's steps live in a
+// buffer that the next trial reuses).
+func checkSteps(steps []trace.Step) []trace.Step {
+	var out []trace.Step
+	for _, s := range steps {
+		if s.Kind == trace.KindCheck {
+			out = append(out, s)
+		}
+	}
+	return out
+}
+
+func patternName(p detail.Pattern) string {
+	return string(rune('0'+p.NB)) + "x" + string(rune('0'+p.NH)) + "r" + string(rune('0'+p.Ring)) + "d" + string(rune('0'+int(p.Dia)/2))
+}
+
+func compareTrial(t *testing.T, at string, got, want Design, wantSteps []trace.Step, wantFixed bool) {
+	t.Helper()
+	gotSteps := checkSteps(got.Steps)
+	if len(gotSteps) != len(wantSteps) {
+		t.Errorf("%s: %d check steps, want %d", at, len(gotSteps), len(wantSteps))
+		for _, s := range wantSteps {
+			t.Logf("  want %s", s.ID)
+		}
+		for _, s := range gotSteps {
+			t.Logf("  got  %s", s.ID)
+		}
+		return
+	}
+	for i, w := range wantSteps {
+		g := gotSteps[i]
+		if g.ID != w.ID || g.Title != w.Title || g.Clause != w.Clause || g.Relation != w.Relation || g.Verdict != w.Verdict || g.Value != w.Value {
+			t.Errorf("%s: step %d\n got  %s %q %q %q %v %s\n want %s %q %q %q %v %s", at, i,
+				g.ID, g.Title, g.Clause, g.Relation, g.Value, g.Verdict, w.ID, w.Title, w.Clause, w.Relation, w.Value, w.Verdict)
+		}
+	}
+	if len(got.checks) != len(want.checks) {
+		t.Errorf("%s: checks %v, want %v", at, got.checks, want.checks)
+	} else {
+		for i := range got.checks {
+			if got.checks[i] != want.checks[i] {
+				t.Errorf("%s: check %d %v, want %v", at, i, got.checks[i], want.checks[i])
+			}
+		}
+	}
+	if got.Status != want.Status || got.Utilization != want.Utilization || got.Governing != want.Governing {
+		t.Errorf("%s: %s %v %q, want %s %v %q", at, got.Status, got.Utilization, got.Governing, want.Status, want.Utilization, want.Governing)
+	}
+	if f := got.failsOnlyOnFixed(); f != wantFixed {
+		t.Errorf("%s: fails only on fixed %v, want %v", at, f, wantFixed)
+	}
+}
