@@ -608,30 +608,70 @@ func design(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation
 	return oneCase(d, st)
 }
 
+// arrWord is the ID, title, clause and relation of the check of one moment arrangement about one axis.
+type arrWord struct{ id, title, clause, relation string }
+
+// axisName names the axes of bending.
+var axisName = [2]string{"y", "z"}
+
+// arrWords are the words of the checks of withArrangements: at the NEd of the arrangement, in
+// single curvature and at the least axial force (the first index), about y and z (the second).
+var arrWords = func() (w [3][2]arrWord) {
+	for k, n := range axisName {
+		w[0][k] = arrWord{"arr/" + n + "/check", "Resistance with the NEd of the moment arrangement about " + n, "EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
+			"η ≤ 1 at N_Ed,arr," + n}
+		w[1][k] = arrWord{"arr/" + n + "/single", "Resistance with the arrangement that bends the lift in single curvature about " + n, "EN 1992-1-1:2004 5.1.3; 5.8.8; 6.1; 5.8.9",
+			"η ≤ 1 in single curvature about " + n}
+		w[2][k] = arrWord{"arr/" + n + "/min", "Resistance with the least axial force of the moment arrangement about " + n + " (permanent load favourable)",
+			"EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9", "η ≤ 1 at N_Ed,inf," + n}
+	}
+	return w
+}()
+
+// arrRatio returns the largest ratio of action to resistance of the checks qr at the axial force
+// n, not below 2 where noResistance is set and the section has no moment resistance.
+func arrRatio(n float64, qr quick, noResistance bool) float64 {
+	ratio := math.Max(math.Max(n/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
+	if noResistance && !qr.ok {
+		ratio = math.Max(ratio, 2)
+	}
+	return ratio
+}
+
 // withArrangements checks the design's bars once more for each moment arrangement with the
 // smaller NEd that accompanies it (the building form: the largest moment with its NEd,
-// EN 1992-1-1:2004 5.1.3), adds the checks to the trace and settles the design again.
+// EN 1992-1-1:2004 5.1.3), adds the checks to the trace and settles the design again. A trial's
+// checks are recorded without their arguments and notes (trial.go).
 func (c *common) withArrangements(d *Design, dv *Derivation) {
 	if dv == nil {
 		return
 	}
 	l := &trace.Log{Steps: d.Steps, Group: "Resistance with the NEd of the moment arrangements"}
 	added := false
+	// lean records the check w of a trial without its arguments and note; it reports whether d is one.
+	lean := func(w *arrWord, ratio float64) bool {
+		if d.trial {
+			d.checks = append(d.checks, checked{l.Add(trace.Check(w.id, w.title, w.clause, w.relation, ratio, "")).From, true})
+			added = true
+		}
+		return d.trial
+	}
 	for k := 0; k < 2; k++ {
 		nq := dv.NArr[k]
 		if nq.From == "" || nq.V >= c.nEd.V*(1-1e-12) {
 			continue
 		}
 		qr := c.quickResist(d.pattern, nq.V)
-		n := []string{"y", "z"}[k]
+		ratio, w := arrRatio(nq.V, qr, false), &arrWords[0][k]
+		if lean(w, ratio) {
+			continue
+		}
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
 		args := []trace.Arg{trace.A("N", nq), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
 			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
 			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
 			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
-		ratio := math.Max(math.Max(nq.V/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
-		s := trace.Check("arr/"+n+"/check", "Resistance with the NEd of the moment arrangement about "+n, "EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
-			"η ≤ 1 at N_Ed,arr,"+n, ratio, "max(N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
+		s := trace.Check(w.id, w.title, w.clause, w.relation, ratio, "max(N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas at the smaller NEd; their values are shown here.")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
 		added = true
@@ -649,18 +689,16 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 			return &Derivation{NEd: dv.NEd, Top: dv.Top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}
 		})
 		qr := c2.quickResist(d.pattern, c.nEd.V)
-		n := []string{"y", "z"}[k]
+		ratio, w := arrRatio(c.nEd.V, qr, true), &arrWords[1][k]
+		if lean(w, ratio) {
+			continue
+		}
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
 		args := []trace.Arg{trace.A("M_bot", alt), trace.A("N", c.nEd), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
 			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
 			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
 			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
-		ratio := math.Max(math.Max(c.nEd.V/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
-		if !qr.ok {
-			ratio = math.Max(ratio, 2)
-		}
-		s := trace.Check("arr/"+n+"/single", "Resistance with the arrangement that bends the lift in single curvature about "+n, "EN 1992-1-1:2004 5.1.3; 5.8.8; 6.1; 5.8.9",
-			"η ≤ 1 in single curvature about "+n, ratio, "max(0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
+		s := trace.Check(w.id, w.title, w.clause, w.relation, ratio, "max(0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness with C from the new end moments, second order, resistance, biaxial) evaluated again by the same formulas with this bottom moment.")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
 		added = true
@@ -678,20 +716,17 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 			return &Derivation{NEd: mc.N, Top: top, Bottom: bottom, L0: dv.L0, RatioQP: dv.RatioQP, trial: true}
 		})
 		qr := c2.quickResist(d.pattern, mc.N.V)
-		n := []string{"y", "z"}[k]
+		ratio, w := arrRatio(mc.N.V, qr, true), &arrWords[2][k]
+		if lean(w, ratio) {
+			continue
+		}
 		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
 		args := []trace.Arg{trace.A("N", mc.N), trace.A("M_top", mc.Top), trace.A("M_bot", mc.Bot), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
 			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
 			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
 			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
-		ratio := math.Max(math.Max(mc.N.V/qr.nRdMax, qr.mEd[0]/math.Max(qr.mRd[0], 1)), math.Max(qr.mEd[1]/math.Max(qr.mRd[1], 1), qr.ratioB))
-		if !qr.ok {
-			ratio = math.Max(ratio, 2)
-		}
-		s := trace.Check("arr/"+n+"/min", "Resistance with the least axial force of the moment arrangement about "+n+" (permanent load favourable)",
-			"EN 1992-1-1:2004 5.1.3; 6.1; 5.8.9",
-			"η ≤ 1 at N_Ed,inf,"+n, ratio, "max(0 * M_top + 0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
-			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas with this NEd and these end moments about " + n + "; the moments about the other axis as in the main case (conservative). Permanent actions favourable: γG,inf, EN 1990:2002 Table A1.2(B).")
+		s := trace.Check(w.id, w.title, w.clause, w.relation, ratio, "max(0 * M_top + 0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
+			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas with this NEd and these end moments about " + axisName[k] + "; the moments about the other axis as in the main case (conservative). Permanent actions favourable: γG,inf, EN 1990:2002 Table A1.2(B).")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
 		added = true
 	}

@@ -3,6 +3,7 @@ package design
 import (
 	"testing"
 
+	"colsheet/calc/building"
 	"colsheet/calc/detail"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
@@ -184,4 +185,37 @@ func compareTrial(t *testing.T, at string, got, want Design, wantSteps []trace.S
 	if f := got.failsOnlyOnFixed(); f != wantFixed {
 		t.Errorf("%s: fails only on fixed %v, want %v", at, f, wantFixed)
 	}
+}
+
+// A trial checked again with the moment arrangements of a derived lift (withArrangements)
+// gives the same check steps, status and utilisation as the traced trial so checked (common
+// practice, no source). The derivation is test data: smaller NEd of the arrangements, single
+// curvature and the least axial force about each axis.
+func TestTrialArrangementsMatch(t *testing.T) {
+	total := 0
+	for _, name := range []string{"rect/stocky", "rect/slender", "rect/shear", "circle/slender", "rect/exact", "rect/stiffness"} {
+		in := trialInputs()[name]
+		st := &in.Columns[0].Storeys[0]
+		q := func(v float64, from string) trace.Q { return trace.Q{V: v, From: from} }
+		ends := [2]model.Ends{st.MY, st.MZ}
+		dv := &Derivation{NEd: q(st.NEd, "/dv/N")}
+		for k := 0; k < 2; k++ {
+			dv.Top[k], dv.Bottom[k] = q(ends[k].Top, "/dv/top"), q(ends[k].Bottom, "/dv/bot")
+			dv.NArr[k] = q(st.NEd*(0.6+0.2*float64(k)), "/dv/n_arr")
+			dv.BottomAlt[k] = q(-ends[k].Bottom+1e6, "/dv/bot_alt")
+			dv.Min[k] = building.MinCase{N: q(st.NEd*0.45, "/dv/n_min"), Top: q(ends[k].Top*1.1, "/dv/top_min"), Bot: q(ends[k].Bottom*0.9, "/dv/bot_min")}
+		}
+		c := newCommon(in, &in.Columns[0], st, dv, newBasis(in))
+		for _, p := range candidatesFor(c) {
+			total++
+			want := c.evaluate(p, false, false)
+			c.withArrangements(&want, dv)
+			wantSteps := checkSteps(want.Steps)
+			wantFixed := want.failsOnlyOnFixed()
+			got := c.trial(p)
+			c.withArrangements(&got, dv)
+			compareTrial(t, name+"/"+patternName(p), got, want, wantSteps, wantFixed)
+		}
+	}
+	t.Logf("%d trials compared", total)
 }
