@@ -70,7 +70,7 @@ func (cs *caseSet) trial(d *Design, p detail.Pattern) bool {
 		if k == cs.lead {
 			continue
 		}
-		o := c.trial(p)
+		o := c.trial(p, nil)
 		if o.Status != StatusPass {
 			d.Status = StatusFail
 			keep = keep && o.failsOnlyOnFixed()

@@ -54,7 +54,7 @@ func benchTrial(b *testing.B, try func(c *common, p detail.Pattern) Design) {
 
 // BenchmarkPartTrial measures the trial of one candidate pattern (trial.go), as the search makes it.
 func BenchmarkPartTrial(b *testing.B) {
-	benchTrial(b, func(c *common, p detail.Pattern) Design { return c.trial(p) })
+	benchTrial(b, func(c *common, p detail.Pattern) Design { _, q := c.cannotPass(p); return c.trial(p, q) })
 }
 
 // BenchmarkPartTrialTraced measures the traced trial of the same pattern, evaluate(p, false, false).

@@ -208,6 +208,9 @@ type quick struct {
 	ratioB      float64 // (5.39), 0 when not called for
 	ok          bool    // the section has a moment resistance about both axes
 	nRdT        float64 // in tension, the resistance As·fyd
+
+	pos [][2]float64 // the bar positions of the pattern
+	sec *resist      // its section
 }
 
 // ratio returns the largest ratio of action to resistance of the checks.
@@ -234,7 +237,7 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 	g := c.geometry(p)
 	pos := g.Positions(p)
 	r := c.section(pos, p.BarArea())
-	q := quick{nEd: nEd, nRdMax: r.nRdMax()}
+	q := quick{nEd: nEd, nRdMax: r.nRdMax(), pos: pos, sec: r}
 	if nEd > q.nRdMax {
 		return q
 	}
@@ -322,10 +325,12 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 }
 
 // cannotPass reports whether the pattern fails a resistance check for certain at NEd; a margin
-// of 1e-6 leaves the verdict on the edge to the traced evaluation.
-func (c *common) cannotPass(p detail.Pattern) bool {
+// of 1e-6 leaves the verdict on the edge to the traced evaluation. It returns the quick checks
+// it made, whose section and resistances a trial of the pattern takes over.
+func (c *common) cannotPass(p detail.Pattern) (bool, *quick) {
 	const stop = 1 + 1e-6
-	return c.quickUpTo(p, c.nEd.V, stop).ratio() > stop
+	q := c.quickUpTo(p, c.nEd.V, stop)
+	return q.ratio() > stop, &q
 }
 
 // areaFloor returns a steel area below which no pattern resists the least design moments,

@@ -317,13 +317,14 @@ func secondOrder(in *model.Input) Method {
 
 // common holds the traced quantities of a lift that do not depend on the bars.
 type common struct {
-	in         *model.Input
-	col        *model.Column
-	st         *model.Storey
-	p          code.Params
-	steps      []trace.Step
-	trialSteps []trace.Step // the buffer of the trials' check steps
-	derived    int          // the steps of the derivation at the head of steps
+	in          *model.Input
+	col         *model.Column
+	st          *model.Storey
+	p           code.Params
+	steps       []trace.Step
+	trialSteps  []trace.Step // the buffer of the trials' check steps
+	trialChecks []checked    // the buffer of the trials' checks (trial.go)
+	derived     int          // the steps of the derivation at the head of steps
 	// arrangements holds the commons of the trial derivations of withArrangements, made once
 	// per lift (they do not depend on the bars): about y and z, the arrangement in single
 	// curvature and that of the least axial force; nil where not yet made.

@@ -175,10 +175,11 @@ func (c *common) try(p detail.Pattern, floor float64, dv *Derivation) trial {
 	if c.nEd.V > c.section([][2]float64{{0, 0}}, p.Area()).nRdMax() {
 		return trial{}
 	}
-	if c.cannotPass(p) {
+	no, q := c.cannotPass(p)
+	if no {
 		return trial{}
 	}
-	d := c.trial(p)
+	d := c.trial(p, q)
 	t := trial{d: d, ran: true}
 	if c.cases != nil {
 		t.keep = c.cases.trial(&t.d, p)

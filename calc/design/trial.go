@@ -34,18 +34,21 @@ func (c *common) fastTrial() bool {
 }
 
 // trial returns the design that pattern p gives as a candidate: the status, utilisation and
-// check steps of evaluate(p, false, false), without its other steps.
-func (c *common) trial(p detail.Pattern) Design {
+// check steps of evaluate(p, false, false), without its other steps. pre, when not nil, is the
+// quick evaluation of p at the NEd of c (cannotPass), whose section and moment resistances it
+// takes over: the same functions of the same section give the same values.
+func (c *common) trial(p detail.Pattern, pre *quick) Design {
 	if !c.fastTrial() {
 		d := c.evaluate(p, false, false)
 		d.trial = true
 		return d
 	}
 	col, st, prm := c.col, c.st, c.p
-	// The check steps go into the buffer that every trial of c reuses (see evaluate).
+	// The check steps and the checks go into buffers that every trial of c reuses (see
+	// evaluate): a trial's design is read before the next trial.
 	l := &trace.Log{Trial: true, Steps: c.trialSteps[:0]}
-	defer func() { c.trialSteps = l.Steps[:0] }()
-	var checks []checked
+	checks := c.trialChecks[:0]
+	defer func() { c.trialSteps, c.trialChecks = l.Steps[:0], checks[:0] }()
 	// put records a check step; add records it and counts it among the design's checks.
 	put := func(id, title, clause, relation string, ratio float64) {
 		l.Steps = append(l.Steps, trace.Check(id, title, clause, relation, ratio, ""))
@@ -56,7 +59,14 @@ func (c *common) trial(p detail.Pattern) Design {
 	}
 	link := c.linkFor(p.Dia)
 	g := c.geometryWith(link)
-	pos := g.Positions(p)
+	var pos [][2]float64
+	var sec *resist
+	if pre != nil && pre.sec != nil {
+		pos, sec = pre.pos, pre.sec
+	} else {
+		pos = g.Positions(p)
+		sec = c.section(pos, p.BarArea())
+	}
 	d := Design{Column: col.ID, Storey: st.Name, B: col.B, H: col.H, Cover: col.Cover, Shape: col.Shape,
 		Class: c.in.Materials.Concrete.Class, Fck: c.fck.V, Fyk: c.in.Materials.Fyk, NEd: st.NEd, pattern: p, trial: true}
 	phi, n := p.Dia, float64(p.Count())
@@ -185,7 +195,6 @@ func (c *common) trial(p detail.Pattern) Design {
 	}
 
 	// Section resistance.
-	sec := c.section(pos, p.BarArea())
 	nRdMax := sec.nRdMax()
 	if c.tension {
 		add("sec/check_Nt", "Axial tension", "EN 1992-1-1:2004 6.1", "|N_Ed| ≤ N_Rd,t", -c.nEd.V/(as*c.fyd.V), true)
@@ -196,7 +205,9 @@ func (c *common) trial(p detail.Pattern) Design {
 	for k := 0; k < 2; k++ {
 		var m float64
 		var ok bool
-		if c.circle {
+		if pre != nil && pre.mRd[k] > 0 {
+			m, ok = pre.mRd[k], true // resist.mRd of the same section at the same NEd
+		} else if c.circle {
 			least, found := sec.least(c.nEd.V)
 			m, ok = least.State.M, found && least.State.M > 0
 		} else {

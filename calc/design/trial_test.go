@@ -120,9 +120,11 @@ func TestTrialMatchesEvaluate(t *testing.T) {
 					want := c.evaluate(p, false, false)
 					wantSteps := checkSteps(want.Steps)
 					wantFixed := want.failsOnlyOnFixed()
-					got := c.trial(p)
 					at := name + "/" + string(rune('0'+ci)) + "/" + patternName(p)
-					compareTrial(t, at, got, want, wantSteps, wantFixed)
+					compareTrial(t, at, c.trial(p, nil), want, wantSteps, wantFixed)
+					// With the section and resistances of the quick bound, as the search tries it.
+					_, q := c.cannotPass(p)
+					compareTrial(t, at+"/bound", c.trial(p, q), want, wantSteps, wantFixed)
 				}
 			}
 			c.dv, c.shearCap = nil, nil
@@ -212,7 +214,8 @@ func TestTrialArrangementsMatch(t *testing.T) {
 			c.withArrangements(&want, dv)
 			wantSteps := checkSteps(want.Steps)
 			wantFixed := want.failsOnlyOnFixed()
-			got := c.trial(p)
+			_, q := c.cannotPass(p)
+			got := c.trial(p, q)
 			c.withArrangements(&got, dv)
 			compareTrial(t, name+"/"+patternName(p), got, want, wantSteps, wantFixed)
 		}
