@@ -270,23 +270,11 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 				mCurv = slender.DesignMomentSlenderValue(m01i, m02i, m0e, m2, nEd, a.e0.V)
 			}
 			if method == model.SecondOrderStiffness || method == model.SecondOrderBoth {
-				width := c.b.V
-				if ax == 1 {
-					width = c.h.V
-				}
-				ic := slender.ConcreteInertiaValue(width, a.depth.V)
-				if c.circle {
-					ic = slender.CircleInertiaValue(c.b.V)
-				}
-				kc := slender.KcValue(slender.K1Value(c.fck.V), slender.K2Value(n, a.lambda.V), a.phiEf.V)
-				ei := slender.NominalStiffnessValue(kc, slender.EcdValue(c.ecm.V, slender.GammaCE),
-					ic, 1, c.es.V, slender.SteelInertiaValue(as, is))
-				nb := slender.BucklingLoadValue(ei, a.l0.V)
-				km, ok := slender.MagnificationValue(slender.MomentBetaValue(slender.C0Value(slender.ShapeConstant)), nb, nEd)
+				m, _, ok := c.stiffnessValues(ax, as, is, m0e, m02i, nEd, n)
 				if !ok {
 					return q
 				}
-				mStiff = slender.DesignMomentStiffnessValue(slender.MagnifiedMomentValue(m0e, km), m02i, nEd, a.e0.V)
+				mStiff = m
 			}
 			q.mEd[ax] = math.Max(mCurv, mStiff)
 		} else {
@@ -322,6 +310,29 @@ func (c *common) quickUpTo(p detail.Pattern, nEd, stop float64) quick {
 		q.ratioB = slender.BiaxialRatioValue(q.mEd[0], q.mRd[0], q.mEd[1], q.mRd[1], a)
 	}
 	return q
+}
+
+// stiffnessValues returns the design moment about axis k by the nominal stiffness method of
+// EN 1992-1-1:2004 5.8.7 (the value functions of its steps, Ks = 1) for the steel area as with the
+// radius of gyration is, the equivalent moment m0e, the larger end moment with its imperfection
+// m02i, the axial force nEd and the relative force n; and the buckling load NB, with false where
+// the column buckles (the magnification then 0, as the trace records it).
+func (c *common) stiffnessValues(k int, as, is, m0e, m02i, nEd, n float64) (mEd, nb float64, ok bool) {
+	a := &c.ax[k]
+	width := c.b.V
+	if k == 1 {
+		width = c.h.V
+	}
+	ic := slender.ConcreteInertiaValue(width, a.depth.V)
+	if c.circle {
+		ic = slender.CircleInertiaValue(c.b.V)
+	}
+	kc := slender.KcValue(slender.K1Value(c.fck.V), slender.K2Value(n, a.lambda.V), a.phiEf.V)
+	ei := slender.NominalStiffnessValue(kc, slender.EcdValue(c.ecm.V, slender.GammaCE),
+		ic, 1, c.es.V, slender.SteelInertiaValue(as, is))
+	nb = slender.BucklingLoadValue(ei, a.l0.V)
+	km, ok := slender.MagnificationValue(slender.MomentBetaValue(slender.C0Value(slender.ShapeConstant)), nb, nEd)
+	return slender.DesignMomentStiffnessValue(slender.MagnifiedMomentValue(m0e, km), m02i, nEd, a.e0.V), nb, ok
 }
 
 // cannotPass reports whether the pattern fails a resistance check for certain at NEd; a margin

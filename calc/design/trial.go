@@ -20,17 +20,10 @@ import (
 
 // axisIDs are the IDs and words of the per-axis check steps, about y and about z.
 var axisIDs = [2]struct {
-	checkM, bending, relM, shearCheck, shearMax string
+	checkM, bending, relM, shearCheck, shearMax, checkNB string
 }{
-	{"y/check_M", "Bending about y", "M_Ed,y ≤ M_Rd,y", "y/shear/check", "y/shear/check_V_Rdmax"},
-	{"z/check_M", "Bending about z", "M_Ed,z ≤ M_Rd,z", "z/shear/check", "z/shear/check_V_Rdmax"},
-}
-
-// fastTrial reports whether trial computes the checks of c by value functions; otherwise
-// (the nominal stiffness method of 5.8.7) it takes them from the traced evaluation.
-func (c *common) fastTrial() bool {
-	m := c.in.Options.SecondOrder
-	return m != model.SecondOrderStiffness && m != model.SecondOrderBoth
+	{"y/check_M", "Bending about y", "M_Ed,y ≤ M_Rd,y", "y/shear/check", "y/shear/check_V_Rdmax", "y/check_NB"},
+	{"z/check_M", "Bending about z", "M_Ed,z ≤ M_Rd,z", "z/shear/check", "z/shear/check_V_Rdmax", "z/check_NB"},
 }
 
 // trial returns the design that pattern p gives as a candidate: the status, utilisation and
@@ -38,11 +31,6 @@ func (c *common) fastTrial() bool {
 // quick evaluation of p at the NEd of c (cannotPass), whose section and moment resistances it
 // takes over: the same functions of the same section give the same values.
 func (c *common) trial(p detail.Pattern, pre *quick) Design {
-	if !c.fastTrial() {
-		d := c.evaluate(p, false, false)
-		d.trial = true
-		return d
-	}
 	col, st, prm := c.col, c.st, c.p
 	// The check steps and the checks go into buffers that every trial of c reuses (see
 	// evaluate): a trial's design is read before the next trial.
@@ -160,7 +148,7 @@ func (c *common) trial(p detail.Pattern, pre *quick) Design {
 	}
 	c.lapValues(phi, link, gb, gh, sMin, l0, rho1, s1, s2, step, add)
 
-	// Slenderness limit and second order, per axis (the nominal curvature of 5.8.8).
+	// Slenderness limit and second order, per axis (nominal curvature, 5.8.8; nominal stiffness, 5.8.7).
 	omega := slender.MechanicalRatioValue(as, c.fyd.V, c.ac.V, c.fcd.V)
 	factB := slender.FactorBValue(omega)
 	kLim := prm.Get("lambda_lim_k")
@@ -187,11 +175,34 @@ func (c *common) trial(p detail.Pattern, pre *quick) Design {
 			}
 			is = slender.SymmetricGyrationValue(edge, outer, rows)
 		}
-		r0 := slender.BaseCurvatureValue(c.fyd.V/c.es.V, slender.EffectiveDepthValue(a.depth.V, is))
-		kphi := slender.KphiValue(slender.BetaValue(c.fck.V, a.lambda.V), a.phiEf.V)
-		curv := slender.CurvatureValue(slender.KrValue(c.nRel.V, omega), kphi, r0)
-		m2 := c.nEd.V * slender.SecondOrderEccentricityValue(curv, a.l0.V, prm.Get("c_curv"))
-		mEd[k] = slender.DesignMomentSlenderValue(a.m01i.V, a.m02i.V, m0e, m2, c.nEd.V, a.e0.V)
+		method := c.in.Options.SecondOrder
+		var mCurv, mStiff float64
+		if method != model.SecondOrderStiffness {
+			r0 := slender.BaseCurvatureValue(c.fyd.V/c.es.V, slender.EffectiveDepthValue(a.depth.V, is))
+			kphi := slender.KphiValue(slender.BetaValue(c.fck.V, a.lambda.V), a.phiEf.V)
+			curv := slender.CurvatureValue(slender.KrValue(c.nRel.V, omega), kphi, r0)
+			m2 := c.nEd.V * slender.SecondOrderEccentricityValue(curv, a.l0.V, prm.Get("c_curv"))
+			mCurv = slender.DesignMomentSlenderValue(a.m01i.V, a.m02i.V, m0e, m2, c.nEd.V, a.e0.V)
+		}
+		if method == model.SecondOrderStiffness || method == model.SecondOrderBoth {
+			var nb float64
+			mStiff, nb, _ = c.stiffnessValues(k, as, is, m0e, a.m02i.V, c.nEd.V, c.nRel.V)
+			s := trace.Check(axisIDs[k].checkNB, "Axial force below the buckling load", "EN 1992-1-1:2004 5.8.7.3(1), Eq. (5.28)", "N_Ed < N_B",
+				slender.BucklingRatioValue(c.nEd.V, nb), "")
+			if slender.Buckles(c.nEd.V, nb) {
+				s.Verdict = trace.Fail // as slender.BucklingCheck
+			}
+			l.Steps = append(l.Steps, s)
+			checks = append(checks, checked{axisIDs[k].checkNB, true})
+		}
+		switch method {
+		case model.SecondOrderStiffness:
+			mEd[k] = mStiff
+		case model.SecondOrderBoth:
+			mEd[k] = math.Max(mCurv, mStiff)
+		default:
+			mEd[k] = mCurv
+		}
 	}
 
 	// Section resistance.

@@ -13,7 +13,8 @@ import (
 // slender lifts, tension, shear with and without links (from the end moments and as given), the
 // load cases of one lift, rectangles and circles (links and helix), both stress blocks, both
 // imperfection methods, fck ≤ 50 and > 50, the exact biaxial check, durability, fire, the lap
-// step, the nominal stiffness method (traced trials) and the bars of a lift above. The actions
+// step, the nominal stiffness method (alone and with nominal curvature, buckling or not) and the
+// bars of a lift above. The actions
 // are test data.
 func trialInputs() map[string]*model.Input {
 	out := map[string]*model.Input{}
@@ -67,6 +68,16 @@ func trialInputs() map[string]*model.Input {
 	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(350, 450, lifts["slender"]))
 	in.Options.SecondOrder = model.SecondOrderBoth
 	out["rect/stiffness"] = in
+	for _, method := range []string{model.SecondOrderStiffness, model.SecondOrderBoth} {
+		long := lift(9000, 8500, 2600, 60, 40, 30, 20) // buckles with the fewer bars
+		in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(300, 350, long))
+		in.Options.SecondOrder = method
+		out["rect/buckling-"+method] = in
+		in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination,
+			model.Column{ID: "R", B: 400, H: 400, Shape: model.ShapeCircle, Cover: 35, Storeys: []model.Storey{long}})
+		in.Options.SecondOrder = method
+		out["circle/buckling-"+method] = in
+	}
 	in = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(250, 250, lifts["shear"]))
 	in.Options.LinkStep = 25
 	out["rect/link-step"] = in
