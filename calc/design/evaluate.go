@@ -733,18 +733,24 @@ func (c *common) fire() *model.Fire {
 func (c *common) fireUtilisation(l *trace.Log, f *model.Fire, p detail.Pattern, nRdMax, eY, eZ trace.Q) trace.Q {
 	var nRd trace.Q
 	if f.UseMuFi && c.nEd.V > 0 {
-		at := func(n float64) fire.Ratios {
-			at := *c
-			for k := range at.ax {
-				at.ax[k].m01.V *= n / c.nEd.V
-				at.ax[k].m02.V *= n / c.nEd.V
-			}
-			q := at.quickResist(p, n)
-			return fire.Ratios{N: n, NRdMax: q.nRdMax, MEdY: q.mEd[0], MRdY: q.mRd[0], MEdZ: q.mEd[1], MRdZ: q.mRd[1], Biaxial: q.ratioB, OK: q.ok}
-		}
-		nRd = l.Add(fire.NRdAtEccentricity("fire/N_Rd", nRdMax, eY, eZ, at))
+		nRd = l.Add(c.fireNRd(p, nRdMax, eY, eZ))
 	}
 	return fire.Utilisation(l, "fire/", *f, c.nEd, nRd)
+}
+
+// fireNRd returns the step of NRd of μfi for the bar pattern p (fire.NRdAtEccentricity), the
+// resistance of the column at normal temperature at the eccentricities eY and eZ of NEd.
+func (c *common) fireNRd(p detail.Pattern, nRdMax, eY, eZ trace.Q) trace.Step {
+	at := func(n float64) fire.Ratios {
+		at := *c
+		for k := range at.ax {
+			at.ax[k].m01.V *= n / c.nEd.V
+			at.ax[k].m02.V *= n / c.nEd.V
+		}
+		q := at.quickResist(p, n)
+		return fire.Ratios{N: n, NRdMax: q.nRdMax, MEdY: q.mEd[0], MRdY: q.mRd[0], MEdZ: q.mEd[1], MRdZ: q.mRd[1], Biaxial: q.ratioB, OK: q.ok}
+	}
+	return fire.NRdAtEccentricity("fire/N_Rd", nRdMax, eY, eZ, at)
 }
 
 // failure records, for the check step id, the reason to give where it fails (empty: settle's

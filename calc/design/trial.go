@@ -5,6 +5,7 @@ import (
 
 	"colsheet/calc/cover"
 	"colsheet/calc/detail"
+	"colsheet/calc/fire"
 	"colsheet/calc/model"
 	"colsheet/calc/shear"
 	"colsheet/calc/slender"
@@ -231,10 +232,23 @@ func (c *common) trial(p detail.Pattern, pre *quick) Design {
 		add(axisIDs[k].checkM, axisIDs[k].bending, "EN 1992-1-1:2004 6.1", axisIDs[k].relM, mEd[k]/math.Max(m, 1), true)
 	}
 
-	// Fire resistance, by the traced steps (only their checks are kept).
-	if f := c.fire(); f != nil && f.Rating > 0 && !c.tension {
+	// Fire resistance, EN 1992-1-2:2004 5.3.2, Method A (fireSteps); a rating verified elsewhere
+	// has no check.
+	if f := c.fire(); f != nil && f.Rating > 0 && !c.tension && f.Method != model.FireElsewhere {
 		q := func(v float64) trace.Q { return trace.Q{V: v} }
-		checks = c.fireSteps(l, &d, checks, p, fireBars{cnom: q(cnom), phiT: q(link), phi: q(phi), nb: q(n), as: q(as), omega: q(omega), nRdMax: q(nRdMax)})
+		fc := fire.Column{B: c.b, H: c.h, Circle: c.circle, Ac: c.ac, Fck: c.fck, Cover: q(cnom), LinkDia: q(link), Dia: q(phi), Bars: q(n), As: q(as),
+			NEd: c.nEd, Omega: q(omega), AlphaCc: q(prm.Get("alpha_cc")), EMax: q(prm.Get("fire_emax")), MuFixed: !f.UseMuFi,
+			L0Fi: q(math.Max(c.ax[0].l0.V, c.ax[1].l0.V)),
+			EY:   q(fire.EccentricityValue(c.ax[0].m02i.V, c.nEd.V)), EZ: q(fire.EccentricityValue(c.ax[1].m02i.V, c.nEd.V))}
+		nRd := 0.0
+		if f.UseMuFi && c.nEd.V > 0 {
+			nRd = c.fireNRd(p, q(nRdMax), fc.EY, fc.EZ).Value
+		}
+		out := fire.AssessTrial(l, "fire/", f.Rating, q(fire.UtilisationValue(*f, c.nEd.V, nRd)), fc)
+		for _, v := range out.Checks {
+			checks = append(checks, checked{v.ID, false})
+			d.failure(v.ID, "", v.Fixed)
+		}
 	}
 
 	// Biaxial bending, EN 1992-1-1:2004 5.8.9.

@@ -94,6 +94,40 @@ func trialInputs() map[string]*model.Input {
 	out["rect/clear"] = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(300, 400, st))
 	st.Clear, st.Length = 0, 3300
 	out["rect/length"] = newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, rect(300, 400, st))
+	// Fire: every part of Method A (Table 5.2a, Eq. (5.7), neither, out of scope) and a rating
+	// verified elsewhere.
+	fires := map[string]struct {
+		class string
+		st    model.Storey
+		b, h  float64
+		f     model.Fire
+	}{
+		"table":        {"C30/37", lift(2800, 2800, 1500, 40, -20, 10, 5), 400, 400, model.Fire{Rating: 60}},
+		"eq57":         {"C30/37", lift(4500, 4500, 1500, 40, -20, 10, 5), 350, 400, model.Fire{Rating: 90}},
+		"eq57-mu":      {"C30/37", lift(4500, 4500, 1200, 40, -20, 10, 5), 350, 400, model.Fire{Rating: 120, UseMuFi: true}},
+		"neither":      {"C30/37", lift(7000, 7000, 900, 40, -20, 10, 5), 300, 500, model.Fire{Rating: 180}},
+		"r240":         {"C30/37", lift(2800, 2800, 800, 20, -10, 5, 5), 450, 450, model.Fire{Rating: 240}},
+		"r300":         {"C30/37", lift(2800, 2800, 800, 20, -10, 5, 5), 450, 450, model.Fire{Rating: 300}},
+		"eccentric":    {"C30/37", lift(2800, 2800, 300, 150, -140, 60, 50), 350, 350, model.Fire{Rating: 60}},
+		"high-fck":     {"C60/75", lift(2800, 2800, 1500, 40, -20, 10, 5), 350, 350, model.Fire{Rating: 60}},
+		"elsewhere":    {"C30/37", lift(2800, 2800, 1500, 40, -20, 10, 5), 350, 350, model.Fire{Rating: 90, Method: model.FireElsewhere, Note: "test"}},
+		"tension":      {"C30/37", lift(2800, 2800, -300, 40, -20, 10, 5), 350, 350, model.Fire{Rating: 60}},
+		"heavy-mu":     {"C30/37", lift(3200, 3200, 3200, 80, -40, 30, 10), 400, 400, model.Fire{Rating: 90, UseMuFi: true, EtaFi: 0.6}},
+		"slender-both": {"C30/37", lift(6000, 5800, 1000, 60, 30, 20, 10), 300, 300, model.Fire{Rating: 30}},
+		"both-short":   {"C30/37", lift(2800, 2800, 900, 30, -20, 10, 5), 250, 250, model.Fire{Rating: 120}},
+		"table-short":  {"C30/37", lift(2800, 2800, 900, 30, -20, 10, 5), 250, 400, model.Fire{Rating: 120}},
+		"eq57-short":   {"C30/37", lift(4500, 4500, 900, 30, -20, 10, 5), 250, 250, model.Fire{Rating: 180}},
+		"eq57-shows":   {"C30/37", lift(2800, 2800, 900, 30, -20, 10, 5), 300, 300, model.Fire{Rating: 90}},
+	}
+	for name, fc := range fires {
+		f := fc.f
+		in = newInput(fc.class, model.ParabolaRectangle, model.ImperfInclination, rect(fc.b, fc.h, fc.st))
+		in.Options.Fire = &f
+		out["rect/fire-"+name] = in
+		in = newInput(fc.class, model.ParabolaRectangle, model.ImperfInclination,
+			model.Column{ID: "R", B: fc.b, H: fc.b, Shape: model.ShapeCircle, Cover: 35, Fire: &f, Storeys: []model.Storey{fc.st}})
+		out["circle/fire-"+name] = in
+	}
 	return out
 }
 

@@ -253,9 +253,12 @@ func Assess(l *trace.Log, prefix string, rating int, muFi trace.Q, c Column) Out
 		out.OK, out.Route, out.Checks = true, RouteTable, append(verdictsOf(common), tab.verdicts(false)...)
 		return out
 	}
+	return out.settle(l, prefix+"eq57/", common, tab, eq57(l, prefix+"eq57/", req, a, muFi, c))
+}
 
-	// Eq. (5.7) of the same method, within its limits.
-	p57 := prefix + "eq57/"
+// eq57 records Eq. (5.7) of Method A within its limits, for the rating req, the axis distance a
+// and μfi, under IDs that start with p57, and returns it as a route.
+func eq57(l *trace.Log, p57 string, req, a, muFi trace.Q, c Column) route {
 	var eq route
 	var bEq trace.Q
 	if c.Circle {
@@ -281,6 +284,12 @@ func Assess(l *trace.Log, prefix string, rating int, muFi trace.Q, c Column) Out
 		eq.checks = []trace.Q{l.Add(RatingCheck(p57+"check_R", req, res))}
 		eq.passed = eq.governing() <= 1+1e-9
 	}
+	return eq
+}
+
+// settle settles the outcome of Method A where Table 5.2a (tab) does not show the rating, with
+// Eq. (5.7) (eq) recorded under IDs that start with p57 and the conditions common to both.
+func (out Outcome) settle(l *trace.Log, p57 string, common []cond, tab, eq route) Outcome {
 	if eq.passed {
 		// The table's checks that fell short stay on the sheet for information, without a verdict.
 		for _, q := range tab.checks {
@@ -292,8 +301,10 @@ func Assess(l *trace.Log, prefix string, rating int, muFi trace.Q, c Column) Out
 				}
 			}
 		}
-		l.Add(trace.Input(p57+"route", "Fire resistance shown by Eq. (5.7), which the standard offers beside Table 5.2a (5.3.2(2))", trace.ClauseChosen+"Eq. (5.7) where Table 5.2a does not show the rating", "route", "", 57).
-			Note("The steps of Table 5.2a above are for information; those of Eq. (5.7) govern."))
+		if !l.Trial { // a trial keeps check steps only
+			l.Add(trace.Input(p57+"route", "Fire resistance shown by Eq. (5.7), which the standard offers beside Table 5.2a (5.3.2(2))", trace.ClauseChosen+"Eq. (5.7) where Table 5.2a does not show the rating", "route", "", 57).
+				Note("The steps of Table 5.2a above are for information; those of Eq. (5.7) govern."))
+		}
 		out.OK, out.Route, out.Checks = true, RouteEq57, append(verdictsOf(common), eq.verdicts(false)...)
 		return out
 	}
