@@ -551,16 +551,18 @@ func (r *reader) grid(n *yaml.Node, path string) (x, y []float64, ok bool) {
 // size reads the required b and h of a beam from fields f of mapping n (a column's section:
 // columnSection).
 func (r *reader) size(f map[string]pair, n *yaml.Node, path string) (model.Size, bool) {
+	return r.sides(f, n, path, [2]string{"the width, e.g. b: 275 mm", "the depth, e.g. h: 500 mm"})
+}
+
+// sides reads the required b and h of a rectangular section from fields f of mapping n;
+// missing holds the hints of a missing b and h.
+func (r *reader) sides(f map[string]pair, n *yaml.Node, path string, missing [2]string) (model.Size, bool) {
 	var s model.Size
 	ok := true
-	for _, k := range []string{"b", "h"} {
+	for i, k := range []string{"b", "h"} {
 		e, has := f[k]
 		if !has {
-			what := "the width, e.g. b: 275 mm"
-			if k == "h" {
-				what = "the depth, e.g. h: 500 mm"
-			}
-			r.fail(n, join(path, k), "is required but missing (%s)", what)
+			r.fail(n, join(path, k), "is required but missing (%s)", missing[i])
 			ok = false
 			continue
 		}

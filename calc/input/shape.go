@@ -54,21 +54,9 @@ func (r *reader) columnSection(f map[string]pair, n *yaml.Node, path string, mis
 			r.fail(dEntry.key, join(path, "D"), "D is the diameter of a circular column; shape: rectangle gives b and h (leave shape out, or write shape: circle, for a circle)")
 			ok = false
 		}
-		for i, k := range []string{"b", "h"} {
-			e, has := f[k]
-			if !has {
-				r.fail(n, join(path, k), "is required but missing (%s)", missing[i])
-				ok = false
-				continue
-			}
-			v, good := r.plausible(e.val, join(path, k), LimitSide)
-			ok = ok && good
-			if k == "b" {
-				s.B = v
-			} else {
-				s.H = v
-			}
-		}
+		sides, good := r.sides(f, n, path, missing)
+		s.B, s.H = sides.B, sides.H
+		ok = ok && good
 	}
 	if e, has := f["helix"]; has {
 		v, good := r.boolean(e.val, join(path, "helix"))
