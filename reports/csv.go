@@ -266,12 +266,7 @@ func scheduleCells(d design.Design, group string, lv design.LiftLevel) []inline 
 func circular(d design.Design) bool { return d.Shape == model.ShapeCircle }
 
 // shapeName names the section's shape as results.json and the schedule give it: "rectangle" or "circle".
-func shapeName(d design.Design) string {
-	if circular(d) {
-		return "circle"
-	}
-	return "rectangle"
-}
+func shapeName(d design.Design) string { return sizeShape(d.Shape) }
 
 // linkType returns the kind of the design's transverse bars (design.LinksRect, LinksCircular or
 // LinksHelix); where the design names none, that of its shape: rectangular links round a

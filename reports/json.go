@@ -175,7 +175,8 @@ type jsonResult struct {
 	Forms       []json.RawMessage `json:"forms"`
 }
 
-// sizeShape names a size's shape as results.json names a design's.
+// sizeShape names a shape (model.ShapeRect or ShapeCircle) as results.json and the schedule give
+// it: "rectangle" or "circle".
 func sizeShape(shape string) string {
 	if shape == model.ShapeCircle {
 		return "circle"

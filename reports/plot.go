@@ -66,7 +66,7 @@ func diagrams(d design.Design) []diagram {
 		// A circle: one diagram in the direction of least resistance, with the resultant design
 		// moment and the least resistance (the engine's values).
 		res := d.Y
-		res.MEd = d.Biaxial.Ratio * d.Y.MRd
+		res.MEd = d.Biaxial.Resultant
 		axes = []nmAxis{{"nm", "", d.Interaction.NMY, res}}
 	}
 	for _, ax := range axes {

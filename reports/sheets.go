@@ -306,14 +306,7 @@ func barsText(d design.Design) string {
 }
 
 func linksText(d design.Design) string {
-	s := fmt.Sprintf("Ø%s @ %s", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain())
-	switch d.Links.Type {
-	case design.LinksCircular:
-		return "circular " + s
-	case design.LinksHelix:
-		return "helix " + s
-	}
-	return s
+	return linkKind(d, "circular ", "helix ") + fmt.Sprintf("Ø%s @ %s", fmtNum(d.Links.Dia).plain(), fmtNum(d.Links.Spacing).plain())
 }
 
 // sectionRow is the summary row of the section: b × h, or the diameter of a circle.
@@ -326,13 +319,7 @@ func sectionRow(d design.Design) kv {
 
 // linksRow is the summary row of the links: their kind, diameter and spacings (a helix's pitch).
 func linksRow(d design.Design) kv {
-	what, at := "", " mm at "
-	switch d.Links.Type {
-	case design.LinksCircular:
-		what = "circular links "
-	case design.LinksHelix:
-		what, at = "helix ", " mm, pitch "
-	}
+	what, at := linkKind(d, "circular links ", "helix "), pitch(d, " mm at ", " mm, pitch ")
 	return kv{txt("Links"), cat(txt(what+"Ø"+fmtNum(d.Links.Dia).plain()+at), qty(d.Links.Spacing, "mm"),
 		txt(", "), qty(d.Links.SpacingReduced, "mm"), txt(" in the zones of 9.5.3(4)"))}
 }

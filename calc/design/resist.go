@@ -425,7 +425,7 @@ func (c *common) circleBiaxial(l *trace.Log, d *Design, mEds, mRd [2]trace.Q, re
 	l.Group = "Biaxial bending of the circular section"
 	med := l.Add(trace.Formula("bi/M_Ed", "Resultant design moment", "EN 1992-1-1:2004 5.8.9(4)", "M_Ed", "Nmm",
 		math.Hypot(mEds[0].V, mEds[1].V), "sqrt(M_y ** 2 + M_z ** 2)", trace.A("M_y", mEds[0]), trace.A("M_z", mEds[1])))
-	d.Biaxial.Checked, d.Biaxial.A = true, 2
+	d.Biaxial.Checked, d.Biaxial.A, d.Biaxial.Resultant = true, 2, med.V
 	if !(mRd[0].V > 0) {
 		d.Biaxial.Ratio = 0
 		l.Add(trace.Input("bi/ratio", "Biaxial ratio: not computed, the section has no moment resistance", "EN 1992-1-1:2004 5.8.9(4)", "ratio", "", 0))

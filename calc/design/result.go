@@ -134,6 +134,9 @@ type Biaxial struct {
 	Checked bool    // whether (5.38a/b) call for the check (5.39)
 	A       float64 // exponent a of (5.39)
 	Ratio   float64 // left-hand side of (5.39)
+	// Resultant is the resultant design moment √(MEd,y² + MEd,z²) that a circular section is
+	// checked with (bi/M_Ed), N·mm; 0 for a rectangle.
+	Resultant float64
 }
 
 // Interaction holds the interaction data of a design's section with the bars provided.
