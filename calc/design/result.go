@@ -101,12 +101,7 @@ type Design struct {
 }
 
 // Ac returns the gross concrete area of the design's section, mm².
-func (d *Design) Ac() float64 {
-	if d.Shape == model.ShapeCircle {
-		return circleArea(d.B)
-	}
-	return d.B * d.H
-}
+func (d *Design) Ac() float64 { return sizeArea(model.Size{B: d.B, H: d.H, Shape: d.Shape}) }
 
 // Axis holds the slenderness, actions and resistance for bending about one axis.
 type Axis struct {

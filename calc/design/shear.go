@@ -71,7 +71,7 @@ func (c *common) shearSteps(l *trace.Log, tension [2]int, phi, phiT, cnom trace.
 		}
 		var d trace.Q
 		if c.circle {
-			rs := a.depth.V/2 - cnom.V - phiT.V - phi.V/2
+			rs := a.depth.V/2 - cnom.V - phiT.V - phi.V/2 // in the order of the step's expression
 			d = l.Add(trace.Formula(n+"/shear/d", "Effective depth for the shear about "+n+" of the circle: to the centroid of the bars of the tension half", "common practice", "d", "mm",
 				a.depth.V/2+2*rs/math.Pi, "D / 2 + 2 * (D / 2 - c_nom - phi_t - phi / 2) / 3.141592653589793",
 				trace.A("D", a.depth), trace.A("c_nom", cnom), trace.A("phi_t", phiT), trace.A("phi", phi)).

@@ -6,11 +6,7 @@ import "math"
 // their proportions.
 func (c *Circle) Scaled(As float64) Circle {
 	out := *c
-	out.Bars = make([]Bar, len(c.Bars))
-	copy(out.Bars, c.Bars)
-	if total := c.Area(); total > 0 {
-		scaleBars(out.Bars, c.Bars, As/total)
-	}
+	out.Bars = scaledBars(c.Bars, As)
 	return out
 }
 

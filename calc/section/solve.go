@@ -165,10 +165,21 @@ func brent(g func(float64) float64, a, b, ga, gb, xtol, ftol float64) (float64, 
 // keeping their proportions; bars without area are copied unchanged.
 func (s *Section) Scaled(As float64) Section {
 	out := *s
-	out.Bars = make([]Bar, len(s.Bars))
-	copy(out.Bars, s.Bars)
-	if total := s.Area(); total > 0 {
-		scaleBars(out.Bars, s.Bars, As/total)
+	out.Bars = scaledBars(s.Bars, As)
+	return out
+}
+
+// scaledBars returns a copy of bars whose areas are scaled to total As (mm²), keeping their
+// proportions; bars without area, or bars of no total area, are copied unchanged.
+func scaledBars(bars []Bar, As float64) []Bar {
+	out := make([]Bar, len(bars))
+	copy(out, bars)
+	total := 0.0
+	for _, b := range bars {
+		total += b.Area
+	}
+	if total > 0 {
+		scaleBars(out, bars, As/total)
 	}
 	return out
 }
