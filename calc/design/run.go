@@ -667,11 +667,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		if lean(w, ratio) {
 			continue
 		}
-		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
-		args := []trace.Arg{trace.A("N", nq), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
-			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
-			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
-			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
+		args := quickArgs(qr, trace.A("N", nq))
 		s := trace.Check(w.id, w.title, w.clause, w.relation, ratio, "max(N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas at the smaller NEd; their values are shown here.")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
@@ -694,11 +690,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		if lean(w, ratio) {
 			continue
 		}
-		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
-		args := []trace.Arg{trace.A("M_bot", alt), trace.A("N", c.nEd), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
-			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
-			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
-			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
+		args := quickArgs(qr, trace.A("M_bot", alt), trace.A("N", c.nEd))
 		s := trace.Check(w.id, w.title, w.clause, w.relation, ratio, "max(0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness with C from the new end moments, second order, resistance, biaxial) evaluated again by the same formulas with this bottom moment.")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
@@ -721,11 +713,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 		if lean(w, ratio) {
 			continue
 		}
-		q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
-		args := []trace.Arg{trace.A("N", mc.N), trace.A("M_top", mc.Top), trace.A("M_bot", mc.Bot), trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
-			trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
-			trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
-			trace.A("r_b", q(qr.ratioB, "biaxial ratio", ""))}
+		args := quickArgs(qr, trace.A("N", mc.N), trace.A("M_top", mc.Top), trace.A("M_bot", mc.Bot))
 		s := trace.Check(w.id, w.title, w.clause, w.relation, ratio, "max(0 * M_top + 0 * M_bot + N / N_Rd, M_y / M_Rd_y, M_z / M_Rd_z, r_b)", args...).
 			Note("The checks above (imperfection, slenderness, second order, resistance, biaxial) evaluated again by the same formulas with this NEd and these end moments about " + axisName[k] + "; the moments about the other axis as in the main case (conservative). Permanent actions favourable: γG,inf, EN 1990:2002 Table A1.2(B).")
 		d.checks = append(d.checks, checked{l.Add(s).From, true})
@@ -748,6 +736,16 @@ func (c *common) arrangement(i, k int, dv func() *Derivation) *common {
 		*a = newCommon(c.in, c.col, c.st, dv(), c.bs)
 	}
 	return *a
+}
+
+// quickArgs returns the arguments of a check by quick evaluation: lead, then NRd,max, MEd and
+// MRd about y and z (MRd not below 1 N·mm) and the biaxial ratio of qr, as constants.
+func quickArgs(qr quick, lead ...trace.Arg) []trace.Arg {
+	q := func(v float64, sym, unit string) trace.Q { return trace.Const(v, sym, unit) }
+	return append(lead, trace.A("N_Rd", q(qr.nRdMax, "N_Rd,max", "N")),
+		trace.A("M_y", q(qr.mEd[0], "M_Ed,y", "Nmm")), trace.A("M_Rd_y", q(math.Max(qr.mRd[0], 1), "M_Rd,y", "Nmm")),
+		trace.A("M_z", q(qr.mEd[1], "M_Ed,z", "Nmm")), trace.A("M_Rd_z", q(math.Max(qr.mRd[1], 1), "M_Rd,z", "Nmm")),
+		trace.A("r_b", q(qr.ratioB, "biaxial ratio", "")))
 }
 
 // givenPattern lays out the given bars: the most even pattern that fits, or, when none fits,
