@@ -367,6 +367,9 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	circleOK := false
 	if c.circle {
 		circleQ, circleOK = sec.circleSteps(l, c.nEd, full)
+		if m, ok := sec.least(c.nEd.V); ok {
+			d.theta = m.State.Theta // the interaction diagram's direction (cached: no second search)
+		}
 	}
 	for k := 0; k < 2; k++ {
 		n := c.ax[k].name

@@ -26,7 +26,7 @@ func (c *common) finish(d Design) Design {
 		d.sec = &r.sec
 	}
 	l := &trace.Log{Steps: d.Steps, Group: "Steel area required"}
-	sec := c.section(d.Bars.Positions, d.pattern.BarArea())
+	sec := r // the searches scale copies of its bars and leave it as provided
 	bound := areaBound * c.ac.V
 	var as float64
 	var err error
@@ -115,11 +115,7 @@ func AddInteraction(r *Result) {
 // For a circle both N–M diagrams are drawn in the direction of least resistance at NEd.
 func addInteraction(d *Design) {
 	if c := d.circ; c != nil {
-		theta := 0.0
-		if m, err := c.MRdMin(d.NEd); err == nil {
-			theta = m.State.Theta
-		}
-		nm := c.CurveNM(theta, curvePoints)
+		nm := c.CurveNM(d.theta, curvePoints)
 		d.Interaction = &Interaction{NMY: nm, NMZ: nm, Contour: c.ContourMyMz(d.NEd, contourPoints)}
 		return
 	}

@@ -94,6 +94,7 @@ type Design struct {
 	pattern detail.Pattern    // bar pattern evaluated
 	sec     *section.Section  // the section with the bars provided
 	circ    *section.Circle   // the circular section with the bars provided; nil for a rectangle
+	theta   float64           // a circle's direction of least resistance at NEd (section.CircleState.Theta)
 	checks  []checked         // its check steps
 	reasons map[string]string // by check step ID, the reason to give where it fails, in its own words (the fire method's scope)
 	fixed   map[string]bool   // check step IDs that no bar pattern can make hold (the fire method's scope)
