@@ -25,7 +25,7 @@ const Version = "devel"
 // Run designs or checks every column and lift of the input.
 // For the building form it first derives the actions of every column and lift; an error
 // then names a fault of the building that the input reader could not see.
-func Run(in *model.Input) (*Result, error) { return run(in, nil) }
+func Run(in *model.Input) (*Result, error) { return run(in, nil, true) }
 
 // Stream designs or checks every column and lift of the input as Run does, adds each design's
 // interaction data (AddInteraction) and hands each design to emit in input order as soon as it
@@ -40,15 +40,15 @@ func Stream(in *model.Input, keep bool, emit func(k int, d *Design) error) (*Res
 			return err
 		}
 		if !keep {
-			d.Steps, d.sec, d.circ, d.Interaction = nil, nil, nil, nil
+			d.letGo()
 		}
 		return nil
-	})
+	}, keep)
 }
 
 // run is Run, handing each design to emit (when not nil) in input order as Stream says, each
-// with its interaction data.
-func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
+// with its interaction data; with keep false, the building form's first pass keeps no trace.
+func run(in *model.Input, emit func(k int, d *Design) error, keep bool) (*Result, error) {
 	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in)}
 	if in.Building != nil {
 		d, err := building.Derive(in, func(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
@@ -89,6 +89,10 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 					}
 				}
 				r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
+				if !keep {
+					// The lift is designed again, the same, when its column is handed on.
+					r.Designs[k].letGo()
+				}
 				r.cases[k] = liftCase{col, &col.Storeys[0]}
 				dvs[k] = dv
 			}
@@ -102,6 +106,14 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 		finish := func(ci int) {
 			if typical != nil {
 				r.typicalColumn(in, dvs, typical, cols[ci])
+			}
+			// The lifts whose traces the first pass let go, and the typical pass did not
+			// design again, designed again with the same actions and neighbours: the same
+			// design, with its trace.
+			for k := cols[ci].lo; k < cols[ci].hi; k++ {
+				if r.Designs[k].Steps == nil {
+					r.Designs[k] = design(in, r.cases[k].col, r.cases[k].st, dvs[k], r.bs)
+				}
 			}
 			// References to another lift's step taken out after them: the design's trace begins
 			// with its derivation's steps.
@@ -160,6 +172,9 @@ func run(in *model.Input, emit func(k int, d *Design) error) (*Result, error) {
 	r.Basis = r.bs.public()
 	return r, nil
 }
+
+// letGo drops the design's trace, sections and interaction data, keeping its results.
+func (d *Design) letGo() { d.Steps, d.sec, d.circ, d.Interaction = nil, nil, nil, nil }
 
 // span is the lifts [lo, hi) of one column in the derived lifts, lowest first.
 type span struct{ lo, hi int }
