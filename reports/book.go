@@ -1,6 +1,8 @@
 package reports
 
 import (
+	"iter"
+
 	"colsheet/calc/design"
 	"colsheet/calc/trace"
 )
@@ -13,6 +15,59 @@ type book struct {
 	names []string         // sheet base names, one per design
 	basis map[string]int   // whole ID of a step of the project basis → its number (the last of equal IDs)
 	lifts map[string][]int // start of a design's whole IDs, "COLUMN/LIFT/" → the designs so named, in order
+	pre   []string         // start of each design's whole IDs, "COLUMN/LIFT/"
+	// When the sheets are printed as the designs are handed on (SheetStream), held holds the
+	// designs in hand, by index, each as it was handed on with its trace; kept what is kept of
+	// a design let go since. Both nil otherwise: the designs are the result's.
+	held []*design.Design
+	kept []*keptDesign
+}
+
+// keptDesign is what the calc document needs of a design whose sheet is printed and whose
+// trace was let go: the own IDs of its steps in order, for the links to them, and the steps
+// that its tables read (the take-down and the column moments), with their values only.
+type keptDesign struct {
+	ids   []string
+	steps []keptStep
+}
+
+// keptStep is what a table of the calc document reads of a step: its own ID and its value
+// with the symbol and unit that say how to show it.
+type keptStep struct {
+	id, symbol, unit string
+	value            float64
+}
+
+// design returns design i as its sheet reads it: the one in hand, or the result's.
+func (b *book) design(i int) *design.Design {
+	if b.held != nil {
+		if d := b.held[i]; d != nil {
+			return d
+		}
+	}
+	return &b.r.Designs[i]
+}
+
+// steps yields the steps of design i in order: its trace, or of a design let go the steps
+// kept of it, as steps with their own IDs, values, symbols and units only.
+func (b *book) steps(i int) iter.Seq[trace.Step] {
+	return func(yield func(trace.Step) bool) {
+		if b.kept != nil {
+			if k := b.kept[i]; k != nil {
+				for _, s := range k.steps {
+					if !yield(trace.Step{ID: s.id, Symbol: s.symbol, Unit: s.unit, Value: s.value}) {
+						return
+					}
+				}
+				return
+			}
+		}
+		for _, s := range b.design(i).Steps {
+			if !yield(s) {
+				return
+			}
+		}
+	}
 }
 
 // where is a step's design and its number on that design's sheet; design is basisDesign for
@@ -28,25 +83,30 @@ func newBook(r *design.Result) *book {
 	for k, s := range r.Basis {
 		b.basis[s.ID] = k + 1
 	}
+	b.pre = make([]string, len(r.Designs))
 	for i := range r.Designs {
-		p := b.prefix(i)
+		d := &r.Designs[i]
+		p := d.Column + "/" + d.Storey + "/"
+		b.pre[i] = p
 		b.lifts[p] = append(b.lifts[p], i)
 	}
 	return b
 }
 
 // prefix returns the start of the whole IDs of design i's steps, as Design.Trace makes them.
-func (b *book) prefix(i int) string {
-	d := &b.r.Designs[i]
-	return d.Column + "/" + d.Storey + "/"
-}
+func (b *book) prefix(i int) string { return b.pre[i] }
 
 // stepAt returns the step (its own ID) at w.
 func (b *book) stepAt(w where) trace.Step {
 	if w.design == basisDesign {
 		return b.r.Basis[w.number-1]
 	}
-	return b.r.Designs[w.design].Steps[w.number-1]
+	if b.kept != nil {
+		if k := b.kept[w.design]; k != nil {
+			return trace.Step{ID: k.ids[w.number-1]} // only the calc document links there, by ID
+		}
+	}
+	return b.design(w.design).Steps[w.number-1]
 }
 
 // target returns where the link to step id (at w) from the sheet of design from leads: the
@@ -76,7 +136,7 @@ func (b *book) finder(from int) finder {
 	if from == basisDesign {
 		return f
 	}
-	steps := b.r.Designs[from].Steps
+	steps := b.design(from).Steps
 	f.own = make(map[string]int, len(steps))
 	for k, s := range steps {
 		if _, ok := f.own[s.ID]; !ok {
@@ -117,7 +177,17 @@ func (f finder) number(i int, local string) int {
 	if i == f.from {
 		return f.own[local]
 	}
-	for k, s := range f.b.r.Designs[i].Steps {
+	if f.b.kept != nil {
+		if k := f.b.kept[i]; k != nil {
+			for n, id := range k.ids {
+				if id == local {
+					return n + 1
+				}
+			}
+			return 0
+		}
+	}
+	for k, s := range f.b.design(i).Steps {
 		if s.ID == local {
 			return k + 1
 		}

@@ -99,7 +99,7 @@ func document(r *design.Result, b *book, p place) docView {
 	for _, g := range gs {
 		i := g.governing
 		prefix := b.prefix(i)
-		for _, s := range r.Designs[i].Steps {
+		for _, s := range b.design(i).Steps {
 			if p.opt.full() || briefStep(s) {
 				printed[prefix+s.ID] = true
 			}

@@ -156,7 +156,7 @@ func (s *sheetSet) html(r *design.Result) ([]Sheet, error) {
 	if err != nil {
 		return nil, err
 	}
-	h, err := newHTMLPages(r)
+	h, err := newHTMLPages(r, newBook(r))
 	if err != nil {
 		return nil, err
 	}
@@ -179,16 +179,17 @@ func (s *sheetSet) html(r *design.Result) ([]Sheet, error) {
 // HTML pages; page may run on several goroutines at once.
 type htmlPages struct {
 	r             *design.Result
+	bk            *book // the designs, as the sheets read them
 	t             *template.Template
 	tool, project string
 }
 
-func newHTMLPages(r *design.Result) (*htmlPages, error) {
+func newHTMLPages(r *design.Result, bk *book) (*htmlPages, error) {
 	t, err := template.ParseFS(templates.FS, "html/page.html.tmpl")
 	if err != nil {
 		return nil, err
 	}
-	return &htmlPages{r: r, t: t, tool: program(r), project: oneLine(input(r).Project.Title)}, nil
+	return &htmlPages{r: r, bk: bk, t: t, tool: program(r), project: oneLine(input(r).Project.Title)}, nil
 }
 
 // page returns page i of the set (0 the index, then the designs in order) from its Markdown
@@ -196,12 +197,12 @@ func newHTMLPages(r *design.Result) (*htmlPages, error) {
 func (h *htmlPages) page(i int, single Sheet, svgs []string, again func(*bytes.Buffer) error) (Sheet, error) {
 	title := "Index of calculation sheets"
 	if i > 0 {
-		title = subject(h.r.Designs[i-1])
+		title = subject(*h.bk.design(i - 1))
 	}
 	if strings.TrimSpace(h.project) != "" {
 		title = h.project + ": " + title
 	}
-	failed := i > 0 && h.r.Designs[i-1].Status != design.StatusPass
+	failed := i > 0 && h.bk.design(i-1).Status != design.StatusPass
 	id := strings.TrimSuffix(single.Name, ".md")
 	page, err := htmlOf(h.t, single.Data, svgs, again, htmlPage{Title: oneLine(title), Tool: h.tool,
 		Sheets: []htmlSheet{{ID: id, Failed: failed}}})

@@ -13,6 +13,7 @@ import (
 
 	"colsheet/calc/design"
 	yamlinput "colsheet/calc/input"
+	"colsheet/calc/model"
 	"colsheet/calc/trace"
 )
 
@@ -41,6 +42,16 @@ building:
 // runFile designs the input file name, or the text src when name is empty.
 func runFile(t testing.TB, name, src string) *design.Result {
 	t.Helper()
+	r, err := design.Run(parseFile(t, name, src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
+// parseFile reads the input of the file name, or of src when name is empty.
+func parseFile(t testing.TB, name, src string) *model.Input {
+	t.Helper()
 	data := []byte(src)
 	if name != "" {
 		var err error
@@ -54,11 +65,7 @@ func runFile(t testing.TB, name, src string) *design.Result {
 	if err != nil {
 		t.Fatal(err)
 	}
-	r, err := design.Run(in)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return r
+	return in
 }
 
 // results.json read back gives every step of the basis and of every design as the engine

@@ -599,19 +599,66 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 	if err := finiteResult(r); err != nil {
 		return err
 	}
+	x, err := newRenderer(r, formats, o)
+	if x == nil || err != nil {
+		return err // nil, nil: no sheets and no calc document asked for
+	}
+	pages := len(x.set.names) + 1
+	item := func(i int) ([]file, error) {
+		if i >= pages {
+			return x.docFile(x.fs[i-pages])
+		}
+		return x.page(i)
+	}
+	return inOrder(pages+len(x.fs), workers, item, func(files []file) error { return emitFiles(files, emit) })
+}
+
+// emitFiles hands each of files to emit, stopping at the first error.
+func emitFiles(files []file, emit func(path string, data []byte) error) error {
+	for _, f := range files {
+		if err := emit(f.path, f.data); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// file is one printed file by its slash path below the output folder.
+type file struct {
+	path string
+	data []byte
+}
+
+// printing is one format's printer of the sheets and the calc document.
+type printing struct {
+	name string
+	tp   *treePrinter
+	html *htmlPages
+}
+
+// renderer prints the pages (0 the index, then the designs in order) and the calc document of
+// a result in the formats asked for; page and docFile may run on several goroutines at once.
+type renderer struct {
+	r          *design.Result
+	bk         *book
+	p          place
+	o          Options
+	set        *sheetSet
+	fs         []printing
+	mdP, htmlP *printing
+	docOnce    sync.Once
+	doc        docView
+}
+
+// newRenderer returns the renderer of r in the formats asked for (md, tex, html); nil where
+// none of them is asked for.
+func newRenderer(r *design.Result, formats map[string]bool, o Options) (*renderer, error) {
 	if !formats["md"] && !formats["tex"] && !formats["html"] {
-		return nil // no sheets and no calc document asked for
+		return nil, nil
 	}
 	bk := newBook(r)
-	p := place{opt: o}
 	// The index's tree is built when its page is printed and let go after, as the sheets' are.
-	set := &sheetSet{names: bk.names}
-	type printing struct {
-		name string
-		tp   *treePrinter
-		html *htmlPages
-	}
-	var fs []printing
+	x := &renderer{r: r, bk: bk, p: place{opt: o}, o: o, set: &sheetSet{names: bk.names}}
 	for _, f := range []struct {
 		name string
 		f    format
@@ -621,121 +668,104 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 		}
 		tp, err := f.f.printer(f.f.common, f.f.index, f.f.sheet)
 		if err != nil {
-			return fmt.Errorf("%s: %v", f.name, err)
+			return nil, fmt.Errorf("%s: %v", f.name, err)
 		}
 		pr := printing{name: f.name, tp: tp}
 		if f.name == "html" {
-			if pr.html, err = newHTMLPages(r); err != nil {
-				return fmt.Errorf("%s: %v", f.name, err)
-			}
-		}
-		fs = append(fs, pr)
-	}
-	type file struct {
-		path string
-		data []byte
-	}
-	// Page i (0 the index, then the designs in order): its tree built once, printed per format.
-	var mdP, htmlP *printing
-	for k := range fs {
-		switch fs[k].name {
-		case "md":
-			mdP = &fs[k]
-		case "html":
-			htmlP = &fs[k]
-		}
-	}
-	page := func(i int) ([]file, error) {
-		var v sheetView
-		if i == 0 {
-			v = index(r, func(name string) target { return target{sheet: name} }, bk, p)
-		} else {
-			v = sheet(bk, i-1, p)
-		}
-		// Markdown and HTML from one printing of the page where they differ only in the links'
-		// extension and the pictures.
-		var md, htmlMD *bytes.Buffer
-		var svgs []string
-		if mdP != nil && htmlP != nil && !foldsSteps(v) {
-			var ok bool
-			var err error
-			if md, htmlMD, svgs, ok, err = set.printShared(mdP.tp, i, v); err != nil {
-				return nil, fmt.Errorf("md: %v", err)
-			} else if !ok {
-				md, htmlMD = nil, nil
-			}
-			defer func() {
-				if md != nil {
-					putBuffer(md)
-					putBuffer(htmlMD)
-				}
-			}()
-		}
-		out := make([]file, 0, len(fs))
-		for _, f := range fs {
-			var sh Sheet
-			var err error
-			switch {
-			case f.name == "md" && md != nil:
-				sh = Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: bytes.Clone(md.Bytes())}
-			case f.html != nil:
-				// The Markdown in a reused buffer, its pictures as marks; converted and let go.
-				again := func(w *bytes.Buffer) error { return set.printPageInto(w, f.tp, i, v) }
-				name := set.pageName(i) + f.tp.f.ext
-				if htmlMD != nil {
-					sh, err = f.html.page(i, Sheet{Name: name, Data: htmlMD.Bytes()}, svgs, again)
-					break
-				}
-				b := getBuffer()
-				var svgs []string
-				if err = set.printPageWith(b, f.tp, i, v, mdFigures{svgs: &svgs}); err == nil {
-					sh, err = f.html.page(i, Sheet{Name: name, Data: b.Bytes()}, svgs, again)
-				}
-				putBuffer(b)
-			default:
-				sh, err = set.printPage(f.tp, i, v)
-			}
-			if err != nil {
+			if pr.html, err = newHTMLPages(r, bk); err != nil {
 				return nil, fmt.Errorf("%s: %v", f.name, err)
 			}
-			out = append(out, file{f.name + "/" + sh.Name, sh.Data})
 		}
-		return out, nil
+		x.fs = append(x.fs, pr)
 	}
-	// After the pages, the calc document of each format: its tree built once, by the first
-	// printing that needs it, while the last sheets may still be printing.
-	var docOnce sync.Once
-	var doc docView
-	docFile := func(f printing) ([]file, error) {
-		docOnce.Do(func() { doc = document(r, bk, place{onePage: true, opt: o}) })
-		var d Sheet
+	for k := range x.fs {
+		switch x.fs[k].name {
+		case "md":
+			x.mdP = &x.fs[k]
+		case "html":
+			x.htmlP = &x.fs[k]
+		}
+	}
+	return x, nil
+}
+
+// page prints page i (0 the index, then the designs in order): its tree built once, printed
+// per format.
+func (x *renderer) page(i int) ([]file, error) {
+	set, fs := x.set, x.fs
+	var v sheetView
+	if i == 0 {
+		v = index(x.r, func(name string) target { return target{sheet: name} }, x.bk, x.p)
+	} else {
+		v = sheet(x.bk, i-1, x.p)
+	}
+	// Markdown and HTML from one printing of the page where they differ only in the links'
+	// extension and the pictures.
+	var md, htmlMD *bytes.Buffer
+	var svgs []string
+	if x.mdP != nil && x.htmlP != nil && !foldsSteps(v) {
+		var ok bool
 		var err error
-		if f.html != nil {
-			d, err = documentHTML(r, &doc)
-		} else {
-			d.Name = "calc" + f.tp.f.ext
-			d.Data, err = printDocument(&doc, f.tp.f)
+		if md, htmlMD, svgs, ok, err = set.printShared(x.mdP.tp, i, v); err != nil {
+			return nil, fmt.Errorf("md: %v", err)
+		} else if !ok {
+			md, htmlMD = nil, nil
+		}
+		defer func() {
+			if md != nil {
+				putBuffer(md)
+				putBuffer(htmlMD)
+			}
+		}()
+	}
+	out := make([]file, 0, len(fs))
+	for _, f := range fs {
+		var sh Sheet
+		var err error
+		switch {
+		case f.name == "md" && md != nil:
+			sh = Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: bytes.Clone(md.Bytes())}
+		case f.html != nil:
+			// The Markdown in a reused buffer, its pictures as marks; converted and let go.
+			again := func(w *bytes.Buffer) error { return set.printPageInto(w, f.tp, i, v) }
+			name := set.pageName(i) + f.tp.f.ext
+			if htmlMD != nil {
+				sh, err = f.html.page(i, Sheet{Name: name, Data: htmlMD.Bytes()}, svgs, again)
+				break
+			}
+			b := getBuffer()
+			var svgs []string
+			if err = set.printPageWith(b, f.tp, i, v, mdFigures{svgs: &svgs}); err == nil {
+				sh, err = f.html.page(i, Sheet{Name: name, Data: b.Bytes()}, svgs, again)
+			}
+			putBuffer(b)
+		default:
+			sh, err = set.printPage(f.tp, i, v)
 		}
 		if err != nil {
-			return nil, fmt.Errorf("%s calc document: %v", f.name, err)
+			return nil, fmt.Errorf("%s: %v", f.name, err)
 		}
-		return []file{{"doc/" + d.Name, d.Data}}, nil
+		out = append(out, file{f.name + "/" + sh.Name, sh.Data})
 	}
-	pages := len(set.names) + 1
-	item := func(i int) ([]file, error) {
-		if i >= pages {
-			return docFile(fs[i-pages])
-		}
-		return page(i)
+	return out, nil
+}
+
+// docFile prints the calc document in the format of f: its tree built once, by the first
+// printing that needs it, while the last sheets may still be printing.
+func (x *renderer) docFile(f printing) ([]file, error) {
+	x.docOnce.Do(func() { x.doc = document(x.r, x.bk, place{onePage: true, opt: x.o}) })
+	var d Sheet
+	var err error
+	if f.html != nil {
+		d, err = documentHTML(x.r, &x.doc)
+	} else {
+		d.Name = "calc" + f.tp.f.ext
+		d.Data, err = printDocument(&x.doc, f.tp.f)
 	}
-	return inOrder(pages+len(fs), workers, item, func(files []file) error {
-		for _, f := range files {
-			if err := emit(f.path, f.data); err != nil {
-				return err
-			}
-		}
-		return nil
-	})
+	if err != nil {
+		return nil, fmt.Errorf("%s calc document: %v", f.name, err)
+	}
+	return []file{{"doc/" + d.Name, d.Data}}, nil
 }
 
 // inOrder makes the n pages page(0) … page(n-1) on up to workers goroutines and hands each to

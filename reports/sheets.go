@@ -399,7 +399,7 @@ func index(r *design.Result, link func(name string) target, b *book, p place) sh
 func sheet(b *book, i int, p place) sheetView {
 	r := b.r
 	in := input(r)
-	d := r.Designs[i]
+	d := *b.design(i)
 	total := len(r.Designs) + 1
 	st, failed := status(d.Status)
 	v := sheetView{Sec1: "section*", Sec2: "subsection*", Project: project(in), Number: i + 2, Total: total,
@@ -501,7 +501,7 @@ func (p place) shows(id string, s trace.Step) bool {
 // groups gathers the steps of design i under their Step.Group, groups in order of first
 // appearance; each step keeps its number in the trace.
 func groups(b *book, i int, p place) ([]groupView, []stepView) {
-	own := b.r.Designs[i].Steps
+	own := b.design(i).Steps
 	prefix := b.prefix(i)
 	f := b.finder(i)
 	var out []groupView
@@ -684,7 +684,7 @@ func step(s trace.Step, n int, f finder, p place) stepView {
 		if w.design == basisDesign {
 			label = txt("basis B." + fmt.Sprint(w.number))
 		} else {
-			d := b.r.Designs[w.design]
+			d := b.design(w.design)
 			label = txt(d.Column + "/" + d.Storey + " step " + fmt.Sprint(w.number))
 		}
 		all = append(all, link(label, b.target(from, w, ids[w])))

@@ -4,6 +4,8 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+
+	"colsheet/calc/design"
 	"testing"
 )
 
@@ -82,5 +84,66 @@ func TestInOrder(t *testing.T) {
 				return Sheet{}, nil
 			}, func(Sheet) error { return nil })
 		}()
+	}
+}
+
+// The sheets printed while the designs are handed on (SheetStream, the designs letting go of
+// their traces) are the files of RenderTo over the whole result, byte for byte, in the building
+// form (links to the lifts above, the take-down and moment tables of the calc document, the
+// governing lift of each group) and in the actions form (common practice, no source: the
+// package does not depend on how it was printed).
+func TestSheetStreamSameFiles(t *testing.T) {
+	formats := map[string]bool{"md": true, "tex": true, "html": true}
+	for _, c := range []struct{ name, file, src string }{
+		{"pack building", "", packBuilding},
+		{"demo building", "../testdata/demo.yaml", ""},
+		{"columns with given actions", "../testdata/columns.yaml", ""},
+	} {
+		in := parseFile(t, c.file, c.src)
+		whole, err := design.Stream(in, true, nil, func(int, *design.Design) error { return nil })
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := map[string][]byte{}
+		if err := RenderTo(whole, formats, Options{}, 2, func(p string, data []byte) error {
+			want[p] = data
+			return nil
+		}); err != nil {
+			t.Fatal(err)
+		}
+		for _, workers := range []int{1, 3} {
+			got := map[string][]byte{}
+			put := func(p string, data []byte) error {
+				if _, ok := got[p]; ok {
+					t.Errorf("%s: %s written twice", c.name, p)
+				}
+				got[p] = data
+				return nil
+			}
+			var ss *SheetStream
+			r, err := design.Stream(in, false, func(r *design.Result) (err error) {
+				ss, err = NewSheetStream(r, formats, Options{}, workers, put)
+				return err
+			}, func(k int, d *design.Design) error { return ss.Design(k, d) })
+			if err != nil {
+				t.Fatal(err)
+			}
+			if err := ss.End(); err != nil {
+				t.Fatal(err)
+			}
+			if len(got) != len(want) {
+				t.Errorf("%s, %d workers: %d files, want %d", c.name, workers, len(got), len(want))
+			}
+			for p, data := range want {
+				if !bytes.Equal(got[p], data) {
+					t.Errorf("%s, %d workers: %s differs from the one printed from the whole result", c.name, workers, p)
+				}
+			}
+			for k := range r.Designs {
+				if r.Designs[k].Steps != nil {
+					t.Fatalf("%s: design %d kept its trace", c.name, k)
+				}
+			}
+		}
 	}
 }

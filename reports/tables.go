@@ -42,7 +42,7 @@ type cells struct {
 
 // find returns the step of design i with the own ID local.
 func (c cells) find(i int, local string) (trace.Step, bool) {
-	for _, s := range c.b.r.Designs[i].Steps {
+	for s := range c.b.steps(i) {
 		if s.ID == local {
 			return design.WholeStep(c.b.prefix(i), s), true
 		}
@@ -78,7 +78,7 @@ func (c cells) matching(i int, pattern func(id string) bool) inline {
 func (c cells) joined(i int, pattern func(id string) bool, mark func(trace.Step) inline) inline {
 	var parts []inline
 	prefix := c.b.prefix(i)
-	for _, s := range c.b.r.Designs[i].Steps {
+	for s := range c.b.steps(i) {
 		if pattern(s.ID) {
 			parts = append(parts, mark(design.WholeStep(prefix, s)))
 		}
@@ -111,7 +111,7 @@ func takeDownTables(c cells) []tableView {
 		// in columns of their own.
 		xfer := false
 		for _, i := range col.designs {
-			for _, st := range r.Designs[i].Steps {
+			for st := range c.b.steps(i) {
 				if strings.HasPrefix(st.ID, "td/"+r.Designs[i].Storey+"/xfer/") {
 					xfer = true
 				}
@@ -221,7 +221,7 @@ func momentTables(c cells) []tableView {
 // left first; a column at an edge has one.
 func (c cells) beamsAt(i int, p string) []string {
 	var names []string
-	for _, s := range c.b.r.Designs[i].Steps {
+	for s := range c.b.steps(i) {
 		if !strings.HasPrefix(s.ID, p) || !strings.HasSuffix(s.ID, "/k") {
 			continue
 		}

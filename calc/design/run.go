@@ -25,17 +25,21 @@ const Version = "devel"
 // Run designs or checks every column and lift of the input.
 // For the building form it first derives the actions of every column and lift; an error
 // then names a fault of the building that the input reader could not see.
-func Run(in *model.Input) (*Result, error) { return run(in, nil, true) }
+func Run(in *model.Input) (*Result, error) { return run(in, nil, nil, true) }
 
 // Stream designs or checks every column and lift of the input as Run does, adds each design's
 // interaction data (AddInteraction) and hands each design to emit in input order as soon as it
 // and every design before it are done; in the building form that is once every lift is
-// designed, since the choice of typical bars may change any lift. With keep false a design
-// keeps its results but not its trace, section or interaction data once emit returns, so that
-// the memory of a run does not grow with the traces of its lifts. An error from emit stops the
-// run and is returned.
-func Stream(in *model.Input, keep bool, emit func(k int, d *Design) error) (*Result, error) {
-	return run(in, func(k int, d *Design) error {
+// designed, since the choice of typical bars may change any lift. Before the first design is
+// handed on, start (when not nil) is given the result with its project basis and, for every
+// design, its column and lift names (Design.Column, Design.Storey; nothing else of the designs
+// is to be read until each is handed on). With keep false a design keeps its results but not
+// its trace, section or interaction data once emit returns, so that the memory of a run does
+// not grow with the traces of its lifts: the building form's first pass then also lets each
+// lift's trace go as soon as the lift is designed and designs the lift again, the same, when
+// its column is handed on. An error from start or emit stops the run and is returned.
+func Stream(in *model.Input, keep bool, start func(r *Result) error, emit func(k int, d *Design) error) (*Result, error) {
+	return run(in, start, func(k int, d *Design) error {
 		if err := emit(k, d); err != nil {
 			return err
 		}
@@ -47,9 +51,11 @@ func Stream(in *model.Input, keep bool, emit func(k int, d *Design) error) (*Res
 }
 
 // run is Run, handing each design to emit (when not nil) in input order as Stream says, each
-// with its interaction data; with keep false, the building form's first pass keeps no trace.
-func run(in *model.Input, emit func(k int, d *Design) error, keep bool) (*Result, error) {
+// with its interaction data, after start (when not nil); with keep false, the building form's
+// first pass keeps no trace.
+func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Design) error, keep bool) (*Result, error) {
 	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in)}
+	r.Basis = r.bs.public() // the basis is whole before any lift is designed
 	if in.Building != nil {
 		d, err := building.Derive(in, func(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
 			return actions.PanelLoads(lx, ly, 1, spans)
@@ -126,15 +132,21 @@ func run(in *model.Input, emit func(k int, d *Design) error, keep bool) (*Result
 				}
 			}
 		}
+		if start != nil {
+			if err := start(r); err != nil {
+				return nil, err
+			}
+		}
 		// Each design holds its derivation's steps now: the lifts' own copies are let go.
 		release := func(ci int) {
 			for k := cols[ci].lo; k < cols[ci].hi; k++ {
 				d.Lifts[k].Steps, dvs[k] = nil, nil
 			}
 		}
+		// Handed on: one column ahead per worker, since a column's traces are large.
 		if emit == nil {
 			work.Each(len(cols), func(ci int) { finish(ci); release(ci) })
-		} else if err := work.EachInOrder(len(cols), finish, func(ci int) error {
+		} else if err := work.EachInOrder(len(cols), 1, finish, func(ci int) error {
 			release(ci)
 			for k := cols[ci].lo; k < cols[ci].hi; k++ {
 				if err := emit(k, &r.Designs[k]); err != nil {
@@ -154,6 +166,14 @@ func run(in *model.Input, emit func(k int, d *Design) error, keep bool) (*Result
 		}
 		// The lifts of the actions form are independent.
 		r.Designs = make([]Design, len(r.cases))
+		if start != nil {
+			for k, c := range r.cases {
+				r.Designs[k].Column, r.Designs[k].Storey = c.col.ID, c.st.Name
+			}
+			if err := start(r); err != nil {
+				return nil, err
+			}
+		}
 		one := func(k int) {
 			r.Designs[k] = design(in, r.cases[k].col, r.cases[k].st, nil, r.bs)
 			if emit != nil {
@@ -162,14 +182,13 @@ func run(in *model.Input, emit func(k int, d *Design) error, keep bool) (*Result
 		}
 		if emit == nil {
 			work.Each(len(r.cases), one)
-		} else if err := work.EachInOrder(len(r.cases), one, func(k int) error { return emit(k, &r.Designs[k]) }); err != nil {
+		} else if err := work.EachInOrder(len(r.cases), 8, one, func(k int) error { return emit(k, &r.Designs[k]) }); err != nil {
 			return nil, err
 		}
 	}
 	if in.Options.Sizes != nil {
 		r.Sizes = findSizes(in, r)
 	}
-	r.Basis = r.bs.public()
 	return r, nil
 }
 

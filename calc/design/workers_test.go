@@ -92,7 +92,7 @@ func TestStreamSameBytes(t *testing.T) {
 					t.Fatal(err)
 				}
 				next := 0
-				res, err := design.Stream(in, false, func(k int, d *design.Design) error {
+				res, err := design.Stream(in, false, nil, func(k int, d *design.Design) error {
 					if k != next {
 						t.Fatalf("emitted design %d, want %d", k, next)
 					}
@@ -129,7 +129,7 @@ func TestStreamStopsOnError(t *testing.T) {
 	}
 	stop := errors.New("disk full")
 	calls := 0
-	_, err = design.Stream(in, true, func(k int, d *design.Design) error {
+	_, err = design.Stream(in, true, nil, func(k int, d *design.Design) error {
 		calls++
 		if k == 1 {
 			return stop

@@ -61,9 +61,10 @@ func (c *crew) wait() {
 
 // EachInOrder calls f(i) for every i in [0, n) as Each does and emit(i) in the caller's
 // goroutine in order of i, as soon as f(i) and every emit before it are done; the workers keep
-// at most a bounded number of items ahead of emit, so that what f makes can be let go by emit.
+// at most ahead items per worker ahead of emit (at least one), so that what f makes can be let
+// go by emit.
 // An error from emit stops the work and is returned; a panic in f is raised again in the caller.
-func EachInOrder(n int, f func(i int), emit func(i int) error) error {
+func EachInOrder(n, ahead int, f func(i int), emit func(i int) error) error {
 	w := min(runtime.GOMAXPROCS(0), n)
 	if w <= 1 {
 		for i := 0; i < n; i++ {
@@ -74,8 +75,9 @@ func EachInOrder(n int, f func(i int), emit func(i int) error) error {
 		}
 		return nil
 	}
-	window := make(chan struct{}, 8*w) // a slot per item between its start and its emit
-	ready := make(chan int, 8*w)
+	ahead = max(ahead, 1)
+	window := make(chan struct{}, ahead*w) // a slot per item between its start and its emit
+	ready := make(chan int, ahead*w)
 	stop := make(chan struct{})
 	var next atomic.Int64
 	var c crew

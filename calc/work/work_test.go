@@ -13,7 +13,7 @@ func TestEachInOrder(t *testing.T) {
 	for _, n := range []int{0, 1, 7, 500} {
 		made := make([]int, n)
 		var got []int
-		err := EachInOrder(n, func(i int) {
+		err := EachInOrder(n, 8, func(i int) {
 			for k := 0; k < (n-i)*50; k++ { // later items finish sooner
 				made[i] += k % 3
 			}
@@ -36,7 +36,7 @@ func TestEachInOrder(t *testing.T) {
 	}
 	stop := errors.New("stop")
 	calls := 0
-	if err := EachInOrder(100, func(int) {}, func(i int) error {
+	if err := EachInOrder(100, 8, func(int) {}, func(i int) error {
 		calls++
 		if i == 3 {
 			return stop
@@ -50,7 +50,7 @@ func TestEachInOrder(t *testing.T) {
 			t.Errorf("panic %v, want boom", p)
 		}
 	}()
-	EachInOrder(100, func(i int) {
+	EachInOrder(100, 8, func(i int) {
 		if i == 42 {
 			panic("boom")
 		}

@@ -55,7 +55,7 @@ func checkInput(cmd string, in *model.Input, only selection, stdout, stderr io.W
 		return failUsage(stderr, cmd, err)
 	}
 	// Each design's trace let go once made: the table needs the results only.
-	res, err := design.Stream(in, false, func(int, *design.Design) error { return nil })
+	res, err := design.Stream(in, false, nil, func(int, *design.Design) error { return nil })
 	if err != nil {
 		fmt.Fprintf(stderr, "colsheet %s: %v\n", cmd, err) // a fault of the building, named by the engine
 		return 2

@@ -268,26 +268,49 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 			st.discard()
 		}
 	}()
-	// The designs, each written into results.json as soon as it and those before it are done;
-	// without sheets a design lets go of its trace once written.
+	// The designs, each written into results.json as soon as it and those before it are done,
+	// and its sheets printed once its column is done; each design lets go of its trace once
+	// written. With --against (the revision marks need the whole of results.json) or --only,
+	// the sheets are printed after the designs, which then keep their traces.
 	sheets := o.formats["md"] || o.formats["tex"] || o.formats["html"]
+	streamed := sheets && o.against == "" && len(o.only) == 0
+	opt := reports.Options{Detail: o.detail}
+	var sheetStream *reports.SheetStream
 	prog.phase("designing", lifts(in))
 	var res *design.Result
-	var runErr, onlyErr error
+	var runErr, onlyErr, printErr error
 	err = st.create("results.json", func(w io.Writer) error {
 		js, err := reports.NewJSONStream(w, "colsheet", version(), in)
 		if err != nil {
 			return err
 		}
+		start := func(r *design.Result) error {
+			if !streamed {
+				return nil
+			}
+			// The build's own version, in results.json, the manifest and every title block.
+			r.ToolVersion = version()
+			sheetStream, printErr = reports.NewSheetStream(r, o.formats, opt, runtime.GOMAXPROCS(0), st.put)
+			return printErr
+		}
 		// With --only, the designs of the others are made (the take-down and the typical bars
 		// need the whole building) but neither written nor kept.
-		res, runErr = design.Stream(in, sheets, func(_ int, d *design.Design) error {
+		res, runErr = design.Stream(in, sheets && !streamed, start, func(k int, d *design.Design) error {
 			prog.step()
 			if !o.only.has(d) {
 				return nil
 			}
-			return js.Design(d)
+			if err := js.Design(d); err != nil {
+				return err
+			}
+			if sheetStream != nil {
+				printErr = sheetStream.Design(k, d)
+			}
+			return printErr
 		})
+		if printErr != nil {
+			return printErr
+		}
 		if runErr != nil {
 			return runErr
 		}
@@ -299,6 +322,8 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 		return js.End(res)
 	})
 	switch {
+	case printErr != nil:
+		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", printErr)
 	case runErr != nil:
 		return nil, runErr // a fault of the building, named by the engine
 	case onlyErr != nil:
@@ -306,7 +331,6 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 	case err != nil:
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
-	opt := reports.Options{Detail: o.detail}
 	if o.against != "" {
 		// The revision marks: every value compared with the previous package's.
 		js, err := st.read("results.json")
@@ -321,9 +345,14 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 	}
 	// The other files: three CSV, and per format the index, a sheet per design and the calc
 	// document.
-	prog.phase("writing files", 3+len(o.formats)*(len(res.Designs)+2))
+	if sheetStream != nil {
+		// The sheets are written: the CSV files, then the index and the calc documents.
+		prog.phase("writing files", 3+2*len(o.formats))
+	} else {
+		prog.phase("writing files", 3+len(o.formats)*(len(res.Designs)+2))
+	}
 	st.written = prog.step
-	if err := render(st, res, o.formats, opt, runtime.GOMAXPROCS(0)); err != nil {
+	if err := render(st, res, sheetStream, o.formats, opt, runtime.GOMAXPROCS(0)); err != nil {
 		return nil, fmt.Errorf("colsheet: rendering failed, nothing written: %v", err)
 	}
 	st.written = nil
@@ -362,8 +391,9 @@ func tally(res *design.Result, where string, stdout, stderr io.Writer) int {
 }
 
 // render writes the CSV files into the stage st, then the sheets (printed by up to workers
-// goroutines) and the calc document of each format, each file as soon as it is made.
-func render(st *stage, res *design.Result, formats map[string]bool, opt reports.Options, workers int) error {
+// goroutines) and the calc document of each format, each file as soon as it is made; with ss,
+// whose sheets are written, the index and the calc documents that ss ends with.
+func render(st *stage, res *design.Result, ss *reports.SheetStream, formats map[string]bool, opt reports.Options, workers int) error {
 	for _, c := range []struct {
 		name string
 		make func(*design.Result) ([]byte, error)
@@ -375,6 +405,9 @@ func render(st *stage, res *design.Result, formats map[string]bool, opt reports.
 		if err := st.put(c.name, data); err != nil {
 			return err
 		}
+	}
+	if ss != nil {
+		return ss.End()
 	}
 	// The sheets and the calc document: each tree built once, printed in every format.
 	return reports.RenderTo(res, formats, opt, workers, st.put)

@@ -46,7 +46,7 @@ func BenchmarkDemoPackage(b *testing.B) {
 				if err := st.create("results.json", func(w io.Writer) error { return reports.WriteJSON(w, res) }); err != nil {
 					b.Fatal(err)
 				}
-				if err := render(st, res, formats, reports.Options{}, workers); err != nil {
+				if err := render(st, res, nil, formats, reports.Options{}, workers); err != nil {
 					b.Fatal(err)
 				}
 				results, other, doc = 0, 0, 0
