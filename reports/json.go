@@ -487,9 +487,9 @@ func (e *jsonWriter) step(st *trace.Step, prefix string, k int) {
 		}
 		b = append(b, ']')
 	}
-	if st.Residual != 0 {
+	if st.Residual() != 0 {
 		b = append(b, `,"residual":`...)
-		b = appendJSONFloat(b, st.Residual)
+		b = appendJSONFloat(b, st.Residual())
 	}
 	if st.Verdict != "" {
 		b = append(b, `,"verdict":`...)
@@ -644,8 +644,8 @@ func notFinite(where string, vs ...float64) error {
 // finiteStep reports a number of step s that is NaN or infinite, naming the step; the text is
 // built only then.
 func finiteStep(s *trace.Step) error {
-	if !finite(s.Value, s.Residual) {
-		return notFinite("step "+s.ID, s.Value, s.Residual)
+	if !finite(s.Value, s.Residual()) {
+		return notFinite("step "+s.ID, s.Value, s.Residual())
 	}
 	for _, a := range s.Args {
 		if !trace.Finite(a.Value) {
@@ -765,7 +765,7 @@ func formHash(seed maphash.Seed, s *trace.Step) uint64 {
 		h.WriteString(v)
 		h.WriteByte(0)
 	}
-	for _, v := range []string{s.Group, s.Title, s.Clause, string(s.Kind), s.Symbol, s.Expr, s.Unit, s.Row, s.Method, s.Verify, s.Relation} {
+	for _, v := range []string{s.Group, s.Title, s.Clause, string(s.Kind), s.Symbol, s.Expr, s.Unit, s.Row(), s.Method(), s.Verify(), s.Relation} {
 		str(v)
 	}
 	for i := range s.Args {
@@ -776,7 +776,7 @@ func formHash(seed maphash.Seed, s *trace.Step) uint64 {
 		str(a.From)
 	}
 	h.WriteByte(byte(len(s.Args)))
-	for _, l := range [][]string{s.Notes, s.Cautions} {
+	for _, l := range [][]string{s.Notes(), s.Cautions()} {
 		for _, v := range l {
 			str(v)
 		}
@@ -793,9 +793,9 @@ func formHash(seed maphash.Seed, s *trace.Step) uint64 {
 // values, residuals and verdicts and their arguments' values.
 func sameForm(a, b *trace.Step) bool {
 	if a.Group != b.Group || a.Title != b.Title || a.Clause != b.Clause || a.Kind != b.Kind || a.Symbol != b.Symbol ||
-		a.Expr != b.Expr || a.Unit != b.Unit || a.Row != b.Row || a.Method != b.Method || a.Verify != b.Verify ||
-		a.Relation != b.Relation || len(a.Args) != len(b.Args) || !slices.Equal(a.Notes, b.Notes) ||
-		!slices.Equal(a.Cautions, b.Cautions) || (a.Show == nil) != (b.Show == nil) {
+		a.Expr != b.Expr || a.Unit != b.Unit || a.Row() != b.Row() || a.Method() != b.Method() || a.Verify() != b.Verify() ||
+		a.Relation != b.Relation || len(a.Args) != len(b.Args) || !slices.Equal(a.Notes(), b.Notes()) ||
+		!slices.Equal(a.Cautions(), b.Cautions()) || (a.Show == nil) != (b.Show == nil) {
 		return false
 	}
 	if a.Show != nil && *a.Show != *b.Show {
@@ -872,15 +872,15 @@ func formJSON(b []byte, s *trace.Step) []byte {
 		}
 		b = append(b, ']')
 	}
-	list("cautions", s.Cautions)
+	list("cautions", s.Cautions())
 	str("clause", s.Clause, false)
 	str("expr", s.Expr, true)
 	str("group", s.Group, true)
 	str("kind", string(s.Kind), false)
-	str("method", s.Method, true)
-	list("notes", s.Notes)
+	str("method", s.Method(), true)
+	list("notes", s.Notes())
 	str("relation", s.Relation, true)
-	str("row", s.Row, true)
+	str("row", s.Row(), true)
 	if s.Show != nil {
 		// A struct inside: its keys in field order.
 		key("show")
@@ -901,7 +901,7 @@ func formJSON(b []byte, s *trace.Step) []byte {
 	str("symbol", s.Symbol, true)
 	str("title", s.Title, false)
 	str("unit", s.Unit, true)
-	str("verify", s.Verify, true)
+	str("verify", s.Verify(), true)
 	return append(b, '}')
 }
 
@@ -954,8 +954,8 @@ func (u *Unpacker) Steps(raw []json.RawMessage, prefix string) ([]trace.Step, er
 		if len(vals) != len(s.Args) {
 			return nil, fmt.Errorf("step %s: %d argument values for the %d arguments of form %d", p.ID, len(vals), len(s.Args), k)
 		}
-		s.ID, s.Value, s.Residual, s.Verdict = p.ID, p.Value, p.Residual, p.Verdict
-		s.Notes, s.Cautions = slices.Clip(s.Notes), slices.Clip(s.Cautions)
+		s.ID, s.Value, s.Verdict = p.ID, p.Value, p.Verdict
+		s = s.WithResidual(p.Residual) // the form's rarer parts copied, not shared
 		if s.Show != nil {
 			show := *s.Show
 			s.Show = &show

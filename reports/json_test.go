@@ -315,18 +315,26 @@ func TestStepEncodingMatchesEncodingJSON(t *testing.T) {
 func TestFormKeyCoversStep(t *testing.T) {
 	known := map[string]bool{"ID": true, "Group": true, "Title": true, "Clause": true, "Kind": true, "Symbol": true,
 		"Expr": true, "Args": true, "Value": true, "Unit": true, "Row": true, "Method": true, "Verify": true,
-		"Residual": true, "Relation": true, "Verdict": true, "Notes": true, "Cautions": true, "Show": true}
+		"Residual": true, "Relation": true, "Verdict": true, "Notes": true, "Cautions": true, "Show": true,
+		// The rarer parts, read through the methods of the same names.
+		"more": true, "row": true, "method": true, "verify": true, "residual": true, "notes": true, "cautions": true}
 	ty := reflect.TypeOf(trace.Step{})
 	for i := 0; i < ty.NumField(); i++ {
 		if !known[ty.Field(i).Name] {
 			t.Errorf("trace.Step.%s is not in the form", ty.Field(i).Name)
 		}
 	}
+	more, _ := ty.FieldByName("more")
+	for i := 0; i < more.Type.Elem().NumField(); i++ {
+		if !known[more.Type.Elem().Field(i).Name] {
+			t.Errorf("the part %s of trace.Step is not in the form", more.Type.Elem().Field(i).Name)
+		}
+	}
 	base := trace.Formula("x", "T", "c", "s", "mm", 1, "a", trace.Arg{Name: "a", Symbol: "a", Unit: "mm", From: "f"})
 	variants := []func(s *trace.Step){
 		func(s *trace.Step) { s.Group = "g" }, func(s *trace.Step) { s.Title = "U" },
-		func(s *trace.Step) { s.Args[0].From = "g" }, func(s *trace.Step) { s.Notes = []string{"n"} },
-		func(s *trace.Step) { s.Cautions = []string{""} }, func(s *trace.Step) { s.Show = &trace.Display{} },
+		func(s *trace.Step) { s.Args[0].From = "g" }, func(s *trace.Step) { *s = s.Note("n") },
+		func(s *trace.Step) { *s = s.Caution("") }, func(s *trace.Step) { s.Show = &trace.Display{} },
 		func(s *trace.Step) { s.Title, s.Clause = "Tc", "" }, // lengths keep fields apart
 	}
 	seed := maphash.MakeSeed()
@@ -390,7 +398,8 @@ func TestFormJSONMatchesEncodingJSON(t *testing.T) {
 	}
 	odd := trace.Solve("x", "A <b> & \"c\"\n", "EN 1992 & co", "σ_<", "N/mm2", 1, "m", "v < 1", 0.5,
 		trace.Arg{Name: "a", Symbol: "a&b", Unit: "", From: "/basis/x"}, trace.Arg{Name: "b", Symbol: "b", Unit: "mm"})
-	odd.Group, odd.Row, odd.Relation, odd.Notes, odd.Cautions = "G\u2028", "row <1>", "a ≤ b", []string{"n1", ""}, []string{"c\x01"}
+	odd.Group, odd.Relation = "G\u2028", "a ≤ b"
+	odd = odd.WithRow("row <1>").WithRemarks([]string{"n1", ""}, []string{"c\x01"})
 	for _, show := range []*trace.Display{nil, {}, {Expr: "a < b"}, {Result: "yes"}, {Expr: "e", Result: "r"}} {
 		s := odd
 		s.Show = show

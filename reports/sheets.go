@@ -577,7 +577,7 @@ func step(s trace.Step, n int, f finder, p place) stepView {
 		clause = shortClause(clause)
 	}
 	v := stepView{Number: n, Anchor: anchor(anchorName("s-", s.ID)), ID: txt(s.ID), Title: rich(upperFirst(s.Title)), Clause: dash(clause),
-		Kind: txt(string(s.Kind)), Type: string(s.Kind), Notes: texts(s.Notes), Cautions: texts(s.Cautions)}
+		Kind: txt(string(s.Kind)), Type: string(s.Kind), Notes: texts(s.Notes()), Cautions: texts(s.Cautions())}
 	symbol := s.Symbol
 	if s.Kind == trace.KindCheck && symbol == "" {
 		symbol = "η"
@@ -617,19 +617,19 @@ func step(s trace.Step, n int, f finder, p place) stepView {
 	}
 	switch s.Kind {
 	case trace.KindTable:
-		v.Row = rich(s.Row)
-		if strings.TrimSpace(s.Row) == "" {
+		v.Row = rich(s.Row())
+		if strings.TrimSpace(s.Row()) == "" {
 			v.Row = txt("—")
 		}
 	case trace.KindSolve:
-		v.Method = rich(s.Method)
-		if strings.TrimSpace(s.Method) == "" {
+		v.Method = rich(s.Method())
+		if strings.TrimSpace(s.Method()) == "" {
 			v.Method = txt("—")
 		}
-		if s.Verify != "" {
-			v.Verify = expr(s.Verify, false)
+		if s.Verify() != "" {
+			v.Verify = expr(s.Verify(), false)
 		}
-		v.Residual = numv(fmtNum(s.Residual))
+		v.Residual = numv(fmtNum(s.Residual()))
 	case trace.KindCheck:
 		v.Relation = rich(s.Relation)
 		v.Verdict, v.Failed = "PASS", false

@@ -179,9 +179,9 @@ func escapeCorpus(t testing.TB) []string {
 	var out []string
 	r := runFile(t, "../testdata/demo.yaml", "")
 	for _, s := range append(append([]trace.Step{}, r.Basis...), r.Designs[0].Trace()...) {
-		out = append(out, s.ID, s.Title, s.Clause, s.Symbol, s.Expr, s.Relation, s.Row, s.Method, s.Unit)
-		out = append(out, s.Notes...)
-		out = append(out, s.Cautions...)
+		out = append(out, s.ID, s.Title, s.Clause, s.Symbol, s.Expr, s.Relation, s.Row(), s.Method(), s.Unit)
+		out = append(out, s.Notes()...)
+		out = append(out, s.Cautions()...)
 	}
 	alphabet := []string{"a", "Z", "f", "_", ",", " ", "1", "9", "²", "½", "λ", "Ø", "é", "ħ", "–", "—", "·", "×", "→", "≤",
 		"\\", "`", "*", "{", "}", "[", "]", "<", ">", "&", "|", "~", "$", "#", "!", "%", "^", "\"", "'", "-", "+", "=",

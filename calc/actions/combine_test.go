@@ -48,7 +48,7 @@ func TestCatalogue(t *testing.T) {
 			t.Errorf("%s = %g, want %g", c.name, got, c.want)
 		}
 		s := ParamStep("code/"+c.name, p, c.name, "")
-		if s.Value != c.want || s.Clause == "" || len(s.Cautions) > 0 {
+		if s.Value != c.want || s.Clause == "" || len(s.Cautions()) > 0 {
 			t.Errorf("%s step: %+v", c.name, s)
 		}
 	}
@@ -56,7 +56,7 @@ func TestCatalogue(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if s := ParamStep("g", q, "gamma_G", ""); s.Value != 1.2 || len(s.Cautions) != 1 {
+	if s := ParamStep("g", q, "gamma_G", ""); s.Value != 1.2 || len(s.Cautions()) != 1 {
 		t.Errorf("overridden gamma_G step: %+v", s)
 	}
 }
@@ -127,12 +127,12 @@ func TestCombine(t *testing.T) {
 			t.Errorf("%s: %d candidate combinations, want %d", c.name, n, c.cands)
 		}
 		if c.governing != "" {
-			if !strings.HasPrefix(last.Expr, "max(") || len(last.Notes) != 1 || last.Notes[0] != "Governed by "+c.governing+"." {
-				t.Errorf("%s: final step %q notes %v, want governed by %s", c.name, last.Expr, last.Notes, c.governing)
+			if !strings.HasPrefix(last.Expr, "max(") || len(last.Notes()) != 1 || last.Notes()[0] != "Governed by "+c.governing+"." {
+				t.Errorf("%s: final step %q notes %v, want governed by %s", c.name, last.Expr, last.Notes(), c.governing)
 			}
 		}
-		if len(last.Cautions) > 0 {
-			t.Errorf("%s: cautions %v", c.name, last.Cautions)
+		if len(last.Cautions()) > 0 {
+			t.Errorf("%s: cautions %v", c.name, last.Cautions())
 		}
 	}
 }
@@ -167,13 +167,13 @@ func TestCombineDetails(t *testing.T) {
 	// An unknown rule falls back to Eq. (6.10), with a caution.
 	steps, ed = Combine("c", "6.99", code.Recommended(), kN(1000, "G_k"), []Variable{{Category: "B", Q: kN(500, "Q_k")}})
 	recheckAll(t, steps)
-	if !near(ed.V, 2100e3, 1e-12) || len(steps[len(steps)-1].Cautions) != 1 {
-		t.Errorf("unknown rule: Ed = %g kN, cautions %v", ed.V/1e3, steps[len(steps)-1].Cautions)
+	if !near(ed.V, 2100e3, 1e-12) || len(steps[len(steps)-1].Cautions()) != 1 {
+		t.Errorf("unknown rule: Ed = %g kN, cautions %v", ed.V/1e3, steps[len(steps)-1].Cautions())
 	}
 	// Mixed units and a negative variable action are cautioned.
 	steps, _ = Combine("c", model.Comb610, code.Recommended(), kN(1000, "G_k"), []Variable{{Category: "B", Q: q}, {Category: "C", Q: kN(-5, "Q")}})
 	recheckAll(t, steps)
-	if n := len(steps[len(steps)-1].Cautions); n != 2 {
+	if n := len(steps[len(steps)-1].Cautions()); n != 2 {
 		t.Errorf("%d cautions, want 2 (unit, negative)", n)
 	}
 }

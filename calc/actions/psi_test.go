@@ -41,16 +41,16 @@ func TestPsiTableA11(t *testing.T) {
 			if err := trace.Recheck(s, 1e-9); err != nil {
 				t.Error(err)
 			}
-			if s.Kind != trace.KindTable || s.Value != want[which] || s.Row == "" || len(s.Cautions) > 0 {
-				t.Errorf("%s ψ%d step: kind %s value %g row %q cautions %v", r.cat, which, s.Kind, s.Value, s.Row, s.Cautions)
+			if s.Kind != trace.KindTable || s.Value != want[which] || s.Row() == "" || len(s.Cautions()) > 0 {
+				t.Errorf("%s ψ%d step: kind %s value %g row %q cautions %v", r.cat, which, s.Kind, s.Value, s.Row(), s.Cautions())
 			}
 			if !strings.Contains(s.Clause, "Table A1.1") {
 				t.Errorf("%s ψ%d step cites %q", r.cat, which, s.Clause)
 			}
 		}
 	}
-	if s := PsiStep("psi", 0, "B"); s.Row != "Category B: office areas, ψ0 = 0.7" {
-		t.Errorf("row %q", s.Row)
+	if s := PsiStep("psi", 0, "B"); s.Row() != "Category B: office areas, ψ0 = 0.7" {
+		t.Errorf("row %q", s.Row())
 	}
 	// Spelling: lower-case letters and capitalised names are accepted (common practice, no source).
 	if p0, _, _, ok := Psi("b"); !ok || p0 != 0.7 {
@@ -64,7 +64,7 @@ func TestPsiTableA11(t *testing.T) {
 		t.Error("category K should be unknown")
 	}
 	s := PsiStep("psi", 2, "K")
-	if s.Value != 1 || len(s.Cautions) != 1 {
-		t.Errorf("unknown category step: value %g cautions %v", s.Value, s.Cautions)
+	if s.Value != 1 || len(s.Cautions()) != 1 {
+		t.Errorf("unknown category step: value %g cautions %v", s.Value, s.Cautions())
 	}
 }

@@ -38,11 +38,11 @@ func TestAlphaA(t *testing.T) {
 		if !near(s.Value, c.want, 1e-12) {
 			t.Errorf("αA, category %s, A = %g m²: %g, want %g", c.cat, c.a, s.Value, c.want)
 		}
-		if !reducible(c.cat) && len(s.Notes) != 1 {
+		if !reducible(c.cat) && len(s.Notes()) != 1 {
 			t.Errorf("category %s: the unreduced factor should say why", c.cat)
 		}
 	}
-	if s := AlphaA("a", "B", trace.Const(0.7, "ψ_0", ""), trace.Const(0, "A", "mm2")); s.Value != 1 || len(s.Cautions) != 1 {
+	if s := AlphaA("a", "B", trace.Const(0.7, "ψ_0", ""), trace.Const(0, "A", "mm2")); s.Value != 1 || len(s.Cautions()) != 1 {
 		t.Errorf("zero area: %+v", s)
 	}
 }

@@ -26,7 +26,7 @@ func TestParamStepTitleWithoutUnit(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := ParamStep("p", q, "density_rc", "N/mm3")
-	if len(s.Cautions) != 1 || !strings.Contains(s.Cautions[0], "2.5e-05 N/mm³") {
-		t.Errorf("override caution %q", s.Cautions)
+	if len(s.Cautions()) != 1 || !strings.Contains(s.Cautions()[0], "2.5e-05 N/mm³") {
+		t.Errorf("override caution %q", s.Cautions())
 	}
 }

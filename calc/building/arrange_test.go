@@ -130,7 +130,7 @@ func TestFrameEnvelopeByMomentDistribution(t *testing.T) {
 	lf := lift(t, d, "B1", "L2")
 	found := false
 	for _, s := range lf.Steps {
-		if strings.HasPrefix(s.ID, "frm/x/top") && strings.Contains(strings.Join(s.Notes, " "), "superposition") {
+		if strings.HasPrefix(s.ID, "frm/x/top") && strings.Contains(strings.Join(s.Notes(), " "), "superposition") {
 			found = true
 		}
 		if err := trace.Recheck(s, 1e-9); err != nil {
@@ -187,7 +187,7 @@ func TestArrangementAxialForceUnder610ab(t *testing.T) {
 			note := ""
 			for _, s := range lf.Steps {
 				if s.ID == "subx/R/unbalanced" {
-					note = strings.Join(s.Notes, " ")
+					note = strings.Join(s.Notes(), " ")
 				}
 			}
 			if !strings.Contains(note, eq) {

@@ -50,8 +50,8 @@ func TestCantileverByHand(t *testing.T) {
 			t.Errorf("%s: a cantilever moment in the other direction", c.col)
 		}
 		s := stepOf(t, l, e.G.From)
-		if !strings.Contains(s.Notes[0], "inner face") {
-			t.Errorf("%s: the step does not say which face: %v", c.col, s.Notes)
+		if !strings.Contains(s.Notes()[0], "inner face") {
+			t.Errorf("%s: the step does not say which face: %v", c.col, s.Notes())
 		}
 		// The vertical load: w·l_c over the edge's length that reaches the column.
 		near(t, c.col+" ΔG", stepValue(t, l, "td/L1/G")-stepValue(t, lift(t, base, c.col, "L1"), "td/L1/G"), gk*c.lc*c.length, 1e-9)
@@ -89,8 +89,8 @@ func TestSlabThicknessDownstand(t *testing.T) {
 	l1, l2 := lift(t, d, "A1", "L1"), lift(t, d, "A1", "L2")
 	s := stepOf(t, l1, "td/L1/A1–B1/G_beam")
 	near(t, "G_beam L1", s.Value, 25e-6*275*(500-200)*6600, 1e-12)
-	if !strings.Contains(s.Title, "downstand") || len(s.Notes) == 0 {
-		t.Errorf("the step does not say it counts the downstand: %q %v", s.Title, s.Notes)
+	if !strings.Contains(s.Title, "downstand") || len(s.Notes()) == 0 {
+		t.Errorf("the step does not say it counts the downstand: %q %v", s.Title, s.Notes())
 	}
 	near(t, "t", stepValue(t, l1, "td/L1/t"), 200, 0)
 	near(t, "G_beam L2", stepValue(t, l2, "td/L2/A1–B1/G_beam"), 25e-6*275*500*6600, 1e-12)

@@ -55,8 +55,8 @@ func TestSpanRatioCaution(t *testing.T) {
 			if s == nil {
 				continue
 			}
-			if len(s.Cautions) != 1 || !strings.Contains(s.Cautions[0], "consider analysis: frame or both") {
-				t.Errorf("B1/%s: cautions %q", lv, s.Cautions)
+			if len(s.Cautions()) != 1 || !strings.Contains(s.Cautions()[0], "consider analysis: frame or both") {
+				t.Errorf("B1/%s: cautions %q", lv, s.Cautions())
 			}
 			if err := trace.Recheck(*s, 1e-9); err != nil {
 				t.Error(err)
@@ -84,7 +84,7 @@ func TestFullStiffnessCaution(t *testing.T) {
 			if got := s != nil; got != (stiffness == "full") {
 				t.Fatalf("%s/%s, %s stiffness: factor step %v", lf.Column, lf.Name, stiffness, got)
 			}
-			if s != nil && (s.Value != 1 || len(s.Cautions) != 1 || !strings.Contains(s.Cautions[0], "full stiffness")) {
+			if s != nil && (s.Value != 1 || len(s.Cautions()) != 1 || !strings.Contains(s.Cautions()[0], "full stiffness")) {
 				t.Errorf("%s/%s: %+v", lf.Column, lf.Name, *s)
 			}
 		}

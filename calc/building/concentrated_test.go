@@ -157,8 +157,8 @@ func TestTransferFixedEnd(t *testing.T) {
 	a2 := lift(t, d, "A2", "L1")
 	st := stepOf(t, a2, "subx/L1/A2–C2/FEM_loaded/xfer/B2")
 	near(t, "FEM of the transfer at A2", st.Value, -p*a*(L-a)*(L-a)/(L*L), 1e-12)
-	if !strings.Contains(st.Title, "column B2 stopping on this beam") || !strings.Contains(strings.Join(st.Notes, " "), "conservative") {
-		t.Errorf("the step does not name its source or its factors: %q %v", st.Title, st.Notes)
+	if !strings.Contains(st.Title, "column B2 stopping on this beam") || !strings.Contains(strings.Join(st.Notes(), " "), "conservative") {
+		t.Errorf("the step does not name its source or its factors: %q %v", st.Title, st.Notes())
 	}
 	// C2, between the two beams A2–C2 and C2–D2: the transfer is on the left beam, the same
 	// whether that beam is loaded or light.

@@ -179,7 +179,7 @@ func TestFrameStiffnessByClass(t *testing.T) {
 	if !(math.Abs(b.MY.Top) > math.Abs(a.MY.Top)) {
 		t.Errorf("B2/L2 of C45/55 among C32/40: |M| %g, not above %g", b.MY.Top, a.MY.Top)
 	}
-	if s := findStep(b, "frm/x/top"); s == nil || !strings.Contains(strings.Join(s.Notes, " "), "this lift C45/55, the beams C32/40") {
+	if s := findStep(b, "frm/x/top"); s == nil || !strings.Contains(strings.Join(s.Notes(), " "), "this lift C45/55, the beams C32/40") {
 		t.Errorf("frame step of B2/L2 does not name the classes: %+v", s)
 	}
 }

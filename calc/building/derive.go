@@ -3,6 +3,7 @@ package building
 import (
 	"colsheet/calc/work"
 	"fmt"
+	"slices"
 	"strings"
 
 	"colsheet/calc/actions"
@@ -119,6 +120,7 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 			if b.Options.L0FromFrame {
 				effectiveLengths(in, levels, lifts[k])
 			}
+			fit(lifts[k])
 		})
 		for k := range order {
 			d.Lifts = append(d.Lifts, lifts[k]...)
@@ -135,6 +137,7 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 				effectiveLengths(in, levels[r[0]:r[1]], lifts[k][r[0]:r[1]])
 			}
 		}
+		fit(lifts[k])
 	})
 	for k, at := range order {
 		for m := range lifts[k] {
@@ -144,6 +147,16 @@ func Derive(in *model.Input, panel panelLoader) (*Derived, error) {
 		}
 	}
 	return d, nil
+}
+
+// fit gives the steps of each of lifts, whole now, a slice of their own size: the lifts are held
+// until their columns are designed, and a take-down reserves room for more steps than most use.
+func fit(lifts []Lift) {
+	for m := range lifts {
+		if s := lifts[m].Steps; cap(s)-len(s) > len(s)/8 {
+			lifts[m].Steps = slices.Clone(s)
+		}
+	}
 }
 
 // runs returns the runs [lo, hi) of the lifts of the column at (i, j) that stand one on another,

@@ -86,8 +86,8 @@ func TestTransferByStatics(t *testing.T) {
 		if !strings.Contains(s.Title, "transferred from column B2 above level L1") {
 			t.Errorf("%s: title %q does not name the column it comes from", c.col, s.Title)
 		}
-		if len(s.Cautions) == 0 || !strings.Contains(s.Cautions[0], "outside colsheet's scope") {
-			t.Errorf("%s: no caution on the transfer beam: %v", c.col, s.Cautions)
+		if len(s.Cautions()) == 0 || !strings.Contains(s.Cautions()[0], "outside colsheet's scope") {
+			t.Errorf("%s: no caution on the transfer beam: %v", c.col, s.Cautions())
 		}
 		from := ""
 		for _, a := range s.Args {

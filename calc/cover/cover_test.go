@@ -44,8 +44,8 @@ func TestTable44N(t *testing.T) {
 		for name, c := range col {
 			s := CminDur("d", class, []string{name})
 			near(t, "S"+string(rune('0'+class))+" "+name, s.Value, row[c], 0)
-			if s.Kind != trace.KindTable || !strings.HasPrefix(s.Row, "S") {
-				t.Errorf("S%d %s: kind %s row %q", class, name, s.Kind, s.Row)
+			if s.Kind != trace.KindTable || !strings.HasPrefix(s.Row(), "S") {
+				t.Errorf("S%d %s: kind %s row %q", class, name, s.Kind, s.Row())
 			}
 			recheck(t, s)
 		}
@@ -54,17 +54,17 @@ func TestTable44N(t *testing.T) {
 	// EN 1992-1-1:2004 4.4.1.2(5) with Table 4.4N, from memory.
 	s := CminDur("d", 4, []string{"XC3", "xs1", "XF1"})
 	near(t, "XC3+XS1+XF1", s.Value, 35, 0)
-	if s.Row != "S4, XD1/XS1" {
-		t.Errorf("row %q", s.Row)
+	if s.Row() != "S4, XD1/XS1" {
+		t.Errorf("row %q", s.Row())
 	}
-	if !strings.Contains(strings.Join(s.Notes, " "), "EN 206") {
-		t.Errorf("XF class without the EN 206 note: %v", s.Notes)
+	if !strings.Contains(strings.Join(s.Notes(), " "), "EN 206") {
+		t.Errorf("XF class without the EN 206 note: %v", s.Notes())
 	}
 	// Freeze-thaw alone: the X0 column with a caution; an unknown name: a caution.
 	s = CminDur("d", 4, []string{"XF3", "XQ9"})
 	near(t, "XF3 alone", s.Value, 10, 0)
-	if len(s.Cautions) != 2 {
-		t.Errorf("cautions %v", s.Cautions)
+	if len(s.Cautions()) != 2 {
+		t.Errorf("cautions %v", s.Cautions())
 	}
 	if !Known("xa2") || !Known("X0") || Known("XC5") {
 		t.Error("Known")
@@ -214,11 +214,11 @@ func TestDeviationGiven(t *testing.T) {
 		d := model.Durability{Exposure: []string{"XC1"}, DeltaCdev: c.dev}
 		s := DeviationInput("dev", d)
 		near(t, c.name, s.Value, c.want, 0)
-		if s.Clause != c.clause || (len(s.Cautions) > 0) != c.cautioned || len(s.Notes) == 0 {
-			t.Errorf("%s: clause %q, notes %q, cautions %q", c.name, s.Clause, s.Notes, s.Cautions)
+		if s.Clause != c.clause || (len(s.Cautions()) > 0) != c.cautioned || len(s.Notes()) == 0 {
+			t.Errorf("%s: clause %q, notes %q, cautions %q", c.name, s.Clause, s.Notes(), s.Cautions())
 		}
-		if c.dev != nil && *c.dev < 10 && !strings.Contains(strings.Join(s.Notes, " "), "4.4.1.3(3)") {
-			t.Errorf("%s: the note does not name 4.4.1.3(3): %q", c.name, s.Notes)
+		if c.dev != nil && *c.dev < 10 && !strings.Contains(strings.Join(s.Notes(), " "), "4.4.1.3(3)") {
+			t.Errorf("%s: the note does not name 4.4.1.3(3): %q", c.name, s.Notes())
 		}
 		var l trace.Log
 		link, _ := Nominal(&l, "", d, trace.Const(30, "f_ck", "MPa"), q(16, "φ"), q(8, "φ_t"), q(20, "d_g"), q(40, "c"))

@@ -136,7 +136,7 @@ func TestBasisOnce(t *testing.T) {
 	in.Code, _ = in.Code.Override("gamma_c", 1.4)
 	r = mustRun(t, in)
 	checkBasis(t, r)
-	if s := basisStep(t, r, "basis/code/gamma_c"); s.Value != 1.4 || len(s.Cautions) == 0 {
+	if s := basisStep(t, r, "basis/code/gamma_c"); s.Value != 1.4 || len(s.Cautions()) == 0 {
 		t.Errorf("overridden γc: %+v", s)
 	}
 	near(t, "fcd with γc = 1.4", basisValue(t, r, "basis/mat/C30-37/f_cd"), 30/1.4, 1e-12)

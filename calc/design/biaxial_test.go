@@ -81,11 +81,11 @@ func TestExactBesideRule(t *testing.T) {
 		if s == nil {
 			t.Fatalf("%s: no exact step", c.name)
 		}
-		words := s.Title + " " + strings.Join(s.Notes, " ")
+		words := s.Title + " " + strings.Join(s.Notes(), " ")
 		if s.Kind != trace.KindFormula || s.Verdict != "" || strings.Contains(words, "governs") ||
 			!strings.Contains(s.Title, "for comparison; (5.39) in use") ||
-			!hasText(s.Notes, "The exact section resistance gives a larger ratio than (5.39); (5.39) is the check in use by the input's choice (design.biaxial: 5.39).") {
-			t.Errorf("%s: exact step %q, notes %q", c.name, s.Title, s.Notes)
+			!hasText(s.Notes(), "The exact section resistance gives a larger ratio than (5.39); (5.39) is the check in use by the input's choice (design.biaxial: 5.39).") {
+			t.Errorf("%s: exact step %q, notes %q", c.name, s.Title, s.Notes())
 		}
 		// The design's cautions: only where the exact ratio exceeds 1 (loudly, with both ratios);
 		// a larger ratio below 1 is said in the step's note alone.
@@ -94,8 +94,8 @@ func TestExactBesideRule(t *testing.T) {
 		if c.loud {
 			want = 1
 		}
-		if hasText(d.Cautions, loud) != c.loud || (len(s.Cautions) > 0) != c.loud || biaxialCautions(d) != want {
-			t.Errorf("%s: cautions %q, step cautions %q", c.name, d.Cautions, s.Cautions)
+		if hasText(d.Cautions, loud) != c.loud || (len(s.Cautions()) > 0) != c.loud || biaxialCautions(d) != want {
+			t.Errorf("%s: cautions %q, step cautions %q", c.name, d.Cautions, s.Cautions())
 		}
 
 		// design.biaxial: exact: the exact resistance is the check and governs.
@@ -109,9 +109,9 @@ func TestExactBesideRule(t *testing.T) {
 		if math.Abs(e.Exact.Ratio-exact) > 1e-12 || e.Utilization != e.Exact.Ratio || !strings.HasPrefix(e.Governing, s.Title) {
 			t.Errorf("%s, exact: utilisation %.4f, governing %q; want the exact ratio %.4f (%s)", c.name, e.Utilization, e.Governing, exact, s.Title)
 		}
-		if !hasText(s.Notes, "The exact section resistance is the check in use (design.biaxial: exact). (5.39), shown for comparison, gives a smaller ratio") ||
+		if !hasText(s.Notes(), "The exact section resistance is the check in use (design.biaxial: exact). (5.39), shown for comparison, gives a smaller ratio") ||
 			biaxialCautions(e) != 0 || (e.Status == StatusPass) == c.loud {
-			t.Errorf("%s, exact: %s, notes %q, cautions %q", c.name, e.Status, s.Notes, e.Cautions)
+			t.Errorf("%s, exact: %s, notes %q, cautions %q", c.name, e.Status, s.Notes(), e.Cautions)
 		}
 	}
 }
@@ -170,8 +170,8 @@ func TestExactBesideSeparateChecks(t *testing.T) {
 		t.Fatalf("test case lost: exact %.4f, separate %.4f, utilisation %.4f", d.Exact.Ratio, sep, d.Utilization)
 	}
 	if s.Kind != trace.KindFormula || !strings.Contains(s.Title, "for comparison; the separate checks about y and z in use") ||
-		!hasText(s.Notes, "The exact section resistance gives a larger ratio than the larger of the separate checks about y and z; (5.38a) and (5.38b) both hold, so with design.biaxial: 5.39, the input's choice, the separate checks about y and z are in use (EN 1992-1-1:2004 5.8.9(3)).") ||
+		!hasText(s.Notes(), "The exact section resistance gives a larger ratio than the larger of the separate checks about y and z; (5.38a) and (5.38b) both hold, so with design.biaxial: 5.39, the input's choice, the separate checks about y and z are in use (EN 1992-1-1:2004 5.8.9(3)).") ||
 		biaxialCautions(d) != 0 {
-		t.Errorf("exact step %q, notes %q, cautions %q", s.Title, s.Notes, d.Cautions)
+		t.Errorf("exact step %q, notes %q, cautions %q", s.Title, s.Notes(), d.Cautions)
 	}
 }

@@ -500,7 +500,7 @@ func TestNoFireRatingIsStated(t *testing.T) {
 	var found bool
 	for _, s := range d.Steps {
 		if s.ID == "fire/R_req" {
-			found = s.Value == 0 && len(s.Notes) > 0
+			found = s.Value == 0 && len(s.Notes()) > 0
 		}
 		if strings.HasPrefix(s.ID, "fire/") && s.Kind == trace.KindCheck {
 			t.Errorf("%s: a fire check without a rating", s.ID)

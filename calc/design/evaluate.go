@@ -189,7 +189,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	s1 := l.Add(detail.RoundDown("links/s", sTitle, "s_t", sGen, step))
 	s2 := l.Add(detail.RoundDown("links/s_zone", sZoneTitle, "s_t,red", sZone, step))
 	if d.Links.Type == LinksHelix {
-		l.Last().Notes = append(l.Last().Notes, "A helix is taken as links at its pitch: the spacings of 9.5.3(3) and (4) and of the shear apply to the pitch.")
+		*l.Last() = l.Last().Note("A helix is taken as links at its pitch: the spacings of 9.5.3(3) and (4) and of the shear apply to the pitch.")
 	}
 	d.Links.Dia, d.Links.Spacing, d.Links.SpacingReduced = link, s1.V, s2.V
 	checks = append(checks, c.shearChecks(l, plan, s1, &d)...)

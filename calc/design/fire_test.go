@@ -45,8 +45,8 @@ func TestMuFiAtEccentricity(t *testing.T) {
 	nRd := fcd*b*y - as*fcd
 
 	s := stepByID(t, d, "fire/N_Rd")
-	if s.Kind != trace.KindSolve || s.Residual > 0 {
-		t.Errorf("NRd step: kind %s, residual %g", s.Kind, s.Residual)
+	if s.Kind != trace.KindSolve || s.Residual() > 0 {
+		t.Errorf("NRd step: kind %s, residual %g", s.Kind, s.Residual())
 	}
 	near(t, "NRd at e = 235 mm", s.Value, nRd, 1e-5)
 	mu := stepByID(t, d, "fire/mu_fi")
@@ -107,7 +107,7 @@ func TestFireNotApplicable(t *testing.T) {
 	}
 	var spalling bool
 	for _, s := range hs.Steps {
-		spalling = spalling || strings.Contains(strings.Join(s.Cautions, " "), "6.2")
+		spalling = spalling || strings.Contains(strings.Join(s.Cautions(), " "), "6.2")
 	}
 	if !spalling {
 		t.Error("C60/75: no caution on spalling (EN 1992-1-2 6.2)")
@@ -132,7 +132,7 @@ func TestFireElsewhere(t *testing.T) {
 		t.Errorf("status %s, detailing %+v, reasons %v", d.Status, d.Detailing, d.Reasons)
 	}
 	m := stepByID(t, d, "fire/method")
-	if m.Kind != trace.KindInput || m.Value != 90 || len(m.Cautions) == 0 || !strings.Contains(strings.Join(m.Notes, " "), "calc F-7") {
+	if m.Kind != trace.KindInput || m.Value != 90 || len(m.Cautions()) == 0 || !strings.Contains(strings.Join(m.Notes(), " "), "calc F-7") {
 		t.Errorf("method step %+v", m)
 	}
 	if !strings.Contains(strings.Join(d.Cautions, " "), "verified elsewhere") {
@@ -175,8 +175,8 @@ func TestMuFiSweep(t *testing.T) {
 					d := mustRun(t, in).Designs[0]
 					checkTrace(t, d)
 					nrd, max := stepByID(t, d, "fire/N_Rd"), stepByID(t, d, "sec/NRd_max")
-					if nrd.Value > max.Value*(1+1e-12) || nrd.Residual > 0 {
-						t.Errorf("%s %s l0 %g N %g: NRd %g > NRd,max %g or residual %g", so, block, l0, n, nrd.Value, max.Value, nrd.Residual)
+					if nrd.Value > max.Value*(1+1e-12) || nrd.Residual() > 0 {
+						t.Errorf("%s %s l0 %g N %g: NRd %g > NRd,max %g or residual %g", so, block, l0, n, nrd.Value, max.Value, nrd.Residual())
 					}
 					if mu := stepByID(t, d, "fire/mu_fi"); nrd.Value > 0 && mu.Value < 0.7*n*1e3/max.Value*(1-1e-12) {
 						t.Errorf("%s %s l0 %g N %g: μfi %g below the value with NRd,max", so, block, l0, n, mu.Value)

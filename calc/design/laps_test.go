@@ -105,8 +105,8 @@ func TestLapsBelow20mm(t *testing.T) {
 	d := mustRun(t, newInput("C30/37", model.ParabolaRectangle, model.ImperfInclination, col)).Designs[0]
 	checkTrace(t, d)
 	tr := stepByID(t, d, "lap/transverse")
-	if tr.Value != 0 || len(tr.Notes) == 0 || !strings.Contains(tr.Notes[0], "8.7.4.1(2)") {
-		t.Errorf("φ16: transverse %g, notes %v", tr.Value, tr.Notes)
+	if tr.Value != 0 || len(tr.Notes()) == 0 || !strings.Contains(tr.Notes()[0], "8.7.4.1(2)") {
+		t.Errorf("φ16: transverse %g, notes %v", tr.Value, tr.Notes())
 	}
 	for _, s := range d.Steps {
 		if s.ID == "lap/check_Ast" {

@@ -452,7 +452,7 @@ func (c *common) practice(d *Design, ch choice, r rules) {
 	}
 	l.Add(trace.Input("sel/costed", "Patterns tried after the chosen one, in order of cost, for the comparison", "common practice", "n_tried", "", float64(ch.costed)))
 	if len(ch.alts) < 2 {
-		l.Last().Notes = append(l.Last().Notes, []string{
+		*l.Last() = l.Last().Note([]string{
 			"None of them passes: the chosen pattern is the only one that passes among those tried.",
 			"Only one of them passes.",
 		}[len(ch.alts)])

@@ -71,12 +71,12 @@ func TestDefaultCreepRatio(t *testing.T) {
 				t.Errorf("%s: step %s does not take the default φef", tc.method, id)
 			}
 		}
-		if len(phi.Cautions) != 1 {
-			t.Fatalf("%s: φef step cautions %v", tc.method, phi.Cautions)
+		if len(phi.Cautions()) != 1 {
+			t.Fatalf("%s: φef step cautions %v", tc.method, phi.Cautions())
 		}
 		n := 0
 		for _, c := range d.Cautions {
-			if c == phi.Cautions[0] {
+			if c == phi.Cautions()[0] {
 				n++
 			}
 		}

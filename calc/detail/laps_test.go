@@ -76,7 +76,7 @@ func TestBondStrength(t *testing.T) {
 	recheck(t, capped)
 	near(t, "fctk,0.05 capped at C60/75 (expression)", capped.Value, 0.7*2.12*math.Log(7.8), 1e-12)
 	near(t, "fctk,0.05 capped at C60/75 (Table 3.1)", capped.Value, 3.1, 0.06)
-	if len(capped.Notes) == 0 {
+	if len(capped.Notes()) == 0 {
 		t.Error("the C60/75 limit is not noted")
 	}
 }
@@ -141,7 +141,7 @@ func TestAnchorageAndLap(t *testing.T) {
 	floor := LapLength("l0", one, num(0.7), num(0.8), one, one, mm(1000), mm(200))
 	recheck(t, floor)
 	near(t, "l0 with the (8.5) floor", floor.Value, 700, 1e-9)
-	if len(floor.Notes) == 0 {
+	if len(floor.Notes()) == 0 {
 		t.Error("the (8.5) floor is not noted")
 	}
 }

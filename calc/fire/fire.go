@@ -199,8 +199,7 @@ func TableScope(id string, rating int, muFi trace.Q) trace.Step {
 	mx := MuMaxValue(rating)
 	s := condition(id, "Scope of Table 5.2a: degree of utilisation within the table", en2+"5.3.2, Table 5.2a", "μ_fi ≤ μ_fi,max",
 		muFi.V/mx, "mu_fi / mu_max", trace.A("mu_fi", muFi), trace.A("mu_max", trace.Const(mx, "μ_fi,max", "")))
-	s.Row = fmt.Sprintf("R%d (exposed on more than one side)", ratings[locate(rating, 0).row])
-	return s
+	return s.WithRow(fmt.Sprintf("R%d (exposed on more than one side)", ratings[locate(rating, 0).row]))
 }
 
 // SurfaceMesh returns 1 where the axis distance a is 70 mm or more, so that a surface
@@ -301,7 +300,7 @@ func alternative(id, title, symbol string, rating, i int, muFi trace.Q, v float6
 		trace.A("mu", muFi),
 		trace.A("mu_1", trace.Const(mu1, "μ_fi,1", "")),
 		trace.A("mu_2", trace.Const(mu2, "μ_fi,2", "")))
-	s.Row = fmt.Sprintf("R%d, columns μfi = %g and %g (exposed on more than one side)", ratings[lk.row], mu1, mu2)
+	s = s.WithRow(fmt.Sprintf("R%d, columns μfi = %g and %g (exposed on more than one side)", ratings[lk.row], mu1, mu2))
 	switch {
 	case lk.t <= 0:
 		s = s.Shown("x_1")

@@ -134,16 +134,16 @@ func TestInterpolation(t *testing.T) {
 		mu     float64
 	}{{90, 0.75}, {240, 0.6}, {300, 0.5}} {
 		s := AlternativeWidth("b", c.rating, 0, num(c.mu))
-		if CoveredValue(c.rating, c.mu) || len(s.Cautions) != 1 {
-			t.Errorf("R%d μfi %g: covered or no caution: %v", c.rating, c.mu, s.Cautions)
+		if CoveredValue(c.rating, c.mu) || len(s.Cautions()) != 1 {
+			t.Errorf("R%d μfi %g: covered or no caution: %v", c.rating, c.mu, s.Cautions())
 		}
 		recheck(t, s)
 	}
 	// A rating between rows takes the next higher row.
 	s := AlternativeAxis("a", 45, 0, num(0.5))
 	near(t, "R45 → R60", s.Value, 36, 0)
-	if !strings.Contains(strings.Join(s.Notes, " "), "next higher row") {
-		t.Errorf("notes %v", s.Notes)
+	if !strings.Contains(strings.Join(s.Notes(), " "), "next higher row") {
+		t.Errorf("notes %v", s.Notes())
 	}
 }
 
@@ -182,8 +182,8 @@ func TestEq57(t *testing.T) {
 		near(t, c.name+" R", r.Value, c.r, 1e-6)
 		recheck(t, rEta, ra, rl, bEq, rb, rn, r)
 		for _, s := range []trace.Step{ra, rl, rb} {
-			if len(s.Cautions) > 0 {
-				t.Errorf("%s: %s cautions %v", c.name, s.ID, s.Cautions)
+			if len(s.Cautions()) > 0 {
+				t.Errorf("%s: %s cautions %v", c.name, s.ID, s.Cautions())
 			}
 		}
 	}
@@ -207,8 +207,8 @@ func TestEq57(t *testing.T) {
 		{AspectCondition("h", mm(300), mm(450)), 1},
 	} {
 		near(t, c.s.ID, c.s.Value, c.want, 1e-12)
-		if fails := c.want > 1; (c.s.Verdict == trace.Fail) != fails || (len(c.s.Cautions) > 0) != fails {
-			t.Errorf("%s at ratio %g: verdict %s, cautions %v", c.s.ID, c.want, c.s.Verdict, c.s.Cautions)
+		if fails := c.want > 1; (c.s.Verdict == trace.Fail) != fails || (len(c.s.Cautions()) > 0) != fails {
+			t.Errorf("%s at ratio %g: verdict %s, cautions %v", c.s.ID, c.want, c.s.Verdict, c.s.Cautions())
 		}
 		recheck(t, c.s)
 	}
@@ -234,7 +234,7 @@ func TestUtilisation(t *testing.T) {
 	l = trace.Log{}
 	mu = Utilisation(&l, "", model.Fire{Rating: 90, UseMuFi: true, EtaFi: 0.6}, nEd, trace.Const(0, "N_Rd", "N"))
 	near(t, "no NRd", mu.V, 0.6, 0)
-	if len(l.Last().Cautions) != 1 {
+	if len(l.Last().Cautions()) != 1 {
 		t.Error("no caution without NRd")
 	}
 }
@@ -393,7 +393,7 @@ func TestSurfaceMesh(t *testing.T) {
 		need bool
 	}{{69.9, false}, {70, true}, {85, true}, {48, false}} {
 		s := SurfaceMesh("m", mm(c.a))
-		if (s.Value == 1) != c.need || (len(s.Notes) > 0) != c.need {
+		if (s.Value == 1) != c.need || (len(s.Notes()) > 0) != c.need {
 			t.Errorf("a = %g: %+v", c.a, s)
 		}
 		recheck(t, s)
@@ -419,7 +419,7 @@ func TestElsewhere(t *testing.T) {
 	Elsewhere(&l, "fire/", 120, "Zone method, report FR-12 rev B", col)
 	got := stepsOf(t, &l, "fire/")
 	m := got["method"]
-	if m.Kind != trace.KindInput || m.Value != 120 || !strings.Contains(strings.Join(m.Notes, " "), "Zone method, report FR-12 rev B") || len(m.Cautions) != 2 {
+	if m.Kind != trace.KindInput || m.Value != 120 || !strings.Contains(strings.Join(m.Notes(), " "), "Zone method, report FR-12 rev B") || len(m.Cautions()) != 2 {
 		t.Errorf("method step %+v", m)
 	}
 	for id, s := range got {
@@ -442,14 +442,14 @@ func TestNRdAtEccentricity(t *testing.T) {
 		}
 		want := (-e + math.Sqrt(e*e+4*m0*m0/(n0*n0))) * n0 * n0 / (2 * m0)
 		s := NRdAtEccentricity("N_Rd", trace.Const(n0, "N_Rd,max", "N"), mm(e), mm(20), at)
-		if s.Kind != trace.KindSolve || s.Value > want || want-s.Value > nRdTol*n0 || s.Residual > 0 {
-			t.Errorf("e = %g mm: NRd %.6g N, want %.6g N (safe side, within %g·N0), residual %g", e, s.Value, want, nRdTol, s.Residual)
+		if s.Kind != trace.KindSolve || s.Value > want || want-s.Value > nRdTol*n0 || s.Residual() > 0 {
+			t.Errorf("e = %g mm: NRd %.6g N, want %.6g N (safe side, within %g·N0), residual %g", e, s.Value, want, nRdTol, s.Residual())
 		}
 		recheck(t, s)
 	}
 	// A column that carries nothing at its eccentricity (test input): NRd = 0 with a caution.
 	s := NRdAtEccentricity("N_Rd", trace.Const(n0, "N_Rd,max", "N"), mm(20), mm(20), func(n float64) Ratios { return Ratios{N: n, NRdMax: n0} })
-	if s.Value != 0 || len(s.Cautions) != 1 {
+	if s.Value != 0 || len(s.Cautions()) != 1 {
 		t.Errorf("no resistance: %+v", s)
 	}
 	recheck(t, s)

@@ -243,7 +243,7 @@ func TestFEMSteps(t *testing.T) {
 	df := DistributionFactorStep("df", "Distribution factor", zero, zero)
 	cm := ColumnMomentStep("m", "Column moment", trace.Const(1e7, "M_unb", "Nmm"), zero, zero)
 	for _, st := range []trace.Step{df, cm} {
-		if err := trace.Recheck(st, 1e-9); err != nil || st.Value != 0 || len(st.Cautions) == 0 {
+		if err := trace.Recheck(st, 1e-9); err != nil || st.Value != 0 || len(st.Cautions()) == 0 {
 			t.Errorf("zero stiffness: %+v (%v)", st, err)
 		}
 	}

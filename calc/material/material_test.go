@@ -115,7 +115,7 @@ func TestFctmStep(t *testing.T) {
 	} {
 		c, _ := Lookup(tc.class)
 		s := FctmStep("fctm", c)
-		if s.Kind != trace.KindTable || s.Unit != "MPa" || s.Symbol != "f_ctm" || !strings.HasPrefix(s.Row, tc.class) {
+		if s.Kind != trace.KindTable || s.Unit != "MPa" || s.Symbol != "f_ctm" || !strings.HasPrefix(s.Row(), tc.class) {
 			t.Errorf("%s: step %+v is not the fctm row of Table 3.1", tc.class, s)
 		}
 		if math.Abs(s.Value-tc.want) > 0.05+1e-9 {

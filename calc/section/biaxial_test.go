@@ -504,7 +504,7 @@ func TestBiaxialStepRechecks(t *testing.T) {
 					}
 					angle, depth := steps[0], steps[1]
 					if angle.Kind != trace.KindSolve || depth.Kind != trace.KindSolve ||
-						math.Abs(depth.Residual-(st.N-ned)) > 1e-9*nmax || math.Abs(angle.Residual) > 1e-8 {
+						math.Abs(depth.Residual()-(st.N-ned)) > 1e-9*nmax || math.Abs(angle.Residual()) > 1e-8 {
 						t.Errorf("solve steps %+v %+v", angle, depth)
 					}
 					wantRatio := math.Hypot(med[0], med[1]) / math.Max(st.MRd, 1)

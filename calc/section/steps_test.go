@@ -45,7 +45,7 @@ func traceState(t *testing.T, s *Section, st State, ned float64, what string) []
 		t.Errorf("%s: traced %s = %.12g, state M = %.12g", what, m.Symbol, m.V, st.M)
 	}
 	solve := log.Steps[0]
-	if solve.Kind != trace.KindSolve || math.Abs(solve.Residual-(st.N-ned)) > 1e-9*math.Max(s.NRdMax(), 1) {
+	if solve.Kind != trace.KindSolve || math.Abs(solve.Residual()-(st.N-ned)) > 1e-9*math.Max(s.NRdMax(), 1) {
 		t.Errorf("%s: solve step %+v, state residual %g", what, solve, st.N-ned)
 	}
 	return log.Steps
@@ -105,8 +105,8 @@ func TestTraceFamiliarBlock(t *testing.T) {
 	for _, step := range steps {
 		byID[strings.TrimPrefix(step.ID, "K1/L1/sec/y/")] = step
 	}
-	if a := byID["alpha_R"]; !relClose(a.Value, 17.0/21, 1e-12, 0) || len(a.Notes) == 0 {
-		t.Errorf("α_R = %.15g, notes %v", a.Value, a.Notes)
+	if a := byID["alpha_R"]; !relClose(a.Value, 17.0/21, 1e-12, 0) || len(a.Notes()) == 0 {
+		t.Errorf("α_R = %.15g, notes %v", a.Value, a.Notes())
 	}
 	if k := byID["k_a"]; !relClose(k.Value, 99.0/238, 1e-12, 0) {
 		t.Errorf("k_a = %.15g", k.Value)
@@ -114,7 +114,7 @@ func TestTraceFamiliarBlock(t *testing.T) {
 	if f := byID["F_c"]; f.Expr != "alpha_R * fcd * b * x" {
 		t.Errorf("F_c expression %q", f.Expr)
 	}
-	if x := byID["x"]; x.Kind != trace.KindSolve || x.Method == "" || x.Verify != "F_c + F_s1 + F_s2 + F_s3 - N_Ed" {
+	if x := byID["x"]; x.Kind != trace.KindSolve || x.Method() == "" || x.Verify() != "F_c + F_s1 + F_s2 + F_s3 - N_Ed" {
 		t.Errorf("solve step %+v", x)
 	}
 	if m := byID["M_Rd"]; m.Expr != "F_c * z_c + F_s1 * z_s1 + F_s2 * z_s2 + F_s3 * z_s3" || m.Unit != "Nmm" {

@@ -249,7 +249,7 @@ func TestLinks(t *testing.T) {
 		if mc.Verdict != c.maxVerdict {
 			t.Errorf("%s: VRd,max check %s, want %s", c.name, mc.Verdict, c.maxVerdict)
 		}
-		if c.maxVerdict == trace.Fail && (len(mc.Cautions) == 0 || len(find(t, l, "shear/y/cot_theta").Cautions) == 0) {
+		if c.maxVerdict == trace.Fail && (len(mc.Cautions()) == 0 || len(find(t, l, "shear/y/cot_theta").Cautions()) == 0) {
 			t.Errorf("%s: failing VRd,max without a caution", c.name)
 		}
 		if c.s > 0 && find(t, l, "shear/y/check").Verdict != trace.Pass {

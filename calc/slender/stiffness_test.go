@@ -119,7 +119,7 @@ func TestBuckling(t *testing.T) {
 			if s.Value < 0 || !trace.Finite(s.Value) {
 				t.Errorf("NEd %g: step %s value %g", nEd, s.ID, s.Value)
 			}
-			if len(s.Cautions) == 0 {
+			if len(s.Cautions()) == 0 {
 				t.Errorf("NEd %g: step %s has no caution", nEd, s.ID)
 			}
 		}
@@ -136,8 +136,8 @@ func TestBuckling(t *testing.T) {
 	// Below NB the check passes with ratio NEd/NB and carries no caution.
 	chk := BucklingCheck("b", q(2.15e6), q(7.019742e6))
 	near(t, "ratio", chk.Value, 2.15/7.019742, 1e-9)
-	if chk.Verdict != trace.Pass || len(chk.Cautions) != 0 || trace.Recheck(chk, 1e-9) != nil {
-		t.Errorf("NEd < NB: verdict %s, cautions %v", chk.Verdict, chk.Cautions)
+	if chk.Verdict != trace.Pass || len(chk.Cautions()) != 0 || trace.Recheck(chk, 1e-9) != nil {
+		t.Errorf("NEd < NB: verdict %s, cautions %v", chk.Verdict, chk.Cautions())
 	}
 	// A zero stiffness under compression buckles; without compression it does not.
 	if c := BucklingCheck("b", q(1e3), q(0)); c.Verdict != trace.Fail || trace.Recheck(c, 1e-9) != nil {
@@ -150,10 +150,10 @@ func TestBuckling(t *testing.T) {
 
 // The range cautions of EN 1992-1-1:2004 5.8.7.2(2) (ρ ≥ 0.002) and (3) (ρ ≥ 0.01).
 func TestStiffnessRange(t *testing.T) {
-	if len(Ks("k", q(0.0015)).Cautions) == 0 || len(Ks("k", q(0.002)).Cautions) != 0 {
+	if len(Ks("k", q(0.0015)).Cautions()) == 0 || len(Ks("k", q(0.002)).Cautions()) != 0 {
 		t.Error("Ks caution should mark ρ < 0.002 only")
 	}
-	if len(KcSimplified("k", q(0.009), q(1)).Cautions) == 0 || len(KcSimplified("k", q(0.01), q(1)).Cautions) != 0 {
+	if len(KcSimplified("k", q(0.009), q(1)).Cautions()) == 0 || len(KcSimplified("k", q(0.01), q(1)).Cautions()) != 0 {
 		t.Error("simplified Kc caution should mark ρ < 0.01 only")
 	}
 }

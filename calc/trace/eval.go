@@ -130,7 +130,7 @@ func eval(expr string, args []Arg, functions map[string]govaluate.ExpressionFunc
 // recorded value to relative tol (formula and check steps) or its recorded residual
 // (solve steps), or when any recorded number is not finite.
 func Recheck(s Step, tol float64) error {
-	if !Finite(s.Value) || !Finite(s.Residual) {
+	if !Finite(s.Value) || !Finite(s.Residual()) {
 		return fmt.Errorf("step %s: value is not finite", s.ID)
 	}
 	for _, a := range s.Args {
@@ -151,10 +151,10 @@ func Recheck(s Step, tol float64) error {
 			return fmt.Errorf("step %s: %s evaluates to %.12g, recorded %.12g", s.ID, s.Expr, got, s.Value)
 		}
 	case KindSolve:
-		if s.Verify == "" {
+		if s.Verify() == "" {
 			return fmt.Errorf("step %s: solve step without a verification expression", s.ID)
 		}
-		got, err := Eval(s.Verify, s.Args)
+		got, err := Eval(s.Verify(), s.Args)
 		if err != nil {
 			return fmt.Errorf("step %s: %v", s.ID, err)
 		}
@@ -162,8 +162,8 @@ func Recheck(s Step, tol float64) error {
 		for _, a := range s.Args {
 			scale = math.Max(scale, math.Abs(a.Value))
 		}
-		if math.Abs(got-s.Residual) > tol*math.Max(scale, 1) {
-			return fmt.Errorf("step %s: residual %s evaluates to %.12g, recorded %.12g", s.ID, s.Verify, got, s.Residual)
+		if math.Abs(got-s.Residual()) > tol*math.Max(scale, 1) {
+			return fmt.Errorf("step %s: residual %s evaluates to %.12g, recorded %.12g", s.ID, s.Verify(), got, s.Residual())
 		}
 	}
 	return nil

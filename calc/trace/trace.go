@@ -7,7 +7,11 @@
 // hand back the step; later steps take the step's result through Step.Q.
 package trace
 
-import "math"
+import (
+	"encoding/json"
+	"math"
+	"slices"
+)
 
 // Kind says what sort of step a Step is.
 type Kind string
@@ -52,27 +56,123 @@ func A(name string, q Q) Arg {
 	return Arg{Name: name, Symbol: q.Symbol, Value: q.V, Unit: q.Unit, From: q.From}
 }
 
-// Step is one recorded step of a calculation.
+// Step is one recorded step of a calculation. Its JSON form (see MarshalJSON) has every part
+// as a field of its own, as stepJSON lists them.
 type Step struct {
-	ID       string   `json:"id"`                 // stable ID: column/storey/part/name
-	Group    string   `json:"group,omitempty"`    // heading of the sheet section the step belongs to
-	Title    string   `json:"title"`              // what the step computes, in words
-	Clause   string   `json:"clause"`             // clause reference, or "common practice"
-	Kind     Kind     `json:"kind"`               // input, formula, table, solve or check
-	Symbol   string   `json:"symbol,omitempty"`   // display symbol of the result
-	Expr     string   `json:"expr,omitempty"`     // govaluate expression over Args giving Value
-	Args     []Arg    `json:"args,omitempty"`     // arguments of Expr or Verify
-	Value    float64  `json:"value"`              // result in engine units (ratio for a check)
-	Unit     string   `json:"unit,omitempty"`     // engine unit of Value
-	Row      string   `json:"row,omitempty"`      // table row read, for a table step
-	Method   string   `json:"method,omitempty"`   // iteration method, for a solve step
-	Verify   string   `json:"verify,omitempty"`   // residual expression over Args, for a solve step
-	Residual float64  `json:"residual,omitempty"` // recorded value of Verify, for a solve step
-	Relation string   `json:"relation,omitempty"` // the inequality checked, e.g. "M_Ed ≤ M_Rd"
-	Verdict  string   `json:"verdict,omitempty"`  // pass or fail, for a check step
-	Notes    []string `json:"notes,omitempty"`    // remarks for the reader
-	Cautions []string `json:"cautions,omitempty"` // warnings the sheet must show
-	Show     *Display `json:"show,omitempty"`     // how the sheets show the step, where Expr is written for the evaluator
+	ID       string   // stable ID: column/storey/part/name
+	Group    string   // heading of the sheet section the step belongs to
+	Title    string   // what the step computes, in words
+	Clause   string   // clause reference, or "common practice"
+	Kind     Kind     // input, formula, table, solve or check
+	Symbol   string   // display symbol of the result
+	Expr     string   // govaluate expression over Args giving Value
+	Args     []Arg    // arguments of Expr or of the solve step's verification
+	Value    float64  // result in engine units (ratio for a check)
+	Unit     string   // engine unit of Value
+	Relation string   // the inequality checked, e.g. "M_Ed ≤ M_Rd"
+	Verdict  string   // pass or fail, for a check step
+	Show     *Display // how the sheets show the step, where Expr is written for the evaluator
+	// more holds the parts that few steps have (a table's row, a solve step's method and
+	// verification, notes, cautions); nil for none. Steps copied share it: it is changed only
+	// by making a new one.
+	more *stepMore
+}
+
+// stepMore is the parts of a step that few steps have.
+type stepMore struct {
+	row, method, verify string
+	residual            float64
+	notes, cautions     []string
+}
+
+// Row returns the table row read, for a table step.
+func (s Step) Row() string {
+	if s.more == nil {
+		return ""
+	}
+	return s.more.row
+}
+
+// Method returns the iteration method, for a solve step.
+func (s Step) Method() string {
+	if s.more == nil {
+		return ""
+	}
+	return s.more.method
+}
+
+// Verify returns the residual expression over Args, for a solve step.
+func (s Step) Verify() string {
+	if s.more == nil {
+		return ""
+	}
+	return s.more.verify
+}
+
+// Residual returns the recorded value of Verify, for a solve step.
+func (s Step) Residual() float64 {
+	if s.more == nil {
+		return 0
+	}
+	return s.more.residual
+}
+
+// Notes returns the remarks for the reader (not to be changed: see Note).
+func (s Step) Notes() []string {
+	if s.more == nil {
+		return nil
+	}
+	return s.more.notes
+}
+
+// Cautions returns the warnings the sheet must show (not to be changed: see Caution).
+func (s Step) Cautions() []string {
+	if s.more == nil {
+		return nil
+	}
+	return s.more.cautions
+}
+
+// edit returns a copy of the step's rarer parts for a change, the step's own left as they are.
+func (s *Step) edit() *stepMore {
+	m := &stepMore{}
+	if s.more != nil {
+		*m = *s.more
+		m.notes, m.cautions = slices.Clip(m.notes), slices.Clip(m.cautions)
+	}
+	return m
+}
+
+// set gives the step the rarer parts m, none where m holds nothing.
+func (s *Step) set(m *stepMore) {
+	if m.row == "" && m.method == "" && m.verify == "" && m.residual == 0 && len(m.notes) == 0 && len(m.cautions) == 0 {
+		m = nil
+	}
+	s.more = m
+}
+
+// WithRow returns a copy of the step reading row of its table.
+func (s Step) WithRow(row string) Step {
+	m := s.edit()
+	m.row = row
+	s.set(m)
+	return s
+}
+
+// WithResidual returns a copy of the step with the recorded value r of its verification.
+func (s Step) WithResidual(r float64) Step {
+	m := s.edit()
+	m.residual = r
+	s.set(m)
+	return s
+}
+
+// WithRemarks returns a copy of the step with its notes and cautions as given, nil for none.
+func (s Step) WithRemarks(notes, cautions []string) Step {
+	m := s.edit()
+	m.notes, m.cautions = notes, cautions
+	s.set(m)
+	return s
 }
 
 // Display is how a step reads on a sheet where its evaluation expression carries what the
@@ -135,13 +235,16 @@ func Input(id, title, clause, symbol, unit string, v float64) Step {
 
 // Table returns a step recording value v read from row of a standard's table.
 func Table(id, title, clause, row, symbol, unit string, v float64) Step {
-	return Step{ID: id, Title: title, Clause: clause, Kind: KindTable, Symbol: symbol, Unit: unit, Value: v, Row: row}
+	s := Step{ID: id, Title: title, Clause: clause, Kind: KindTable, Symbol: symbol, Unit: unit, Value: v}
+	s.set(&stepMore{row: row})
+	return s
 }
 
 // Solve returns a step recording value v found by method, with the residual of verify over args.
 func Solve(id, title, clause, symbol, unit string, v float64, method, verify string, residual float64, args ...Arg) Step {
-	return Step{ID: id, Title: title, Clause: clause, Kind: KindSolve, Symbol: symbol, Unit: unit,
-		Value: v, Method: method, Verify: verify, Residual: residual, Args: args}
+	s := Step{ID: id, Title: title, Clause: clause, Kind: KindSolve, Symbol: symbol, Unit: unit, Value: v, Args: args}
+	s.set(&stepMore{method: method, verify: verify, residual: residual})
+	return s
 }
 
 // Check returns a check step whose ratio of action to resistance is expr over args.
@@ -156,10 +259,20 @@ func Check(id, title, clause, relation string, ratio float64, expr string, args 
 }
 
 // Note returns a copy of the step with a note for the reader added.
-func (s Step) Note(text string) Step { s.Notes = append(s.Notes, text); return s }
+func (s Step) Note(text string) Step {
+	m := s.edit()
+	m.notes = append(m.notes, text)
+	s.set(m)
+	return s
+}
 
 // Caution returns a copy of the step with a caution added.
-func (s Step) Caution(text string) Step { s.Cautions = append(s.Cautions, text); return s }
+func (s Step) Caution(text string) Step {
+	m := s.edit()
+	m.cautions = append(m.cautions, text)
+	s.set(m)
+	return s
+}
 
 // Finite reports whether v is neither NaN nor infinite.
 func Finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
@@ -193,4 +306,46 @@ func (l *Log) Last() *Step {
 		return nil
 	}
 	return &l.Steps[len(l.Steps)-1]
+}
+
+// stepJSON is the JSON form of a step: every part a field of its own.
+type stepJSON struct {
+	ID       string   `json:"id"`
+	Group    string   `json:"group,omitempty"`
+	Title    string   `json:"title"`
+	Clause   string   `json:"clause"`
+	Kind     Kind     `json:"kind"`
+	Symbol   string   `json:"symbol,omitempty"`
+	Expr     string   `json:"expr,omitempty"`
+	Args     []Arg    `json:"args,omitempty"`
+	Value    float64  `json:"value"`
+	Unit     string   `json:"unit,omitempty"`
+	Row      string   `json:"row,omitempty"`
+	Method   string   `json:"method,omitempty"`
+	Verify   string   `json:"verify,omitempty"`
+	Residual float64  `json:"residual,omitempty"`
+	Relation string   `json:"relation,omitempty"`
+	Verdict  string   `json:"verdict,omitempty"`
+	Notes    []string `json:"notes,omitempty"`
+	Cautions []string `json:"cautions,omitempty"`
+	Show     *Display `json:"show,omitempty"`
+}
+
+// MarshalJSON writes the step with every part a field of its own (see stepJSON).
+func (s Step) MarshalJSON() ([]byte, error) {
+	return json.Marshal(stepJSON{ID: s.ID, Group: s.Group, Title: s.Title, Clause: s.Clause, Kind: s.Kind, Symbol: s.Symbol,
+		Expr: s.Expr, Args: s.Args, Value: s.Value, Unit: s.Unit, Row: s.Row(), Method: s.Method(), Verify: s.Verify(),
+		Residual: s.Residual(), Relation: s.Relation, Verdict: s.Verdict, Notes: s.Notes(), Cautions: s.Cautions(), Show: s.Show})
+}
+
+// UnmarshalJSON reads the step as MarshalJSON writes it.
+func (s *Step) UnmarshalJSON(data []byte) error {
+	var j stepJSON
+	if err := json.Unmarshal(data, &j); err != nil {
+		return err
+	}
+	*s = Step{ID: j.ID, Group: j.Group, Title: j.Title, Clause: j.Clause, Kind: j.Kind, Symbol: j.Symbol, Expr: j.Expr,
+		Args: j.Args, Value: j.Value, Unit: j.Unit, Relation: j.Relation, Verdict: j.Verdict, Show: j.Show}
+	s.set(&stepMore{row: j.Row, method: j.Method, verify: j.Verify, residual: j.Residual, notes: j.Notes, cautions: j.Cautions})
+	return nil
 }

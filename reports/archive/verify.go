@@ -452,8 +452,8 @@ func (r *Report) checkStep(d resultsCase, s trace.Step) {
 				return
 			}
 		case trace.KindSolve:
-			if got, e := trace.Eval(s.Verify, s.Args); e == nil && trace.Finite(s.Residual) {
-				r.stepProblem(d, s, "residual does not reproduce from "+s.Verify, true, s.Residual, got)
+			if got, e := trace.Eval(s.Verify(), s.Args); e == nil && trace.Finite(s.Residual()) {
+				r.stepProblem(d, s, "residual does not reproduce from "+s.Verify(), true, s.Residual(), got)
 				return
 			}
 		}
