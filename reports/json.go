@@ -304,7 +304,7 @@ func (s *JSONStream) Design(d *design.Design) error {
 			s.e.raw(",")
 		}
 		st := &d.Steps[i]
-		s.e.step(st, prefix, s.pk.form(st))
+		s.e.step(st, prefix, s.pk.formOf(st))
 	}
 	s.e.raw("]}")
 	return s.e.err
@@ -339,11 +339,11 @@ func (s *JSONStream) End(r *design.Result) error {
 		s.e.step(st, "", s.pk.form(st))
 	}
 	s.e.raw(`],"forms":[`)
-	for i := range s.pk.reps {
+	for i := range s.pk.n {
 		if i > 0 {
 			s.e.raw(",")
 		}
-		s.e.form(&s.pk.reps[i])
+		s.e.form(s.pk.rep(i))
 	}
 	s.e.raw("]")
 	s.e.raw("}\n")
@@ -737,22 +737,49 @@ type jsonStep struct {
 type packer struct {
 	seed  maphash.Seed
 	index map[uint64][]int // form hash to the forms with that hash
-	reps  []trace.Step     // one step of each form
+	reps  [][]trace.Step   // one step of each form, in blocks of repBlock (no copying as they grow)
+	n     int              // the number of forms
+	last  map[string]int   // own step ID → the form of the last step of a design so named
 }
 
-func newPacker() *packer { return &packer{seed: maphash.MakeSeed(), index: map[uint64][]int{}} }
+// repBlock is the number of forms of one block of packer.reps.
+const repBlock = 4096
+
+// rep returns the step that stands for form k.
+func (p *packer) rep(k int) *trace.Step { return &p.reps[k/repBlock][k%repBlock] }
+
+func newPacker() *packer {
+	return &packer{seed: maphash.MakeSeed(), index: map[uint64][]int{}, last: map[string]int{}}
+}
 
 // form returns the index of the form of step s, adding it at the end when it is new.
 func (p *packer) form(s *trace.Step) int {
 	h := formHash(p.seed, s)
 	for _, k := range p.index[h] {
-		if sameForm(&p.reps[k], s) {
+		if sameForm(p.rep(k), s) {
 			return k
 		}
 	}
-	k := len(p.reps)
+	k := p.n
 	p.index[h] = append(p.index[h], k)
-	p.reps = append(p.reps, *s)
+	if k%repBlock == 0 {
+		p.reps = append(p.reps, make([]trace.Step, 0, repBlock))
+	}
+	last := &p.reps[len(p.reps)-1]
+	*last = append(*last, *s)
+	p.n++
+	return k
+}
+
+// formOf returns the form of step s of a design's trace (its own ID): that of the last step of
+// the same own ID when s shares it (the designs of a building repeat their steps, so most do),
+// else as form finds it. The forms are distinct by sameForm, so both ways give the same form.
+func (p *packer) formOf(s *trace.Step) int {
+	if k, ok := p.last[s.ID]; ok && sameForm(p.rep(k), s) {
+		return k
+	}
+	k := p.form(s)
+	p.last[s.ID] = k
 	return k
 }
 
