@@ -23,12 +23,14 @@ type book struct {
 	kept []*keptDesign
 }
 
-// keptDesign is what the calc document needs of a design whose sheet is printed and whose
-// trace was let go: the own IDs of its steps in order, for the links to them, and the steps
-// that its tables read (the take-down and the column moments), with their values only.
+// keptDesign is what the sheets still to print need of a design whose sheet is printed and
+// whose trace was let go: the own IDs of its steps in order and which are checks, for the links
+// to them (briefStep), and the steps that the calc document's tables read (the take-down and the
+// column moments), with their values only.
 type keptDesign struct {
-	ids   []string
-	steps []keptStep
+	ids    []string
+	checks []bool
+	steps  []keptStep
 }
 
 // keptStep is what a table of the calc document reads of a step: its own ID and its value
@@ -103,7 +105,11 @@ func (b *book) stepAt(w where) trace.Step {
 	}
 	if b.kept != nil {
 		if k := b.kept[w.design]; k != nil {
-			return trace.Step{ID: k.ids[w.number-1]} // only the calc document links there, by ID
+			s := trace.Step{ID: k.ids[w.number-1]} // what a link to it reads (see briefStep)
+			if k.checks[w.number-1] {
+				s.Kind = trace.KindCheck
+			}
+			return s
 		}
 	}
 	return b.design(w.design).Steps[w.number-1]
@@ -144,6 +150,18 @@ func (b *book) finder(from int) finder {
 		}
 	}
 	return f
+}
+
+// candidates returns the designs that may hold the step of whole ID id, as at tries them: those
+// whose whole IDs start as id does, at every "/" of id.
+func (b *book) candidates(id string) []int {
+	var out []int
+	for k := 0; k < len(id); k++ {
+		if id[k] == '/' {
+			out = append(out, b.lifts[id[:k+1]]...)
+		}
+	}
+	return out
 }
 
 // at returns where the step of whole ID id is: a step of the project basis first, else the

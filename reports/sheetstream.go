@@ -5,14 +5,17 @@ import (
 	"strings"
 
 	"colsheet/calc/design"
+	"colsheet/calc/trace"
 )
 
 // SheetStream prints the sheets of a result while its designs are handed on one by one (see
 // design.Stream), then the index and the calc document, handing each file to emit as soon as it
-// is printed; the files are those of RenderTo, byte for byte. It holds the traces of the column
-// in hand and of each column group's governing lift so far; of every other design only what
-// the calc document needs (its step IDs for the links, its take-down and moment steps by value),
-// so that its memory does not grow with the traces of the whole building.
+// is printed; the files are those of RenderTo, byte for byte. A column's sheets are printed once
+// its lifts and every design they refer to (a column stopping on the beams of another refers to
+// its loads) are in hand. It holds the traces of the columns in hand, of the designs they refer
+// to and of each column group's governing lift so far; of every other design only what the calc
+// document needs (its step IDs for the links, its take-down and moment steps by value), so that
+// its memory does not grow with the traces of the whole building.
 type SheetStream struct {
 	x       *renderer // nil: no sheets asked for
 	emit    func(path string, data []byte) error
@@ -20,7 +23,23 @@ type SheetStream struct {
 	busy    chan struct{}    // a place per page being printed
 	queue   []*pageJob       // the pages being printed, in order
 	column  []int            // the designs in hand of the column being handed on
+	waiting []*columnJob     // columns in hand that refer to designs not yet handed on, in order
+	handed  int              // the designs handed on so far: 0 … handed-1
 	gov     map[groupKey]int // the governing design of each column group so far
+	state   []designState    // by design
+}
+
+// designState is what keeps a design's trace in hand.
+type designState struct {
+	governs bool // it governs its column group so far
+	printed bool // its sheet is printed and handed on
+	pins    int  // the columns not yet printed whose sheets refer to it
+}
+
+// columnJob is a column whose sheets are to be printed: its designs, in order, and the designs
+// of other columns its steps refer to.
+type columnJob struct {
+	designs, needs []int
 }
 
 // pageJob is one page being printed on a goroutine of its own.
@@ -28,8 +47,8 @@ type pageJob struct {
 	done  chan struct{} // closed once printed
 	files []file
 	err   error
-	fault any   // a panic of the printing, raised again on the caller's goroutine
-	last  []int // the designs of the column whose last page this is, let go once it is handed on
+	fault any        // a panic of the printing, raised again on the caller's goroutine
+	last  *columnJob // the column whose last page this is, its designs let go once it is handed on
 }
 
 // NewSheetStream returns the stream of the sheets of r in the formats asked for (md, tex,
@@ -53,13 +72,13 @@ func NewSheetStream(r *design.Result, formats map[string]bool, o Options, worker
 	if x != nil {
 		x.bk.held = make([]*design.Design, len(r.Designs))
 		x.bk.kept = make([]*keptDesign, len(r.Designs))
+		s.state = make([]designState, len(r.Designs))
 	}
 	return s, nil
 }
 
-// Design takes design k as it is handed on, with its trace, sections and interaction data; its
-// sheet is printed once every lift of its column is in hand (a lift's steps refer to those of
-// the lifts above it). The designs come in order, k = 0, 1, ….
+// Design takes design k as it is handed on, with its trace, sections and interaction data. The
+// designs come in order, k = 0, 1, ….
 func (s *SheetStream) Design(k int, d *design.Design) error {
 	if s.x == nil {
 		return nil
@@ -67,15 +86,26 @@ func (s *SheetStream) Design(k int, d *design.Design) error {
 	if err := finiteDesign(d); err != nil {
 		return err
 	}
-	if len(s.column) > 0 && s.x.bk.held[s.column[0]].Column != d.Column {
-		if err := s.printColumn(); err != nil {
-			return err
-		}
+	bk := s.x.bk
+	if len(s.column) > 0 && bk.held[s.column[0]].Column != d.Column {
+		s.columnDone()
 	}
 	c := *d // as handed on: the stream lets go of the result's copy
-	s.x.bk.held[k] = &c
+	bk.held[k] = &c
+	s.handed = k + 1
 	s.column = append(s.column, k)
-	return nil
+	// The governing lift of its group, as columnGroups finds it: the first of the worst in the
+	// order of the result.
+	key := keyOf(c)
+	if g, ok := s.gov[key]; !ok || worse(c, *bk.held[g]) {
+		s.gov[key] = k
+		s.state[k].governs = true
+		if ok {
+			s.state[g].governs = false
+			s.letGo(g)
+		}
+	}
+	return s.printReady()
 }
 
 // End prints the sheets still in hand, then the index and the calc document of each format.
@@ -83,7 +113,8 @@ func (s *SheetStream) End() error {
 	if s.x == nil {
 		return nil
 	}
-	if err := s.printColumn(); err != nil {
+	s.columnDone()
+	if err := s.printReady(); err != nil {
 		return err
 	}
 	for len(s.queue) > 0 {
@@ -100,14 +131,72 @@ func (s *SheetStream) End() error {
 	}, func(files []file) error { return emitFiles(files, s.emit) })
 }
 
-// printColumn starts printing the sheets of the column in hand and hands on the pages printed,
-// waiting while more than two pages per worker are being printed.
-func (s *SheetStream) printColumn() error {
-	col := s.column
+// columnDone puts the column in hand among those waiting to be printed, with the designs of
+// other columns that its steps refer to, which stay in hand until its sheets are printed.
+func (s *SheetStream) columnDone() {
+	if len(s.column) == 0 {
+		return
+	}
+	col := &columnJob{designs: s.column}
 	s.column = nil
-	for n, k := range col {
+	bk := s.x.bk
+	own := map[int]bool{}
+	for _, k := range col.designs {
+		own[k] = true
+	}
+	seen := map[int]bool{}
+	for _, k := range col.designs {
+		for i := range bk.held[k].Steps {
+			for _, a := range bk.held[k].Steps[i].Args {
+				// Another design's step: its whole ID, "/" first (see design.WholeStep).
+				if len(a.From) < 2 || a.From[0] != '/' || strings.HasPrefix(a.From, "/"+design.BasisPrefix) {
+					continue
+				}
+				for _, j := range bk.candidates(a.From[1:]) {
+					if !own[j] && !seen[j] {
+						seen[j] = true
+						col.needs = append(col.needs, j)
+						s.state[j].pins++
+					}
+				}
+			}
+		}
+	}
+	s.waiting = append(s.waiting, col)
+}
+
+// printReady starts printing the columns waiting whose designs and the designs they refer to
+// are all handed on, and hands on the pages printed, waiting while more than two pages per
+// worker are being printed.
+func (s *SheetStream) printReady() error {
+	kept := s.waiting[:0]
+	for n, col := range s.waiting {
+		ready := true
+		for _, j := range col.needs {
+			if j >= s.handed {
+				ready = false
+				break
+			}
+		}
+		if !ready {
+			kept = append(kept, col)
+			continue
+		}
+		if err := s.print(col); err != nil {
+			s.waiting = append(kept, s.waiting[n+1:]...)
+			return err
+		}
+	}
+	clear(s.waiting[len(kept):])
+	s.waiting = kept
+	return nil
+}
+
+// print starts printing the sheets of col.
+func (s *SheetStream) print(col *columnJob) error {
+	for n, k := range col.designs {
 		j := &pageJob{done: make(chan struct{})}
-		if n == len(col)-1 {
+		if n == len(col.designs)-1 {
 			j.last = col
 		}
 		s.queue = append(s.queue, j)
@@ -132,7 +221,7 @@ func (s *SheetStream) printColumn() error {
 }
 
 // handOn waits for the first page being printed, hands its files to emit and, after a
-// column's last page, lets go of the column's traces but what the calc document needs.
+// column's last page, lets go of what no sheet still to print needs.
 func (s *SheetStream) handOn() error {
 	j := s.queue[0]
 	<-j.done
@@ -147,40 +236,38 @@ func (s *SheetStream) handOn() error {
 	if err := emitFiles(j.files, s.emit); err != nil {
 		return err
 	}
-	for _, k := range j.last {
-		s.settle(k)
+	if col := j.last; col != nil {
+		for _, k := range col.designs {
+			s.state[k].printed = true
+			s.letGo(k)
+		}
+		for _, k := range col.needs {
+			s.state[k].pins--
+			s.letGo(k)
+		}
 	}
 	return nil
 }
 
-// settle keeps design k in full while it governs its column group (as columnGroups finds it:
-// the first of the worst in the order of the result) and otherwise only what the calc
-// document needs of it.
-func (s *SheetStream) settle(k int) {
-	bk := s.x.bk
-	d := bk.held[k]
-	key := keyOf(*d)
-	g, ok := s.gov[key]
-	if ok && !worse(*d, *bk.held[g]) {
+// letGo lets go of the trace of design k, but for what the calc document needs, once its sheet
+// is printed, no sheet still to print refers to it and it does not govern its group.
+func (s *SheetStream) letGo(k int) {
+	if st := s.state[k]; st.printed && st.pins == 0 && !st.governs && s.x.bk.held[k] != nil {
 		s.keepOnly(k)
-		return
 	}
-	if ok {
-		s.keepOnly(g)
-	}
-	s.gov[key] = k
 }
 
-// keepOnly lets go of the trace of design k but for what the calc document needs of a lift
-// that does not govern its group: its step IDs in order (links to its steps name their
-// numbers) and, by value, the steps of the take-down and the column moments (its tables).
+// keepOnly lets go of the trace of design k but for what the sheets still to print need of a
+// lift that does not govern its group: its step IDs in order and which are checks (links to
+// its steps name their numbers) and, by value, the steps of the take-down and the column
+// moments (the calc document's tables).
 func (s *SheetStream) keepOnly(k int) {
 	bk := s.x.bk
 	d := bk.held[k]
-	kd := &keptDesign{ids: make([]string, len(d.Steps))}
+	kd := &keptDesign{ids: make([]string, len(d.Steps)), checks: make([]bool, len(d.Steps))}
 	for n := range d.Steps {
 		st := &d.Steps[n]
-		kd.ids[n] = st.ID
+		kd.ids[n], kd.checks[n] = st.ID, st.Kind == trace.KindCheck
 		if tableStep(st.ID) {
 			kd.steps = append(kd.steps, keptStep{id: st.ID, symbol: st.Symbol, unit: st.Unit, value: st.Value})
 		}

@@ -94,10 +94,16 @@ func TestInOrder(t *testing.T) {
 // package does not depend on how it was printed).
 func TestSheetStreamSameFiles(t *testing.T) {
 	formats := map[string]bool{"md": true, "tex": true, "html": true}
-	for _, c := range []struct{ name, file, src string }{
-		{"pack building", "", packBuilding},
-		{"demo building", "../testdata/demo.yaml", ""},
-		{"columns with given actions", "../testdata/columns.yaml", ""},
+	for _, c := range []struct {
+		name, file, src string
+		o               Options
+	}{
+		{"pack building", "", packBuilding, Options{}},
+		{"demo building", "../testdata/demo.yaml", "", Options{}},
+		// Every step printed: the links to the loads of the column stopping on the beams of L1,
+		// designed after some of the columns it stands on.
+		{"demo building in full", "../testdata/demo.yaml", "", Options{Detail: Full}},
+		{"columns with given actions", "../testdata/columns.yaml", "", Options{}},
 	} {
 		in := parseFile(t, c.file, c.src)
 		whole, err := design.Stream(in, true, nil, func(int, *design.Design) error { return nil })
@@ -105,7 +111,7 @@ func TestSheetStreamSameFiles(t *testing.T) {
 			t.Fatal(err)
 		}
 		want := map[string][]byte{}
-		if err := RenderTo(whole, formats, Options{}, 2, func(p string, data []byte) error {
+		if err := RenderTo(whole, formats, c.o, 2, func(p string, data []byte) error {
 			want[p] = data
 			return nil
 		}); err != nil {
@@ -122,7 +128,7 @@ func TestSheetStreamSameFiles(t *testing.T) {
 			}
 			var ss *SheetStream
 			r, err := design.Stream(in, false, func(r *design.Result) (err error) {
-				ss, err = NewSheetStream(r, formats, Options{}, workers, put)
+				ss, err = NewSheetStream(r, formats, c.o, workers, put)
 				return err
 			}, func(k int, d *design.Design) error { return ss.Design(k, d) })
 			if err != nil {
