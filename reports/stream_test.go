@@ -153,3 +153,27 @@ func TestSheetStreamSameFiles(t *testing.T) {
 		}
 	}
 }
+
+// An error of emit stops the stream at that file and comes back as it is (common practice, no
+// source).
+func TestSheetStreamStopsOnError(t *testing.T) {
+	in := parseFile(t, "", packBuilding)
+	stop := errors.New("disk full")
+	n := 0
+	var ss *SheetStream
+	_, err := design.Stream(in, false, func(r *design.Result) (err error) {
+		ss, err = NewSheetStream(r, map[string]bool{"md": true, "html": true}, Options{}, 2, func(string, []byte) error {
+			if n++; n == 3 {
+				return stop
+			}
+			return nil
+		})
+		return err
+	}, func(k int, d *design.Design) error { return ss.Design(k, d) })
+	if err == nil {
+		err = ss.End()
+	}
+	if err != stop || n != 3 {
+		t.Errorf("emit error: got %v after %d files, want %v after 3", err, n, stop)
+	}
+}

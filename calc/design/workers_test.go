@@ -55,8 +55,10 @@ func TestWorkersSameBytes(t *testing.T) {
 }
 
 // TestStreamSameBytes writes results.json through design.Stream (each design written as it is
-// emitted, its trace let go after) on one worker and on several: the bytes are those of Run
-// followed by AddInteraction, the designs emitted once each in input order, without traces after.
+// emitted, its trace let go after; in the building form each lift designed without keeping its
+// trace, then again when its column is handed on) on one worker and on several: the bytes are
+// those of Run followed by AddInteraction, the designs emitted once each in input order, without
+// traces after (common practice, no source: the package does not depend on how it was made).
 func TestStreamSameBytes(t *testing.T) {
 	for _, file := range []string{"../../testdata/columns.yaml", "../../testdata/demo.yaml"} {
 		if testing.Short() && file != "../../testdata/columns.yaml" {
