@@ -319,8 +319,11 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 		if onlyErr = o.only.apply(res); onlyErr != nil {
 			return onlyErr
 		}
-		// The build's own version, in results.json, the manifest and every title block.
-		res.ToolVersion = version()
+		// The build's own version, in results.json, the manifest and every title block (set
+		// already where the sheets are printed as the designs come, and read by them still).
+		if v := version(); res.ToolVersion != v {
+			res.ToolVersion = v
+		}
 		return js.End(res)
 	})
 	switch {
