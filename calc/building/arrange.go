@@ -50,7 +50,16 @@ func (s loadSet) q(c string) float64 {
 
 // pieces returns the factored load pieces of a beam, loaded (fG·G + fQ·ΣQ) or light (fL·G).
 func (s loadSet) pieces(ld BeamLoad, loaded bool) []frame.Piece {
+	n := len(ld.G)
+	if loaded {
+		for _, q := range ld.Q {
+			n += len(q)
+		}
+	}
 	var out []frame.Piece
+	if n > 0 {
+		out = make([]frame.Piece, 0, n)
+	}
 	g := s.fL
 	if loaded {
 		g = s.fG

@@ -255,6 +255,7 @@ type stream struct {
 	sMin    float64
 	count   int
 	pending []cand
+	store   []cand // the array pending is filled in again once taken
 	done    bool
 }
 
@@ -280,6 +281,10 @@ func NewIterIn(g Geometry, dias []float64, linkFor, sMinFor func(dia float64) fl
 
 // fill makes the next count's patterns of the stream that lie within the area limits.
 func (s *stream) fill(asLo, asHi float64) {
+	if len(s.pending) == 0 {
+		s.pending = s.store[:0]
+		defer func() { s.store = s.pending[:0] }()
+	}
 	if s.g.Circle {
 		s.fillRing(asLo, asHi)
 		return
