@@ -235,7 +235,9 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 	if err := checkOnly(in, o.only); err != nil {
 		return nil, err
 	}
-	heapLimit(in)
+	sheets := o.formats["md"] || o.formats["tex"] || o.formats["html"]
+	streamed := sheets && o.against == "" && len(o.only) == 0
+	heapLimit(in, sheets && !streamed)
 	prog := newProgress(stderr, o.quiet)
 	defer func() {
 		if err != nil {
@@ -274,8 +276,6 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 	// and its sheets printed once its column is done; each design lets go of its trace once
 	// written. With --against (the revision marks need the whole of results.json) or --only,
 	// the sheets are printed after the designs, which then keep their traces.
-	sheets := o.formats["md"] || o.formats["tex"] || o.formats["html"]
-	streamed := sheets && o.against == "" && len(o.only) == 0
 	opt := reports.Options{Detail: o.detail}
 	var sheetStream *reports.SheetStream
 	prog.phase("designing", lifts(in))
@@ -366,10 +366,11 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 
 // heapLimit sets the Go runtime's soft limit of memory (runtime/debug.SetMemoryLimit) for the
 // run of in, unless the environment's GOMEMLIMIT sets one: 768 MiB, or 192 KiB per lift for
-// inputs of more than 4,096 lifts. Below the limit the collector runs as GOGC says; near it,
+// inputs of more than 4,096 lifts (1 MiB per lift where every trace is held until the sheets
+// are printed: --against, --only). Below the limit the collector runs as GOGC says; near it,
 // sooner, so that a run holding a few hundred megabytes does not take twice that (the 40-storey
-// building of 4,000 lifts holds some 480 MB at most; see BenchmarkOutput).
-func heapLimit(in *model.Input) {
+// building of 4,000 lifts holds some 480 MB at most when streamed; see BenchmarkOutput).
+func heapLimit(in *model.Input, traces bool) {
 	if os.Getenv("GOMEMLIMIT") != "" {
 		return
 	}
@@ -377,7 +378,11 @@ func heapLimit(in *model.Input) {
 	if b := in.Building; b != nil {
 		n = len(b.Storeys) * (len(b.GridX) + 1) * (len(b.GridY) + 1)
 	}
-	debug.SetMemoryLimit(max(768<<20, int64(n)*192<<10))
+	per := int64(192 << 10)
+	if traces {
+		per = 1 << 20
+	}
+	debug.SetMemoryLimit(max(768<<20, int64(n)*per))
 }
 
 // lifts returns the number of lifts of the actions form of in, 0 for the building form (whose
