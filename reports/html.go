@@ -195,6 +195,17 @@ func newHTMLPages(r *design.Result, bk *book) (*htmlPages, error) {
 // page returns page i of the set (0 the index, then the designs in order) from its Markdown
 // single, printed with the marks of the figures svgs (again prints it with the pictures, see htmlOf).
 func (h *htmlPages) page(i int, single Sheet, svgs []string, again func(*bytes.Buffer) error) (Sheet, error) {
+	b := getBuffer()
+	defer putBuffer(b)
+	name, err := h.pageInto(b, i, single, svgs, again)
+	if err != nil {
+		return Sheet{}, err
+	}
+	return Sheet{Name: name, Data: bytes.Clone(b.Bytes())}, nil
+}
+
+// pageInto prints page i as page does, into dst, and returns its file name.
+func (h *htmlPages) pageInto(dst *bytes.Buffer, i int, single Sheet, svgs []string, again func(*bytes.Buffer) error) (string, error) {
 	title := "Index of calculation sheets"
 	if i > 0 {
 		title = subject(*h.bk.design(i - 1))
@@ -204,12 +215,12 @@ func (h *htmlPages) page(i int, single Sheet, svgs []string, again func(*bytes.B
 	}
 	failed := i > 0 && h.bk.design(i-1).Status != design.StatusPass
 	id := strings.TrimSuffix(single.Name, ".md")
-	page, err := htmlOf(h.t, single.Data, svgs, again, htmlPage{Title: oneLine(title), Tool: h.tool,
+	err := htmlInto(dst, h.t, single.Data, svgs, again, htmlPage{Title: oneLine(title), Tool: h.tool,
 		Sheets: []htmlSheet{{ID: id, Failed: failed}}})
 	if err != nil {
-		return Sheet{}, err
+		return "", err
 	}
-	return Sheet{Name: id + ".html", Data: page}, nil
+	return id + ".html", nil
 }
 
 // htmlOf converts the Markdown mdText by goldmark into the body of the one sheet of p and returns
@@ -218,6 +229,16 @@ func (h *htmlPages) page(i int, single Sheet, svgs []string, again func(*bytes.B
 // are put back in the HTML; again prints the Markdown with the pictures themselves, for a page
 // where a mark is not where a picture can stand as it is.
 func htmlOf(t *template.Template, mdText []byte, svgs []string, again func(*bytes.Buffer) error, p htmlPage) ([]byte, error) {
+	page := getBuffer()
+	defer putBuffer(page)
+	if err := htmlInto(page, t, mdText, svgs, again, p); err != nil {
+		return nil, err
+	}
+	return bytes.Clone(page.Bytes()), nil
+}
+
+// htmlInto prints the page of htmlOf into dst.
+func htmlInto(dst *bytes.Buffer, t *template.Template, mdText []byte, svgs []string, again func(*bytes.Buffer) error, p htmlPage) error {
 	body := getBuffer()
 	defer putBuffer(body)
 	if err := convertFigures(body, mdText, svgs); errors.Is(err, errFigures) {
@@ -225,22 +246,17 @@ func htmlOf(t *template.Template, mdText []byte, svgs []string, again func(*byte
 		defer putBuffer(whole)
 		body.Reset()
 		if err := again(whole); err != nil {
-			return nil, err
+			return err
 		}
 		if err := converter.Convert(whole.Bytes(), body); err != nil {
-			return nil, err
+			return err
 		}
 	} else if err != nil {
-		return nil, err
+		return err
 	}
 	// The body is read only while the page is printed, before its buffer is reused.
 	p.Sheets[0].Body = template.HTML(bufferString(body)) // #nosec: escaped at the Markdown stage
-	page := getBuffer()
-	defer putBuffer(page)
-	if err := t.Execute(page, p); err != nil {
-		return nil, err
-	}
-	return bytes.Clone(page.Bytes()), nil
+	return t.Execute(dst, p)
 }
 
 // mdFigures is the Markdown of a page to be converted to HTML with each picture left out of

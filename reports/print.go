@@ -570,6 +570,7 @@ func Render(r *design.Result, formats map[string]bool, o Options) (Package, []Sh
 	var docs []Sheet
 	err := RenderTo(r, formats, o, 1, func(path string, data []byte) error {
 		dir, name, _ := strings.Cut(path, "/")
+		data = bytes.Clone(data) // valid only during the call
 		if dir == "doc" {
 			docs = append(docs, Sheet{Name: name, Data: data})
 		} else {
@@ -585,7 +586,8 @@ func Render(r *design.Result, formats map[string]bool, o Options) (Package, []Sh
 
 // RenderTo builds the tree of each sheet and of the calc document once, prints it in each
 // format asked for (md, tex, html) and hands each file to emit as soon as it is printed, by its
-// slash path below the output folder ("md/index.md", …, "doc/calc.md"): the index, then each
+// slash path below the output folder ("md/index.md", …, "doc/calc.md"), its bytes valid only
+// during the call (a caller that keeps them copies them): the index, then each
 // design's sheet in every format, then the calc document of each format. Up to workers
 // goroutines build and print the sheets and then the calc documents (one tree for every format,
 // printed in the formats at once), each sheet's tree dropped once printed, so that the memory
@@ -613,11 +615,15 @@ func RenderTo(r *design.Result, formats map[string]bool, o Options, workers int,
 	return inOrder(pages+len(x.fs), workers, item, func(files []file) error { return emitFiles(files, emit) })
 }
 
-// emitFiles hands each of files to emit, stopping at the first error.
+// emitFiles hands each of files to emit, stopping at the first error, and lets go of the
+// buffers the files' bytes lie in once emitted.
 func emitFiles(files []file, emit func(path string, data []byte) error) error {
 	for _, f := range files {
 		if err := emit(f.path, f.data); err != nil {
 			return err
+		}
+		if f.buf != nil {
+			putBuffer(f.buf)
 		}
 	}
 	return nil
@@ -627,6 +633,7 @@ func emitFiles(files []file, emit func(path string, data []byte) error) error {
 type file struct {
 	path string
 	data []byte
+	buf  *bytes.Buffer // the reused buffer data lies in, handed back once the file is emitted; nil: none
 }
 
 // printing is one format's printer of the sheets and the calc document.
@@ -712,40 +719,45 @@ func (x *renderer) page(i int) ([]file, error) {
 			md, htmlMD = nil, nil
 		}
 		defer func() {
+			if htmlMD != nil {
+				putBuffer(htmlMD)
+			}
 			if md != nil {
 				putBuffer(md)
-				putBuffer(htmlMD)
 			}
 		}()
 	}
 	out := make([]file, 0, len(fs))
 	for _, f := range fs {
-		var sh Sheet
+		name := set.pageName(i) + f.tp.f.ext
+		var b *bytes.Buffer
 		var err error
 		switch {
 		case f.name == "md" && md != nil:
-			sh = Sheet{Name: set.pageName(i) + f.tp.f.ext, Data: bytes.Clone(md.Bytes())}
+			b, md = md, nil // handed on with the file
 		case f.html != nil:
 			// The Markdown in a reused buffer, its pictures as marks; converted and let go.
 			again := func(w *bytes.Buffer) error { return set.printPageInto(w, f.tp, i, v) }
-			name := set.pageName(i) + f.tp.f.ext
+			b = getBuffer()
 			if htmlMD != nil {
-				sh, err = f.html.page(i, Sheet{Name: name, Data: htmlMD.Bytes()}, svgs, again)
+				name, err = f.html.pageInto(b, i, Sheet{Name: name, Data: htmlMD.Bytes()}, svgs, again)
 				break
 			}
-			b := getBuffer()
+			m := getBuffer()
 			var svgs []string
-			if err = set.printPageWith(b, f.tp, i, v, mdFigures{svgs: &svgs}); err == nil {
-				sh, err = f.html.page(i, Sheet{Name: name, Data: b.Bytes()}, svgs, again)
+			if err = set.printPageWith(m, f.tp, i, v, mdFigures{svgs: &svgs}); err == nil {
+				name, err = f.html.pageInto(b, i, Sheet{Name: name, Data: m.Bytes()}, svgs, again)
 			}
-			putBuffer(b)
+			putBuffer(m)
 		default:
-			sh, err = set.printPage(f.tp, i, v)
+			b = getBuffer()
+			err = set.printPageInto(b, f.tp, i, v)
 		}
 		if err != nil {
+			putBuffer(b)
 			return nil, fmt.Errorf("%s: %v", f.name, err)
 		}
-		out = append(out, file{f.name + "/" + sh.Name, sh.Data})
+		out = append(out, file{path: f.name + "/" + name, data: b.Bytes(), buf: b})
 	}
 	return out, nil
 }
@@ -765,7 +777,7 @@ func (x *renderer) docFile(f printing) ([]file, error) {
 	if err != nil {
 		return nil, fmt.Errorf("%s calc document: %v", f.name, err)
 	}
-	return []file{{"doc/" + d.Name, d.Data}}, nil
+	return []file{{path: "doc/" + d.Name, data: d.Data}}, nil
 }
 
 // inOrder makes the n pages page(0) … page(n-1) on up to workers goroutines and hands each to

@@ -10,7 +10,8 @@ import (
 
 // SheetStream prints the sheets of a result while its designs are handed on one by one (see
 // design.Stream), then the index and the calc document, handing each file to emit as soon as it
-// is printed; the files are those of RenderTo, byte for byte. A column's sheets are printed once
+// is printed (its bytes valid only during the call, as with RenderTo); the files are those of
+// RenderTo, byte for byte. A column's sheets are printed once
 // its lifts and every design they refer to (a column stopping on the beams of another refers to
 // its loads) are in hand. It holds the traces of the columns in hand, of the designs they refer
 // to and of each column group's governing lift so far; of every other design only what the calc

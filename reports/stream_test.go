@@ -21,7 +21,7 @@ func TestRenderToWorkersSameBytes(t *testing.T) {
 	collect := func(workers int) []file {
 		var out []file
 		if err := RenderTo(r, formats, Options{}, workers, func(p string, data []byte) error {
-			out = append(out, file{p, data})
+			out = append(out, file{path: p, data: bytes.Clone(data)})
 			return nil
 		}); err != nil {
 			t.Fatal(err)
@@ -112,7 +112,7 @@ func TestSheetStreamSameFiles(t *testing.T) {
 		}
 		want := map[string][]byte{}
 		if err := RenderTo(whole, formats, c.o, 2, func(p string, data []byte) error {
-			want[p] = data
+			want[p] = bytes.Clone(data)
 			return nil
 		}); err != nil {
 			t.Fatal(err)
@@ -123,7 +123,7 @@ func TestSheetStreamSameFiles(t *testing.T) {
 				if _, ok := got[p]; ok {
 					t.Errorf("%s: %s written twice", c.name, p)
 				}
-				got[p] = data
+				got[p] = bytes.Clone(data)
 				return nil
 			}
 			var ss *SheetStream
