@@ -8,16 +8,16 @@ import (
 	"colsheet/calc/trace"
 )
 
-// SheetStream prints the sheets of a result while its designs are handed on one by one (see
-// design.Stream), then the index and the calc document, handing each file to emit as soon as it
-// is printed (its bytes valid only during the call, as with RenderTo); the files are those of
-// RenderTo, byte for byte. A column's sheets are printed once
-// its lifts and every design they refer to (a column stopping on the beams of another refers to
-// its loads) are in hand. It holds the traces of the columns in hand, of the designs they refer
-// to and of each column group's governing lift so far; of every other design only what the calc
-// document needs (its step IDs for the links, its take-down and moment steps by value), so that
-// its memory does not grow with the traces of the whole building.
+// SheetStream prints the files of RenderTo, byte for byte, while a result's designs are handed
+// on one by one (design.Stream), holding only the traces that the pages still to print need.
 type SheetStream struct {
+	// Each file goes to emit as soon as it is printed, its bytes valid only during the call. A
+	// column's sheets are printed once its lifts and every design they refer to (a column
+	// stopping on the beams of another refers to its loads) are in hand; the index and the calc
+	// document at the end. The stream holds the traces of the columns in hand, of the designs
+	// they refer to and of each column group's governing lift so far; of every other design
+	// only what later pages need (keptDesign: its step IDs and which are checks, for the links;
+	// its take-down and moment values, for the calc document's tables).
 	x       *renderer // nil: no sheets asked for
 	emit    func(path string, data []byte) error
 	workers int
@@ -52,9 +52,8 @@ type pageJob struct {
 	last  *columnJob // the column whose last page this is, its designs let go once it is handed on
 }
 
-// NewSheetStream returns the stream of the sheets of r in the formats asked for (md, tex,
-// html), printed by up to workers goroutines; r is as design.Stream hands it to its start: the
-// designs' names and the project basis, nothing else of the designs until each is handed on.
+// NewSheetStream returns the stream of the pages of r in the formats asked for (md, tex, html),
+// printed by up to workers goroutines, r as design.Stream hands it to its start.
 func NewSheetStream(r *design.Result, formats map[string]bool, o Options, workers int, emit func(path string, data []byte) error) (*SheetStream, error) {
 	if r == nil {
 		return nil, fmt.Errorf("reports: no result")
@@ -78,8 +77,8 @@ func NewSheetStream(r *design.Result, formats map[string]bool, o Options, worker
 	return s, nil
 }
 
-// Design takes design k as it is handed on, with its trace, sections and interaction data. The
-// designs come in order, k = 0, 1, ….
+// Design takes design k (k = 0, 1, … in order) as it is handed on, with its trace, sections and
+// interaction data.
 func (s *SheetStream) Design(k int, d *design.Design) error {
 	if s.x == nil {
 		return nil
