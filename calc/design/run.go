@@ -77,6 +77,7 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 		// lift refers to them.
 		work.Each(len(cols), func(ci int) {
 			h := r.bs.hoister()
+			var scratch []trace.Step // the steps of the last lift, let go
 			for k := cols[ci].hi - 1; k >= cols[ci].lo; k-- {
 				lf := &d.Lifts[k]
 				l0y, l0z := b.Options.L0Factor*lf.Height, b.Options.L0Factor*lf.Height
@@ -94,9 +95,13 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 						dv.above = neighbourOf(above)
 					}
 				}
+				if !keep {
+					dv.scratch = scratch
+				}
 				r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
 				if !keep {
 					// The lift is designed again, the same, when its column is handed on.
+					scratch, dv.scratch = r.Designs[k].Steps[:0], nil
 					r.Designs[k].letGo()
 				}
 				r.cases[k] = liftCase{col, &col.Storeys[0]}
@@ -231,9 +236,12 @@ type Derivation struct {
 	L0          [2]trace.Q // effective lengths about y and z, when derived
 	Top, Bottom [2]trace.Q // end moments about y and z
 
-	trial  bool     // the actions of a check by quick evaluation only, whose steps are not kept
-	hoist  *hoister // takes the steps that repeat a basis step out of Steps; nil: none
-	across []int    // places of the steps that refer to another lift, once hoisted
+	trial bool // the actions of a check by quick evaluation only, whose steps are not kept
+	// scratch is room for the steps of a design whose trace is let go at once (the first pass
+	// of a streamed building), reused from lift to lift; nil: a slice of its own.
+	scratch []trace.Step
+	hoist   *hoister // takes the steps that repeat a basis step out of Steps; nil: none
+	across  []int    // places of the steps that refer to another lift, once hoisted
 
 	above     *neighbour       // the bars of the lift above, which this lift's bars continue; nil at the top
 	below     *neighbour       // the typical pass: the bars of the lift below, within which this lift's stay; nil: none
@@ -430,7 +438,11 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	case dv == nil:
 		l = &trace.Log{Steps: make([]trace.Step, 0, bs.room(0))}
 	default:
-		l = &trace.Log{Steps: make([]trace.Step, 0, bs.room(len(dv.Steps)))}
+		steps := dv.scratch[:0]
+		if room := bs.room(len(dv.Steps)); cap(steps) < room {
+			steps = make([]trace.Step, 0, room)
+		}
+		l = &trace.Log{Steps: steps}
 		if dv.hoist != nil {
 			l.Steps, dv.across = dv.hoist.filter(l.Steps, dv.Steps, col.ID+"/"+st.Name+"/")
 		} else {
