@@ -399,7 +399,7 @@ func TestFormJSONMatchesEncodingJSON(t *testing.T) {
 	odd := trace.Solve("x", "A <b> & \"c\"\n", "EN 1992 & co", "σ_<", "N/mm2", 1, "m", "v < 1", 0.5,
 		trace.Arg{Name: "a", Symbol: "a&b", Unit: "", From: "/basis/x"}, trace.Arg{Name: "b", Symbol: "b", Unit: "mm"})
 	odd.Group, odd.Relation = "G\u2028", "a ≤ b"
-	odd = odd.WithRow("row <1>").WithRemarks([]string{"n1", ""}, []string{"c\x01"})
+	odd = odd.WithRow("row <1>").Note("n1").Note("").Caution("c\x01")
 	for _, show := range []*trace.Display{nil, {}, {Expr: "a < b"}, {Result: "yes"}, {Expr: "e", Result: "r"}} {
 		s := odd
 		s.Show = show

@@ -167,14 +167,6 @@ func (s Step) WithResidual(r float64) Step {
 	return s
 }
 
-// WithRemarks returns a copy of the step with its notes and cautions as given, nil for none.
-func (s Step) WithRemarks(notes, cautions []string) Step {
-	m := s.edit()
-	m.notes, m.cautions = notes, cautions
-	s.set(m)
-	return s
-}
-
 // Display is how a step reads on a sheet where its evaluation expression carries what the
 // clause does not write: a guard on a divisor, a tolerance on a rounding, a 1 or 0 for a
 // condition, a number that only marks a failure. The evaluation expression stays as it is
