@@ -274,14 +274,3 @@ func (s *SheetStream) keepOnly(k int) {
 	}
 	bk.kept[k], bk.held[k] = kd, nil
 }
-
-// tableStep reports whether the step of own ID id is one the calc document's tables read: of
-// the take-down or of the column moments (subframe or frame line).
-func tableStep(id string) bool {
-	for _, p := range [...]string{"td/", "subx/", "suby/", "frm/"} {
-		if strings.HasPrefix(id, p) {
-			return true
-		}
-	}
-	return false
-}

@@ -89,6 +89,18 @@ func (c cells) joined(i int, pattern func(id string) bool, mark func(trace.Step)
 	return join(parts, txt(" + "))
 }
 
+// tableStep reports whether the step of own ID id is one the tables below read: of the
+// take-down (td/) or of the column moments (subx/, suby/: subframe; frm/: frame line). A design
+// let go by SheetStream keeps these steps for them.
+func tableStep(id string) bool {
+	for _, p := range [...]string{"td/", "subx/", "suby/", "frm/"} {
+		if strings.HasPrefix(id, p) {
+			return true
+		}
+	}
+	return false
+}
+
 // takeDownTables returns, for the building form, one take-down table per column (top lift
 // first, as the loads come down) and the building's summary.
 func takeDownTables(c cells) []tableView {
