@@ -287,11 +287,11 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 			return err
 		}
 		start := func(r *design.Result) error {
+			// The build's own version, in results.json, the manifest and every title block.
+			r.ToolVersion = version()
 			if !streamed {
 				return nil
 			}
-			// The build's own version, in results.json, the manifest and every title block.
-			r.ToolVersion = version()
 			sheetStream, printErr = reports.NewSheetStream(r, o.formats, opt, runtime.GOMAXPROCS(0), st.put)
 			return printErr
 		}
@@ -318,11 +318,6 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 		}
 		if onlyErr = o.only.apply(res); onlyErr != nil {
 			return onlyErr
-		}
-		// The build's own version, in results.json, the manifest and every title block (set
-		// already where the sheets are printed as the designs come, and read by them still).
-		if v := version(); res.ToolVersion != v {
-			res.ToolVersion = v
 		}
 		return js.End(res)
 	})
