@@ -41,6 +41,7 @@ type designState struct {
 // of other columns its steps refer to.
 type columnJob struct {
 	designs, needs []int
+	after          int // the designs handed on before it can be printed: the last it needs, plus one
 }
 
 // pageJob is one page being printed on a goroutine of its own.
@@ -156,6 +157,7 @@ func (s *SheetStream) columnDone() {
 					if !own[j] && !seen[j] {
 						seen[j] = true
 						col.needs = append(col.needs, j)
+						col.after = max(col.after, j+1)
 						s.state[j].pins++
 					}
 				}
@@ -170,21 +172,13 @@ func (s *SheetStream) columnDone() {
 // worker are being printed.
 func (s *SheetStream) printReady() error {
 	kept := s.waiting[:0]
-	for n, col := range s.waiting {
-		ready := true
-		for _, j := range col.needs {
-			if j >= s.handed {
-				ready = false
-				break
-			}
-		}
-		if !ready {
+	for _, col := range s.waiting {
+		if col.after > s.handed {
 			kept = append(kept, col)
 			continue
 		}
 		if err := s.print(col); err != nil {
-			s.waiting = append(kept, s.waiting[n+1:]...)
-			return err
+			return err // the stream stops here
 		}
 	}
 	clear(s.waiting[len(kept):])
