@@ -15,6 +15,8 @@ import (
 	"testing"
 	"unicode"
 
+	"colsheet/calc/design"
+
 	"github.com/yuin/goldmark"
 	"github.com/yuin/goldmark/extension"
 	"github.com/yuin/goldmark/parser"
@@ -439,17 +441,24 @@ func TestPlainTagsAsGoldmark(t *testing.T) {
 	}
 }
 
+// demoSheets returns the result of the demo building and its sheets' trees.
+func demoSheets(t *testing.T) (*design.Result, *sheetSet) {
+	t.Helper()
+	r := runFile(t, "../testdata/demo.yaml", "")
+	set, err := buildSheets(r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r, set
+}
+
 // The HTML sheets and calc document of the demo building are the same with goldmark's own
 // parser of inline raw HTML (common practice, no source).
 func TestPlainTagsDemo(t *testing.T) {
 	if testing.Short() {
 		t.Skip("the demo building")
 	}
-	r := runFile(t, "../testdata/demo.yaml", "")
-	set, err := buildSheets(r, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	r, set := demoSheets(t)
 	pages, err := set.print(htmlFormat)
 	if err != nil {
 		t.Fatal(err)
@@ -484,11 +493,7 @@ func TestFiguresDemo(t *testing.T) {
 	if testing.Short() {
 		t.Skip("the demo building")
 	}
-	r := runFile(t, "../testdata/demo.yaml", "")
-	set, err := buildSheets(r, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	r, set := demoSheets(t)
 	tp, err := htmlFormat.printer(htmlFormat.common, htmlFormat.index, htmlFormat.sheet)
 	if err != nil {
 		t.Fatal(err)
