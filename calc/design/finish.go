@@ -107,24 +107,32 @@ const (
 // AddInteraction computes, for every design with bars, the N–M diagrams about both axes and
 // the My–Mz contour at NEd of its section (EN 1992-1-1:2004 6.1), for plotting.
 func AddInteraction(r *Result) {
-	work.Each(len(r.Designs), func(k int) { addInteraction(&r.Designs[k]) })
+	m := r.curves
+	if m == nil {
+		m = &curveMemo{}
+	}
+	work.Each(len(r.Designs), func(k int) { addInteraction(&r.Designs[k], m) })
 }
 
 // addInteraction computes the interaction data of design d, as AddInteraction.
 //
-// For a circle both N–M diagrams are drawn in the direction of least resistance at NEd.
-func addInteraction(d *Design) {
+// For a circle both N–M diagrams are drawn in the direction of least resistance at NEd. The
+// N–M diagrams are taken from m (when not nil) where a lift with the same section made them.
+func addInteraction(d *Design, m *curveMemo) {
+	var key [256]byte
 	if c := d.circ; c != nil {
-		nm := c.CurveNM(d.theta, curvePoints)
+		k := curveKey(key[:0], 'o', [2]float64{c.D}, c.Bars, c.Fcd, c.Fyd, c.Es, c.Block, c.Concrete, d.theta)
+		nm := m.nm(k, func() []section.NMPoint { return c.CurveNM(d.theta, curvePoints) })
 		d.Interaction = &Interaction{NMY: nm, NMZ: nm, Contour: c.ContourMyMz(d.NEd, contourPoints)}
 		return
 	}
-	if d.sec == nil {
+	s := d.sec
+	if s == nil {
 		return
 	}
-	d.Interaction = &Interaction{
-		NMY:     d.sec.CurveNM(section.AxisY, curvePoints),
-		NMZ:     d.sec.CurveNM(section.AxisZ, curvePoints),
-		Contour: d.sec.ContourMyMz(d.NEd, contourPoints),
+	on := func(axis section.Axis) []section.NMPoint {
+		k := curveKey(key[:0], 'r', [2]float64{s.B, s.H}, s.Bars, s.Fcd, s.Fyd, s.Es, s.Block, s.Concrete, float64(axis))
+		return m.nm(k, func() []section.NMPoint { return s.CurveNM(axis, curvePoints) })
 	}
+	d.Interaction = &Interaction{NMY: on(section.AxisY), NMZ: on(section.AxisZ), Contour: s.ContourMyMz(d.NEd, contourPoints)}
 }

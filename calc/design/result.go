@@ -37,6 +37,8 @@ type Result struct {
 
 	cases []liftCase    // the column and lift of each design, for the size finder
 	bs    *projectBasis // the basis with the quantities the designs take from it
+	// curves holds the N–M diagrams made so far by section, shared by lifts of the same section
+	curves *curveMemo
 }
 
 // Method is one method or assumption of the calculation with the clause behind it.

@@ -54,7 +54,7 @@ func Stream(in *model.Input, keep bool, start func(r *Result) error, emit func(k
 // with its interaction data, after start (when not nil); with keep false, the building form's
 // first pass keeps no trace.
 func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Design) error, keep bool) (*Result, error) {
-	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in)}
+	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in), curves: &curveMemo{}}
 	r.Basis = r.bs.public() // the basis is whole before any lift is designed
 	if in.Building != nil {
 		d, err := building.Derive(in, func(lx, ly float64, spans string) (s, n, w, e []frame.Piece) {
@@ -133,7 +133,7 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 					dvs[k].hoist.redirect(&r.Designs[k].Steps[i], nil)
 				}
 				if emit != nil {
-					addInteraction(&r.Designs[k])
+					addInteraction(&r.Designs[k], r.curves)
 				}
 			}
 		}
@@ -182,7 +182,7 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 		one := func(k int) {
 			r.Designs[k] = design(in, r.cases[k].col, r.cases[k].st, nil, r.bs)
 			if emit != nil {
-				addInteraction(&r.Designs[k])
+				addInteraction(&r.Designs[k], r.curves)
 			}
 		}
 		if emit == nil {
