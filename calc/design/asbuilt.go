@@ -181,11 +181,12 @@ func tieBars(r detail.RestraintPlan) string {
 		side string
 		face detail.FaceRestraint
 	}{{"b", r.AlongB}, {"h", r.AlongH}} {
-		if f.face.Extra == 0 || len(f.face.Restrained) < 3 {
+		rs := f.face.Restrained()
+		if f.face.Extra == 0 || len(rs) < 3 {
 			continue
 		}
 		var ns []string
-		for _, i := range f.face.Restrained[1 : len(f.face.Restrained)-1] {
+		for _, i := range rs[1 : len(rs)-1] {
 			ns = append(ns, strconv.Itoa(i+1))
 		}
 		word := "bar "

@@ -25,8 +25,11 @@ const stepsPerPattern = 300
 // its whole derivation: that serves to try candidate patterns, whose traces are dropped.
 func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	col, st, prm := c.col, c.st, c.p
-	l := &trace.Log{Trial: !full}
+	l := &trace.Log{Trial: !full || c.lean}
 	if full {
+		if c.lean && cap(c.steps) == 0 {
+			c.steps = make([]trace.Step, 0, leanRoom)
+		}
 		// The bar-dependent steps follow the common ones in the same backing array: a later
 		// full evaluation overwrites them, which is safe since a design keeps only its last.
 		l.Steps = c.steps[:len(c.steps):cap(c.steps)]

@@ -77,7 +77,6 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 		// lift refers to them.
 		work.Each(len(cols), func(ci int) {
 			h := r.bs.hoister()
-			var scratch []trace.Step // the steps of the last lift, let go
 			for k := cols[ci].hi - 1; k >= cols[ci].lo; k-- {
 				lf := &d.Lifts[k]
 				l0y, l0z := b.Options.L0Factor*lf.Height, b.Options.L0Factor*lf.Height
@@ -95,13 +94,14 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 						dv.above = neighbourOf(above)
 					}
 				}
-				if !keep {
-					dv.scratch = scratch
-				}
+				// Without keep the first pass designs each lift without its trace (its results
+				// are the same: nothing of a design is read from its trace but checks, which a
+				// trial keeps); the lift is designed again, with its trace, when its column is
+				// handed on.
+				dv.trial = !keep
 				r.Designs[k] = design(in, col, &col.Storeys[0], dv, r.bs)
 				if !keep {
-					// The lift is designed again, the same, when its column is handed on.
-					scratch, dv.scratch = r.Designs[k].Steps[:0], nil
+					dv.trial = false
 					r.Designs[k].letGo()
 				}
 				r.cases[k] = liftCase{col, &col.Storeys[0]}
@@ -236,12 +236,9 @@ type Derivation struct {
 	L0          [2]trace.Q // effective lengths about y and z, when derived
 	Top, Bottom [2]trace.Q // end moments about y and z
 
-	trial bool // the actions of a check by quick evaluation only, whose steps are not kept
-	// scratch is room for the steps of a design whose trace is let go at once (the first pass
-	// of a streamed building), reused from lift to lift; nil: a slice of its own.
-	scratch []trace.Step
-	hoist   *hoister // takes the steps that repeat a basis step out of Steps; nil: none
-	across  []int    // places of the steps that refer to another lift, once hoisted
+	trial  bool     // the actions of a check by quick evaluation only, whose steps are not kept
+	hoist  *hoister // takes the steps that repeat a basis step out of Steps; nil: none
+	across []int    // places of the steps that refer to another lift, once hoisted
 
 	above     *neighbour       // the bars of the lift above, which this lift's bars continue; nil at the top
 	below     *neighbour       // the typical pass: the bars of the lift below, within which this lift's stay; nil: none
@@ -367,6 +364,9 @@ type common struct {
 	trialSteps  []trace.Step // the buffer of the trials' check steps
 	trialChecks []checked    // the buffer of the trials' checks (trial.go)
 	derived     int          // the steps of the derivation at the head of steps
+	// lean is set for a derivation's trial (Derivation.trial): every log of the design keeps
+	// only its check steps, whose results are the same.
+	lean bool
 	// arrangements holds the commons of the trial derivations of withArrangements, made once
 	// per lift (they do not depend on the bars): about y and z, the arrangement in single
 	// curvature and that of the least axial force; nil where not yet made.
@@ -426,6 +426,9 @@ var paramFrom = func() map[string]string {
 	return m
 }()
 
+// leanRoom is the room for the check steps of a lean design (common.lean).
+const leanRoom = 96
+
 func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivation, bs *projectBasis) *common {
 	in, bs = bs.forLift(in, col, st) // the lift's concrete class and the basis of that class
 	c := &common{in: in, col: col, st: st, p: in.Code, dv: dv, bs: bs}
@@ -434,15 +437,13 @@ func newCommon(in *model.Input, col *model.Column, st *model.Storey, dv *Derivat
 	var l *trace.Log
 	switch {
 	case dv != nil && dv.trial:
+		// Only check steps are kept (evaluate makes room for them).
+		c.lean = true
 		l = &trace.Log{Trial: true}
 	case dv == nil:
 		l = &trace.Log{Steps: make([]trace.Step, 0, bs.room(0))}
 	default:
-		steps := dv.scratch[:0]
-		if room := bs.room(len(dv.Steps)); cap(steps) < room {
-			steps = make([]trace.Step, 0, room)
-		}
-		l = &trace.Log{Steps: steps}
+		l = &trace.Log{Steps: make([]trace.Step, 0, bs.room(len(dv.Steps)))}
 		if dv.hoist != nil {
 			l.Steps, dv.across = dv.hoist.filter(l.Steps, dv.Steps, col.ID+"/"+st.Name+"/")
 		} else {
@@ -693,7 +694,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 	if dv == nil {
 		return
 	}
-	l := &trace.Log{Steps: d.Steps, Group: "Resistance with the NEd of the moment arrangements"}
+	l := &trace.Log{Steps: d.Steps, Group: "Resistance with the NEd of the moment arrangements", Trial: c.lean}
 	added := false
 	// lean records the check w of a trial without its arguments and note; it reports whether d is one.
 	lean := func(w *arrWord, ratio float64) bool {

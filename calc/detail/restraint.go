@@ -18,12 +18,26 @@ const RestraintLimit = 150.0
 
 // FaceRestraint is the restraint of the bars along one face of a pattern.
 type FaceRestraint struct {
-	Bars       int     // bars along the face, corners included
-	Spacing    float64 // centre distance between neighbouring bars, mm
-	Reach      int     // neighbours a restrained bar reaches each way within the limit
-	Restrained []int   // indices from one corner (0 … Bars−1) of the restrained bars, corners included
-	Extra      int     // intermediate bars of the face held by an extra tie
-	Farthest   float64 // greatest centre distance of a bar from its nearest restrained bar, mm
+	Bars     int     // bars along the face, corners included
+	Spacing  float64 // centre distance between neighbouring bars, mm
+	Reach    int     // neighbours a restrained bar reaches each way within the limit
+	Extra    int     // intermediate bars of the face held by an extra tie
+	Farthest float64 // greatest centre distance of a bar from its nearest restrained bar, mm
+}
+
+// Restrained returns the indices from one corner (0 … Bars−1) of the restrained bars, corners
+// included, spread as evenly as the places allow; nil for a face of fewer than two bars.
+func (f FaceRestraint) Restrained() []int {
+	n, k := f.Bars, f.Extra
+	if n < 2 {
+		return nil
+	}
+	r := make([]int, k+2)
+	for i := range r {
+		// round(i·(n − 1)/(k + 1)) in integers, halves up.
+		r[i] = (2*i*(n-1) + k + 1) / (2 * (k + 1))
+	}
+	return r
 }
 
 // RestraintPlan is the restraint of a pattern's bars by the perimeter link and extra ties.
@@ -66,11 +80,6 @@ func restrainFace(n int, s, limit float64) FaceRestraint {
 	k := int(extraValue(float64(n), m))
 	f.Reach, f.Extra = int(m), k
 	f.Farthest = farthestValue(float64(n), float64(k), s)
-	f.Restrained = make([]int, k+2)
-	for i := range f.Restrained {
-		// round(i·(n − 1)/(k + 1)) in integers, halves up.
-		f.Restrained[i] = (2*i*(n-1) + k + 1) / (2 * (k + 1))
-	}
 	return f
 }
 
@@ -145,10 +154,12 @@ func faceSteps(l *trace.Log, prefix, side, faces string, f FaceRestraint, width,
 		trace.A("n", n), trace.A("m", m)).
 		Shown("ceil((n - 1) / (2 * m + 1)) - 1").
 		Note("Between two restrained bars at most 2·m bars may lie; the restrained bars are spread as evenly as the bars allow."))
-	for j, i := range f.Restrained[1 : len(f.Restrained)-1] {
+	rs := f.Restrained()
+	for j := 1; j < len(rs)-1; j++ {
+		i := rs[j]
 		idx := trace.Const(float64(i), "i", "")
-		l.Add(trace.Formula(prefix+"tie"+strconv.Itoa(j+1), "Bar held by an extra tie on "+faces+": distance from the corner bar",
-			ec2+"9.5.3(6)", "a_"+side+","+strconv.Itoa(j+1), "mm", float64(i)*f.Spacing, "i * s", trace.A("i", idx), trace.A("s", s)))
+		l.Add(trace.Formula(prefix+"tie"+strconv.Itoa(j), "Bar held by an extra tie on "+faces+": distance from the corner bar",
+			ec2+"9.5.3(6)", "a_"+side+","+strconv.Itoa(j), "mm", float64(i)*f.Spacing, "i * s", trace.A("i", idx), trace.A("s", s)))
 	}
 	d := l.Add(trace.Formula(prefix+"d_max", "Greatest distance of a bar from a restrained bar along "+faces,
 		ec2+"9.5.3(6)", "d_max,"+side, "mm", f.Farthest, "floor(floor((n - 1 + k) / (k + 1)) / 2) * s",

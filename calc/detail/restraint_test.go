@@ -55,8 +55,8 @@ func TestRestraintByHand(t *testing.T) {
 		r := c.g.Restraint(c.p, RestraintLimit)
 		near(t, c.name+" spacing b", r.AlongB.Spacing, c.sB, 1e-9)
 		near(t, c.name+" spacing h", r.AlongH.Spacing, c.sH, 1e-9)
-		if !reflect.DeepEqual(r.AlongB.Restrained, c.restB) || !reflect.DeepEqual(r.AlongH.Restrained, c.restH) {
-			t.Errorf("%s: restrained %v / %v, want %v / %v", c.name, r.AlongB.Restrained, r.AlongH.Restrained, c.restB, c.restH)
+		if !reflect.DeepEqual(r.AlongB.Restrained(), c.restB) || !reflect.DeepEqual(r.AlongH.Restrained(), c.restH) {
+			t.Errorf("%s: restrained %v / %v, want %v / %v", c.name, r.AlongB.Restrained(), r.AlongH.Restrained(), c.restB, c.restH)
 		}
 		near(t, c.name+" farthest b", r.AlongB.Farthest, c.dB, 1e-9)
 		near(t, c.name+" farthest h", r.AlongH.Farthest, c.dH, 1e-9)
@@ -93,11 +93,11 @@ func TestRestraintFewest(t *testing.T) {
 	for n := 2; n <= 14; n++ {
 		for _, s := range []float64{40, 75, 100, 145, 150, 151, 200, 300} {
 			f := restrainFace(n, s, RestraintLimit)
-			if got := farthest(f.Restrained, n, s); f.Farthest != got || got > RestraintLimit {
+			if got := farthest(f.Restrained(), n, s); f.Farthest != got || got > RestraintLimit {
 				t.Errorf("n %d s %g: farthest %g recorded, %g actual", n, s, f.Farthest, got)
 			}
-			if len(f.Restrained) != f.Extra+2 || f.Restrained[0] != 0 || f.Restrained[len(f.Restrained)-1] != n-1 {
-				t.Errorf("n %d s %g: restrained %v, extra %d", n, s, f.Restrained, f.Extra)
+			if len(f.Restrained()) != f.Extra+2 || f.Restrained()[0] != 0 || f.Restrained()[len(f.Restrained())-1] != n-1 {
+				t.Errorf("n %d s %g: restrained %v, extra %d", n, s, f.Restrained(), f.Extra)
 			}
 			best := n
 			for mask := 0; mask < 1<<(n-2); mask++ {

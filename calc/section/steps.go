@@ -20,6 +20,43 @@ const (
 	methodUniform = "none: N_Ed reaches N_Rd,max, so the strain is uniform over the section"
 )
 
+// layerName holds the names of bar layer i+1 in the trace: the strings are the same for every
+// section, so they are made once for the first layers rather than at each step.
+type layerName struct {
+	num                 string    // "1", "2", …
+	fs, as, epsS, sigS  string    // F_s1, A_s1, ε_s1, σ_s1
+	sigC                string    // σ_c1
+	epsID, sigID, sigCI string    // eps_s1, sigma_s1, sigma_c1
+	coord               [2]string // z_s1 (bending about y), y_s1 (about z)
+	stress, concrete    string    // titles of the steel and displaced-concrete stresses
+	force               string    // title of the layer force
+}
+
+// layerNames are the names of the first bar layers; layerNamed makes those of any layer.
+var layerNames = func() (out [24]layerName) {
+	for i := range out {
+		out[i] = makeLayerName(i)
+	}
+	return out
+}()
+
+func makeLayerName(i int) layerName {
+	n := strconv.Itoa(i + 1)
+	return layerName{num: n, fs: "F_s" + n, as: "A_s" + n, epsS: "ε_s" + n, sigS: "σ_s" + n, sigC: "σ_c" + n,
+		epsID: "eps_s" + n, sigID: "sigma_s" + n, sigCI: "sigma_c" + n, coord: [2]string{"z_s" + n, "y_s" + n},
+		stress:   "Steel stress in layer " + n + ", Es·ε limited to ±f_yd",
+		concrete: "Stress of the concrete displaced by layer " + n,
+		force:    "Force in layer " + n + ", displaced concrete deducted"}
+}
+
+// layerNamed returns the names of bar layer i+1.
+func layerNamed(i int) layerName {
+	if i < len(layerNames) {
+		return layerNames[i]
+	}
+	return makeLayerName(i)
+}
+
 // Refs names the steps that produced the section's inputs, so that trace arguments can
 // point at them; empty fields leave the arguments without a producing step.
 type Refs struct {
@@ -71,7 +108,6 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 
 	// IDs of later steps, as the log will name them (the solve step refers forward to them).
 	full := func(name string) string { return log.Prefix + id + name }
-	li := func(name string, i int) string { return name + strconv.Itoa(i+1) }
 
 	// Layer forces, computed first so that the solve step can state the residual.
 	// Every value below mirrors its expression operation for operation (float64()
@@ -164,9 +200,9 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	vargs := []trace.Arg{trace.A("F_c", trace.Q{V: fc, Symbol: "F_c", Unit: "N", From: full("F_c")})}
 	res := fc
 	for i := range layers {
-		name := li("F_s", i)
+		name := layerNamed(i).fs
 		verify = append(verify, name)
-		vargs = append(vargs, trace.A(name, trace.Q{V: vals[i].force, Symbol: li("F_s", i), Unit: "N", From: full(name)}))
+		vargs = append(vargs, trace.A(name, trace.Q{V: vals[i].force, Symbol: name, Unit: "N", From: full(name)}))
 		res += vals[i].force
 	}
 	vargs = append(vargs, trace.A("N_Ed", NEd))
@@ -269,22 +305,27 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	mexpr := []string{"F_c * " + cq}
 	margs := []trace.Arg{trace.A("F_c", fcQ), trace.A(cq, zcQ)}
 	mval := float64(fc * zc)
+	ax := 0
+	if axis == AxisZ {
+		ax = 1
+	}
 	for i, l := range layers {
 		v := vals[i]
+		nm := layerNamed(i)
 		// The layer's coordinate and area are data of the bar layout (listed in the bar step).
-		zq := trace.Q{V: l.Coord, Symbol: li(cn+"_s", i), Unit: "mm"}
-		aq := trace.Q{V: l.Area, Symbol: li("A_s", i), Unit: "mm2"}
+		zq := trace.Q{V: l.Coord, Symbol: nm.coord[ax], Unit: "mm"}
+		aq := trace.Q{V: l.Area, Symbol: nm.as, Unit: "mm2"}
 		var eStep trace.Step
-		title := "Strain of bar layer " + strconv.Itoa(i+1) + " (" + strconv.Itoa(l.Bars) + " bar(s) at " + zq.Symbol + ")"
+		title := "Strain of bar layer " + nm.num + " (" + strconv.Itoa(l.Bars) + " bar(s) at " + zq.Symbol + ")"
 		if !pr.pivotC {
-			eStep = trace.Formula(id+li("eps_s", i), title, clausePlane, li("ε_s", i), "", v.eps,
+			eStep = trace.Formula(id+nm.epsID, title, clausePlane, nm.epsS, "", v.eps,
 				ultn+" * (x - "+depthExpr+") / x", trace.A(ultn, eult), trace.A("x", xq), trace.A(dn, dq), trace.A("z", zq))
 		} else {
-			eStep = trace.Formula(id+li("eps_s", i), title, clausePlane, li("ε_s", i), "", v.eps,
+			eStep = trace.Formula(id+nm.epsID, title, clausePlane, nm.epsS, "", v.eps,
 				"eps_top - (eps_top - eps_bot) * "+depthExpr+" / "+dn, trace.A("eps_top", etq), trace.A("eps_bot", ebq), trace.A(dn, dq), trace.A("z", zq))
 		}
 		eQ := log.Add(eStep)
-		sStep := trace.Formula(id+li("sigma_s", i), "Steel stress in layer "+strconv.Itoa(i+1)+", Es·ε limited to ±f_yd", clauseSteel, li("σ_s", i), "MPa", v.ss,
+		sStep := trace.Formula(id+nm.sigID, nm.stress, clauseSteel, nm.sigS, "MPa", v.ss,
 			"max(-fyd, min(fyd, Es * eps))", trace.A("fyd", fyd), trace.A("Es", es), trace.A("eps", eQ))
 		// Shown as the branch of the stress-strain line that applies: elastic, or yielded at ±f_yd.
 		switch {
@@ -297,21 +338,21 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 		}
 		sQ := log.Add(sStep)
 		var cStep trace.Step
-		ctitle := "Stress of the concrete displaced by layer " + strconv.Itoa(i+1)
+		ctitle := nm.concrete
 		if f.rect {
 			t := D/2 - l.Coord
 			if face == Negative {
 				t = D/2 + l.Coord
 			}
 			if t < dc {
-				cStep = trace.Formula(id+li("sigma_c", i), ctitle, clauseRect, li("σ_c", i), "MPa", v.sc,
+				cStep = trace.Formula(id+nm.sigCI, ctitle, clauseRect, nm.sigC, "MPa", v.sc,
 					"eta * fcd", trace.A("eta", eta), trace.A("fcd", fcd)).Note("The layer lies within the stress block (its depth is less than d_c).")
 			} else {
-				cStep = trace.Formula(id+li("sigma_c", i), ctitle, clauseRect, li("σ_c", i), "MPa", v.sc, "0").
+				cStep = trace.Formula(id+nm.sigCI, ctitle, clauseRect, nm.sigC, "MPa", v.sc, "0").
 					Note("The layer lies outside the stress block (its depth is at least d_c).")
 			}
 		} else {
-			cStep = trace.Formula(id+li("sigma_c", i), ctitle, clausePR, li("σ_c", i), "MPa", v.sc,
+			cStep = trace.Formula(id+nm.sigCI, ctitle, clausePR, nm.sigC, "MPa", v.sc,
 				"fcd * (1 - (1 - min(max(eps, 0), "+pkn+") / "+pkn+") ** n)",
 				trace.A("fcd", fcd), trace.A("eps", eQ), trace.A(pkn, epk), trace.A("n", nq))
 			// Shown as the branch of the parabola-rectangle diagram that applies.
@@ -325,9 +366,9 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 			}
 		}
 		cQ := log.Add(cStep)
-		fQ := log.Add(trace.Formula(id+li("F_s", i), "Force in layer "+strconv.Itoa(i+1)+", displaced concrete deducted", clauseCommon, li("F_s", i), "N", v.force,
+		fQ := log.Add(trace.Formula(id+nm.fs, nm.force, clauseCommon, nm.fs, "N", v.force,
 			"A * (sigma_s - sigma_c)", trace.A("A", aq), trace.A("sigma_s", sQ), trace.A("sigma_c", cQ)))
-		fn, zn := li("F_s", i), li(cn+"_s", i)
+		fn, zn := nm.fs, nm.coord[ax]
 		mexpr = append(mexpr, fn+" * "+zn)
 		margs = append(margs, trace.A(fn, fQ), trace.A(zn, zq))
 		mval = mval + float64(v.force*l.Coord)

@@ -83,6 +83,7 @@ type stepMore struct {
 	row, method, verify string
 	residual            float64
 	notes, cautions     []string
+	first               [1]string // the first note, so that a step with one note takes one allocation
 }
 
 // Row returns the table row read, for a table step.
@@ -253,7 +254,12 @@ func Check(id, title, clause, relation string, ratio float64, expr string, args 
 // Note returns a copy of the step with a note for the reader added.
 func (s Step) Note(text string) Step {
 	m := s.edit()
-	m.notes = append(m.notes, text)
+	if len(m.notes) == 0 {
+		m.first[0] = text
+		m.notes = m.first[:1:1]
+	} else {
+		m.notes = append(m.notes, text)
+	}
 	s.set(m)
 	return s
 }
