@@ -11,6 +11,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"sync"
 	"unicode/utf8"
 
 	"colsheet/calc/code"
@@ -286,27 +287,74 @@ func NewJSONStream(w io.Writer, tool, version string, in *model.Input) (*JSONStr
 	return s, s.e.err
 }
 
-// Design writes the next design, its trace packed.
-func (s *JSONStream) Design(d *design.Design) error {
-	if err := finiteDesign(d); err != nil {
-		return err
+// Design writes the next design, its trace packed: Write(EncodeDesign(d)).
+func (s *JSONStream) Design(d *design.Design) error { return s.Write(EncodeDesign(d)) }
+
+// EncodedDesign is the text of one design of results.json made ahead of its turn, on any
+// goroutine (EncodeDesign), for JSONStream.Write to put in its place: all of it but the form
+// numbers of its steps, which depend on the designs written before it.
+type EncodedDesign struct {
+	d    *design.Design
+	text []byte // the design, each step's form number left out
+	cuts []int  // where in text each step's form number goes
+	err  error  // a number that is not finite, or an encoding error
+}
+
+// EncodeDesign makes the text of design d for results.json. It is safe for concurrent use;
+// d and its steps must not change until the text is written.
+func EncodeDesign(d *design.Design) *EncodedDesign {
+	e := &EncodedDesign{d: d}
+	if e.err = finiteDesign(d); e.err != nil {
+		return e
+	}
+	// The design without its trace, then the trace, the last key, appended by hand.
+	text := (*textPool.Get().(*[]byte))[:0] // this design's own until written
+	if text, e.err = appendObjectOpen(text, designJSON(*d)); e.err != nil {
+		return e
+	}
+	text = append(text, `,"trace":[`...)
+	prefix := d.Column + "/" + d.Storey + "/"
+	e.cuts = make([]int, len(d.Steps))
+	for i := range d.Steps {
+		if i > 0 {
+			text = append(text, ',')
+		}
+		text = appendStepText(text, &d.Steps[i], prefix, &e.cuts[i])
+	}
+	e.text = append(text, "]}"...)
+	return e
+}
+
+// textPool holds the byte slices of written designs' texts for the next ones.
+var textPool = sync.Pool{New: func() any { return new([]byte) }}
+
+// Write writes the next design from its text, giving each step its form.
+func (s *JSONStream) Write(e *EncodedDesign) error {
+	if e.err != nil {
+		return e.err
+	}
+	if s.e.err != nil {
+		return s.e.err
 	}
 	if s.n > 0 {
 		s.e.raw(",")
 	}
 	s.n++
-	// The design without its trace, then the trace, the last key, appended by hand.
-	s.e.valueOpen(designJSON(*d))
-	s.e.raw(`,"trace":[`)
-	prefix := d.Column + "/" + d.Storey + "/"
-	for i := range d.Steps {
-		if i > 0 {
-			s.e.raw(",")
+	b := s.e.scratch[:0]
+	at := 0
+	for i, c := range e.cuts {
+		b = append(b[:0], e.text[at:c]...)
+		b = strconv.AppendInt(b, int64(s.pk.formOf(&e.d.Steps[i])), 10)
+		if _, s.e.err = s.e.w.Write(b); s.e.err != nil {
+			return s.e.err
 		}
-		st := &d.Steps[i]
-		s.e.step(st, prefix, s.pk.formOf(st))
+		at = c
 	}
-	s.e.raw("]}")
+	s.e.scratch = b
+	_, s.e.err = s.e.w.Write(e.text[at:])
+	text := e.text[:0]
+	e.text, e.d = nil, nil
+	textPool.Put(&text)
 	return s.e.err
 }
 
@@ -448,20 +496,34 @@ func (e *jsonWriter) value(v any) {
 	}
 }
 
-// valueOpen writes the JSON object v without its closing brace, for keys to follow by hand.
-func (e *jsonWriter) valueOpen(v any) {
-	if e.err != nil {
-		return
+// objectEncoder is an encoder of JSON without HTML escapes, with its buffer.
+type objectEncoder struct {
+	buf bytes.Buffer
+	enc *json.Encoder
+}
+
+// encoders holds objectEncoders for appendObjectOpen, which may run on several goroutines.
+var encoders = sync.Pool{New: func() any {
+	o := &objectEncoder{}
+	o.enc = json.NewEncoder(&o.buf)
+	o.enc.SetEscapeHTML(false)
+	return o
+}}
+
+// appendObjectOpen appends the JSON object v as encoding/json writes it (no HTML escapes)
+// without its closing brace, for keys to follow by hand.
+func appendObjectOpen(b []byte, v any) ([]byte, error) {
+	o := encoders.Get().(*objectEncoder)
+	defer encoders.Put(o)
+	o.buf.Reset()
+	if err := o.enc.Encode(v); err != nil {
+		return b, err
 	}
-	e.buf.Reset()
-	if e.err = e.enc.Encode(v); e.err == nil {
-		b := bytes.TrimSuffix(e.buf.Bytes(), []byte("\n"))
-		if len(b) == 0 || b[len(b)-1] != '}' {
-			e.err = fmt.Errorf("reports: %T is not a JSON object", v)
-			return
-		}
-		_, e.err = e.w.Write(b[:len(b)-1])
+	t := bytes.TrimSuffix(o.buf.Bytes(), []byte("\n"))
+	if len(t) == 0 || t[len(t)-1] != '}' {
+		return b, fmt.Errorf("reports: %T is not a JSON object", v)
 	}
+	return append(b, t[:len(t)-1]...), nil
 }
 
 // step writes step st packed under the form k, its ID prefixed by prefix (see jsonStep): the
@@ -470,11 +532,30 @@ func (e *jsonWriter) step(st *trace.Step, prefix string, k int) {
 	if e.err != nil {
 		return
 	}
-	b := e.scratch[:0]
+	b := appendStepHead(e.scratch[:0], st, prefix)
+	b = strconv.AppendInt(b, int64(k), 10)
+	b = appendStepTail(b, st)
+	e.scratch = b
+	_, e.err = e.w.Write(b)
+}
+
+// appendStepText appends the packed text of step st (see step) without its form number,
+// setting *cut to the place where the number goes.
+func appendStepText(b []byte, st *trace.Step, prefix string, cut *int) []byte {
+	b = appendStepHead(b, st, prefix)
+	*cut = len(b)
+	return appendStepTail(b, st)
+}
+
+// appendStepHead appends the packed text of step st up to its form number.
+func appendStepHead(b []byte, st *trace.Step, prefix string) []byte {
 	b = append(b, `{"id":`...)
 	b = appendJSONString(b, prefix, st.ID)
-	b = append(b, `,"form":`...)
-	b = strconv.AppendInt(b, int64(k), 10)
+	return append(b, `,"form":`...)
+}
+
+// appendStepTail appends the packed text of step st after its form number.
+func appendStepTail(b []byte, st *trace.Step) []byte {
 	b = append(b, `,"value":`...)
 	b = appendJSONFloat(b, st.Value)
 	if len(st.Args) > 0 {
@@ -495,9 +576,7 @@ func (e *jsonWriter) step(st *trace.Step, prefix string, k int) {
 		b = append(b, `,"verdict":`...)
 		b = appendJSONString(b, "", st.Verdict)
 	}
-	b = append(b, '}')
-	e.scratch = b
-	_, e.err = e.w.Write(b)
+	return append(b, '}')
 }
 
 // form writes the form of step st (see formJSON).

@@ -25,7 +25,7 @@ const Version = "devel"
 // Run designs or checks every column and lift of the input.
 // For the building form it first derives the actions of every column and lift; an error
 // then names a fault of the building that the input reader could not see.
-func Run(in *model.Input) (*Result, error) { return run(in, nil, nil, true) }
+func Run(in *model.Input) (*Result, error) { return run(in, Hooks{}, true) }
 
 // Stream designs or checks every column and lift of the input as Run does, adds each design's
 // interaction data (AddInteraction) and hands each design to emit in input order as soon as it
@@ -39,7 +39,27 @@ func Run(in *model.Input) (*Result, error) { return run(in, nil, nil, true) }
 // lift's trace go as soon as the lift is designed and designs the lift again, the same, when
 // its column is handed on. An error from start or emit stops the run and is returned.
 func Stream(in *model.Input, keep bool, start func(r *Result) error, emit func(k int, d *Design) error) (*Result, error) {
-	return run(in, start, func(k int, d *Design) error {
+	return StreamWith(in, keep, Hooks{Start: start, Emit: emit})
+}
+
+// Hooks are the calls a streamed run makes to its caller (StreamWith).
+type Hooks struct {
+	// Start, when not nil, is given the result before the first design is handed on, as
+	// Stream's start.
+	Start func(r *Result) error
+	// Ready, when not nil, is given each design once it is whole (with its interaction data)
+	// and before it is handed on, on the worker that made it: several at once and in any
+	// order, so that work on a design that does not depend on the others (its text, say) is
+	// spread over the workers. It may read the design but not change it.
+	Ready func(k int, d *Design)
+	// Emit is handed each design in input order, as Stream's emit.
+	Emit func(k int, d *Design) error
+}
+
+// StreamWith is Stream with the calls of h; h.Emit must not be nil.
+func StreamWith(in *model.Input, keep bool, h Hooks) (*Result, error) {
+	emit := h.Emit
+	h.Emit = func(k int, d *Design) error {
 		if err := emit(k, d); err != nil {
 			return err
 		}
@@ -47,13 +67,15 @@ func Stream(in *model.Input, keep bool, start func(r *Result) error, emit func(k
 			d.letGo()
 		}
 		return nil
-	}, keep)
+	}
+	return run(in, h, keep)
 }
 
-// run is Run, handing each design to emit (when not nil) in input order as Stream says, each
-// with its interaction data, after start (when not nil); with keep false, the building form's
-// first pass keeps no trace.
-func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Design) error, keep bool) (*Result, error) {
+// run is Run, handing each design to h.Emit (when not nil) in input order as Stream says,
+// each with its interaction data and once h.Ready (when not nil) has seen it, after h.Start
+// (when not nil); with keep false, the building form's first pass keeps no trace.
+func run(in *model.Input, h Hooks, keep bool) (*Result, error) {
+	start, emit := h.Start, h.Emit
 	r := &Result{ToolName: "colsheet", ToolVersion: Version, Input: in, Methods: methods(in), bs: newBasis(in), curves: &curveMemo{}}
 	r.Basis = r.bs.public() // the basis is whole before any lift is designed
 	if in.Building != nil {
@@ -134,6 +156,9 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 				}
 				if emit != nil {
 					addInteraction(&r.Designs[k], r.curves)
+					if h.Ready != nil {
+						h.Ready(k, &r.Designs[k])
+					}
 				}
 			}
 		}
@@ -183,6 +208,9 @@ func run(in *model.Input, start func(r *Result) error, emit func(k int, d *Desig
 			r.Designs[k] = design(in, r.cases[k].col, r.cases[k].st, nil, r.bs)
 			if emit != nil {
 				addInteraction(&r.Designs[k], r.curves)
+				if h.Ready != nil {
+					h.Ready(k, &r.Designs[k])
+				}
 			}
 		}
 		if emit == nil {

@@ -57,6 +57,9 @@ func layerNamed(i int) layerName {
 	return makeLayerName(i)
 }
 
+// resistSymbol is the symbol of the moment of resistance about each axis.
+var resistSymbol = [...]string{AxisY: "M_Rd,y", AxisZ: "M_Rd,z"}
+
 // Refs names the steps that produced the section's inputs, so that trace arguments can
 // point at them; empty fields leave the arguments without a producing step.
 type Refs struct {
@@ -194,6 +197,14 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 		}
 		vals[i] = lv{e, ss, sc, l.Area * (ss - sc)}
 	}
+	mval := float64(fc * zc)
+	for i, l := range layers {
+		mval = mval + float64(vals[i].force*l.Coord)
+	}
+	if log.Trial {
+		// A log that keeps no formula step: the moment alone, as the last step would give it.
+		return trace.Q{V: mval, Symbol: resistSymbol[axis], Unit: "Nmm", From: id + "M_Rd"}
+	}
 
 	// 1. Solve step with the equilibrium residual.
 	verify := []string{"F_c"}
@@ -304,7 +315,6 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 	// 3. Bar layers.
 	mexpr := []string{"F_c * " + cq}
 	margs := []trace.Arg{trace.A("F_c", fcQ), trace.A(cq, zcQ)}
-	mval := float64(fc * zc)
 	ax := 0
 	if axis == AxisZ {
 		ax = 1
@@ -371,11 +381,10 @@ func (s *Section) Trace(log *trace.Log, id string, NEd trace.Q, st State, refs R
 		fn, zn := nm.fs, nm.coord[ax]
 		mexpr = append(mexpr, fn+" * "+zn)
 		margs = append(margs, trace.A(fn, fQ), trace.A(zn, zq))
-		mval = mval + float64(v.force*l.Coord)
 	}
 
 	// 4. Moment of resistance.
-	mstep := trace.Formula(id+"M_Rd", "Design moment of resistance about "+axis.String()+" at N_Ed", clausePlane, "M_Rd,"+axis.String(), "Nmm", mval,
+	mstep := trace.Formula(id+"M_Rd", "Design moment of resistance about "+axis.String()+" at N_Ed", clausePlane, resistSymbol[axis], "Nmm", mval,
 		strings.Join(mexpr, " + "), margs...).
 		Note("Moments about the centroid, Σ F·" + cn + "; positive when the compressed face is on the positive side.")
 	return log.Add(mstep)

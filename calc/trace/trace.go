@@ -83,7 +83,13 @@ type stepMore struct {
 	row, method, verify string
 	residual            float64
 	notes, cautions     []string
-	first               [1]string // the first note, so that a step with one note takes one allocation
+}
+
+// withNote is the rarer parts of a step with room for its first note, so that a step's first
+// note takes one allocation.
+type withNote struct {
+	m    stepMore
+	note [1]string
 }
 
 // Row returns the table row read, for a table step.
@@ -253,13 +259,18 @@ func Check(id, title, clause, relation string, ratio float64, expr string, args 
 
 // Note returns a copy of the step with a note for the reader added.
 func (s Step) Note(text string) Step {
-	m := s.edit()
-	if len(m.notes) == 0 {
-		m.first[0] = text
-		m.notes = m.first[:1:1]
-	} else {
-		m.notes = append(m.notes, text)
+	if s.more == nil || len(s.more.notes) == 0 {
+		x := &withNote{note: [1]string{text}}
+		if s.more != nil {
+			x.m = *s.more
+			x.m.cautions = slices.Clip(x.m.cautions)
+		}
+		x.m.notes = x.note[:1:1]
+		s.more = &x.m
+		return s
 	}
+	m := s.edit()
+	m.notes = append(m.notes, text)
 	s.set(m)
 	return s
 }

@@ -286,7 +286,11 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 		if err != nil {
 			return err
 		}
+		// Each design's text for results.json is made on the worker that designed it, and
+		// written in order (the forms of its steps depend on the designs before it).
+		var texts []*reports.EncodedDesign
 		start := func(r *design.Result) error {
+			texts = make([]*reports.EncodedDesign, len(r.Designs))
 			// The build's own version, in results.json, the manifest and every title block.
 			r.ToolVersion = version()
 			if !streamed {
@@ -297,19 +301,26 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 		}
 		// With --only, the designs of the others are made (the take-down and the typical bars
 		// need the whole building) but neither written nor kept.
-		res, runErr = design.Stream(in, sheets && !streamed, start, func(k int, d *design.Design) error {
+		ready := func(k int, d *design.Design) {
+			if o.only.has(d) {
+				texts[k] = reports.EncodeDesign(d)
+			}
+		}
+		res, runErr = design.StreamWith(in, sheets && !streamed, design.Hooks{Start: start, Ready: ready, Emit: func(k int, d *design.Design) error {
 			prog.step()
 			if !o.only.has(d) {
 				return nil
 			}
-			if err := js.Design(d); err != nil {
+			text := texts[k]
+			texts[k] = nil
+			if err := js.Write(text); err != nil {
 				return err
 			}
 			if sheetStream != nil {
 				printErr = sheetStream.Design(k, d)
 			}
 			return printErr
-		})
+		}})
 		if printErr != nil {
 			return printErr
 		}

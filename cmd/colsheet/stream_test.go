@@ -1,12 +1,18 @@
 package main
 
 import (
+	"bytes"
+	"fmt"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 	"testing"
 	"time"
 
+	"colsheet/calc/design"
+	"colsheet/calc/input"
+	"colsheet/reports"
 	"colsheet/reports/archive"
 )
 
@@ -111,5 +117,56 @@ func TestProgress(t *testing.T) {
 	}
 	if code, _, stderr := runCLI("design", "../../testdata/columns.yaml", "-o", filepath.Join(t.TempDir(), "o"), "-q"); code != 0 {
 		t.Errorf("-q: exit %d %s", code, stderr)
+	}
+}
+
+// The design command's results.json, each design's text made on the worker that designed it and
+// written in order, is byte-equal to the whole result encoded at once, on one worker and on
+// several (common practice, no source: the order of the work must not show in the output).
+func TestResultsTextInOrder(t *testing.T) {
+	dir := t.TempDir()
+	gen := filepath.Join(dir, "generated.yaml")
+	if err := os.WriteFile(gen, []byte(generatedActions(300)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	files := []string{"../../testdata/columns.yaml", gen}
+	if !testing.Short() {
+		files = append(files, "../../testdata/demo.yaml")
+	}
+	for _, file := range files {
+		data, err := os.ReadFile(file)
+		if err != nil {
+			t.Fatal(err)
+		}
+		in, err := input.Parse(file, data)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := design.Run(in)
+		if err != nil {
+			t.Fatal(err)
+		}
+		design.AddInteraction(r)
+		r.ToolVersion = version()
+		want, err := reports.JSON(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, procs := range []int{1, 2, 5} {
+			func() {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				out := filepath.Join(dir, fmt.Sprintf("out-%s-%d", filepath.Base(file), procs))
+				if code, _, stderr := runCLI("design", file, "-o", out, "-q", "--formats", ""); code > 1 {
+					t.Fatalf("%s: exit %d %s", file, code, stderr)
+				}
+				got, err := os.ReadFile(filepath.Join(out, "results.json"))
+				if err != nil {
+					t.Fatal(err)
+				}
+				if !bytes.Equal(got, want) {
+					t.Errorf("%s on %d workers: results.json differs from the whole result encoded at once", file, procs)
+				}
+			}()
+		}
 	}
 }
