@@ -591,6 +591,10 @@ func (e *jsonWriter) form(st *trace.Step) {
 // appendJSONFloat appends v as encoding/json writes a float64: the shortest form that reads
 // back, in exponent form below 1e-6 and from 1e21, with a two-digit exponent cut to one.
 func appendJSONFloat(b []byte, v float64) []byte {
+	if v == math.Trunc(v) && math.Abs(v) < 1e15 && (v != 0 || !math.Signbit(v)) {
+		// A whole number below 1e15 is exact in an int64 and written with its digits alone.
+		return strconv.AppendInt(b, int64(v), 10)
+	}
 	f := byte('f')
 	if a := math.Abs(v); a != 0 && (a < 1e-6 || a >= 1e21) {
 		f = 'e'

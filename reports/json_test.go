@@ -289,7 +289,13 @@ func TestJSONCircle(t *testing.T) {
 // library; compact, no HTML escapes) for awkward strings and numbers.
 func TestStepEncodingMatchesEncodingJSON(t *testing.T) {
 	strs := []string{"", "K1/L1/geo/b", "a\"b\\c", "tab\tnew\nline\r", "\x00\x01\x1f", "<&>", "λ φ_ef ≤ 1", "\u2028\u2029", "bad\xffutf8", "é\xc3"}
-	nums := []float64{0, 1, -1, 0.1, 1e-6, 9.99e-7, 1e-7, 1.5e-9, 1e20, 1e21, 1.234e25, -3.3e-12, 123456789.125, math.SmallestNonzeroFloat64, math.MaxFloat64}
+	nums := []float64{0, math.Copysign(0, -1), 1, -1, 0.1, 1e-6, 9.99e-7, 1e-7, 1.5e-9, 1e20, 1e21, 1.234e25, -3.3e-12, 123456789.125, math.SmallestNonzeroFloat64, math.MaxFloat64,
+		// whole numbers, written as integers below 1e15
+		6000, -26e6, 999999999999999, -999999999999999, 1e15, 1e15 + 2, 1 << 53, -(1 << 53), 4.5e15, 123456789012345678}
+	for k := 0; k < 2000; k++ { // whole numbers of every size, common practice, no source
+		v := math.Trunc(math.Pow(10, float64(k%20)) * (1 + float64(k)/7))
+		nums = append(nums, v, -v)
+	}
 	for _, s := range strs {
 		want, _ := json.Marshal(s)
 		var b bytes.Buffer

@@ -334,3 +334,40 @@ func FuzzEval(f *testing.F) {
 func plainNumber(s string) bool {
 	return strings.Trim(s, "0123456789.") == ""
 }
+
+// matchName agrees with matching word by word on the name split after its spaces, each space
+// matching one or more (common practice, no source), for names and texts with odd spacing.
+func TestMatchNameWords(t *testing.T) {
+	byWords := func(s, name string) (int, bool) {
+		i := 0
+		for _, part := range strings.SplitAfter(name, " ") {
+			word := strings.TrimSuffix(part, " ")
+			if !strings.HasPrefix(s[i:], word) {
+				return 0, false
+			}
+			i += len(word)
+			if strings.HasSuffix(part, " ") {
+				j := i
+				for j < len(s) && s[j] == ' ' {
+					j++
+				}
+				if j == i {
+					return 0, false
+				}
+				i = j
+			}
+		}
+		return i, true
+	}
+	names := []string{"", "m", "kN", "kN m", "kN  m", "kN m ", " kN", "per cent", "a b c"}
+	texts := []string{"", "m", "mm", "kN", "kNm", "kN m", "kN   m/m", "kN  m", "kN m ", " kN", "per  cent", "a b c d", "a  b  c", "kN\tm"}
+	for _, name := range names {
+		for _, s := range texts {
+			gn, gok := matchName(s, name)
+			wn, wok := byWords(s, name)
+			if gn != wn || gok != wok {
+				t.Errorf("matchName(%q, %q) = %d, %v; want %d, %v", s, name, gn, gok, wn, wok)
+			}
+		}
+	}
+}

@@ -71,24 +71,24 @@ func matchUnit(s string) (Unit, int, bool) {
 // matchName matches name at the start of s, a space in name matching one or more spaces.
 func matchName(s, name string) (int, bool) {
 	i := 0
-	for _, part := range strings.SplitAfter(name, " ") {
-		word := strings.TrimSuffix(part, " ")
+	for {
+		word, rest, space := strings.Cut(name, " ")
 		if !strings.HasPrefix(s[i:], word) {
 			return 0, false
 		}
 		i += len(word)
-		if strings.HasSuffix(part, " ") {
-			j := i
-			for j < len(s) && s[j] == ' ' {
-				j++
-			}
-			if j == i {
-				return 0, false
-			}
-			i = j
+		if !space {
+			return i, true
 		}
+		j := i
+		for j < len(s) && s[j] == ' ' {
+			j++
+		}
+		if j == i {
+			return 0, false
+		}
+		i, name = j, rest
 	}
-	return i, true
 }
 
 // wordRune reports whether r may continue a name or a unit.

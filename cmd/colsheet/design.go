@@ -375,7 +375,10 @@ func produce(o options, in *model.Input, data []byte, stderr io.Writer) (j *job,
 // inputs of more than 4,096 lifts (1 MiB per lift where every trace is held until the sheets
 // are printed: --against, --only). Below the limit the collector runs as GOGC says; near it,
 // sooner, so that a run holding a few hundred megabytes does not take twice that (the 40-storey
-// building of 4,000 lifts holds some 480 MB at most when streamed; see BenchmarkOutput).
+// building of 4,000 lifts holds some 480 MB at most when streamed; see BenchmarkOutput). Where
+// the limit is the 768 MiB floor, and GOGC is not set, the collector waits for the heap to
+// triple rather than double (GOGC 200): fewer collections for runs that hold little, the limit
+// bounding the heap of those that hold more.
 func heapLimit(in *model.Input, traces bool) {
 	if os.Getenv("GOMEMLIMIT") != "" {
 		return
@@ -388,7 +391,11 @@ func heapLimit(in *model.Input, traces bool) {
 	if traces {
 		per = 1 << 20
 	}
-	debug.SetMemoryLimit(max(768<<20, int64(n)*per))
+	limit := max(768<<20, int64(n)*per)
+	debug.SetMemoryLimit(limit)
+	if limit == 768<<20 && os.Getenv("GOGC") == "" {
+		debug.SetGCPercent(200)
+	}
 }
 
 // lifts returns the number of lifts of the actions form of in, 0 for the building form (whose
