@@ -50,6 +50,19 @@ func BenchmarkBuilding40x100(b *testing.B) {
 	}
 }
 
+// BenchmarkBuilding40x100Stream measures the same as the design command runs it: streamed,
+// each design handed on with its interaction data and then let go (Stream with keep false: the
+// first pass designs each lift without its trace, the second with it).
+func BenchmarkBuilding40x100Stream(b *testing.B) {
+	in := generatedBuilding(40, 9, model.AnalysisSubframe)
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		if _, err := Stream(in, false, nil, func(int, *Design) error { return nil }); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
 // BenchmarkBuilding40x100Frame is the same with the full-frame analysis.
 func BenchmarkBuilding40x100Frame(b *testing.B) {
 	in := generatedBuilding(40, 9, model.AnalysisFrame)
