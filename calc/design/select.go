@@ -128,10 +128,10 @@ func (c *common) options(r rules) (roomy, tight []option) {
 	w := weights(r.sel)
 	for p, ok := it.Next(); ok; p, ok = it.Next() {
 		g := c.geometry(p)
-		if r.above != nil && !detail.ContinuesAt(r.above.g, r.above.p, r.above.pos, g, p, nil).OK() {
+		if r.above != nil && !detail.ContinuesOK(r.above.g, r.above.p, r.above.pos, g, p, nil) {
 			continue
 		}
-		if r.below != nil && !detail.ContinuesAt(g, p, nil, r.below.g, r.below.p, r.below.pos).OK() {
+		if r.below != nil && !detail.ContinuesOK(g, p, nil, r.below.g, r.below.p, r.below.pos) {
 			continue
 		}
 		o := option{p: p, roomy: r.sel.VibratorGap <= 0 || g.Roomy(p, r.sel.VibratorGap),

@@ -201,6 +201,18 @@ func Continues(ga Geometry, a Pattern, g Geometry, p Pattern) Continuity {
 // ContinuesAt is Continues with the bar positions of the lift above, posA (ga.Positions(a)),
 // and of this lift, pos (g.Positions(p)), where the caller holds them; nil: worked out here.
 func ContinuesAt(ga Geometry, a Pattern, posA [][2]float64, g Geometry, p Pattern, pos [][2]float64) Continuity {
+	return continues(ga, a, posA, g, p, pos, false)
+}
+
+// ContinuesOK reports ContinuesAt(ga, a, posA, g, p, pos).OK(), comparing the positions only
+// until a bar above is found out of reach.
+func ContinuesOK(ga Geometry, a Pattern, posA [][2]float64, g Geometry, p Pattern, pos [][2]float64) bool {
+	return continues(ga, a, posA, g, p, pos, true).OK()
+}
+
+// continues is ContinuesAt; with stop, Farthest is that of the bars up to the first one out of
+// reach, which is enough for OK.
+func continues(ga Geometry, a Pattern, posA [][2]float64, g Geometry, p Pattern, pos [][2]float64, stop bool) Continuity {
 	positions := func() ([][2]float64, [][2]float64) {
 		if posA == nil {
 			posA = ga.Positions(a)
@@ -217,7 +229,8 @@ func ContinuesAt(ga Geometry, a Pattern, posA [][2]float64, g Geometry, p Patter
 			c.Offset = math.Abs(ga.RingRadius(a.Dia) - g.RingRadius(p.Dia))
 		}
 		if c.SameSection && c.Ratio <= 1+1e-9 {
-			c.Farthest = farthestBar(positions())
+			above, below := positions()
+			c.Farthest = farthestBar(above, below, c.Reach, stop)
 			c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
 		}
 		return c
@@ -229,16 +242,19 @@ func ContinuesAt(ga Geometry, a Pattern, posA [][2]float64, g Geometry, p Patter
 	if !c.SameSection || c.Ratio > 1+1e-9 {
 		return c // cranked, or too few bars or too small: the positions need no comparing
 	}
-	c.Farthest = farthestBar(positions())
+	above, below := positions()
+	c.Farthest = farthestBar(above, below, c.Reach, stop)
 	c.Ratio = math.Max(c.Ratio, c.Farthest/c.Reach)
 	return c
 }
 
-// farthestBar returns the greatest distance from a bar of above to the nearest bar of below, mm.
+// farthestBar returns the greatest distance from a bar of above to the nearest bar of below, mm;
+// with stop, the greatest up to the first bar of above farther than reach (by the ratio OK
+// tests), which it returns at once.
 //
 // The distance is taken by math.Hypot only for the bars that may be the nearest by squared
 // distance; a bar at the same place ends the search.
-func farthestBar(above, below [][2]float64) float64 {
+func farthestBar(above, below [][2]float64, reach float64, stop bool) float64 {
 	out := 0.0
 	for _, q := range above {
 		near, bd := math.Inf(1), math.Inf(1)
@@ -255,6 +271,9 @@ func farthestBar(above, below [][2]float64) float64 {
 			}
 		}
 		out = math.Max(out, near)
+		if stop && out/reach > 1+1e-9 {
+			return out
+		}
 	}
 	return out
 }

@@ -200,3 +200,45 @@ func TestContinuesAtMatchesContinues(t *testing.T) {
 		}
 	}
 }
+
+// TestContinuesOKMatches holds ContinuesOK, which stops at the first bar out of reach, to the
+// OK of the whole comparison for every pair of patterns of a section, the same and across
+// sections and rings (common practice, no source).
+func TestContinuesOKMatches(t *testing.T) {
+	geoms := []Geometry{{B: 400, H: 500, Cover: 35, Link: 8}, {B: 450, H: 500, Cover: 35, Link: 10}, {B: 500, H: 500, Cover: 40, Link: 10, Circle: true}}
+	var pats []Pattern
+	for _, d := range []float64{12, 16, 20, 25} {
+		for nb := 2; nb <= 5; nb++ {
+			for nh := 2; nh <= 5; nh++ {
+				pats = append(pats, Pattern{Dia: d, NB: nb, NH: nh})
+			}
+		}
+		for n := 6; n <= 12; n += 2 {
+			pats = append(pats, Pattern{Dia: d, Ring: n})
+		}
+	}
+	oks, fails := 0, 0
+	for _, ga := range geoms {
+		for _, g := range geoms {
+			for _, a := range pats {
+				for _, p := range pats {
+					if (a.Ring > 0) != ga.Circle || (p.Ring > 0) != g.Circle {
+						continue
+					}
+					want := ContinuesAt(ga, a, nil, g, p, nil).OK()
+					if got := ContinuesOK(ga, a, nil, g, p, nil); got != want {
+						t.Fatalf("%v over %v: %v, want %v", a, p, got, want)
+					}
+					if want {
+						oks++
+					} else {
+						fails++
+					}
+				}
+			}
+		}
+	}
+	if oks == 0 || fails == 0 {
+		t.Errorf("%d pairs continue, %d do not: the cases should have both", oks, fails)
+	}
+}
