@@ -87,8 +87,7 @@ func newBook(r *design.Result) *book {
 	}
 	b.pre = make([]string, len(r.Designs))
 	for i := range r.Designs {
-		d := &r.Designs[i]
-		p := d.Column + "/" + d.Storey + "/"
+		p := r.Designs[i].Prefix()
 		b.pre[i] = p
 		b.lifts[p] = append(b.lifts[p], i)
 	}

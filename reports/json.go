@@ -313,7 +313,7 @@ func EncodeDesign(d *design.Design) *EncodedDesign {
 		return e
 	}
 	text = append(text, `,"trace":[`...)
-	prefix := d.Column + "/" + d.Storey + "/"
+	prefix := d.Prefix()
 	e.cuts = make([]int, len(d.Steps))
 	for i := range d.Steps {
 		if i > 0 {
@@ -340,17 +340,15 @@ func (s *JSONStream) Write(e *EncodedDesign) error {
 		s.e.raw(",")
 	}
 	s.n++
-	b := s.e.scratch[:0]
+	var num [20]byte
 	at := 0
 	for i, c := range e.cuts {
-		b = append(b[:0], e.text[at:c]...)
-		b = strconv.AppendInt(b, int64(s.pk.formOf(&e.d.Steps[i])), 10)
-		if _, s.e.err = s.e.w.Write(b); s.e.err != nil {
+		s.e.w.Write(e.text[at:c])
+		if _, s.e.err = s.e.w.Write(strconv.AppendInt(num[:0], int64(s.pk.formOf(&e.d.Steps[i])), 10)); s.e.err != nil {
 			return s.e.err
 		}
 		at = c
 	}
-	s.e.scratch = b
 	_, s.e.err = s.e.w.Write(e.text[at:])
 	text := e.text[:0]
 	e.text, e.d = nil, nil
@@ -467,17 +465,12 @@ func designJSON(d design.Design) jsonDesign {
 // inside a whole document (compact, without HTML escapes); the first error sticks.
 type jsonWriter struct {
 	w       *bufio.Writer
-	buf     bytes.Buffer
-	enc     *json.Encoder
-	scratch []byte // one packed step
+	scratch []byte // one packed step, or one value
 	err     error
 }
 
 func newJSONWriter(w io.Writer) *jsonWriter {
-	e := &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
-	e.enc = json.NewEncoder(&e.buf)
-	e.enc.SetEscapeHTML(false)
-	return e
+	return &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
 }
 
 func (e *jsonWriter) raw(s string) {
@@ -490,40 +483,48 @@ func (e *jsonWriter) value(v any) {
 	if e.err != nil {
 		return
 	}
-	e.buf.Reset()
-	if e.err = e.enc.Encode(v); e.err == nil {
-		_, e.err = e.w.Write(bytes.TrimSuffix(e.buf.Bytes(), []byte("\n")))
+	if e.scratch, e.err = appendValue(e.scratch[:0], v); e.err == nil {
+		_, e.err = e.w.Write(e.scratch)
 	}
 }
 
-// objectEncoder is an encoder of JSON without HTML escapes, with its buffer.
-type objectEncoder struct {
+// valueEncoder is an encoder of JSON without HTML escapes, with its buffer.
+type valueEncoder struct {
 	buf bytes.Buffer
 	enc *json.Encoder
 }
 
-// encoders holds objectEncoders for appendObjectOpen, which may run on several goroutines.
+// encoders holds valueEncoders for appendValue, which may run on several goroutines.
 var encoders = sync.Pool{New: func() any {
-	o := &objectEncoder{}
+	o := &valueEncoder{}
 	o.enc = json.NewEncoder(&o.buf)
 	o.enc.SetEscapeHTML(false)
 	return o
 }}
 
-// appendObjectOpen appends the JSON object v as encoding/json writes it (no HTML escapes)
-// without its closing brace, for keys to follow by hand.
-func appendObjectOpen(b []byte, v any) ([]byte, error) {
-	o := encoders.Get().(*objectEncoder)
+// appendValue appends v as encoding/json writes it, compact and without HTML escapes.
+func appendValue(b []byte, v any) ([]byte, error) {
+	o := encoders.Get().(*valueEncoder)
 	defer encoders.Put(o)
 	o.buf.Reset()
 	if err := o.enc.Encode(v); err != nil {
 		return b, err
 	}
-	t := bytes.TrimSuffix(o.buf.Bytes(), []byte("\n"))
-	if len(t) == 0 || t[len(t)-1] != '}' {
-		return b, fmt.Errorf("reports: %T is not a JSON object", v)
+	return append(b, bytes.TrimSuffix(o.buf.Bytes(), []byte("\n"))...), nil
+}
+
+// appendObjectOpen appends the JSON object v as appendValue does, without its closing brace,
+// for keys to follow by hand.
+func appendObjectOpen(b []byte, v any) ([]byte, error) {
+	n := len(b)
+	b, err := appendValue(b, v)
+	if err != nil {
+		return b[:n], err
 	}
-	return append(b, t[:len(t)-1]...), nil
+	if len(b) == n || b[len(b)-1] != '}' {
+		return b[:n], fmt.Errorf("reports: %T is not a JSON object", v)
+	}
+	return b[:len(b)-1], nil
 }
 
 // step writes step st packed under the form k, its ID prefixed by prefix (see jsonStep): the

@@ -648,8 +648,7 @@ type printing struct {
 type renderer struct {
 	r          *design.Result
 	bk         *book
-	p          place
-	o          Options
+	p          place // the sheets' place, with the options
 	set        *sheetSet
 	fs         []printing
 	mdP, htmlP *printing
@@ -665,7 +664,7 @@ func newRenderer(r *design.Result, formats map[string]bool, o Options) (*rendere
 	}
 	bk := newBook(r)
 	// The index's tree is built when its page is printed and let go after, as the sheets' are.
-	x := &renderer{r: r, bk: bk, p: place{opt: o}, o: o, set: &sheetSet{names: bk.names}}
+	x := &renderer{r: r, bk: bk, p: place{opt: o}, set: &sheetSet{names: bk.names}}
 	for _, f := range []struct {
 		name string
 		f    format
@@ -765,7 +764,7 @@ func (x *renderer) page(i int) ([]file, error) {
 // docFile prints the calc document in the format of f: its tree built once, by the first
 // printing that needs it, while the last sheets may still be printing.
 func (x *renderer) docFile(f printing) ([]file, error) {
-	x.docOnce.Do(func() { x.doc = document(x.r, x.bk, place{onePage: true, opt: x.o}) })
+	x.docOnce.Do(func() { x.doc = document(x.r, x.bk, place{onePage: true, opt: x.p.opt}) })
 	var d Sheet
 	var err error
 	if f.html != nil {

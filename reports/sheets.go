@@ -754,7 +754,7 @@ func casesTable(d design.Design, o Options) *tableView {
 	if len(d.Cases) < 2 {
 		return nil
 	}
-	prefix := d.Column + "/" + d.Storey + "/"
+	prefix := d.Prefix()
 	at := make(map[string]int, len(d.Steps)) // the design's steps by their own IDs
 	for i := range d.Steps {
 		at[d.Steps[i].ID] = i

@@ -61,10 +61,10 @@ func (c *common) asBuilt(l *trace.Log, d *Design, in built) {
 		l.Group = "Anchorage of the " + what + " (EN 1992-1-1 8.4.4)"
 		lbd = detail.AnchorageSteps(l, "built/anch/", "Design anchorage length of the "+what, in.phi, c.bs.bond)
 		if bottom {
-			*l.Last() = l.Last().Note("Starter bars: straight into the foundation as given, in compression and good bond; the foundation is taken to be of the column's concrete.")
+			l.NoteLast("Starter bars: straight into the foundation as given, in compression and good bond; the foundation is taken to be of the column's concrete.")
 		}
 		if top {
-			*l.Last() = l.Last().Note("At the roof the bars run up into the roof beams or slab to the cover at the top; lbd is measured from the soffit. Where the roof construction is shallower than lbd plus the cover, the bars are bent over into it.")
+			l.NoteLast("At the roof the bars run up into the roof beams or slab to the cover at the top; lbd is measured from the soffit. Where the roof construction is shallower than lbd plus the cover, the bars are bent over into it.")
 		}
 		if st := c.in.Options.LapStep; st > 0 {
 			lbd = l.Add(detail.RoundUp("built/anch/lbd_built", "Anchorage length as built", "l_bd,prov", lbd, trace.Const(st, "Δl", "mm")))

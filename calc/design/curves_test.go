@@ -1,11 +1,9 @@
 package design
 
 import (
-	"os"
 	"reflect"
 	"testing"
 
-	"colsheet/calc/input"
 	"colsheet/calc/material"
 	"colsheet/calc/section"
 )
@@ -15,19 +13,7 @@ import (
 // and checks that lifts did share them (common practice, no source: a memo must not change
 // what it returns).
 func TestCurveMemoSame(t *testing.T) {
-	file := "../../testdata/demo.yaml"
-	data, err := os.ReadFile(file)
-	if err != nil {
-		t.Fatal(err)
-	}
-	in, err := input.Parse(file, data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := Run(in)
-	if err != nil {
-		t.Fatal(err)
-	}
+	r := mustRun(t, parseFile(t, "../../testdata/demo.yaml"))
 	AddInteraction(r)
 	with, circles := 0, 0
 	for k := range r.Designs {

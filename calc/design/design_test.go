@@ -2,11 +2,13 @@ package design
 
 import (
 	"math"
+	"os"
 	"slices"
 	"strings"
 	"testing"
 
 	"colsheet/calc/code"
+	"colsheet/calc/input"
 	"colsheet/calc/material"
 	"colsheet/calc/model"
 	"colsheet/calc/trace"
@@ -365,6 +367,20 @@ func mustRun(t testing.TB, in *model.Input) *Result {
 		t.Fatal(err)
 	}
 	return r
+}
+
+// parseFile reads and parses the input file.
+func parseFile(t testing.TB, file string) *model.Input {
+	t.Helper()
+	data, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := input.Parse(file, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return in
 }
 
 // The untraced evaluation that prunes candidates and checks the moment arrangements gives the

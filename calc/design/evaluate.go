@@ -192,7 +192,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 	s1 := l.Add(detail.RoundDown("links/s", sTitle, "s_t", sGen, step))
 	s2 := l.Add(detail.RoundDown("links/s_zone", sZoneTitle, "s_t,red", sZone, step))
 	if d.Links.Type == LinksHelix {
-		*l.Last() = l.Last().Note("A helix is taken as links at its pitch: the spacings of 9.5.3(3) and (4) and of the shear apply to the pitch.")
+		l.NoteLast("A helix is taken as links at its pitch: the spacings of 9.5.3(3) and (4) and of the shear apply to the pitch.")
 	}
 	d.Links.Dia, d.Links.Spacing, d.Links.SpacingReduced = link, s1.V, s2.V
 	checks = append(checks, c.shearChecks(l, plan, s1, &d)...)
@@ -255,7 +255,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 				Note("NEd is a tension: the imperfections of 5.2, the minimum eccentricity of 6.1(4) and the second-order effects of 5.8 concern members in compression and do not apply."))
 			ax.MEd = mEd.V
 			mEd.Symbol = "M_Ed," + n
-			if last := l.Last(); full && last != nil {
+			if last := l.Last(); last != nil {
 				last.Symbol = mEd.Symbol
 			}
 			mEds[k] = mEd
@@ -346,7 +346,7 @@ func (c *common) evaluate(p detail.Pattern, given, full bool) Design {
 		}
 		ax.MEd = mEd.V
 		mEd.Symbol = "M_Ed," + n
-		if last := l.Last(); full && last != nil {
+		if last := l.Last(); last != nil {
 			last.Symbol = mEd.Symbol
 		}
 		mEds[k] = mEd

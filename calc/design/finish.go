@@ -25,7 +25,7 @@ func (c *common) finish(d Design) Design {
 	} else {
 		d.sec = &r.sec
 	}
-	l := &trace.Log{Steps: d.Steps, Group: "Steel area required", Trial: c.lean}
+	l := c.log(d.Steps, "Steel area required")
 	sec := r // the searches scale copies of its bars and leave it as provided
 	bound := areaBound * c.ac.V
 	var as float64
@@ -84,7 +84,7 @@ func (c *common) noArrangement() Design {
 		axes[k].Ei, axes[k].M0Ed, axes[k].PhiEf = a.ei.V, a.m02i.V, a.phiEf.V
 	}
 	// The failure is recorded as a check step, so that the utilisation is a traced value.
-	l := &trace.Log{Steps: c.steps, Group: "Reinforcement limits", Trial: c.lean}
+	l := c.log(c.steps, "Reinforcement limits")
 	if c.asMin.V > c.asMax.V {
 		d.Utilization = l.Add(trace.Check("lim/As_range", "Minimum steel within the maximum", "EN 1992-1-1:2004 9.5.2(2), (3)", "A_s,min ≤ A_s,max",
 			c.asMin.V/c.asMax.V, "As_min / As_max", trace.A("As_min", c.asMin), trace.A("As_max", c.asMax))).V

@@ -245,13 +245,16 @@ func linkType(col *model.Column) string {
 // refers to the lift above) or of the project basis (basis/…, Result.Basis), and only
 // loses its slash.
 func (d *Design) Trace() []trace.Step {
-	prefix := d.Column + "/" + d.Storey + "/"
+	prefix := d.Prefix()
 	out := make([]trace.Step, len(d.Steps))
 	for i, s := range d.Steps {
 		out[i] = WholeStep(prefix, s)
 	}
 	return out
 }
+
+// Prefix returns the start of the whole IDs of the design's steps, "COLUMN/LIFT/".
+func (d *Design) Prefix() string { return d.Column + "/" + d.Storey + "/" }
 
 // WholeStep returns step s of the design whose IDs start with prefix ("COLUMN/LIFT/") as Trace
 // gives it: its ID and its arguments' sources as whole IDs.

@@ -454,6 +454,12 @@ var paramFrom = func() map[string]string {
 	return m
 }()
 
+// log returns a log that appends to steps under group, keeping only the check steps where the
+// design is lean.
+func (c *common) log(steps []trace.Step, group string) *trace.Log {
+	return &trace.Log{Steps: steps, Group: group, Trial: c.lean}
+}
+
 // leanRoom is the room for the check steps of a lean design (common.lean).
 const leanRoom = 96
 
@@ -722,7 +728,7 @@ func (c *common) withArrangements(d *Design, dv *Derivation) {
 	if dv == nil {
 		return
 	}
-	l := &trace.Log{Steps: d.Steps, Group: "Resistance with the NEd of the moment arrangements", Trial: c.lean}
+	l := c.log(d.Steps, "Resistance with the NEd of the moment arrangements")
 	added := false
 	// lean records the check w of a trial without its arguments and note; it reports whether d is one.
 	lean := func(w *arrWord, ratio float64) bool {

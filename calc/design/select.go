@@ -343,7 +343,7 @@ func stepQ(d *Design, id string, v float64, symbol, unit string) trace.Q {
 // practice records the rules of practice of the chosen pattern, the continuity of its bars with
 // the lift above and the costs that made it win, adds its checks and settles the design again.
 func (c *common) practice(d *Design, ch choice, r rules) {
-	l := &trace.Log{Steps: d.Steps, Group: "Choice of the bars (common practice)", Trial: c.lean}
+	l := c.log(d.Steps, "Choice of the bars (common practice)")
 	p, g := ch.o.p, c.geometry(ch.o.p)
 	phi := stepQ(d, "bars/phi", p.Dia, "φ", "mm")
 	phiT := stepQ(d, "links/phi_t", g.Link, "φ_t", "mm")
@@ -452,7 +452,7 @@ func (c *common) practice(d *Design, ch choice, r rules) {
 	}
 	l.Add(trace.Input("sel/costed", "Patterns tried after the chosen one, in order of cost, for the comparison", "common practice", "n_tried", "", float64(ch.costed)))
 	if len(ch.alts) < 2 {
-		*l.Last() = l.Last().Note([]string{
+		l.NoteLast([]string{
 			"None of them passes: the chosen pattern is the only one that passes among those tried.",
 			"Only one of them passes.",
 		}[len(ch.alts)])

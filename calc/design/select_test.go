@@ -1,12 +1,10 @@
 package design
 
 import (
-	"os"
 	"strconv"
 	"testing"
 
 	"colsheet/calc/detail"
-	"colsheet/calc/input"
 	"colsheet/calc/model"
 )
 
@@ -45,14 +43,7 @@ func continuous(t *testing.T, name string, r *Result) (cranks int) {
 
 // The shipped demo building: every lift passes and its bars continue up every column.
 func TestContinuityInDemo(t *testing.T) {
-	data, err := os.ReadFile("../../testdata/demo.yaml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	in, err := input.Parse("demo.yaml", data)
-	if err != nil {
-		t.Fatal(err)
-	}
+	in := parseFile(t, "../../testdata/demo.yaml")
 	r := mustRun(t, in)
 	if n := r.Failed(); n > 0 {
 		t.Errorf("%d lifts of the demo fail", n)

@@ -294,11 +294,15 @@ type Log struct {
 	// Trial, when set, keeps only check steps, for a trial whose trace is not wanted;
 	// the results of the other steps are returned all the same.
 	Trial bool
+	// dropped is set when the last Add kept no step (Trial), so that Last does not give an
+	// earlier one.
+	dropped bool
 }
 
 // Add appends the step, giving it the log's prefix and current group, and returns its result.
 func (l *Log) Add(s Step) Q {
-	if l.Trial && s.Kind != KindCheck {
+	l.dropped = l.Trial && s.Kind != KindCheck
+	if l.dropped {
 		return Q{V: s.Value, Symbol: s.Symbol, Unit: s.Unit, From: s.ID}
 	}
 	s.ID = l.Prefix + s.ID
@@ -309,12 +313,20 @@ func (l *Log) Add(s Step) Q {
 	return s.Q()
 }
 
-// Last returns a pointer to the most recent step, or nil when the log is empty.
+// Last returns a pointer to the most recent step, or nil when the log is empty or a trial's
+// log kept none of the last step added.
 func (l *Log) Last() *Step {
-	if len(l.Steps) == 0 {
+	if len(l.Steps) == 0 || l.dropped {
 		return nil
 	}
 	return &l.Steps[len(l.Steps)-1]
+}
+
+// NoteLast adds a note for the reader to the most recent step, where Last gives one.
+func (l *Log) NoteLast(text string) {
+	if s := l.Last(); s != nil {
+		*s = s.Note(text)
+	}
 }
 
 // stepJSON is the JSON form of a step: every part a field of its own.

@@ -3,14 +3,12 @@ package main
 import (
 	"fmt"
 	"io"
-	"os"
 	"path/filepath"
 	"runtime"
 	"strings"
 	"testing"
 
 	"colsheet/calc/design"
-	"colsheet/calc/input"
 	"colsheet/reports"
 )
 
@@ -18,15 +16,7 @@ import (
 // its size: the targets are a results.json of at most 15 MB and at most 25 MB of other output
 // (the calc document's page count, at most 250, is measured with pdflatex in the closing notes).
 func BenchmarkDemoPackage(b *testing.B) {
-	name := filepath.Join("..", "..", "testdata", "demo.yaml")
-	data, err := os.ReadFile(name)
-	if err != nil {
-		b.Fatal(err)
-	}
-	in, err := input.Parse(name, data)
-	if err != nil {
-		b.Fatal(err)
-	}
+	in := parseFile(b, filepath.Join("..", "..", "testdata", "demo.yaml"))
 	in.Project.Date = "2026-12-01"
 	res, err := design.Run(in)
 	if err != nil {

@@ -12,6 +12,7 @@ import (
 
 	"colsheet/calc/design"
 	"colsheet/calc/input"
+	"colsheet/calc/model"
 	"colsheet/reports"
 	"colsheet/reports/archive"
 )
@@ -134,15 +135,7 @@ func TestResultsTextInOrder(t *testing.T) {
 		files = append(files, "../../testdata/demo.yaml")
 	}
 	for _, file := range files {
-		data, err := os.ReadFile(file)
-		if err != nil {
-			t.Fatal(err)
-		}
-		in, err := input.Parse(file, data)
-		if err != nil {
-			t.Fatal(err)
-		}
-		r, err := design.Run(in)
+		r, err := design.Run(parseFile(t, file))
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -169,4 +162,18 @@ func TestResultsTextInOrder(t *testing.T) {
 			}()
 		}
 	}
+}
+
+// parseFile reads and parses the input file.
+func parseFile(t testing.TB, file string) *model.Input {
+	t.Helper()
+	data, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, err := input.Parse(file, data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return in
 }
